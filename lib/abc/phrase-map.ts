@@ -1,0 +1,130 @@
+// The phrase map (issue 3 §5): parts, phrases, form letters, twins, cross-part patterns and the
+// learning load, computed from the skeleton's bars in one pass over the notes (no parsing).
+import type { Bar, Fraction } from "./types";
+import type { PartMap, PhraseMap, Swap, Twin } from "./phrase-types";
+import { beatNumber, fullBarLength, gridStep, pitchName } from "./phrase-time";
+import { cellsOf, compareCells, sampleBars, type Comparison } from "./phrase-grid";
+import { findParts } from "./phrase-parts";
+import { groupBars } from "./phrase-group";
+import { unitsOf, type Unit } from "./phrase-units";
+import { findPatterns } from "./phrase-patterns";
+import { assignLetters } from "./phrase-letters";
+
+export type { PhraseMap } from "./phrase-types";
+
+/** Twins differ in at most this many notes (PRODUCT.md §3: "only one or two notes"). */
+export const NEAR_TWIN_NOTES = 2;
+
+export type Comparer = (a: Unit, b: Unit) => Comparison | null;
+
+export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseMap {
+  const step = gridStep(bars, unit);
+  const grids = sampleBars(bars, step);
+  const plans = findParts(bars, fullBarLength(bars, meter));
+
+  const units: Unit[] = [];
+  const perPart = plans.map((plan, i) => {
+    const grouping = groupBars(plan.main.length);
+    const pp = unitsOf(plan, i, grouping);
+    for (const p of pp.phrases) units.push(p.main, ...p.variants);
+    return { plan, grouping, pp };
+  });
+
+  const cells = new Map(units.map((u) => [u, cellsOf(u.bars, grids, step)]));
+  const cache = new Map<string, Comparison | null>();
+  const compare: Comparer = (a, b) => {
+    const key = a.id < b.id ? `${a.id}|${b.id}` : `${b.id}|${a.id}`;
+    let c = cache.get(key);
+    if (c === undefined) {
+      // phrases of different bar counts are never twins; the rest stop counting past a near twin
+      c = a.bars.length !== b.bars.length ? null : compareCells(cells.get(a) ?? [], cells.get(b) ?? [], NEAR_TWIN_NOTES);
+      cache.set(key, c);
+    }
+    return c;
+  };
+
+  const { letters, swaps: swapPairs } = assignLetters(units, compare, NEAR_TWIN_NOTES);
+
+  const twins: Twin[] = [];
+  for (let i = 0; i < units.length; i++) {
+    for (let j = i + 1; j < units.length; j++) {
+      const a = units[i] as Unit;
+      const b = units[j] as Unit;
+      const c = compare(a, b);
+      if (c === null || c.differingNotes > NEAR_TWIN_NOTES) continue;
+      twins.push({
+        first: a.id,
+        second: b.id,
+        kind: c.differingNotes === 0 ? "exact" : "near",
+        differingNotes: c.differingNotes,
+        differences: c.differences.map((d) => ({
+          firstBar: d.firstBar,
+          secondBar: d.secondBar,
+          beat: beatNumber(d.onset, meter),
+          firstPitch: d.firstPitch,
+          secondPitch: d.secondPitch,
+          firstNote: pitchName(d.firstPitch),
+          secondNote: pitchName(d.secondPitch),
+          notes: d.notes,
+        })),
+        partial: c.partial,
+      });
+    }
+  }
+
+  const parts: PartMap[] = perPart.map(({ plan, grouping, pp }) => ({
+    label: plan.label,
+    foundBy: plan.foundBy,
+    pickup: plan.pickups.map((b) => b.number),
+    countedBars: plan.main.length,
+    grouping,
+    endings: pp.endings,
+    phrases: pp.phrases.map((p) => ({
+      id: p.main.id,
+      bars: range(p.rangeBars),
+      barNumbers: p.main.bars.map((b) => b.number),
+      letter: letters.get(p.main) ?? "?",
+      alternatives: p.variants.map((v) => ({
+        id: v.id,
+        ending: v.ending ?? "",
+        bars: range(v.bars),
+        barNumbers: v.bars.map((b) => b.number),
+        letter: letters.get(v) ?? "?",
+      })),
+    })),
+  }));
+
+  const swaps: Swap[] = swapPairs.map(([u, model]) => ({
+    phrase: u.id,
+    model: model.id,
+    differingNotes: compare(u, model)?.differingNotes ?? 0,
+  }));
+  const distinct = new Set(letters.values()).size;
+  const afterSwaps = new Set(units.map((u) => baseLetter(letters.get(u) ?? ""))).size;
+
+  return {
+    parts,
+    twins,
+    patterns: findPatterns(
+      perPart.map((p) => ({ label: p.plan.label, phrases: p.pp.phrases })),
+      compare,
+      NEAR_TWIN_NOTES,
+    ),
+    swaps,
+    learningLoad: { distinct, afterSwaps },
+    grid: `${step.num}/${step.den}`,
+  };
+}
+
+/** The letter without its primes: a′ → a. */
+export const baseLetter = (letter: string): string => letter.replace(/[′″‴⁗]+$/u, "");
+
+function range(bars: Bar[]): [number, number] {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const b of bars) {
+    lo = Math.min(lo, b.number);
+    hi = Math.max(hi, b.number);
+  }
+  return bars.length === 0 ? [0, 0] : [lo, hi];
+}

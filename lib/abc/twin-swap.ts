@@ -1,0 +1,102 @@
+// Twin swap (issue 3 §6): the learning version of a tune in which each chosen near twin is played
+// exactly like its model, made by copying the model's bar text over the twin's, bar by bar.
+import type { Bar } from "./types";
+import type { PhraseMap, Swap } from "./phrase-types";
+import { toNumber } from "./phrase-time";
+import { barContent, fieldsAt } from "./twin-text";
+
+export interface SwapPlan {
+  /** Swaps made, and the ones left out with the reason. */
+  made: Swap[];
+  skipped: { swap: Swap; reason: string }[];
+  edits: { start: number; end: number; text: string }[];
+}
+
+/** Bars of a phrase id ("A3", or "A4/2" for A4 played with ending 2), in order. */
+export function phraseBars(map: PhraseMap, id: string): number[] | null {
+  for (const part of map.parts) {
+    for (const p of part.phrases) {
+      if (p.id === id) return p.barNumbers;
+      const alt = p.alternatives.find((a) => a.id === id);
+      if (alt !== undefined) return alt.barNumbers;
+    }
+  }
+  return null;
+}
+
+/**
+ * Which phrase is the model: the first occurrence of the letter (a for a′, a″ …), as the phrase
+ * map lists it in `swaps`; the later near twin is the one changed. Each bar of the twin is
+ * replaced by the text of the model's bar in the same place, keeping the twin's own bar lines,
+ * repeats and ending numbers. A bar whose length differs from its model's (a last bar cut short
+ * for a pickup) is kept when no difference lies in it; otherwise the swap is left out, as it is
+ * where a different key, unit length or meter is in force (copied text would sound differently).
+ */
+export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: string[]): SwapPlan {
+  const byNumber = new Map<number, Bar>();
+  for (const b of bars) if (b.number > 0 && !byNumber.has(b.number)) byNumber.set(b.number, b);
+  const chosen = which === undefined ? map.swaps : map.swaps.filter((s) => which.includes(s.phrase));
+  const plan: SwapPlan = { made: [], skipped: [], edits: [] };
+  const changed = new Set<number>();
+  for (const swap of chosen) {
+    const mine = phraseBars(map, swap.phrase);
+    const model = phraseBars(map, swap.model);
+    if (mine === null || model === null || mine.length !== model.length) {
+      plan.skipped.push({ swap, reason: "the phrases have different numbers of bars" });
+      continue;
+    }
+    const differing = barsWithDifferences(map, swap);
+    const edits: SwapPlan["edits"] = [];
+    let reason: string | null = null;
+    for (let k = 0; k < mine.length && reason === null; k++) {
+      const target = byNumber.get(mine[k] as number);
+      const source = byNumber.get(model[k] as number);
+      if (target === undefined || source === undefined) reason = "a bar of the phrase is missing from the tune";
+      else if (target === source) continue;
+      else if (changed.has(target.number)) reason = `bar ${target.number} is already changed by another swap`;
+      else if (toNumber(target.length) !== toNumber(source.length)) {
+        if (differing.has(target.number)) reason = `bar ${target.number} differs from its model in length`;
+      } else if (fieldsAt(abc, target.startChar) !== fieldsAt(abc, source.startChar)) {
+        reason = `bar ${target.number} is in a different key, unit length or meter from its model`;
+      } else {
+        const [ts, te] = barContent(abc, target);
+        const [ss, se] = barContent(abc, source);
+        edits.push({ start: ts, end: te, text: abc.slice(ss, se) });
+      }
+    }
+    if (reason !== null) plan.skipped.push({ swap, reason });
+    else {
+      plan.made.push(swap);
+      plan.edits.push(...edits);
+      for (const n of mine) changed.add(n);
+    }
+  }
+  return plan;
+}
+
+/** Bars (of the twin) in which the map found a difference from the model. */
+function barsWithDifferences(map: PhraseMap, swap: Swap): Set<number> {
+  const out = new Set<number>();
+  for (const t of map.twins) {
+    if (t.first === swap.model && t.second === swap.phrase) for (const d of t.differences) out.add(d.secondBar);
+    if (t.second === swap.model && t.first === swap.phrase) for (const d of t.differences) out.add(d.firstBar);
+  }
+  return out;
+}
+
+/** Applies edits (non-overlapping offsets into `abc`) from the end, so earlier offsets stay valid. */
+export function applyEdits(abc: string, edits: SwapPlan["edits"]): string {
+  let out = abc;
+  for (const e of [...edits].sort((a, b) => b.start - a.start)) out = out.slice(0, e.start) + e.text + out.slice(e.end);
+  return out;
+}
+
+/**
+ * The learning version of the tune as ABC: every chosen near twin (phrase ids; default every near
+ * twin the map lists in `swaps`) played exactly like its model. `abc` and `bars` must belong
+ * together (the source with its model's bars, or a stage with its own); the map may come from the
+ * skeleton, since the skeleton keeps the source's bar numbers.
+ */
+export function twinSwap(abc: string, bars: Bar[], map: PhraseMap, which?: string[]): string {
+  return applyEdits(abc, planSwaps(abc, bars, map, which).edits);
+}

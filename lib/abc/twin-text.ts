@@ -1,0 +1,49 @@
+// Where a bar's own music is in the ABC text, and which fields are in force there: what the twin
+// swap needs to copy one bar's text over another's safely.
+import type { Bar } from "./types";
+
+/**
+ * The bar's music without the bar lines around it: from its first symbol (after any line break,
+ * field line or ending number that precedes it) to just before its closing bar line. Chord
+ * symbols, decorations and a slur closed after the last note stay inside; the closing bar line
+ * (with any repeat dots or the next ending's number) stays outside.
+ */
+export function barContent(abc: string, bar: Bar): [number, number] {
+  const first = bar.notes[0]?.startChar ?? bar.startChar;
+  let start = bar.startChar;
+  // a line break before the first note leaves field lines (P:, K: …) and the break outside
+  const nl = abc.lastIndexOf("\n", first - 1);
+  if (nl >= start) start = nl + 1;
+  while (start < first && /\s/.test(abc.charAt(start))) start++;
+  let end = Math.max(...bar.notes.map((n) => n.endChar), start);
+  end = Math.min(end, bar.endChar);
+  // walk past what may follow the last note (")", "!fermata!", "[K:G]", a chord symbol) up to the bar line
+  let i = end;
+  while (i < bar.endChar) {
+    const c = abc.charAt(i);
+    if (c === "|" || (c === ":" && /[|:]/.test(abc.charAt(i + 1)))) break;
+    if (c === "[" && /[|\d]/.test(abc.charAt(i + 1))) break;
+    if (c === "\n") break;
+    const close = c === '"' ? '"' : c === "!" ? "!" : c === "[" ? "]" : c === "{" ? "}" : "";
+    if (close !== "") {
+      const j = abc.indexOf(close, i + 1);
+      i = j < 0 || j >= bar.endChar ? i + 1 : j + 1;
+    } else i++;
+    if (!/\s/.test(c)) end = i;
+  }
+  return [start, end];
+}
+
+/**
+ * The K:, L:, M: and V: fields in force at a position (header and body, inline or on their own
+ * line). Copying a bar's text is only safe where the same fields are in force, or its notes
+ * would sound or last differently.
+ */
+export function fieldsAt(abc: string, at: number): string {
+  const found: Record<string, string> = {};
+  const re = /(?:^|\[)([KLMV]):([^\]\n%]*)/gm;
+  for (let m = re.exec(abc); m !== null && m.index < at; m = re.exec(abc)) {
+    found[m[1] as string] = (m[2] ?? "").trim();
+  }
+  return ["K", "L", "M", "V"].map((k) => `${k}:${found[k] ?? ""}`).join("|");
+}
