@@ -1,0 +1,63 @@
+// Every embellishment of a tune with its kind and position (issue 3 §2).
+import { add, div, toNumber } from "./fraction";
+import { beatOf } from "./header";
+import { tokKind } from "./emit";
+import type { VBar } from "./bars";
+import type { NoteEl } from "./model";
+import type { Prepared } from "./tune";
+import type { Embellishment, Fraction, Kind, Position } from "./types";
+
+const NAMES: Record<string, string> = {
+  "<(": "crescendo", "crescendo(": "crescendo", "<)": "crescendo end", "crescendo)": "crescendo end",
+  ">(": "diminuendo", "diminuendo(": "diminuendo", ">)": "diminuendo end", "diminuendo)": "diminuendo end",
+  ">": "accent", emphasis: "accent", mordent: "lowermordent", pralltriller: "uppermordent",
+};
+
+function position(bar: VBar | null, grid: Fraction): Position {
+  if (!bar) return { part: "A", bar: 0, beat: 1 };
+  const beat = 1 + toNumber(div(grid, beatOf(bar.meter)));
+  return { part: bar.part, bar: bar.number, beat: Math.round(beat * 1000) / 1000 };
+}
+
+export function classify(p: Prepared): Embellishment[] {
+  const { model } = p;
+  const abc = model.abc;
+  const found: Embellishment[] = [];
+  const add1 = (kind: Kind, what: string, start: number, end: number, pos: Position): void => {
+    found.push({ kind, what, source: abc.slice(start, end), startChar: start, endChar: end, position: pos });
+  };
+  const barsOf = (voice: string): VBar[] => model.bars.get(voice) ?? [];
+  for (const el of model.edits) {
+    if (el.type === "bar") {
+      // A decoration on a bar line belongs to the end of the bar it closes.
+      const bars = barsOf(el.voice);
+      const closed = bars.find((b) => b.right === el) ?? null;
+      const pos = closed ? position(closed, add(closed.length, closed.shift)) : position(bars[0] ?? null, { num: 0, den: 1 });
+      for (const t of el.toks) if (t.kind === "deco") add1(tokKind(t) ?? "marks", NAMES[t.name] ?? t.name, t.start, t.end, pos);
+      continue;
+    }
+    const pos = position(el.bar, el.grid);
+    for (const t of el.lex.toks) {
+      const kind = tokKind(t);
+      if (!kind || t.kind === "slurClose") continue;
+      const what = t.kind === "grace" ? "grace notes" : t.kind === "slurOpen" ? (t.name === "dotted" ? "dotted slur" : "slur") : NAMES[t.name] ?? t.name;
+      add1(kind, what, t.start, t.end, pos);
+    }
+    if (el.body.chord && el.body.notes.length > 1) add1("doubleStops", chordName(el), el.body.start, el.body.end, pos);
+  }
+  for (const g of p.groups) {
+    const first = g.els[0];
+    add1("fills", g.what, first.start, g.els[g.els.length - 1].end, position(first.bar, first.grid));
+  }
+  for (const t of p.crossing) {
+    const first = t.els[0];
+    if (first) add1("fills", "tuplet across a beat (kept in every stage)", first.start, t.els[t.els.length - 1].end, position(first.bar, first.grid));
+  }
+  return found.sort((a, b) => a.startChar - b.startChar || a.endChar - b.endChar);
+}
+
+function chordName(el: NoteEl): string {
+  const distinct = new Set(el.midi).size;
+  if (distinct === 1) return "unison double stop";
+  return distinct === 2 ? "double stop" : "chord";
+}

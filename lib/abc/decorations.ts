@@ -1,0 +1,63 @@
+// Decoration names → embellishment kinds. The names are those of the ABC 2.1 decoration table
+// (§4.14, written from memory of the standard's text); the grouping into kinds is PRODUCT.md §3.
+import type { Kind } from "./types";
+
+const TABLE: Record<string, Kind> = {};
+const put = (kind: Kind, names: string[]): void => names.forEach((n) => (TABLE[n] = kind));
+
+put("ornaments", [
+  "trill", "trill(", "trill)", "lowermordent", "uppermordent", "mordent", "pralltriller",
+  "roll", "turn", "turnx", "invertedturn", "invertedturnx", "arpeggio",
+]);
+put("slides", ["slide"]);
+put("bowing", ["upbow", "downbow"]);
+put("dynamics", [
+  "pppp", "ppp", "pp", "p", "mp", "mf", "f", "ff", "fff", "ffff", "sfz",
+  "crescendo(", "<(", "crescendo)", "<)", "diminuendo(", ">(", "diminuendo)", ">)",
+]);
+put("articulation", [
+  ">", "accent", "emphasis", "fermata", "invertedfermata", "tenuto", "breath", "wedge",
+  "snap", "+", "plus", "marcato", "staccato",
+]);
+put("fingerings", ["0", "1", "2", "3", "4", "5", "open", "thumb"]);
+put("marks", [
+  "segno", "coda", "D.S.", "D.C.", "dacoda", "dacapo", "fine", "shortphrase", "mediumphrase",
+  "longphrase", "ped", "ped-up", "editorial", "courtesy", "xstem", "trem1", "trem2", "trem3", "trem4",
+]);
+
+/** Kind of a decoration name; a name the table does not know is a mark (not melody either way). */
+export function kindOfDecoration(name: string): Kind {
+  return TABLE[name] ?? "marks";
+}
+
+/**
+ * The predefined shorthands of ABC 2.1 §4.16 (from memory of the standard's table). "." is
+ * staccato (§4.14 calls it the staccato dot). J and R are abc 2.0 leftovers that abcjs also
+ * accepts (slide, roll); kept so such tunes classify instead of reporting an unknown mark.
+ */
+export const DEFAULT_SHORTHANDS: Readonly<Record<string, string>> = {
+  ".": "staccato",
+  "~": "roll",
+  H: "fermata",
+  L: "accent",
+  M: "lowermordent",
+  O: "coda",
+  P: "uppermordent",
+  S: "segno",
+  T: "trill",
+  u: "upbow",
+  v: "downbow",
+  J: "slide",
+  R: "roll",
+};
+
+/** Shorthands in force after the tune's U: fields (§4.16: U: may redefine h–w, H–W and ~). */
+export function shorthandsOf(abc: string): Record<string, string> {
+  const map: Record<string, string> = { ...DEFAULT_SHORTHANDS };
+  for (const m of abc.matchAll(/^U:\s*([~H-Wh-w])\s*=\s*(\S+)/gm)) {
+    const value = m[2].replace(/^[!+](.*)[!+]$/, "$1");
+    if (value === "nil" || value === "none") delete map[m[1]];
+    else map[m[1]] = value;
+  }
+  return map;
+}

@@ -1,0 +1,72 @@
+// Exact fractions for note times: floating-point sums of 1/3s and 1/16s drift, and the engine's
+// invariants ("every bar keeps its exact length") need equality, not closeness.
+import type { Fraction } from "./types";
+
+function gcd(a: number, b: number): number {
+  a = Math.abs(a);
+  b = Math.abs(b);
+  while (b) [a, b] = [b, a % b];
+  return a || 1;
+}
+
+export function frac(num: number, den = 1): Fraction {
+  if (den === 0) throw new RangeError("fraction with zero denominator");
+  if (den < 0) [num, den] = [-num, -den];
+  const g = gcd(num, den);
+  return { num: num / g, den: den / g };
+}
+
+export const ZERO: Fraction = { num: 0, den: 1 };
+export const add = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den + b.num * a.den, a.den * b.den);
+export const sub = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den - b.num * a.den, a.den * b.den);
+export const mul = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.num, a.den * b.den);
+export const div = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den, a.den * b.num);
+export const cmp = (a: Fraction, b: Fraction): number => a.num * b.den - b.num * a.den;
+export const eq = (a: Fraction, b: Fraction): boolean => cmp(a, b) === 0;
+export const lt = (a: Fraction, b: Fraction): boolean => cmp(a, b) < 0;
+export const toNumber = (a: Fraction): number => a.num / a.den;
+export const toString = (a: Fraction): string => (a.den === 1 ? `${a.num}` : `${a.num}/${a.den}`);
+export const isInteger = (a: Fraction): boolean => a.den === 1;
+export const sum = (xs: Fraction[]): Fraction => xs.reduce(add, ZERO);
+
+/**
+ * abcjs reports durations as floats (1/3 of an eighth is 0.041666…); recover the exact fraction
+ * by continued fractions, which find the simplest fraction within rounding error.
+ */
+export function fromNumber(x: number, maxDen = 100000): Fraction {
+  if (!Number.isFinite(x)) return ZERO;
+  const sign = x < 0 ? -1 : 1;
+  let v = Math.abs(x);
+  let [h0, h1, k0, k1] = [0, 1, 1, 0];
+  for (let i = 0; i < 40; i++) {
+    const a = Math.floor(v);
+    const h2 = a * h1 + h0;
+    const k2 = a * k1 + k0;
+    if (k2 > maxDen) break;
+    [h0, h1, k0, k1] = [h1, h2, k1, k2];
+    const rest = v - a;
+    if (Math.abs(Math.abs(x) - h1 / k1) < 1e-9 || rest < 1e-12) break;
+    v = 1 / rest;
+  }
+  return frac(sign * h1, k1);
+}
+
+/** A length as ABC writes it after a note, relative to the unit note length: 1 → "", 1/2 → "/". */
+export function abcLength(f: Fraction): string {
+  if (f.num === 1 && f.den === 1) return "";
+  if (f.den === 1) return `${f.num}`;
+  if (f.num === 1 && f.den === 2) return "/";
+  return `${f.num === 1 ? "" : f.num}/${f.den}`;
+}
+
+/** Parse an ABC length suffix ("", "2", "/", "//", "3/2", "/4", "3/") into a multiple of L (§4.3). */
+export function parseAbcLength(s: string): Fraction {
+  if (s === "") return frac(1);
+  const m = /^(\d*)(\/*)(\d*)$/.exec(s);
+  if (!m) return frac(1);
+  const num = m[1] ? Number(m[1]) : 1;
+  const slashes = m[2].length;
+  if (slashes === 0) return frac(num);
+  const den = m[3] ? Number(m[3]) * 2 ** (slashes - 1) : 2 ** slashes;
+  return frac(num, den);
+}

@@ -1,0 +1,72 @@
+// Sounding pitch of a written note: key signature, then accidentals carried to the end of the
+// bar for the same pitch in the same octave (ABC 2.1 §4.2, from memory of the standard's text).
+// The skeleton writer runs the same rules on its output, so a note whose accidental context
+// changed (an accidental lived on a removed note) gets an explicit one.
+
+const STEPS = [0, 2, 4, 5, 7, 9, 11];
+const LETTERS = "CDEFGAB";
+
+/** Staff position of a note name: C (middle C) = 0, c = 7, each ' +7, each , −7. */
+export function staffPos(name: string): number {
+  const letter = name[0];
+  let pos = LETTERS.indexOf(letter.toUpperCase()) + (letter === letter.toLowerCase() ? 7 : 0);
+  for (const ch of name.slice(1)) pos += ch === "'" ? 7 : ch === "," ? -7 : 0;
+  return pos;
+}
+
+export function naturalMidi(pos: number): number {
+  const oct = Math.floor(pos / 7);
+  return 60 + 12 * oct + STEPS[pos - oct * 7];
+}
+
+export function letterOf(pos: number): string {
+  return LETTERS[((pos % 7) + 7) % 7].toLowerCase();
+}
+
+export const ACC_VALUE: Readonly<Record<string, number>> = { "^^": 2, "^": 1, "=": 0, _: -1, __: -2 };
+const ACC_TEXT: Readonly<Record<number, string>> = { 2: "^^", 1: "^", 0: "=", [-1]: "_", [-2]: "__" };
+
+export type KeyAcc = ReadonlyMap<string, number>; // lower-case letter → semitones
+
+/** abcjs key.accidentals ([{acc:"sharp", note:"f"}]) → letter → semitones. */
+export function keyAccOf(key: unknown): KeyAcc {
+  const map = new Map<string, number>();
+  const list: unknown = key && typeof key === "object" ? Reflect.get(key, "accidentals") : undefined;
+  if (!Array.isArray(list)) return map;
+  const values: Record<string, number> = { sharp: 1, flat: -1, natural: 0, dblsharp: 2, dblflat: -2 };
+  for (const a of list) {
+    const acc: unknown = Reflect.get(a, "acc");
+    const note: unknown = Reflect.get(a, "note");
+    if (typeof acc === "string" && typeof note === "string" && acc in values) map.set(note.toLowerCase(), values[acc]);
+  }
+  return map;
+}
+
+/** Accidentals in force in one bar of one voice. */
+export class BarAccidentals {
+  private carried = new Map<number, number>();
+  constructor(public key: KeyAcc) {}
+  reset(): void {
+    this.carried.clear();
+  }
+  /** Sounding pitch of a note written with `acc` (may be "") at `pos`; records the accidental. */
+  sound(pos: number, acc: string): number {
+    if (acc in ACC_VALUE) this.carried.set(pos, ACC_VALUE[acc]);
+    return naturalMidi(pos) + this.expected(pos);
+  }
+  expected(pos: number): number {
+    return this.carried.get(pos) ?? this.key.get(letterOf(pos)) ?? 0;
+  }
+  /** The accidental to write so that `pos` sounds `midi` here ("" when none is needed). */
+  spell(pos: number, written: string, midi: number): string {
+    if (written) {
+      if (written in ACC_VALUE && naturalMidi(pos) + ACC_VALUE[written] === midi) return this.record(pos, written);
+    } else if (naturalMidi(pos) + this.expected(pos) === midi) return "";
+    const text = ACC_TEXT[midi - naturalMidi(pos)];
+    return text === undefined ? written : this.record(pos, text);
+  }
+  private record(pos: number, text: string): string {
+    this.carried.set(pos, ACC_VALUE[text]);
+    return text;
+  }
+}

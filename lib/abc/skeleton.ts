@@ -1,0 +1,74 @@
+// The skeleton (issue 3 §3): every embellishment kind removed, computed from the one parse.
+import { lineKind, type VBar } from "./bars";
+import { emit, melodyIndex, type DoubleStop, type Emitted } from "./emit";
+import { prepareTune, guard, type Prepared } from "./tune";
+import { KINDS, type Bar, type Fraction, type MelodyNote, type Result } from "./types";
+
+export interface SkeletonOptions {
+  doubleStop?: DoubleStop;
+}
+
+export interface TuneShape {
+  abc: string;
+  bars: Bar[];
+  meter: Fraction; // as written (6/8 stays 6/8); 4/4 for free meter
+  unit: Fraction; // the header's unit note length (L: or the §3.1.7 default)
+  title: string;
+  key: string;
+}
+
+const ALL = new Set(KINDS);
+
+/** The skeleton of one tune, with its bars measured on the skeleton's own text. */
+export function skeletonOf(abc: string, opts: SkeletonOptions = {}): Result<TuneShape> {
+  const prepared = prepareTune(abc);
+  if (!prepared.ok) return prepared;
+  return guard(0, () => ({ ok: true, value: skeletonFrom(prepared.value, opts), warnings: prepared.warnings }));
+}
+
+export function skeletonFrom(p: Prepared, opts: SkeletonOptions = {}): TuneShape {
+  const pick = opts.doubleStop ?? "highest";
+  const out = emit(p.model, ALL, p.groupOf, pick);
+  return shapeOf(p, out, pick);
+}
+
+/** The unmodified source as a model (used to compare two settings). */
+export function buildModel(abc: string, opts: SkeletonOptions = {}): Result<TuneShape> {
+  const prepared = prepareTune(abc);
+  if (!prepared.ok) return prepared;
+  return guard(0, () => ({ ok: true, value: shapeOf(prepared.value, null, opts.doubleStop ?? "highest"), warnings: prepared.warnings }));
+}
+
+export function shapeOf(p: Prepared, out: Emitted | null, pick: DoubleStop): TuneShape {
+  const { model } = p;
+  const at = (offset: number): number => (out ? out.offsets.get(offset) ?? offset : offset);
+  const bars: Bar[] = (model.bars.get(model.melody) ?? []).map((vb: VBar) => ({
+    number: vb.number,
+    part: vb.part,
+    ending: vb.ending,
+    startChar: at(vb.startChar),
+    endChar: at(vb.endChar),
+    leftLine: vb.index === 0 && !vb.left ? "start" : lineKind(vb.left),
+    rightLine: lineKind(vb.right),
+    length: vb.length,
+    notes: vb.notes.flatMap((el): MelodyNote[] => {
+      if (out) {
+        const n = out.notes.get(el);
+        return n ? [n] : [];
+      }
+      return [{
+        onset: el.onset, duration: el.duration, pitch: el.midi[melodyIndex(el, pick)],
+        tiedFromPrevious: el.tiedFromPrevious, startChar: el.start, endChar: el.end,
+      }];
+    }),
+  }));
+  const key = /^K:(.*)$/m.exec(model.abc)?.[1]?.replace(/%.*/, "").trim() ?? "";
+  return {
+    abc: out ? out.abc : model.abc,
+    bars,
+    meter: model.header.meter ?? { num: 4, den: 4 },
+    unit: model.header.unit,
+    title: model.header.title,
+    key,
+  };
+}

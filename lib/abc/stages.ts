@@ -1,0 +1,51 @@
+// Stage plans are data (issue 3 §4): stage 1 is the skeleton, each later stage adds kinds back.
+import { emit, type DoubleStop } from "./emit";
+import { KINDS, type Kind, type Stage, type StagePlan } from "./types";
+import type { Prepared } from "./tune";
+
+/** PRODUCT.md §4.4: skeleton; + bowing; + ornaments, slides and fills; the full setting. */
+export const DEFAULT_PLAN: StagePlan = {
+  stages: [
+    { name: "Skeleton", adds: [] },
+    { name: "Bowing", adds: ["bowing"] },
+    { name: "Ornaments, slides and fills", adds: ["ornaments", "slides", "fills"] },
+    { name: "Full setting", adds: ["doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
+  ],
+};
+
+export type PlanCheck = { ok: true } | { ok: false; reasons: string[] };
+
+export function validatePlan(plan: unknown): PlanCheck {
+  const reasons: string[] = [];
+  const stages: unknown = plan && typeof plan === "object" ? Reflect.get(plan, "stages") : undefined;
+  if (!Array.isArray(stages) || stages.length === 0) return { ok: false, reasons: ["A plan needs a list of stages."] };
+  const seen = new Map<string, number>();
+  stages.forEach((s: unknown, i) => {
+    const adds: unknown = s && typeof s === "object" ? Reflect.get(s, "adds") : undefined;
+    const name: unknown = s && typeof s === "object" ? Reflect.get(s, "name") : undefined;
+    if (typeof name !== "string" || name.trim() === "") reasons.push(`Stage ${i + 1} has no name.`);
+    if (!Array.isArray(adds)) {
+      reasons.push(`Stage ${i + 1} has no list of kinds to add.`);
+      return;
+    }
+    if (i === 0 && adds.length > 0) reasons.push("Stage 1 is the skeleton and adds no kinds.");
+    for (const k of adds) {
+      if (typeof k !== "string" || !(KINDS as readonly string[]).includes(k)) reasons.push(`Stage ${i + 1}: unknown kind "${String(k)}".`);
+      else if (seen.has(k)) reasons.push(`Kind "${k}" is added twice (stages ${seen.get(k)} and ${i + 1}).`);
+      else seen.set(k, i + 1);
+    }
+  });
+  for (const k of KINDS) if (!seen.has(k)) reasons.push(`Kind "${k}" is never added back, so the last stage would not be the full setting.`);
+  return reasons.length ? { ok: false, reasons } : { ok: true };
+}
+
+/** Every stage's ABC (the plan must be valid). The last stage is the source itself. */
+export function buildStages(p: Prepared, plan: StagePlan = DEFAULT_PLAN, pick: DoubleStop = "highest"): Stage[] {
+  const present = new Set<Kind>();
+  return plan.stages.map((s, i) => {
+    s.adds.forEach((k) => present.add(k));
+    const removed = new Set(KINDS.filter((k) => !present.has(k)));
+    const abc = removed.size === 0 ? p.model.abc : emit(p.model, removed, p.groupOf, pick).abc;
+    return { index: i + 1, name: s.name, kinds: KINDS.filter((k) => present.has(k)), abc };
+  });
+}
