@@ -1,0 +1,55 @@
+// The whole analysis of one tune from one parse (issue 3): embellishments, stages, skeleton,
+// phrase map and the twin-swapped learning version.
+import { classify } from "./classify";
+import type { DoubleStop } from "./emit";
+import { phraseMap, type PhraseMap } from "./phrase-map";
+import { shapeOf, skeletonFrom, type TuneShape } from "./skeleton";
+import { buildStages, DEFAULT_PLAN, validatePlan } from "./stages";
+import { guard, prepareTune } from "./tune";
+import { twinSwap } from "./twin-swap";
+import type { Embellishment, Result, Stage, StagePlan } from "./types";
+
+export interface Analysis {
+  title: string;
+  key: string;
+  embellishments: Embellishment[];
+  skeleton: TuneShape;
+  stages: Stage[];
+  phraseMap: PhraseMap;
+  /** The full setting with every near twin played exactly like its twin (issue 3 §6). */
+  learning: string;
+  /** The same for the skeleton. */
+  learningSkeleton: string;
+}
+
+export interface AnalyzeOptions {
+  plan?: StagePlan;
+  doubleStop?: DoubleStop;
+  lineOffset?: number;
+}
+
+export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis> {
+  const lineOffset = opts.lineOffset ?? 0;
+  const plan = opts.plan ?? DEFAULT_PLAN;
+  const check = validatePlan(plan);
+  if (!check.ok) return { ok: false, problems: check.reasons.map((message) => ({ line: 1 + lineOffset, column: 1, message })) };
+  const prepared = prepareTune(abc, lineOffset);
+  if (!prepared.ok) return prepared;
+  const p = prepared.value;
+  return guard(lineOffset, () => {
+    const skeleton = skeletonFrom(p, { doubleStop: opts.doubleStop });
+    const map = phraseMap(skeleton.bars, skeleton.meter, skeleton.unit);
+    const source = shapeOf(p, null, opts.doubleStop ?? "highest");
+    const value: Analysis = {
+      title: skeleton.title,
+      key: skeleton.key,
+      embellishments: classify(p),
+      skeleton,
+      stages: buildStages(p, plan, opts.doubleStop),
+      phraseMap: map,
+      learning: twinSwap(source.abc, source.bars, map),
+      learningSkeleton: twinSwap(skeleton.abc, skeleton.bars, map),
+    };
+    return { ok: true, value, warnings: p.warnings };
+  });
+}
