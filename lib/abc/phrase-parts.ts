@@ -37,8 +37,9 @@ export function findParts(bars: Bar[], fullBar: number): PartPlan[] {
   let segments: { label: string; foundBy: string; bars: Bar[] }[];
   if (runs.length > 1) {
     const seen = new Map<string, number>();
-    segments = runs.map((run) => {
-      const base = run[0]?.part ?? "A";
+    // a P: section holding only a lead-in (no full bar) is the pickup of the part after it
+    segments = mergeFragments(runs, fullBar, 1).map((run) => {
+      const base = run[run.length - 1]?.part ?? "A";
       const times = (seen.get(base) ?? 0) + 1;
       seen.set(base, times);
       // a label that comes back later names a new part of its own (ids stay unique)
@@ -46,15 +47,17 @@ export function findParts(bars: Bar[], fullBar: number): PartPlan[] {
       return { label, foundBy: "P: label", bars: run };
     });
   } else {
-    const pieces = mergeFragments(splitRuns(bars, structuralBoundary), fullBar);
+    const marked = mergeFragments(splitRuns(bars, structuralBoundary), fullBar, 2);
+    const pieces = marked.flatMap((run) => halve(run, localFullBar(run, fullBar)).map((bars) => ({ bars, halved: bars !== run })));
     const label0 = bars[0]?.part ?? "A";
-    segments = pieces.map((run, i) => ({
+    const how = marked.length === 1 ? "the whole tune (no P: labels, repeats or double bars divide it)" : "repeat marks and double bars";
+    segments = pieces.map((piece, i) => ({
       label: pieces.length === 1 ? label0 : String.fromCharCode(65 + (i % 26)) + (i >= 26 ? String(Math.floor(i / 26)) : ""),
-      foundBy: pieces.length === 1 ? "the whole tune (no P: labels, repeats or double bars divide it)" : "repeat marks and double bars",
-      bars: run,
+      foundBy: piece.halved ? `${how}; a stretch of more than 16 bars without marks halved (strains are 8 or 16 bars: common practice)` : how,
+      bars: piece.bars,
     }));
   }
-  return segments.map((s) => planPart(s.label, s.foundBy, s.bars, fullBar));
+  return segments.map((s) => planPart(s.label, s.foundBy, s.bars, localFullBar(s.bars, fullBar)));
 }
 
 function splitRuns(bars: Bar[], boundary: (prev: Bar, next: Bar) => boolean): Bar[][] {
@@ -85,16 +88,52 @@ function structuralBoundary(prev: Bar, next: Bar): boolean {
 const firstEndingOf = (bar: Bar): string | null =>
   bar.ending !== null && /^1(?![0-9])/.test(bar.ending) ? bar.ending : null;
 
-const isPickup = (bar: Bar, fullBar: number): boolean => bar.number === 0 || toNumber(bar.length) < fullBar - 1e-9;
+/**
+ * A stretch of more than 16 bars with no part marks (an AABB tune written out, a 32-bar waltz)
+ * is split in halves, again while a half is longer than 16 bars, so its phrases stay 2 to 4 bars
+ * long. An odd count, or a middle inside numbered endings, leaves it whole.
+ */
+function halve(run: Bar[], fullBar: number): Bar[][] {
+  let lead = 0;
+  while (lead < run.length - 1 && isShort(run[lead] as Bar, fullBar)) lead++;
+  const counted = run.slice(lead); // a last bar cut short by a pickup still counts
+  if (counted.length <= 16 || counted.length % 2 !== 0) return [run];
+  const lastOfFirst = counted[counted.length / 2 - 1] as Bar;
+  const cut = run.indexOf(lastOfFirst) + 1;
+  const next = run[cut];
+  if (lastOfFirst.ending !== null || next === undefined || next.ending !== null) return [run];
+  return [...halve(run.slice(0, cut), fullBar), ...halve(run.slice(cut), fullBar)];
+}
 
-/** A piece with fewer than two counted bars (a stray double bar) joins the piece after it. */
-function mergeFragments(pieces: Bar[][], fullBar: number): Bar[][] {
+const isShort = (bar: Bar, fullBar: number): boolean => bar.number === 0 || toNumber(bar.length) < fullBar - 1e-9;
+
+/**
+ * The length of a full bar in this stretch of the tune: its most common bar length (the longer on
+ * a tie), so a part in another meter (a 2/4 part beside a 6/8 one) keeps its own; a single bar is
+ * measured against the whole tune's.
+ */
+export function localFullBar(bars: Bar[], fullBar: number): number {
+  if (bars.length < 2) return fullBar;
+  const counts = new Map<number, number>();
+  for (const b of bars) {
+    const v = Math.round(toNumber(b.length) * 1e6) / 1e6;
+    counts.set(v, (counts.get(v) ?? 0) + 1);
+  }
+  let best = 0;
+  let bestCount = 0;
+  for (const [v, c] of counts) if (c > bestCount || (c === bestCount && v > best)) [best, bestCount] = [v, c];
+  return best;
+}
+
+/** A piece with fewer than `min` counted bars (a lead-in, a stray double bar) joins the piece after it. */
+function mergeFragments(pieces: Bar[][], fullBar: number, min: number): Bar[][] {
   const out: Bar[][] = [];
   let carry: Bar[] = [];
   for (const piece of pieces) {
     const joined = [...carry, ...piece];
-    const counted = joined.filter((b) => !isPickup(b, fullBar)).length;
-    if (counted < 2) carry = joined;
+    const full = localFullBar(joined, fullBar);
+    const counted = joined.filter((b) => !isShort(b, full)).length;
+    if (counted < min) carry = joined;
     else {
       out.push(joined);
       carry = [];
@@ -110,14 +149,18 @@ function mergeFragments(pieces: Bar[][], fullBar: number): Bar[][] {
 function planPart(label: string, foundBy: string, bars: Bar[], fullBar: number): PartPlan {
   const pickups: Bar[] = [];
   let i = 0;
-  // only a leading short bar followed by more music is an anacrusis
-  while (i < bars.length - 1 && pickups.length === 0 && isPickup(bars[i] as Bar, fullBar)) pickups.push(bars[i++] as Bar);
+  // leading short bars followed by more music are the anacrusis (a lead-in section and the part's own pickup)
+  while (i < bars.length - 1 && isShort(bars[i] as Bar, fullBar)) pickups.push(bars[i++] as Bar);
   const main: Bar[] = [];
   const endingSets: EndingSet[] = [];
   let set: EndingSet | null = null;
   let run: { ending: string; bars: Bar[] } | null = null;
   for (; i < bars.length; i++) {
     const bar = bars[i] as Bar;
+    if (bar.number === 0) {
+      pickups.push(bar); // the model's own verdict: a lead-in wherever it stands (e.g. after a final double bar)
+      continue;
+    }
     if (bar.ending === null) {
       set = null;
       run = null;
