@@ -44,7 +44,7 @@ export function HeaderNav({ user }: { user: HeaderUser | null }) {
   }, [open]);
 
   return (
-    <nav aria-label="Main" className="flex flex-1 flex-wrap items-center justify-end">
+    <nav aria-label="Main" className="flex flex-1 items-center justify-end">
       <button
         ref={buttonRef}
         type="button"
@@ -59,7 +59,9 @@ export function HeaderNav({ user }: { user: HeaderUser | null }) {
       <div
         id={menuId}
         className={cx(
-          "w-full flex-col gap-4 pt-3 pb-2 lg:flex lg:w-auto lg:flex-row lg:items-center lg:gap-6 lg:p-0",
+          // Below lg the list drops under the header bar as a full-width panel (the header is relative).
+          "absolute inset-x-0 top-full z-40 flex-col gap-4 border-b-4 border-rosin bg-walnut px-4 pt-2 pb-5 shadow-lg sm:px-6",
+          "lg:static lg:flex lg:flex-row lg:items-center lg:gap-6 lg:border-0 lg:bg-transparent lg:p-0 lg:shadow-none",
           open ? "flex" : "hidden",
         )}
       >
@@ -80,7 +82,7 @@ export function HeaderNav({ user }: { user: HeaderUser | null }) {
           })}
         </ul>
         {user ? (
-          <div className="flex flex-wrap items-center gap-3 border-t border-cream/20 pt-3 lg:border-t-0 lg:border-l lg:pt-0 lg:pl-5">
+          <div className="flex flex-wrap items-center gap-3 border-t border-cream/20 px-3 pt-3 lg:border-t-0 lg:border-l lg:pt-0 lg:pr-0 lg:pl-5">
             <span className="text-small text-cream">
               <span className="sr-only">Signed in as </span>
               {user.name}

@@ -1,21 +1,23 @@
 import { cx } from "@/components/ui/cx";
 
 /**
- * Rosinwood's mark: a cake of rosin with the grain of a knot in it and a bow hair drawn
- * across. Decorative next to the wordmark, so it is hidden from assistive technology.
+ * Rosinwood's mark: a cake of rosin seen from above, set in a turned wooden ring, with the
+ * pale groove a bow wears into it. Decorative beside the wordmark, so hidden from assistive tech.
+ * The ring (#C47A3C) keeps 4.8:1 against the walnut header it sits on.
  */
 export function LogoMark({ className }: { className?: string }) {
   return (
     <svg viewBox="0 0 32 32" aria-hidden="true" focusable="false" className={cx("shrink-0", className)}>
-      <circle cx="16" cy="17.5" r="10.5" fill="#E3A83E" />
+      <circle cx="16" cy="16" r="12" fill="#C47A3C" />
       <path
-        d="M8.6 21.2c2.9-5.4 11.9-5.4 14.8 0M11.6 23.9c1.8-3 7-3 8.8 0"
+        d="M6.2 12.5a10.4 10.4 0 0 1 6-6.4M25.8 19.5a10.4 10.4 0 0 1-6 6.4"
         fill="none"
         stroke="#8A3B12"
-        strokeWidth="1.6"
+        strokeWidth="1.3"
         strokeLinecap="round"
       />
-      <path d="M3.5 11.2 28.5 6.2" stroke="#F4E9D8" strokeWidth="2.2" strokeLinecap="round" />
+      <circle cx="16" cy="16" r="8.2" fill="#E3A83E" />
+      <path d="M10.6 19.6 21.4 12.4" stroke="#F6DFA8" strokeWidth="3.4" strokeLinecap="round" />
     </svg>
   );
 }

@@ -6,7 +6,7 @@ export type SiteHeaderProps = { user: HeaderUser | null };
 
 export function SiteHeader({ user }: SiteHeaderProps) {
   return (
-    <header className="on-dark bg-walnut text-cream">
+    <header className="on-dark relative bg-walnut text-cream">
       <div className="mx-auto flex max-w-shell flex-wrap items-center justify-between gap-x-6 gap-y-2 px-4 py-3 sm:px-6">
         <Link href="/" aria-label="Rosinwood home" className="rounded-knot text-cream no-underline hover:text-rosin">
           <Wordmark />

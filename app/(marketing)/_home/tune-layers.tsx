@@ -70,7 +70,7 @@ export function TuneLayers() {
               <span className="block font-semibold">{s.title}</span>
               <span className="block text-small text-bark">{s.detail}</span>
             </span>
-            <span className="col-span-2 sm:col-span-1">
+            <span className="col-start-2 sm:col-start-3 sm:row-start-1">
               <Strip stage={i + 1} />
             </span>
           </li>
