@@ -54,6 +54,8 @@ export function sampleBars(bars: Bar[], step: Fraction): Map<Bar, BarGrid> {
 export interface Difference {
   firstBar: number;
   secondBar: number;
+  lastFirstBar: number; // a difference may run on into the next bar (a tied or long note)
+  lastSecondBar: number;
   onset: number; // whole notes from the start of the bar
   firstPitch: number | null; // at the first differing grid point; null for a rest or silence
   secondPitch: number | null;
@@ -62,6 +64,8 @@ export interface Difference {
 
 export interface Comparison {
   differingNotes: number;
+  /** Notes sounded in the compared stretch, on the side with fewer. */
+  notes: number;
   differences: Difference[];
   /** The two phrases have different lengths and were compared over the shorter one. */
   partial: boolean;
@@ -121,6 +125,8 @@ export function compareCells(x: Cell[], y: Cell[], stopAbove = Infinity): Compar
       current = {
         firstBar: a.bar.number,
         secondBar: b.bar.number,
+        lastFirstBar: a.bar.number,
+        lastSecondBar: b.bar.number,
         onset: a.onset,
         firstPitch: asPitch(a.pitch),
         secondPitch: asPitch(b.pitch),
@@ -129,7 +135,20 @@ export function compareCells(x: Cell[], y: Cell[], stopAbove = Infinity): Compar
     }
     xs.add(a.note);
     ys.add(b.note);
+    current.lastFirstBar = a.bar.number;
+    current.lastSecondBar = b.bar.number;
   }
   close();
-  return { differingNotes: total, differences, partial: x.length !== y.length };
+  return { differingNotes: total, notes: Math.min(countNotes(x, len), countNotes(y, len)), differences, partial: x.length !== y.length };
+}
+
+function countNotes(cells: Cell[], len: number): number {
+  let n = 0;
+  let last = Number.NaN;
+  for (let k = 0; k < len; k++) {
+    const c = cells[k] as Cell;
+    if (c.note !== last && c.pitch !== GAP) n++;
+    last = c.note;
+  }
+  return n;
 }

@@ -37,7 +37,11 @@ export function assignLetters(
     if (exact !== undefined) {
       letters.set(u, exact.letter);
       const model = models[exact.base];
-      if (exact.letter !== letterName(exact.base) && model !== undefined) swaps.push([u, model]);
+      // compared over a shorter stretch, "exact" need not carry over to the model: check it
+      const toModel = model === undefined ? null : compare(model, u);
+      if (exact.letter !== letterName(exact.base) && model !== undefined && toModel !== null && toModel.differingNotes <= maxNotes) {
+        swaps.push([u, model]);
+      }
       continue;
     }
     let best = -1;

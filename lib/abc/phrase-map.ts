@@ -38,6 +38,10 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
     if (c === undefined) {
       // phrases of different bar counts are never twins; the rest stop counting past a near twin
       c = a.bars.length !== b.bars.length ? null : compareCells(cells.get(a) ?? [], cells.get(b) ?? [], NEAR_TWIN_NOTES);
+      // a twin keeps most of its notes: two of three notes changed is another phrase, not a near twin
+      if (c !== null && c.differingNotes > 0 && c.notes - c.differingNotes <= c.differingNotes) {
+        c = { ...c, differingNotes: NEAR_TWIN_NOTES + 1 };
+      }
       cache.set(key, c);
     }
     return c;
@@ -60,6 +64,8 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
         differences: c.differences.map((d) => ({
           firstBar: d.firstBar,
           secondBar: d.secondBar,
+          lastFirstBar: d.lastFirstBar,
+          lastSecondBar: d.lastSecondBar,
           beat: beatNumber(d.onset, meter),
           firstPitch: d.firstPitch,
           secondPitch: d.secondPitch,
@@ -100,7 +106,8 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
     differingNotes: compare(u, model)?.differingNotes ?? 0,
   }));
   const distinct = new Set(letters.values()).size;
-  const afterSwaps = new Set(units.map((u) => baseLetter(letters.get(u) ?? ""))).size;
+  const swapped = new Set(swapPairs.map(([u]) => u));
+  const afterSwaps = new Set(units.map((u) => (swapped.has(u) ? baseLetter(letters.get(u) ?? "") : letters.get(u)))).size;
 
   return {
     parts,

@@ -4,6 +4,8 @@
 export interface TwinDifference {
   firstBar: number;
   secondBar: number;
+  lastFirstBar: number; // where the difference ends, when a long or tied note carries it on
+  lastSecondBar: number;
   beat: number; // 1-based beat in the bar, fractional between beats
   firstPitch: number | null; // MIDI; null for a rest
   secondPitch: number | null;

@@ -26,9 +26,9 @@ export function phraseBars(map: PhraseMap, id: string): number[] | null {
 
 /**
  * Which phrase is the model: the first occurrence of the letter (a for a′, a″ …), as the phrase
- * map lists it in `swaps`; the later near twin is the one changed. Each bar of the twin is
- * replaced by the text of the model's bar in the same place, keeping the twin's own bar lines,
- * repeats and ending numbers. A bar whose length differs from its model's (a last bar cut short
+ * map lists it in `swaps`; the later near twin is the one changed. Each bar of the twin whose
+ * notes differ from the model's bar in the same place is replaced by the text of that bar, keeping
+ * the twin's own bar lines, repeats and ending numbers (bars that already agree are left alone). A bar whose length differs from its model's (a last bar cut short
  * for a pickup) is kept when no difference lies in it; otherwise the swap is left out, as it is
  * where a different key, unit length or meter is in force (copied text would sound differently).
  */
@@ -52,7 +52,7 @@ export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: stri
       const target = byNumber.get(mine[k] as number);
       const source = byNumber.get(model[k] as number);
       if (target === undefined || source === undefined) reason = "a bar of the phrase is missing from the tune";
-      else if (target === source) continue;
+      else if (target === source || (!differing.has(target.number) && sameNotes(target, source))) continue;
       else if (changed.has(target.number)) reason = `bar ${target.number} is already changed by another swap`;
       else if (toNumber(target.length) !== toNumber(source.length)) {
         if (differing.has(target.number)) reason = `bar ${target.number} differs from its model in length`;
@@ -74,12 +74,30 @@ export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: stri
   return plan;
 }
 
+/** Same notes at the same times: the bar needs no copying (and keeps its own chord symbols). */
+function sameNotes(a: Bar, b: Bar): boolean {
+  if (a.notes.length !== b.notes.length) return false;
+  return a.notes.every((n, i) => {
+    const m = b.notes[i];
+    return (
+      m !== undefined &&
+      n.pitch === m.pitch &&
+      n.tiedFromPrevious === m.tiedFromPrevious &&
+      toNumber(n.onset) === toNumber(m.onset) &&
+      toNumber(n.duration) === toNumber(m.duration)
+    );
+  });
+}
+
 /** Bars (of the twin) in which the map found a difference from the model. */
 function barsWithDifferences(map: PhraseMap, swap: Swap): Set<number> {
   const out = new Set<number>();
   for (const t of map.twins) {
-    if (t.first === swap.model && t.second === swap.phrase) for (const d of t.differences) out.add(d.secondBar);
-    if (t.second === swap.model && t.first === swap.phrase) for (const d of t.differences) out.add(d.firstBar);
+    if (!((t.first === swap.model && t.second === swap.phrase) || (t.second === swap.model && t.first === swap.phrase))) continue;
+    for (const d of t.differences) {
+      const [from, to] = t.second === swap.phrase ? [d.secondBar, d.lastSecondBar] : [d.firstBar, d.lastFirstBar];
+      for (let n = from; n <= to; n++) out.add(n);
+    }
   }
   return out;
 }

@@ -23,7 +23,7 @@ export function barContent(abc: string, bar: Bar): [number, number] {
     const c = abc.charAt(i);
     if (c === "|" || (c === ":" && /[|:]/.test(abc.charAt(i + 1)))) break;
     if (c === "[" && /[|\d]/.test(abc.charAt(i + 1))) break;
-    if (c === "\n") break;
+    if (c === "\n" || c === "\\") break; // a line break or continuation belongs to the layout, not the bar
     const close = c === '"' ? '"' : c === "!" ? "!" : c === "[" ? "]" : c === "{" ? "}" : "";
     if (close !== "") {
       const j = abc.indexOf(close, i + 1);
@@ -31,6 +31,8 @@ export function barContent(abc: string, bar: Bar): [number, number] {
     } else i++;
     if (!/\s/.test(c)) end = i;
   }
+  // abcjs may count spaces or a line continuation after the last note as part of it
+  while (end > start && /[\s\\]/.test(abc.charAt(end - 1))) end--;
   return [start, end];
 }
 
