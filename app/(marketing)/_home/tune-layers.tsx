@@ -17,7 +17,7 @@ const STAGES = [
 function Strip({ stage }: { stage: number }) {
   const line = NOTES.map((y, i) => `${x(i)},${y}`).join(" ");
   return (
-    <svg viewBox="0 0 224 56" className="h-14 w-full max-w-56" aria-hidden="true" focusable="false">
+    <svg viewBox="0 -8 224 64" className="h-16 w-full max-w-56" aria-hidden="true" focusable="false">
       <polyline points={line} fill="none" stroke="#D9C8B0" strokeWidth="2" />
       {stage >= 2
         ? [0, 2, 4, 6].map((i) => (
@@ -33,7 +33,7 @@ function Strip({ stage }: { stage: number }) {
         : null}
       {stage >= 3 ? (
         <g fill="#8A3B12">
-          <path d={`M${x(3) - 6} 8 q3 -4 6 0 t6 0`} fill="none" stroke="#8A3B12" strokeWidth="1.6" />
+          <path d={`M${x(3) - 6} -2 q3 -4 6 0 t6 0`} fill="none" stroke="#8A3B12" strokeWidth="1.6" />
           <circle cx={x(1) + STEP / 2} cy={(NOTES[1] + NOTES[2]) / 2} r="2.6" />
           <circle cx={x(5) + STEP / 2} cy={(NOTES[5] + NOTES[6]) / 2} r="2.6" />
         </g>
