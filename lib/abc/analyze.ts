@@ -45,7 +45,7 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
       key: skeleton.key,
       embellishments: classify(p),
       skeleton,
-      stages: buildStages(p, plan, opts.doubleStop),
+      stages: buildStages(p, plan, opts.doubleStop, skeleton.abc),
       phraseMap: map,
       learning: twinSwap(source.abc, source.bars, map),
       learningSkeleton: twinSwap(skeleton.abc, skeleton.bars, map),

@@ -43,7 +43,10 @@ export function melodyIndex(el: NoteEl, pick: DoubleStop): number {
   return best;
 }
 
-export function emit(model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<NoteEl, FillGroup>, pick: DoubleStop): Emitted {
+/** `track`: also record offsets and melody notes (only the skeleton's bars need them). */
+export function emit(
+  model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<NoteEl, FillGroup>, pick: DoubleStop, track = false,
+): Emitted {
   const { abc } = model;
   const out: string[] = [];
   let outLen = 0;
@@ -63,7 +66,7 @@ export function emit(model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<
   for (const el of model.edits) {
     if (el.start < pos) continue;
     write(abc.slice(pos, el.start));
-    offsets.set(el.start, outLen);
+    if (track) offsets.set(el.start, outLen);
     const state = states.get(el.voice) ?? new BarAccidentals(new Map());
     states.set(el.voice, state);
     if (el.type === "bar") {
@@ -75,7 +78,7 @@ export function emit(model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<
       if (!g || g.els[0] === el) {
         const start = outLen;
         const midi = writeNote(abc, el, g, state, removed, pick, keep, write);
-        if (el.voice === model.melody) {
+        if (track && el.voice === model.melody) {
           notes.set(el, {
             onset: el.onset, duration: g ? g.total : el.duration, pitch: midi,
             tiedFromPrevious: el.tiedFromPrevious, startChar: start, endChar: outLen,
@@ -83,7 +86,7 @@ export function emit(model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<
         }
       }
     }
-    offsets.set(el.end, outLen);
+    if (track) offsets.set(el.end, outLen);
     pos = el.end;
   }
   write(abc.slice(pos));
@@ -97,6 +100,8 @@ function renderBar(abc: string, el: BarEl, keep: (t: Tok) => boolean): string {
   }
   return s;
 }
+
+const PREFIX = new Set(["gchord", "deco", "short", "grace", "slurOpen"]);
 
 /** Writes one note element (or a whole collapsed group); returns the melody pitch written. */
 function writeNote(
@@ -117,11 +122,10 @@ function writeNote(
   }
   // A collapsed group: every member's kept marks before one note of the group's whole time.
   const last = g.els[g.els.length - 1];
-  const prefix = new Set(["gchord", "deco", "short", "grace", "slurOpen"]);
   for (const member of g.els) {
     for (const t of member.lex.toks) {
       const lead = member === el && t.kind === "ws" && t.end <= el.body.start;
-      if (lead || (prefix.has(t.kind) && keep(t))) write(src.slice(t.start, t.end));
+      if (lead || (PREFIX.has(t.kind) && keep(t))) write(src.slice(t.start, t.end));
     }
   }
   write(renderBody(src, el, state, reduce ? m : null, div(g.total, el.unit)));

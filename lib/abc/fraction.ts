@@ -17,6 +17,7 @@ export function frac(num: number, den = 1): Fraction {
 }
 
 export const ZERO: Fraction = { num: 0, den: 1 };
+const ONE: Fraction = { num: 1, den: 1 };
 export const add = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den + b.num * a.den, a.den * b.den);
 export const sub = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den - b.num * a.den, a.den * b.den);
 export const mul = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.num, a.den * b.den);
@@ -33,7 +34,17 @@ export const sum = (xs: Fraction[]): Fraction => xs.reduce(add, ZERO);
  * abcjs reports durations as floats (1/3 of an eighth is 0.041666…); recover the exact fraction
  * by continued fractions, which find the simplest fraction within rounding error.
  */
-export function fromNumber(x: number, maxDen = 100000): Fraction {
+const FROM_NUMBER = new Map<number, Fraction>();
+export function fromNumber(x: number): Fraction {
+  let f = FROM_NUMBER.get(x);
+  if (!f) {
+    f = continued(x, 100000);
+    if (FROM_NUMBER.size < 10000) FROM_NUMBER.set(x, f);
+  }
+  return f;
+}
+
+function continued(x: number, maxDen: number): Fraction {
   if (!Number.isFinite(x)) return ZERO;
   const sign = x < 0 ? -1 : 1;
   let v = Math.abs(x);
@@ -61,7 +72,7 @@ export function abcLength(f: Fraction): string {
 
 /** Parse an ABC length suffix ("", "2", "/", "//", "3/2", "/4", "3/") into a multiple of L (§4.3). */
 export function parseAbcLength(s: string): Fraction {
-  if (s === "") return frac(1);
+  if (s === "") return ONE;
   const m = /^(\d*)(\/*)(\d*)$/.exec(s);
   if (!m) return frac(1);
   const num = m[1] ? Number(m[1]) : 1;

@@ -41,124 +41,124 @@ export interface Lexed {
   body: Body | null;
 }
 
-const ACC = /^(\^\^|__|\^|_|=)/;
-const NOTE = /^[A-Ga-g][',]*/;
-const LEN = /^\d*\/*\d*/;
+// Sticky regular expressions run on the whole tune text at an index: no substring per character
+// (the lexer runs on every element of every analysis, and allocation is most of its cost).
+const ACC = /\^\^|__|\^|_|=/y;
+const NOTE = /[A-Ga-g][',]*/y;
+const LEN = /\d*\/*\d*/y;
+const WS = /\s+/y;
+const TUPLET = /\((\d+)(:\d*)?(:\d*)?/y;
+const BROKEN = /[<>]+/y;
+const TIE = /\.?-/y;
 
-function readNote(t: string, i: number, base: number): WrittenNote | null {
-  const s = t.slice(i);
-  const acc = ACC.exec(s)?.[0] ?? "";
-  const name = NOTE.exec(s.slice(acc.length))?.[0];
+function at(re: RegExp, t: string, i: number, end: number): string {
+  re.lastIndex = i;
+  const m = re.exec(t);
+  return m && re.lastIndex <= end ? m[0] : "";
+}
+
+function readNote(t: string, i: number, end: number): WrittenNote | null {
+  const acc = at(ACC, t, i, end);
+  const name = at(NOTE, t, i + acc.length, end);
   if (!name) return null;
-  let j = i + acc.length + name.length;
-  const len = LEN.exec(t.slice(j))?.[0] ?? "";
-  j += len.length;
-  return { start: base + i, letterStart: base + i + acc.length, end: base + j, acc, name, len: parseAbcLength(len), tie: "" };
+  const j = i + acc.length + name.length;
+  const len = at(LEN, t, j, end);
+  return { start: i, letterStart: i + acc.length, end: j + len.length, acc, name, len: parseAbcLength(len), tie: "" };
 }
 
-function closing(t: string, i: number, ch: string): number {
+function closing(t: string, i: number, ch: string, end: number): number {
   const k = t.indexOf(ch, i + 1);
-  return k < 0 ? t.length : k + 1;
+  return k < 0 || k >= end ? end : k + 1;
 }
 
-/** Lex the span [start, end) of `abc`. `shorthands` maps single-character decorations to names. */
-export function lexSpan(abc: string, start: number, end: number, shorthands: Record<string, string>): Lexed {
-  const t = abc.slice(start, end);
+const isSpace = (c: string): boolean => c === " " || c === "\t" || c === "\n" || c === "\r";
+const isNoteStart = (c: string): boolean => (c >= "A" && c <= "G") || (c >= "a" && c <= "g") || c === "^" || c === "_" || c === "=";
+
+/** Lex the span [start, end) of `t`. `shorthands` maps single-character decorations to names. */
+export function lexSpan(t: string, start: number, end: number, shorthands: Record<string, string>): Lexed {
   const toks: Tok[] = [];
   let body: Body | null = null;
-  const push = (kind: TokKind, a: number, b: number, name = ""): void => {
-    toks.push({ kind, start: start + a, end: start + b, name });
-  };
-  let i = 0;
-  while (i < t.length) {
+  let i = start;
+  while (i < end) {
     const c = t[i];
-    const rest = t.slice(i);
-    let m: RegExpExecArray | null;
-    if (/\s/.test(c)) {
-      const j = i + (/^\s+/.exec(rest)?.[0].length ?? 1);
-      push("ws", i, j);
-      i = j;
+    let kind: TokKind = "other";
+    let j = i + 1;
+    let name = "";
+    if (isSpace(c)) {
+      kind = "ws";
+      j = i + Math.max(1, at(WS, t, i, end).length);
     } else if (c === '"') {
-      const j = closing(t, i, '"');
-      push("gchord", i, j);
-      i = j;
+      kind = "gchord";
+      j = closing(t, i, '"', end);
     } else if ((c === "!" || c === "+") && !body) {
-      const j = closing(t, i, c);
-      push("deco", i, j, t.slice(i + 1, j - 1));
-      i = j;
+      kind = "deco";
+      j = closing(t, i, c, end);
+      name = t.slice(i + 1, j - 1);
     } else if (c === "{") {
-      const j = closing(t, i, "}");
-      push("grace", i, j, t[i + 1] === "/" ? "acciaccatura" : "appoggiatura");
-      i = j;
-    } else if ((m = /^\((\d+)(:\d*)?(:\d*)?/.exec(rest))) {
-      push("tuplet", i, i + m[0].length, m[0].slice(1));
-      i += m[0].length;
-    } else if (rest.startsWith(".(")) {
-      push("slurOpen", i, i + 2, "dotted");
-      i += 2;
+      kind = "grace";
+      j = closing(t, i, "}", end);
+      name = t[i + 1] === "/" ? "acciaccatura" : "appoggiatura";
     } else if (c === "(") {
-      push("slurOpen", i, i + 1);
-      i += 1;
-    } else if (c === ")") {
-      push("slurClose", i, i + 1);
-      i += 1;
-    } else if (rest.startsWith(".-") || c === "-") {
-      const n = c === "-" ? 1 : 2;
-      push("tie", i, i + n, n === 2 ? "dotted" : "");
-      i += n;
-    } else if ((m = /^[<>]+/.exec(rest))) {
-      push("broken", i, i + m[0].length, m[0]);
-      i += m[0].length;
-    } else if (!body && (m = /^[zxZX]/.exec(rest))) {
-      const len = LEN.exec(t.slice(i + 1))?.[0] ?? "";
-      const j = i + 1 + len.length;
-      const note: WrittenNote = { start: start + i, letterStart: start + i, end: start + j, acc: "", name: c, len: parseAbcLength(len), tie: "" };
-      body = { start: start + i, end: start + j, chord: false, rest: c, notes: [note], outerLen: parseAbcLength("") };
-      push("body", i, j);
-      i = j;
+      const tuplet = at(TUPLET, t, i, end);
+      kind = tuplet ? "tuplet" : "slurOpen";
+      j = i + Math.max(1, tuplet.length);
+      name = tuplet.slice(1);
+    } else if (c === "." && t[i + 1] === "(" && i + 1 < end) {
+      kind = "slurOpen";
+      j = i + 2;
+      name = "dotted";
+    } else if (c === ")") kind = "slurClose";
+    else if (c === "-" || (c === "." && t[i + 1] === "-" && i + 1 < end)) {
+      kind = "tie";
+      j = i + at(TIE, t, i, end).length;
+      name = c === "." ? "dotted" : "";
+    } else if (c === "<" || c === ">") {
+      kind = "broken";
+      name = at(BROKEN, t, i, end);
+      j = i + name.length;
+    } else if (!body && (c === "z" || c === "x" || c === "Z" || c === "X")) {
+      j = i + 1 + at(LEN, t, i + 1, end).length;
+      const note: WrittenNote = { start: i, letterStart: i, end: j, acc: "", name: c, len: parseAbcLength(t.slice(i + 1, j)), tie: "" };
+      body = { start: i, end: j, chord: false, rest: c, notes: [note], outerLen: ONE };
+      kind = "body";
     } else if (!body && c === "[") {
-      const j = lexChord(t, i, start);
-      body = j.body;
-      push("body", i, j.end);
-      i = j.end;
-    } else if (!body && (ACC.test(rest) || NOTE.test(rest))) {
-      const note = readNote(t, i, start);
-      if (!note) {
-        push("other", i, i + 1);
-        i += 1;
-        continue;
+      body = lexChord(t, i, end);
+      kind = "body";
+      j = body.end;
+    } else if (!body && isNoteStart(c)) {
+      const note = readNote(t, i, end);
+      if (note) {
+        body = { start: i, end: note.end, chord: false, rest: null, notes: [note], outerLen: ONE };
+        kind = "body";
+        j = note.end;
       }
-      body = { start: note.start, end: note.end, chord: false, rest: null, notes: [note], outerLen: parseAbcLength("") };
-      push("body", i, note.end - start);
-      i = note.end - start;
     } else if (!body && shorthands[c] !== undefined) {
-      push("short", i, i + 1, shorthands[c]);
-      i += 1;
-    } else {
-      push("other", i, i + 1);
-      i += 1;
+      kind = "short";
+      name = shorthands[c];
     }
+    toks.push({ kind, start: i, end: j, name });
+    i = j;
   }
   return { toks, body };
 }
 
-function lexChord(t: string, i: number, base: number): { body: Body; end: number } {
+const ONE = parseAbcLength("");
+
+function lexChord(t: string, i: number, end: number): Body {
   const notes: WrittenNote[] = [];
   let j = i + 1;
-  while (j < t.length && t[j] !== "]") {
-    const note = readNote(t, j, base);
+  while (j < end && t[j] !== "]") {
+    const note = readNote(t, j, end);
     if (note) {
-      j = note.end - base;
-      const tie = /^\.?-/.exec(t.slice(j))?.[0] ?? "";
+      const tie = at(TIE, t, note.end, end);
       note.tie = tie;
       note.end += tie.length;
-      j += tie.length;
+      j = note.end;
       notes.push(note);
-    } else if (t[j] === "!" || t[j] === "+" || t[j] === '"') j = closing(t, j, t[j]);
+    } else if (t[j] === "!" || t[j] === "+" || t[j] === '"') j = closing(t, j, t[j], end);
     else j += 1;
   }
-  j = Math.min(t.length, j + 1);
-  const len = LEN.exec(t.slice(j))?.[0] ?? "";
-  const end = j + len.length;
-  return { body: { start: base + i, end: base + end, chord: true, rest: null, notes, outerLen: parseAbcLength(len) }, end };
+  j = Math.min(end, j + 1);
+  const len = at(LEN, t, j, end);
+  return { start: i, end: j + len.length, chord: true, rest: null, notes, outerLen: parseAbcLength(len) };
 }

@@ -1,5 +1,6 @@
 // The skeleton (issue 3 §3): every embellishment kind removed, computed from the one parse.
-import { lineKind, type VBar } from "./bars";
+import { lineKind } from "./bars";
+import type { NoteEl } from "./model";
 import { emit, melodyIndex, type DoubleStop, type Emitted } from "./emit";
 import { prepareTune, guard, type Prepared } from "./tune";
 import { KINDS, type Bar, type Fraction, type MelodyNote, type Result } from "./types";
@@ -28,7 +29,7 @@ export function skeletonOf(abc: string, opts: SkeletonOptions = {}): Result<Tune
 
 export function skeletonFrom(p: Prepared, opts: SkeletonOptions = {}): TuneShape {
   const pick = opts.doubleStop ?? "highest";
-  const out = emit(p.model, ALL, p.groupOf, pick);
+  const out = emit(p.model, ALL, p.groupOf, pick, true);
   return shapeOf(p, out, pick);
 }
 
@@ -39,29 +40,29 @@ export function buildModel(abc: string, opts: SkeletonOptions = {}): Result<Tune
   return guard(0, () => ({ ok: true, value: shapeOf(prepared.value, null, opts.doubleStop ?? "highest"), warnings: prepared.warnings }));
 }
 
+function sourceNote(el: NoteEl, pick: DoubleStop): MelodyNote {
+  return {
+    onset: el.onset, duration: el.duration, pitch: el.midi[melodyIndex(el, pick)],
+    tiedFromPrevious: el.tiedFromPrevious, startChar: el.start, endChar: el.end,
+  };
+}
+
 export function shapeOf(p: Prepared, out: Emitted | null, pick: DoubleStop): TuneShape {
   const { model } = p;
   const at = (offset: number): number => (out ? out.offsets.get(offset) ?? offset : offset);
-  const bars: Bar[] = (model.bars.get(model.melody) ?? []).map((vb: VBar) => ({
-    number: vb.number,
-    part: vb.part,
-    ending: vb.ending,
-    startChar: at(vb.startChar),
-    endChar: at(vb.endChar),
-    leftLine: vb.index === 0 && !vb.left ? "start" : lineKind(vb.left),
-    rightLine: lineKind(vb.right),
-    length: vb.length,
-    notes: vb.notes.flatMap((el): MelodyNote[] => {
-      if (out) {
-        const n = out.notes.get(el);
-        return n ? [n] : [];
-      }
-      return [{
-        onset: el.onset, duration: el.duration, pitch: el.midi[melodyIndex(el, pick)],
-        tiedFromPrevious: el.tiedFromPrevious, startChar: el.start, endChar: el.end,
-      }];
-    }),
-  }));
+  const bars: Bar[] = [];
+  for (const vb of model.bars.get(model.melody) ?? []) {
+    const notes: MelodyNote[] = [];
+    for (const el of vb.notes) {
+      const n = out ? out.notes.get(el) : sourceNote(el, pick);
+      if (n) notes.push(n);
+    }
+    bars.push({
+      number: vb.number, part: vb.part, ending: vb.ending, startChar: at(vb.startChar), endChar: at(vb.endChar),
+      leftLine: vb.index === 0 && !vb.left ? "start" : lineKind(vb.left), rightLine: lineKind(vb.right),
+      length: vb.length, notes,
+    });
+  }
   const key = /^K:(.*)$/m.exec(model.abc)?.[1]?.replace(/%.*/, "").trim() ?? "";
   return {
     abc: out ? out.abc : model.abc,

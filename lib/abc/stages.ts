@@ -40,12 +40,16 @@ export function validatePlan(plan: unknown): PlanCheck {
 }
 
 /** Every stage's ABC (the plan must be valid). The last stage is the source itself. */
-export function buildStages(p: Prepared, plan: StagePlan = DEFAULT_PLAN, pick: DoubleStop = "highest"): Stage[] {
+export function buildStages(p: Prepared, plan: StagePlan = DEFAULT_PLAN, pick: DoubleStop = "highest", skeletonAbc?: string): Stage[] {
   const present = new Set<Kind>();
   return plan.stages.map((s, i) => {
     s.adds.forEach((k) => present.add(k));
     const removed = new Set(KINDS.filter((k) => !present.has(k)));
-    const abc = removed.size === 0 ? p.model.abc : emit(p.model, removed, p.groupOf, pick).abc;
+    const abc = removed.size === 0
+      ? p.model.abc
+      : removed.size === KINDS.length && skeletonAbc !== undefined
+        ? skeletonAbc
+        : emit(p.model, removed, p.groupOf, pick).abc;
     return { index: i + 1, name: s.name, kinds: KINDS.filter((k) => present.has(k)), abc };
   });
 }

@@ -1,0 +1,64 @@
+// Benchmark of the tune engine (issue 3 §9) over the open corpus. Prints the median time of each
+// step, the corpus total, and last the median over tunes of (full analysis / one abcjs parse).
+import { readdirSync, readFileSync } from "node:fs";
+import { performance } from "node:perf_hooks";
+import abcjs from "abcjs";
+import { analyze, classify, buildStages, phraseMap, prepareTune, splitTunes, twinSwap } from "../lib/abc/index";
+import { skeletonFrom } from "../lib/abc/skeleton";
+
+const ROOT = "../shared/datasets/nottingham/ABC_cleaned";
+const REPS = 3; // best of three per tune: a stray GC pause is not the engine's cost
+
+const median = (xs: number[]): number => {
+  const s = [...xs].sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 ? s[m] : (s[m - 1] + s[m]) / 2;
+};
+const best = (f: () => void): number => {
+  let t = Infinity;
+  for (let i = 0; i < REPS; i++) {
+    const t0 = performance.now();
+    f();
+    t = Math.min(t, performance.now() - t0);
+  }
+  return t;
+};
+
+const tunes = readdirSync(ROOT).sort().flatMap((f) => splitTunes(readFileSync(`${ROOT}/${f}`, "utf8")).map((t) => t.abc));
+const steps: Record<string, number[]> = { parse: [], model: [], classify: [], stages: [], skeleton: [], phrases: [], swap: [], analysis: [] };
+const ratios: number[] = [];
+let failed = 0;
+
+for (const abc of tunes) analyze(abc); // warm-up: let the JIT see every path first
+for (const abc of tunes) abcjs.parseOnly(abc);
+
+const corpus0 = performance.now();
+for (const abc of tunes) {
+  const parse = best(() => abcjs.parseOnly(abc));
+  const full = best(() => analyze(abc));
+  const p = prepareTune(abc);
+  if (!p.ok) {
+    failed++;
+    continue;
+  }
+  const sk = skeletonFrom(p.value);
+  const map = phraseMap(sk.bars, sk.meter, sk.unit);
+  steps.parse.push(parse);
+  steps.model.push(best(() => prepareTune(abc)));
+  steps.classify.push(best(() => classify(p.value)));
+  steps.stages.push(best(() => buildStages(p.value)));
+  steps.skeleton.push(best(() => skeletonFrom(p.value)));
+  steps.phrases.push(best(() => phraseMap(sk.bars, sk.meter, sk.unit)));
+  steps.swap.push(best(() => twinSwap(sk.abc, sk.bars, map)));
+  steps.analysis.push(full);
+  ratios.push(full / parse);
+}
+const corpusMs = performance.now() - corpus0;
+
+console.log(`tunes: ${tunes.length} (${failed} rejected with problems)`);
+for (const [step, xs] of Object.entries(steps)) {
+  const total = xs.reduce((a, b) => a + b, 0);
+  console.log(`${step.padEnd(9)} median ${median(xs).toFixed(3)} ms   corpus total ${total.toFixed(0)} ms`);
+}
+console.log(`corpus wall time (all measurements): ${(corpusMs / 1000).toFixed(1)} s`);
+console.log(`analysis/parse ratio: ${median(ratios).toFixed(2)}`);
