@@ -1,10 +1,21 @@
-// `compare` for the tune-engine CLI, kept apart so the main CLI stays small.
-import type { Problem } from "../lib/abc/index";
+// `compare` for the tune-engine CLI, kept apart so the main CLI stays small. Each file's first
+// tune is compared; each side is checked alone first so a problem names the right file.
+import { compareSettings } from "../lib/abc/compare";
+import { prepareTune, splitTunes, type Problem } from "../lib/abc/index";
 
 export type CompareOutcome = { ok: true; value: unknown } | { ok: false; problems: { a: Problem[]; b: Problem[] } };
 
+function firstTune(text: string): { abc: string; problems: Problem[] } {
+  const t = splitTunes(text)[0];
+  if (!t) return { abc: "", problems: [{ line: 1, column: 1, message: "No tune found: a tune starts with an X: field and needs a K: field." }] };
+  const r = prepareTune(t.abc, t.lineOffset);
+  return { abc: t.abc, problems: r.ok ? [] : r.problems };
+}
+
 export function runCompare(a: string, b: string): CompareOutcome {
-  void a;
-  void b;
-  return { ok: false, problems: { a: [{ line: 1, column: 1, message: "Setting comparison is not available yet." }], b: [] } };
+  const first = firstTune(a);
+  const second = firstTune(b);
+  if (first.problems.length || second.problems.length) return { ok: false, problems: { a: first.problems, b: second.problems } };
+  const r = compareSettings(first.abc, second.abc);
+  return r.ok ? { ok: true, value: r.value } : { ok: false, problems: { a: r.problems, b: [] } };
 }

@@ -118,7 +118,8 @@ export function readModel(abc: string, tune: TuneObject): TuneModel {
             const tStart = num(item, "startTriplet");
             if (tStart !== undefined) {
               const spec = lex.toks.find((t) => t.kind === "tuplet")?.name ?? String(tStart);
-              const t: Tuplet = { spec, p: tStart, mult: fromNumber(num(item, "tripletMultiplier") ?? 1), els: [] };
+              const mult = tupletMultiplier(spec, valueAt(header.meters, start)) ?? fromNumber(num(item, "tripletMultiplier") ?? 1);
+              const t: Tuplet = { spec, p: tStart, mult, els: [] };
               tuplets.push(t);
               openTuplet.set(voice, t);
             }
@@ -168,4 +169,18 @@ function noteEl(
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
     bar: null, onset: frac(0), grid: frac(0),
   };
+}
+
+/**
+ * ABC 2.1 §4.13: "(p:q:r" puts p notes into the time of q. Without q: 3 for (2, (4 and (8; 2 for
+ * (3 and (6; for (5, (7 and (9, 3 in compound meter and 2 otherwise. abcjs 6.7 takes 2 for (5 in
+ * 6/8, so the standard's rule is applied here rather than trusting its multiplier.
+ */
+export function tupletMultiplier(spec: string, meter: Fraction | null): Fraction | null {
+  const [pText, qText] = spec.split(":");
+  const p = Number(pText);
+  if (!(p > 1)) return null;
+  const compound = meter !== null && meter.num % 3 === 0 && meter.num > 3;
+  const q = qText ? Number(qText) : [2, 4, 8].includes(p) ? 3 : [3, 6].includes(p) ? 2 : compound ? 3 : 2;
+  return q > 0 ? frac(q, p) : null;
 }
