@@ -71,84 +71,121 @@ export interface Comparison {
   partial: boolean;
 }
 
-interface Cell {
-  bar: Bar;
-  onset: number;
-  pitch: number;
-  note: number;
+/** A phrase flattened onto the grid: typed arrays, so comparing allocates nothing per point. */
+export interface Cells {
+  pitch: Int32Array;
+  note: Int32Array;
+  bars: Bar[];
+  barStart: number[]; // index of each bar's first grid point
+  step: number; // grid step in whole notes
 }
 
-/** Flattens a phrase (a list of bars) into grid cells. */
-export function cellsOf(bars: Bar[], grids: Map<Bar, BarGrid>, step: Fraction): Cell[] {
-  const s = toNumber(step);
-  const cells: Cell[] = [];
+/** Flattens a phrase (a list of bars) onto the grid. */
+export const NO_CELLS: Cells = { pitch: new Int32Array(0), note: new Int32Array(0), bars: [], barStart: [], step: 1 };
+
+export function cellsOf(bars: Bar[], grids: Map<Bar, BarGrid>, step: Fraction): Cells {
+  let len = 0;
+  for (const bar of bars) len += grids.get(bar)?.pitches.length ?? 0;
+  const pitch = new Int32Array(len);
+  const note = new Int32Array(len);
+  const barStart: number[] = [];
+  const kept: Bar[] = [];
+  let at = 0;
   for (const bar of bars) {
     const g = grids.get(bar);
     if (g === undefined) continue;
-    for (let k = 0; k < g.pitches.length; k++) {
-      cells.push({ bar, onset: k * s, pitch: g.pitches[k] as number, note: g.notes[k] as number });
+    kept.push(bar);
+    barStart.push(at);
+    for (let k = 0; k < g.pitches.length; k++, at++) {
+      pitch[at] = g.pitches[k] as number;
+      note[at] = g.notes[k] as number;
     }
   }
-  return cells;
+  return { pitch, note, bars: kept, barStart, step: toNumber(step) };
 }
 
 const asPitch = (p: number): number | null => (p < 0 ? null : p);
 
+/** The bar holding grid point k, and the point's onset in that bar. */
+function place(c: Cells, k: number): { bar: number; onset: number } {
+  let i = c.barStart.length - 1;
+  while (i > 0 && (c.barStart[i] as number) > k) i--;
+  return { bar: c.bars[i]?.number ?? 0, onset: (k - (c.barStart[i] ?? 0)) * c.step };
+}
+
 /**
  * Counts differing NOTES, not grid points: consecutive differing points that share a note on
  * either side are one difference, worth as many notes as the busier side plays there (B2 against
- * cd is two notes to change; B2 against cB is one).
+ * cd is two notes to change; B2 against cB is one). A note lasts over consecutive grid points, so
+ * "shares a note" only needs the last note seen on each side.
  */
-export function compareCells(x: Cell[], y: Cell[], stopAbove = Infinity): Comparison {
-  const len = Math.min(x.length, y.length);
+export function compareCells(x: Cells, y: Cells, stopAbove = Infinity): Comparison {
+  const len = Math.min(x.pitch.length, y.pitch.length);
   const differences: Difference[] = [];
   let total = 0;
-  let xs = new Set<number>();
-  let ys = new Set<number>();
   let current: Difference | null = null;
-  const close = (): void => {
-    if (current === null) return;
-    current.notes = Math.max(xs.size, ys.size);
-    total += current.notes;
-    differences.push(current);
-    current = null;
-  };
-  for (let k = 0; k < len; k++) {
-    const a = x[k] as Cell;
-    const b = y[k] as Cell;
-    if (a.pitch === b.pitch) continue;
-    if (current === null || !(xs.has(a.note) || ys.has(b.note))) {
-      close();
-      if (total > stopAbove) break;
-      xs = new Set<number>();
-      ys = new Set<number>();
+  let lastX = 0;
+  let lastY = 0;
+  let nx = 0;
+  let ny = 0;
+  let k = 0;
+  for (; k <= len; k++) {
+    const differs = k < len && x.pitch[k] !== y.pitch[k];
+    const a = k < len ? (x.note[k] as number) : 0;
+    const b = k < len ? (y.note[k] as number) : 0;
+    if (current !== null && (!differs || (a !== lastX && b !== lastY))) {
+      if (!differs) {
+        // a differing run may pause and resume on the same notes: keep it open until a new note starts
+        if (k < len && (a === lastX || b === lastY)) continue;
+      }
+      current.notes = Math.max(nx, ny);
+      total += current.notes;
+      differences.push(current);
+      current = null;
+      // past the limit the exact count no longer matters: skip the note counts too
+      if (total > stopAbove) return { differingNotes: total, notes: 0, differences, partial: x.pitch.length !== y.pitch.length };
+    }
+    if (!differs) continue;
+    if (current === null) {
+      const px = place(x, k);
+      const py = place(y, k);
       current = {
-        firstBar: a.bar.number,
-        secondBar: b.bar.number,
-        lastFirstBar: a.bar.number,
-        lastSecondBar: b.bar.number,
-        onset: a.onset,
-        firstPitch: asPitch(a.pitch),
-        secondPitch: asPitch(b.pitch),
+        firstBar: px.bar,
+        secondBar: py.bar,
+        lastFirstBar: px.bar,
+        lastSecondBar: py.bar,
+        onset: px.onset,
+        firstPitch: asPitch(x.pitch[k] as number),
+        secondPitch: asPitch(y.pitch[k] as number),
         notes: 0,
       };
+      nx = 0;
+      ny = 0;
+      lastX = Number.NaN;
+      lastY = Number.NaN;
     }
-    xs.add(a.note);
-    ys.add(b.note);
-    current.lastFirstBar = a.bar.number;
-    current.lastSecondBar = b.bar.number;
+    if (a !== lastX) nx++;
+    if (b !== lastY) ny++;
+    lastX = a;
+    lastY = b;
+    current.lastFirstBar = place(x, k).bar;
+    current.lastSecondBar = place(y, k).bar;
   }
-  close();
-  return { differingNotes: total, notes: Math.min(countNotes(x, len), countNotes(y, len)), differences, partial: x.length !== y.length };
+  return {
+    differingNotes: total,
+    notes: Math.min(countNotes(x, len), countNotes(y, len)),
+    differences,
+    partial: x.pitch.length !== y.pitch.length,
+  };
 }
 
-function countNotes(cells: Cell[], len: number): number {
+function countNotes(c: Cells, len: number): number {
   let n = 0;
   let last = Number.NaN;
   for (let k = 0; k < len; k++) {
-    const c = cells[k] as Cell;
-    if (c.note !== last && c.pitch !== GAP) n++;
-    last = c.note;
+    const id = c.note[k] as number;
+    if (id !== last && c.pitch[k] !== GAP) n++;
+    last = id;
   }
   return n;
 }

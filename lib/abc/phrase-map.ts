@@ -3,7 +3,7 @@
 import type { Bar, Fraction } from "./types";
 import type { PartMap, PhraseMap, Swap, Twin } from "./phrase-types";
 import { beatNumber, fullBarLength, gridStep, pitchName } from "./phrase-time";
-import { cellsOf, compareCells, sampleBars, type Comparison } from "./phrase-grid";
+import { cellsOf, compareCells, NO_CELLS, sampleBars, type Comparison } from "./phrase-grid";
 import { findParts } from "./phrase-parts";
 import { groupBars } from "./phrase-group";
 import { unitsOf, type Unit } from "./phrase-units";
@@ -30,16 +30,19 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
     return { plan, grouping, pp };
   });
 
-  const cells = new Map(units.map((u) => [u, cellsOf(u.bars, grids, step)]));
-  const cache = new Map<string, Comparison | null>();
+  const index = new Map(units.map((u, i) => [u, i]));
+  const cells = units.map((u) => cellsOf(u.bars, grids, step));
+  const cache = new Map<number, Comparison | null>();
   const compare: Comparer = (a, b) => {
-    const key = a.id < b.id ? `${a.id}|${b.id}` : `${b.id}|${a.id}`;
+    const i = index.get(a) ?? 0;
+    const j = index.get(b) ?? 0;
+    const key = i < j ? i * units.length + j : j * units.length + i;
     let c = cache.get(key);
     if (c === undefined) {
       // phrases of different bar counts are never twins; the rest stop counting past a near twin
-      c = a.bars.length !== b.bars.length ? null : compareCells(cells.get(a) ?? [], cells.get(b) ?? [], NEAR_TWIN_NOTES);
+      c = a.bars.length !== b.bars.length ? null : compareCells(cells[i] ?? NO_CELLS, cells[j] ?? NO_CELLS, NEAR_TWIN_NOTES);
       // a twin keeps most of its notes: two of three notes changed is another phrase, not a near twin
-      if (c !== null && c.differingNotes > 0 && c.notes - c.differingNotes <= c.differingNotes) {
+      if (c !== null && c.differingNotes > 0 && c.differingNotes <= NEAR_TWIN_NOTES && c.notes - c.differingNotes <= c.differingNotes) {
         c = { ...c, differingNotes: NEAR_TWIN_NOTES + 1 };
       }
       cache.set(key, c);
