@@ -3,12 +3,14 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { phraseMap, type PhraseMap } from "../../../lib/abc/phrase-map";
-import { readTune } from "../../fixtures/abc/phrases/bars";
+import { skeletonOf } from "../../../lib/abc/skeleton";
 
 const fixture = (name: string): string => readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
+// phrases are compared on the skeleton (issue 3 §5), so the map is built from skeletonOf's bars
 const mapOf = (abc: string): PhraseMap => {
-  const t = readTune(abc);
-  return phraseMap(t.bars, t.meter, t.unit);
+  const sk = skeletonOf(abc);
+  if (!sk.ok) throw new Error(sk.problems.map((p) => p.message).join("; "));
+  return phraseMap(sk.value.bars, sk.value.meter, sk.value.unit);
 };
 const letters = (m: PhraseMap, part: number): string[] => m.parts[part]?.phrases.map((p) => p.letter) ?? [];
 const twin = (m: PhraseMap, a: string, b: string) => m.twins.find((t) => t.first === a && t.second === b);
