@@ -22,13 +22,14 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
   const grids = sampleBars(bars, step);
   const plans = findParts(bars, fullBarLength(bars, meter));
 
-  const units: Unit[] = [];
   const perPart = plans.map((plan, i) => {
     const grouping = groupBars(plan.main.length);
-    const pp = unitsOf(plan, i, grouping);
-    for (const p of pp.phrases) units.push(p.main, ...p.variants);
-    return { plan, grouping, pp };
+    return { plan, grouping, pp: unitsOf(plan, i, grouping) };
   });
+  // Letters go to the phrases as first played, in order, and only then to other endings: a second
+  // ending unlike anything else gets a letter of its own without shifting the letters of the parts.
+  const mains = perPart.flatMap((p) => p.pp.phrases.map((x) => x.main));
+  const units: Unit[] = [...mains, ...perPart.flatMap((p) => p.pp.phrases.flatMap((x) => x.variants))];
 
   const index = new Map(units.map((u, i) => [u, i]));
   const cells = units.map((u) => cellsOf(u.bars, grids, step));

@@ -89,6 +89,16 @@ describe("phrase map of a jig with a pickup and first/second endings (Lantern Hi
   });
 });
 
+describe("a second ending unlike any phrase", () => {
+  it("gets a letter of its own after the parts' letters, which it does not shift", () => {
+    const m = mapOf(fixture("lantern-hill.abc").replace('|2"G"G3 G2B||', '|2"C"e3 c3||'));
+    expect(letters(m, 0)).toEqual(["a", "b", "c", "d"]);
+    expect(letters(m, 1)).toEqual(["e", "f", "c", "d"]);
+    expect(m.parts[0]?.phrases[3]?.alternatives[0]?.letter).toBe("g");
+    expect(m.learningLoad).toEqual({ distinct: 7, afterSwaps: 7 });
+  });
+});
+
 describe("phrase map of a waltz whose parts do not divide into four (The Short Reed)", () => {
   const m = mapOf(fixture("short-reed.abc"));
 
