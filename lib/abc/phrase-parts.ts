@@ -16,7 +16,7 @@ export interface PartPlan {
   foundBy: string;
   /** Every bar of the part in text order (pickups, main path, alternative endings). */
   bars: Bar[];
-  /** Leading bars shorter than a full bar: the anacrusis, not counted as bars. */
+  /** Lead-ins, not counted as bars: leading bars shorter than a full bar, and any bar the model numbered 0. */
   pickups: Bar[];
   /** The counted bars of the part as first played: through the first ending. */
   main: Bar[];
@@ -39,7 +39,8 @@ export function findParts(bars: Bar[], fullBar: number): PartPlan[] {
     const seen = new Map<string, number>();
     // a P: section holding only a lead-in (no full bar) is the pickup of the part after it
     segments = mergeFragments(runs, fullBar, 1).map((run) => {
-      const base = run[run.length - 1]?.part ?? "A";
+      const full = localFullBar(run, fullBar);
+      const base = (run.find((b) => !isShort(b, full)) ?? run[0])?.part ?? "A";
       const times = (seen.get(base) ?? 0) + 1;
       seen.set(base, times);
       // a label that comes back later names a new part of its own (ids stay unique)
@@ -50,10 +51,10 @@ export function findParts(bars: Bar[], fullBar: number): PartPlan[] {
     const marked = mergeFragments(splitRuns(bars, structuralBoundary), fullBar, 2);
     const pieces = marked.flatMap((run) => halve(run, localFullBar(run, fullBar)).map((bars) => ({ bars, halved: bars !== run })));
     const label0 = bars[0]?.part ?? "A";
-    const how = marked.length === 1 ? "the whole tune (no P: labels, repeats or double bars divide it)" : "repeat marks and double bars";
+    const how = marked.length === 1 ? "no P: labels, repeats or double bars divide the tune" : "repeat marks and double bars";
     segments = pieces.map((piece, i) => ({
       label: pieces.length === 1 ? label0 : String.fromCharCode(65 + (i % 26)) + (i >= 26 ? String(Math.floor(i / 26)) : ""),
-      foundBy: piece.halved ? `${how}; a stretch of more than 16 bars without marks halved (strains are 8 or 16 bars: common practice)` : how,
+      foundBy: piece.halved ? `${how}; a stretch of more than 16 bars without marks is halved (strains are 8 or 16 bars: common practice)` : how,
       bars: piece.bars,
     }));
   }

@@ -156,3 +156,31 @@ describe("the comparison grid", () => {
     expect(twin(m, "A1", "A3")?.kind).toBe("exact");
   });
 });
+
+describe("finding parts without labels, and with a labelled lead-in", () => {
+  // eight bars of a plain invented reel strain, L:1/8
+  const strain = ["DEFG ABcd", "efge dBAG", "FGAB cdec", "dBAG FDD2", "DFAd fdAF", "GBdg fdec", "dcBA GFED", "E2D2 D4"];
+  const head = "X:1\nT:t\nM:4/4\nL:1/8\nK:D\n";
+
+  it("takes a tune with no marks at all as one part when it is 16 bars or fewer", () => {
+    const m = mapOf(`${head}|${[...strain, ...strain].join("|")}|]\n`);
+    expect(m.parts.map((p) => [p.label, p.countedBars, p.grouping.phraseBars])).toEqual([["A", 16, [4, 4, 4, 4]]]);
+    expect(m.parts[0]?.foundBy).toMatch(/no P: labels, repeats or double bars/);
+  });
+
+  it("halves a longer stretch without marks into strains (common practice: 8 or 16 bars)", () => {
+    const m = mapOf(`${head}|${[...strain, ...strain, ...strain, ...strain].join("|")}|]\n`);
+    expect(m.parts.map((p) => [p.label, p.countedBars])).toEqual([["A", 16], ["B", 16]]);
+    expect(m.parts[1]?.foundBy).toMatch(/halved/);
+    expect(m.patterns.map((p) => p.pattern)).toContain("secondHalfShared");
+  });
+
+  it("splits at a double bar, and joins a labelled lead-in to the part it leads into", () => {
+    const m = mapOf(`${head}P:I\nA2|\nP:A\n|:${strain.join("|")}:|\nP:B\n|:${strain.slice(4).join("|")}|${strain.slice(0, 4).join("|")}:|\n`);
+    expect(m.parts.map((p) => [p.label, p.pickup, p.countedBars])).toEqual([["A", [0], 8], ["B", [], 8]]);
+    expect(m.parts[1]?.phrases.map((p) => p.letter)).toEqual(["c", "d", "a", "b"]);
+    const twoStrains = mapOf(`${head}${strain.join("|")}||${strain.slice(4).join("|")}|${strain.slice(0, 4).join("|")}|]\n`);
+    expect(twoStrains.parts.map((p) => [p.label, p.foundBy])).toEqual([["A", "repeat marks and double bars"], ["B", "repeat marks and double bars"]]);
+  });
+});
+
