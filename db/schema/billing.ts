@@ -1,0 +1,113 @@
+import { sql } from "drizzle-orm";
+import { boolean, check, char, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { users } from "./people";
+
+export const planIntervalEnum = pgEnum("plan_interval", ["month", "year"]);
+
+// Money is always integer minor units (pence, cents) with an ISO 4217 currency code.
+export const plans = pgTable(
+  "plans",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    name: text("name").notNull(),
+    amount: integer("amount").notNull(),
+    currency: char("currency", { length: 3 }).notNull(),
+    interval: planIntervalEnum("interval").notNull(),
+    opens: text("opens").notNull().default("The whole catalogue"),
+    stripeProductId: text("stripe_product_id").unique(),
+    stripePriceId: text("stripe_price_id").unique(),
+    // A plan in use is retired, never deleted.
+    retiredAt: timestamp("retired_at", { withTimezone: true }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check("plans_amount_nonneg", sql`${t.amount} >= 0`)],
+);
+
+export const subscriptionStatusEnum = pgEnum("subscription_status", [
+  "incomplete",
+  "incomplete_expired",
+  "trialing",
+  "active",
+  "past_due",
+  "canceled",
+  "unpaid",
+  "paused",
+]);
+
+export const subscriptions = pgTable(
+  "subscriptions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    planId: uuid("plan_id")
+      .notNull()
+      .references(() => plans.id, { onDelete: "restrict" }),
+    stripeSubscriptionId: text("stripe_subscription_id").notNull().unique(),
+    status: subscriptionStatusEnum("status").notNull(),
+    currentPeriodEnd: timestamp("current_period_end", { withTimezone: true }),
+    cancelAtPeriodEnd: boolean("cancel_at_period_end").notNull().default(false),
+    graceUntil: timestamp("grace_until", { withTimezone: true }),
+    // Stripe's event time of the last applied change, so an older event arriving late changes nothing.
+    stripeUpdatedAt: timestamp("stripe_updated_at", { withTimezone: true }),
+    startedAt: timestamp("started_at", { withTimezone: true }).notNull().defaultNow(),
+    endedAt: timestamp("ended_at", { withTimezone: true }),
+  },
+  (t) => [index("subscriptions_user_idx").on(t.userId), index("subscriptions_status_idx").on(t.status)],
+);
+
+export const paymentStatusEnum = pgEnum("payment_status", ["paid", "failed", "refunded", "partially_refunded"]);
+export const paymentKindEnum = pgEnum("payment_kind", ["new", "renewal", "plan_change"]);
+
+export const payments = pgTable(
+  "payments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    subscriptionId: uuid("subscription_id").references(() => subscriptions.id, { onDelete: "set null" }),
+    planId: uuid("plan_id").references(() => plans.id, { onDelete: "set null" }),
+    stripeInvoiceId: text("stripe_invoice_id").notNull().unique(),
+    stripePaymentIntentId: text("stripe_payment_intent_id"),
+    kind: paymentKindEnum("kind").notNull(),
+    amount: integer("amount").notNull(),
+    refundedAmount: integer("refunded_amount").notNull().default(0),
+    currency: char("currency", { length: 3 }).notNull(),
+    status: paymentStatusEnum("status").notNull(),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
+  },
+  (t) => [
+    index("payments_created_idx").on(t.createdAt),
+    index("payments_status_created_idx").on(t.status, t.createdAt),
+    index("payments_user_idx").on(t.userId),
+    check("payments_refund_within_amount", sql`${t.refundedAmount} between 0 and ${t.amount}`),
+  ],
+);
+
+export const refunds = pgTable(
+  "refunds",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    paymentId: uuid("payment_id")
+      .notNull()
+      .references(() => payments.id, { onDelete: "restrict" }),
+    stripeRefundId: text("stripe_refund_id").notNull().unique(),
+    amount: integer("amount").notNull(),
+    currency: char("currency", { length: 3 }).notNull(),
+    reason: text("reason").notNull(),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("refunds_payment_idx").on(t.paymentId), check("refunds_amount_pos", sql`${t.amount} > 0`)],
+);
+
+/** Each Stripe event id is stored once: a redelivered event is recognised and changes nothing. */
+export const webhookEvents = pgTable("webhook_events", {
+  id: text("id").primaryKey(),
+  type: text("type").notNull(),
+  payload: jsonb("payload").notNull(),
+  receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
+  processedAt: timestamp("processed_at", { withTimezone: true }),
+});

@@ -1,0 +1,5 @@
+export * from "./people";
+export * from "./catalogue";
+export * from "./teaching";
+export * from "./billing";
+export * from "./system";

@@ -1,0 +1,44 @@
+import { bigint, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { users } from "./people";
+
+export const uploadStatusEnum = pgEnum("upload_status", ["pending", "stored", "rejected"]);
+
+/** Objects in S3-compatible storage (recordings); the bytes never live in the database. */
+export const uploads = pgTable(
+  "uploads",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    ownerId: uuid("owner_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    storageKey: text("storage_key").notNull().unique(),
+    contentType: text("content_type").notNull(),
+    sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    status: uploadStatusEnum("status").notNull().default("pending"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("uploads_owner_idx").on(t.ownerId)],
+);
+
+export const outboxStatusEnum = pgEnum("outbox_status", ["queued", "sent", "failed"]);
+
+/** Every e-mail is written here first and sent by the job queue, so a provider failure loses nothing. */
+export const emailOutbox = pgTable(
+  "email_outbox",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    toAddress: text("to_address").notNull(),
+    template: text("template").notNull(),
+    subject: text("subject").notNull(),
+    payload: jsonb("payload").$type<Record<string, unknown>>().notNull(),
+    // Makes "at most once" rules (a reminder per assignment and student) a unique constraint.
+    dedupeKey: text("dedupe_key").unique(),
+    status: outboxStatusEnum("status").notNull().default("queued"),
+    attempts: integer("attempts").notNull().default(0),
+    providerId: text("provider_id"),
+    lastError: text("last_error"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    sentAt: timestamp("sent_at", { withTimezone: true }),
+  },
+  (t) => [index("email_outbox_status_idx").on(t.status, t.createdAt)],
+);

@@ -1,0 +1,34 @@
+import { Lucia, TimeSpan } from "lucia";
+import { DrizzlePostgreSQLAdapter } from "@lucia-auth/adapter-drizzle";
+import { db } from "@/db/client";
+import { sessions, users } from "@/db/schema";
+import { env } from "@/lib/env";
+
+type Role = "student" | "teacher" | "admin";
+
+function create() {
+  const adapter = new DrizzlePostgreSQLAdapter(db(), sessions, users);
+  return new Lucia(adapter, {
+    // Sliding expiry: lucia extends a session used in the second half of its 30-day life.
+    sessionExpiresIn: new TimeSpan(30, "d"),
+    sessionCookie: {
+      name: "rosinwood_session",
+      expires: false,
+      attributes: { secure: env().INSECURE_COOKIES !== "true", sameSite: "lax" },
+    },
+    getUserAttributes: (a) => ({ name: a.name, email: a.email, role: a.role, disabled: a.disabled }),
+  });
+}
+
+let instance: ReturnType<typeof create> | undefined;
+export function lucia() {
+  instance ??= create();
+  return instance;
+}
+
+declare module "lucia" {
+  interface Register {
+    Lucia: ReturnType<typeof create>;
+    DatabaseUserAttributes: { name: string; email: string; role: Role; disabled: boolean };
+  }
+}
