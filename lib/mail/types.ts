@@ -1,0 +1,20 @@
+// The contract between the code that decides to send an e-mail and the mail system (outbox, queue, templates).
+// Callers only ever enqueue; a worker renders and sends through the resend SDK with retries.
+
+/** Every message Rosinwood sends, with the data its template needs. Later issues add entries. */
+export interface MailTemplates {
+  welcome: { name: string; verifyUrl: string };
+  "verify-email": { name: string; verifyUrl: string };
+  "password-reset": { name: string; resetUrl: string; expiresInMinutes: number };
+  "password-changed": { name: string };
+  invitation: { inviterName: string; role: "student" | "teacher" | "admin"; acceptUrl: string; expiresInDays: number };
+}
+export type TemplateName = keyof MailTemplates;
+
+export interface OutgoingMail<T extends TemplateName = TemplateName> {
+  to: string;
+  template: T;
+  data: MailTemplates[T];
+  /** Makes "send at most once" rules hold: a second enqueue with the same key is ignored. */
+  dedupeKey?: string;
+}
