@@ -1,22 +1,14 @@
-// Small exact-time helpers for the phrase map and the setting comparison. Kept here (not in a shared
-// fraction module) so these files depend only on types.ts.
+// Time helpers for the phrase map and the setting comparison.
 import type { Bar, Fraction } from "./types";
+import { toNumber } from "./fraction";
+import { beatOf } from "./header";
 
-export const toNumber = (f: Fraction): number => f.num / f.den;
+export { toNumber };
 
 /** True when `t` is a whole multiple of `step` (both exact fractions). */
 export function isMultiple(t: Fraction, step: Fraction): boolean {
   // t / step = (t.num * step.den) / (t.den * step.num)
   return (t.num * step.den) % (t.den * step.num) === 0;
-}
-
-/**
- * The beat used to state where a difference is. Compound meters (6/8, 9/8, 12/8 …) count in dotted
- * beats of three eighths (common practice); other meters count in their denominator.
- */
-export function beatOf(meter: Fraction): Fraction {
-  if (meter.den >= 8 && meter.num % 3 === 0 && meter.num > 3) return { num: 3, den: meter.den };
-  return { num: 1, den: meter.den };
 }
 
 /** 1-based beat number of an onset (fractional when between beats), rounded to 1/1000. */
