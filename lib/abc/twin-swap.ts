@@ -5,6 +5,8 @@ import type { PhraseMap, Swap } from "./phrase-types";
 import { toNumber } from "./phrase-time";
 import { barContent, fieldsAt } from "./twin-text";
 
+const FIELD = /\[[A-Za-z]:[^\]]*\]|(?:^|\n)[A-Za-z]:/;
+
 export interface SwapPlan {
   /** Swaps made, and the ones left out with the reason. */
   made: Swap[];
@@ -61,7 +63,10 @@ export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: stri
       } else {
         const [ts, te] = barContent(abc, target);
         const [ss, se] = barContent(abc, source);
-        edits.push({ start: ts, end: te, text: abc.slice(ss, se) });
+        const text = abc.slice(ss, se);
+        // a field inside a bar ([K:G], or a K: line in a bar broken over lines) would move or vanish
+        if (FIELD.test(text) || FIELD.test(abc.slice(ts, te))) reason = `bar ${target.number} or its model holds a field (K:, L:, M: …)`;
+        else edits.push({ start: ts, end: te, text });
       }
     }
     if (reason !== null) plan.skipped.push({ swap, reason });

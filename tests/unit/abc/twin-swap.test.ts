@@ -104,6 +104,13 @@ describe("swaps that cannot be made safely are left out, with the reason", () =>
     expect(twinSwap(src, barsOf(src), map)).toBe(src);
   });
 
+  it("leaves a twin alone when a bar to copy or replace holds an inline field (ABC 2.1 §3.2: [K:…] in the body)", () => {
+    const src = fixture("rosin-box.abc").replace('"G"gfed "A"cAcd:|\n|:', '[K:D]"G"gfed "A"cAcd:|\n|:');
+    const plan = planSwaps(src, barsOf(src), mapOf(src));
+    expect(plan.skipped.map((s) => [s.swap.phrase, s.reason])).toEqual([["A4", "bar 8 or its model holds a field (K:, L:, M: …)"]]);
+    expect(plan.made.map((s) => s.phrase)).toEqual(["B3", "B4"]);
+  });
+
   it("leaves a twin alone when the differing bar is shorter than its model's (a last bar cut for a pickup)", () => {
     const src = fixture("short-reed.abc");
     const map = mapOf(src);
