@@ -111,6 +111,13 @@ function writeNote(
   const body = el.body;
   const reduce = body.chord && removed.has("doubleStops");
   const m = melodyIndex(el, pick);
+  if (!g && !reduce && el.lex.toks.every(keep)) {
+    // Nothing to take out: the element as written, unless an accidental must be re-spelt.
+    const spelt = body.rest ? null : body.notes.map((n, i) => state.spell(el.pos[i], n.acc, el.midi[i] ?? 0));
+    if (!spelt || spelt.every((a, i) => a === body.notes[i].acc)) write(src.slice(el.start, el.end));
+    else for (const t of el.lex.toks) write(t.kind === "body" ? withAccidentals(src, el, spelt) : src.slice(t.start, t.end));
+    return el.midi[m];
+  }
   if (!g) {
     // A tie from a reduced chord survives only if the next note still sounds its pitch.
     const tieOk = !reduce || tiedPitches(el.next, removed, pick).includes(el.midi[m]);
@@ -138,16 +145,28 @@ function writeNote(
 
 
 
-/**
- * A body as written, or reduced to its melody note (`only`), or with a new length (`len`, a
- * multiple of L). Accidentals are re-spelt where the output's bar context differs from the source.
- */
 /** Pitches a note element sounds once `removed` kinds are gone. */
 function tiedPitches(el: NoteEl | null, removed: ReadonlySet<Kind>, pick: DoubleStop): (number | null)[] {
   if (!el) return [];
   return el.body.chord && removed.has("doubleStops") ? [el.midi[melodyIndex(el, pick)]] : el.midi;
 }
 
+/** The body as written, with `spelt` accidentals in place of the written ones. */
+function withAccidentals(src: string, el: NoteEl, spelt: string[]): string {
+  const b = el.body;
+  let s = "";
+  let at = b.start;
+  b.notes.forEach((n, i) => {
+    s += src.slice(at, n.start) + spelt[i];
+    at = n.letterStart;
+  });
+  return s + src.slice(at, b.end);
+}
+
+/**
+ * A body as written, or reduced to its melody note (`only`), or with a new length (`len`, a
+ * multiple of L). Accidentals are re-spelt where the output's bar context differs from the source.
+ */
 function renderBody(
   src: string, el: NoteEl, state: BarAccidentals, only: number | null, len: Fraction | null, tieOk = true,
 ): string {
@@ -163,11 +182,5 @@ function renderBody(
     const pitches = b.notes.map((n, i) => spelt[i] + n.name).join("");
     return b.chord ? `[${pitches}]${abcLength(len)}` : pitches + abcLength(len);
   }
-  let s = "";
-  let at = b.start;
-  b.notes.forEach((n, i) => {
-    s += src.slice(at, n.start) + spelt[i];
-    at = n.letterStart;
-  });
-  return s + src.slice(at, b.end);
+  return withAccidentals(src, el, spelt);
 }

@@ -107,7 +107,7 @@ export function readModel(abc: string, tune: TuneObject): TuneModel {
             state.reset();
             if (seen.has(start)) continue;
             seen.add(start);
-            const toks = lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord");
+            const toks = hasMarks(abc, start, end) ? lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord") : [];
             const startEnding = str(item, "startEnding") ?? null;
             els.push({ type: "bar", voice, start, end, toks, barType: item.type, startEnding, endEnding: Reflect.get(item, "endEnding") === true });
           } else if (item.el_type === "note" && !seen.has(start)) {
@@ -148,13 +148,23 @@ export function readModel(abc: string, tune: TuneObject): TuneModel {
   return { abc, header, shorthands, voices, melody, bars, edits, tuplets };
 }
 
+/** Most bar lines carry nothing to lex: skip the lexer unless a decoration or quote is there. */
+function hasMarks(abc: string, start: number, end: number): boolean {
+  for (let i = start; i < end; i++) {
+    const c = abc[i];
+    if (c === "!" || c === "+" || c === '"') return true;
+  }
+  return false;
+}
+
 function noteEl(
   item: object, voice: string, start: number, end: number, lex: Lexed, body: Body,
   state: BarAccidentals, header: HeaderInfo, prev: NoteEl | undefined,
 ): NoteEl {
   const written = mul(body.notes[0]?.len ?? frac(1), body.outerLen);
   const duration = fromNumber(num(item, "duration") ?? 0);
-  const brokenOut = lex.toks.some((t) => t.kind === "broken");
+  let brokenOut = false;
+  for (const t of lex.toks) if (t.kind === "broken") brokenOut = true;
   // The unit abcjs used is exact when no broken rhythm touches the note; it follows L: changes
   // abcjs applied (including inline [L:]) without a second reading of the fields.
   const unit = !brokenOut && !prev?.brokenOut && written.num > 0 && duration.num > 0
@@ -162,8 +172,9 @@ function noteEl(
     : valueAt(header.units, start);
   const pos = body.notes.map((n) => (body.rest ? 0 : staffPos(n.name)));
   const midi = body.notes.map((n, i) => (body.rest ? null : state.sound(pos[i], n.acc)));
-  const afterBody = lex.toks.filter((t) => t.start >= body.end);
-  const tieOut = afterBody.some((t) => t.kind === "tie") || body.notes.some((n) => n.tie !== "");
+  let tieOut = false;
+  for (const t of lex.toks) if (t.kind === "tie" && t.start >= body.end) tieOut = true;
+  for (const n of body.notes) if (n.tie !== "") tieOut = true;
   return {
     type: "note", voice, start, end, lex, body, duration, unit, midi, pos, tieOut,
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
