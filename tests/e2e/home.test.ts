@@ -48,7 +48,7 @@ describe("the home page and health in a real browser", () => {
     const page = await browser.newPage();
     const response = await page.goto(BASE_URL + "/no-such-page");
     expect(response?.status()).toBe(404);
-    expect(await page.locator("main").textContent()).toMatch(/not found|couldn.t find|no page/i);
+    expect(await page.locator("main").textContent()).toMatch(/could not find that page/i);
     await page.close();
   });
 });
