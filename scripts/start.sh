@@ -42,7 +42,6 @@ cat <<MSG
 
   Rosinwood is running at  $APP_URL
 
-  Demo sign-ins (password for all: $(node_modules/.bin/tsx -e 'import("./db/seed-data/people.ts").then(m=>console.log(m.DEMO_PASSWORD))')):
 $(node_modules/.bin/tsx scripts/demo-sign-ins.ts)
 
   Logs: .data/app.log, .data/postgres.log. Press Ctrl-C to stop.
