@@ -1,5 +1,5 @@
 import { and, asc, eq, ilike, or, sql } from "drizzle-orm";
-import type { Db } from "../client";
+import type { Tx as Db } from "./auth";
 import { rosterEntries, users } from "../schema";
 
 export type Role = "student" | "teacher" | "admin";

@@ -1,0 +1,17 @@
+"use client";
+
+import { useActionState } from "react";
+import { INITIAL_STATE } from "@/lib/auth/action-state";
+import { verifyEmail } from "../actions";
+import { FormMessage, SubmitButton } from "../_components/form-bits";
+
+export function VerifyForm({ token }: { token: string }) {
+  const [state, action] = useActionState(verifyEmail, INITIAL_STATE);
+  return (
+    <form action={action} className="flex flex-col gap-4">
+      <FormMessage state={state} />
+      <input type="hidden" name="token" value={token} />
+      <SubmitButton>Confirm my address</SubmitButton>
+    </form>
+  );
+}

@@ -1,0 +1,9 @@
+import type { ReactNode } from "react";
+import { requireArea } from "@/lib/auth/next-context";
+
+export const dynamic = "force-dynamic";
+
+export default async function TeachLayout({ children }: { children: ReactNode }) {
+  await requireArea("area:teach");
+  return children;
+}

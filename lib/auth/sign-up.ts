@@ -1,0 +1,56 @@
+import { db } from "@/db/client";
+import { createUser, findUserByEmail } from "@/db/queries/people";
+import { insertEmailToken, retireEmailTokens, updateUser, type Tx } from "@/db/queries/auth";
+import { enqueueEmail } from "@/lib/mail/outbox";
+import type { ActionState } from "./action-state";
+import type { RequestContext } from "./context";
+import { badRequest } from "./errors";
+import { appLink } from "./links";
+import { hashPassword } from "./password";
+import { passwordProblem } from "./password-policy";
+import { addressKey, hitAll, ipKey, LIMITS } from "./rate-limit";
+import { sendResetLink } from "./password-reset";
+import { MINUTE, newToken, VERIFY_TTL_MINUTES } from "./tokens";
+
+export type SignUpInput = { name: string; email: string; password: string };
+
+// The answer is the same whether or not the address already has an account (issue 4 §3), so an
+// account only becomes usable once its owner opens the link sent to the address.
+export const signUpSentMessage = (email: string) =>
+  `Nearly there: we've sent a message to ${email}. Open the link in it to confirm your address, then sign in. ` +
+  "(If that address already has an account, the message explains how to get back into it.)";
+
+/** Sends the confirmation link that makes a new account usable; older links stop working. */
+export async function sendVerifyLink(tx: Tx, user: { id: string; name: string; email: string }, template: "welcome" | "verify-email") {
+  const { token, hash } = newToken();
+  await retireEmailTokens(tx, user.id, "verify_email");
+  await insertEmailToken(tx, { userId: user.id, purpose: "verify_email", tokenHash: hash, expiresAt: new Date(Date.now() + VERIFY_TTL_MINUTES * MINUTE) });
+  await enqueueEmail(tx, { to: user.email, template, data: { name: user.name, verifyUrl: appLink("/verify-email", { token }) } });
+}
+
+export async function signUp(ctx: RequestContext, input: SignUpInput): Promise<ActionState> {
+  const email = input.email.trim();
+  const problem = passwordProblem(input.password, email);
+  if (problem) throw badRequest("Please choose another password.", { password: problem });
+  await hitAll(db(), [
+    [addressKey("sign-up", email), LIMITS.signUpAddress],
+    [ipKey("sign-up", ctx.ip), LIMITS.signUpIp],
+  ]);
+  const passwordHash = await hashPassword(input.password);
+  await db().transaction(async (tx) => {
+    const existing = await findUserByEmail(tx, email);
+    if (!existing) {
+      const user = await createUser(tx, { email, name: input.name.trim(), role: "student", passwordHash });
+      await sendVerifyLink(tx, user, "welcome");
+    } else if (existing.disabled) {
+      // A closed account gets nothing; the visitor still sees the same answer.
+    } else if (!existing.emailVerifiedAt) {
+      // Nobody has proved they own this address yet: the newest sign-up's details win.
+      const user = await updateUser(tx, existing.id, { name: input.name.trim(), passwordHash });
+      if (user) await sendVerifyLink(tx, user, "welcome");
+    } else {
+      await sendResetLink(tx, existing);
+    }
+  });
+  return { status: 200, message: signUpSentMessage(email) };
+}

@@ -1,0 +1,23 @@
+import { NextResponse, type NextRequest } from "next/server";
+
+// A convenience only: a visitor without a session cookie is sent to sign in and back. Whether
+// the cookie's session is real, and whether its role may enter, is the guard's job on the server
+// (lib/auth/next-context.ts requireArea), so nothing here touches the database.
+const SESSION_COOKIE = "rosinwood_session"; // lib/auth/lucia.ts; middleware runs on the edge runtime and cannot import lucia
+
+export function middleware(request: NextRequest) {
+  const { pathname, search } = request.nextUrl;
+  const asked = pathname + search;
+  if (!request.cookies.get(SESSION_COOKIE)?.value) {
+    const url = request.nextUrl.clone();
+    url.pathname = "/sign-in";
+    url.search = `?next=${encodeURIComponent(asked)}`;
+    return NextResponse.redirect(url);
+  }
+  // The area's layout reads this to send an expired session back here after signing in.
+  const headers = new Headers(request.headers);
+  headers.set("x-rosinwood-path", asked);
+  return NextResponse.next({ request: { headers } });
+}
+
+export const config = { matcher: ["/learn", "/learn/:path*", "/teach", "/teach/:path*", "/admin", "/admin/:path*"] };
