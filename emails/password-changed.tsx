@@ -1,0 +1,31 @@
+import { Heading, Link, Text } from "@react-email/components";
+import type { MailTemplates } from "@/lib/mail/types";
+import { MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
+
+type Data = MailTemplates["password-changed"];
+
+export function subject(_data: Data): string {
+  return "Your Rosinwood password was changed";
+}
+
+export default function PasswordChangedEmail({ name, appUrl }: Data & MailFrame) {
+  const signIn = absoluteUrl("/sign-in", appUrl);
+  return (
+    <MailLayout preview="Your password was just changed." appUrl={appUrl}>
+      <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
+        Hello {name},
+      </Heading>
+      <Text style={paragraph}>
+        The password for your Rosinwood account was just changed, and every device that was signed in has been
+        signed out. If that was you, all is well and there is nothing more to do.
+      </Text>
+      <Text style={paragraph}>
+        If it was not you, please choose a new password straight away from the{" "}
+        <Link href={signIn} style={{ color: "#8A3B12" }}>
+          sign-in page
+        </Link>{" "}
+        (&ldquo;Forgot your password?&rdquo;), and reply to this message so we can help.
+      </Text>
+    </MailLayout>
+  );
+}

@@ -1,0 +1,27 @@
+import { Heading, Text } from "@react-email/components";
+import type { MailTemplates } from "@/lib/mail/types";
+import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
+
+type Data = MailTemplates["password-reset"];
+
+export function subject(_data: Data): string {
+  return "Choose a new Rosinwood password";
+}
+
+export default function PasswordResetEmail({ name, resetUrl, expiresInMinutes, appUrl }: Data & MailFrame) {
+  return (
+    <MailLayout preview="A link to choose a new password." appUrl={appUrl}>
+      <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
+        Hello {name},
+      </Heading>
+      <Text style={paragraph}>
+        Someone (we hope you) asked to choose a new password for your Rosinwood account. The link works once, for the
+        next {expiresInMinutes} minutes.
+      </Text>
+      <MailAction href={absoluteUrl(resetUrl, appUrl)} label="Choose a new password" />
+      <Text style={paragraph}>
+        If you did not ask, you need not do anything: your password stays as it is.
+      </Text>
+    </MailLayout>
+  );
+}

@@ -1,0 +1,24 @@
+import { Heading, Text } from "@react-email/components";
+import type { MailTemplates } from "@/lib/mail/types";
+import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
+
+type Data = MailTemplates["verify-email"];
+
+export function subject(_data: Data): string {
+  return "Please confirm your e-mail address";
+}
+
+export default function VerifyEmail({ name, verifyUrl, appUrl }: Data & MailFrame) {
+  return (
+    <MailLayout preview="Confirm your address so your teacher's messages reach you." appUrl={appUrl}>
+      <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
+        Hello {name},
+      </Heading>
+      <Text style={paragraph}>
+        Please confirm that this is your address, so that assignments and your teacher&apos;s feedback reach you.
+      </Text>
+      <MailAction href={absoluteUrl(verifyUrl, appUrl)} label="Confirm my address" />
+      <Text style={paragraph}>If you did not ask for this, you can let this message go.</Text>
+    </MailLayout>
+  );
+}
