@@ -1,5 +1,8 @@
+/** @jsxRuntime automatic @jsxImportSource react */
+// The pragma: tsconfig keeps JSX as is for Next ("preserve"); tsx and vitest need the runtime named.
 import { Heading, Text } from "@react-email/components";
 import type { MailTemplates } from "@/lib/mail/types";
+import { subjects } from "./subjects";
 import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
 
 type Data = MailTemplates["invitation"];
@@ -10,9 +13,7 @@ const asRole: Record<Data["role"], string> = {
   admin: "to help run the school",
 };
 
-export function subject(data: Data): string {
-  return `${data.inviterName} invited you to Rosinwood`;
-}
+export const subject = subjects.invitation;
 
 export default function InvitationEmail({ inviterName, role, acceptUrl, expiresInDays, appUrl }: Data & MailFrame) {
   return (

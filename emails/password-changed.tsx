@@ -1,12 +1,13 @@
+/** @jsxRuntime automatic @jsxImportSource react */
+// The pragma: tsconfig keeps JSX as is for Next ("preserve"); tsx and vitest need the runtime named.
 import { Heading, Link, Text } from "@react-email/components";
 import type { MailTemplates } from "@/lib/mail/types";
+import { subjects } from "./subjects";
 import { MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
 
 type Data = MailTemplates["password-changed"];
 
-export function subject(_data: Data): string {
-  return "Your Rosinwood password was changed";
-}
+export const subject = subjects["password-changed"];
 
 export default function PasswordChangedEmail({ name, appUrl }: Data & MailFrame) {
   const signIn = absoluteUrl("/sign-in", appUrl);

@@ -1,12 +1,13 @@
+/** @jsxRuntime automatic @jsxImportSource react */
+// The pragma: tsconfig keeps JSX as is for Next ("preserve"); tsx and vitest need the runtime named.
 import { Heading, Text } from "@react-email/components";
 import type { MailTemplates } from "@/lib/mail/types";
+import { subjects } from "./subjects";
 import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
 
 type Data = MailTemplates["password-reset"];
 
-export function subject(_data: Data): string {
-  return "Choose a new Rosinwood password";
-}
+export const subject = subjects["password-reset"];
 
 export default function PasswordResetEmail({ name, resetUrl, expiresInMinutes, appUrl }: Data & MailFrame) {
   return (

@@ -1,12 +1,13 @@
+/** @jsxRuntime automatic @jsxImportSource react */
+// The pragma: tsconfig keeps JSX as is for Next ("preserve"); tsx and vitest need the runtime named.
 import { Heading, Text } from "@react-email/components";
 import type { MailTemplates } from "@/lib/mail/types";
+import { subjects } from "./subjects";
 import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
 
 type Data = MailTemplates["verify-email"];
 
-export function subject(_data: Data): string {
-  return "Please confirm your e-mail address";
-}
+export const subject = subjects["verify-email"];
 
 export default function VerifyEmail({ name, verifyUrl, appUrl }: Data & MailFrame) {
   return (

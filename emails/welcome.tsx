@@ -1,12 +1,13 @@
+/** @jsxRuntime automatic @jsxImportSource react */
+// The pragma: tsconfig keeps JSX as is for Next ("preserve"); tsx and vitest need the runtime named.
 import { Heading, Text } from "@react-email/components";
 import type { MailTemplates } from "@/lib/mail/types";
+import { subjects } from "./subjects";
 import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "./layout";
 
 type Data = MailTemplates["welcome"];
 
-export function subject(data: Data): string {
-  return `Welcome to Rosinwood, ${data.name}`;
-}
+export const subject = subjects.welcome;
 
 export default function WelcomeEmail({ name, verifyUrl, appUrl }: Data & MailFrame) {
   return (

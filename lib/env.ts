@@ -9,6 +9,15 @@ const schema = z.object({
   APP_URL: z.url({ error: "must be the app's public address, e.g. http://127.0.0.1:3000" }).default("http://127.0.0.1:3000"),
   // When true the session cookie is sent over plain http (local development and tests only).
   INSECURE_COOKIES: z.enum(["true", "false"]).default("false"),
+  // E-mail. Only the worker sends, so the key may be absent for the web app; the worker checks it at start.
+  RESEND_API_KEY: z.string().min(1, "must not be empty (a Resend API key, re_…)").optional(),
+  RESEND_BASE_URL: z.url({ error: "must be the Resend API's address, e.g. https://api.resend.com" }).optional(),
+  MAIL_FROM: z
+    .string()
+    .regex(/^(?:[^<>]+<[^<>\s@]+@[^<>\s@]+>|[^<>\s@]+@[^<>\s@]+)$/, 'must be an address or "Name <address>"')
+    .default("Rosinwood <hello@rosinwood.test>"),
+  // Set only while the local Resend stand-in runs: turns on the /dev/mail page that reads its messages.
+  RESEND_FAKE_URL: z.url({ error: "must be the local Resend stand-in's address, e.g. http://127.0.0.1:4010" }).optional(),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -1,7 +1,7 @@
 import { emailOutbox } from "@/db/schema";
 import { scheduleEmail } from "@/lib/jobs/queue";
 import type { DbOrTx } from "@/lib/jobs/sql-executor";
-import { renderSubject } from "./templates";
+import { renderSubject } from "@/emails/subjects";
 import type { OutgoingMail, TemplateName } from "./types";
 
 export type { DbOrTx };

@@ -1,4 +1,4 @@
-import { render, toPlainText } from "@react-email/render";
+import { plainTextSelectors, render, toPlainText } from "@react-email/render";
 import { createElement, type ComponentType } from "react";
 import InvitationEmail, { subject as invitationSubject } from "@/emails/invitation";
 import type { MailFrame } from "@/emails/layout";
@@ -26,10 +26,8 @@ export function isTemplateName(name: string): name is TemplateName {
   return Object.hasOwn(templates, name);
 }
 
-export function renderSubject<T extends TemplateName>(template: T, data: MailTemplates[T]): string {
-  const entry: TemplateEntry<T> = templates[template];
-  return entry.subject(data);
-}
+// Headings stay in the writer's case: shouted capitals read as unfriendly in a warm message.
+const textOptions = { selectors: [...plainTextSelectors, { selector: "h1", options: { uppercase: false } }] };
 
 export interface RenderedMail {
   subject: string;
@@ -46,5 +44,5 @@ export async function renderMail<T extends TemplateName>(
   const entry: TemplateEntry<T> = templates[template];
   // An explicit (empty) key lets TypeScript see that the generic props also fit React's Attributes.
   const html = await render(createElement(entry.Component, { key: null, ...data, ...frame }));
-  return { subject: entry.subject(data), html, text: toPlainText(html) };
+  return { subject: entry.subject(data), html, text: toPlainText(html, textOptions) };
 }

@@ -1,0 +1,106 @@
+import PgBoss from "pg-boss";
+import { connect } from "@/db/client";
+import { env } from "@/lib/env";
+import { mailerFromEnv, sendOutboxEmail, type Mailer } from "@/lib/mail/send";
+import { SEND_EMAIL_QUEUE, type SendEmailJob } from "./queue";
+import { sweepOutbox } from "./sweeper";
+
+export interface RetryPolicy {
+  /** Retries after the first attempt. */
+  limit: number;
+  /** With back-off, pg-boss waits between delay·2^n and delay·2^(n+1) seconds before retry n+1. */
+  delaySeconds: number;
+  backoff: boolean;
+}
+
+export interface WorkerOptions {
+  databaseUrl?: string;
+  mailer?: Mailer;
+  /** How many e-mails are sent at the same time. */
+  concurrency?: number;
+  pollingIntervalSeconds?: number;
+  retry?: RetryPolicy;
+  sweep?: { intervalSeconds: number; minAgeSeconds: number };
+  log?: (line: string) => void;
+}
+
+export interface RunningWorker {
+  stop: () => Promise<void>;
+  /** One sweep now, whatever the rows' age; returns how many rows were queued again. */
+  sweepNow: () => Promise<number>;
+}
+
+// 5 s doubling ten times: the last retry comes one to three hours after the first try, long enough
+// to ride out a provider outage; after that the sweeper keeps trying every quarter hour.
+export const DEFAULT_RETRY: RetryPolicy = { limit: 10, delaySeconds: 5, backoff: true };
+const DEFAULT_SWEEP = { intervalSeconds: 60, minAgeSeconds: 900 };
+
+let current: RunningWorker | undefined;
+
+export async function startWorker(options: WorkerOptions = {}): Promise<RunningWorker> {
+  if (current) throw new Error("the worker is already running in this process");
+  const log = options.log ?? ((line: string) => console.log(`[worker] ${line}`));
+  const url = options.databaseUrl ?? env().DATABASE_URL;
+  const mailer = options.mailer ?? mailerFromEnv();
+  const retry = options.retry ?? DEFAULT_RETRY;
+  const sweep = options.sweep ?? DEFAULT_SWEEP;
+  const concurrency = options.concurrency ?? 4;
+
+  const boss = new PgBoss({ connectionString: url, max: concurrency + 2, schedule: false, application_name: "rosinwood-worker" });
+  boss.on("error", (error) => log(`queue error: ${error.message}`));
+  await boss.start(); // creates or migrates pg-boss's own schema ("pgboss")
+  const queue = {
+    name: SEND_EMAIL_QUEUE,
+    retryLimit: retry.limit,
+    retryDelay: retry.delaySeconds,
+    retryBackoff: retry.backoff,
+    // A job whose worker died mid-send expires and is retried instead of hanging.
+    expireInSeconds: 120,
+  };
+  if (await boss.getQueue(SEND_EMAIL_QUEUE)) await boss.updateQueue(SEND_EMAIL_QUEUE, queue);
+  else await boss.createQueue(SEND_EMAIL_QUEUE, queue);
+
+  const { db, close } = connect(url);
+  for (let i = 0; i < concurrency; i++) {
+    await boss.work<SendEmailJob>(
+      SEND_EMAIL_QUEUE,
+      { batchSize: 1, pollingIntervalSeconds: options.pollingIntervalSeconds ?? 1 },
+      async ([job]) => {
+        if (!job) return;
+        const outcome = await sendOutboxEmail(db, job.data.outboxId, mailer);
+        if (outcome === "failed") log(`e-mail ${job.data.outboxId} cannot be sent (see email_outbox.last_error)`);
+      },
+    );
+  }
+
+  const sweepWith = (minAgeSeconds: number) =>
+    sweepOutbox(db, boss, { minAgeSeconds, slotSeconds: Math.max(sweep.minAgeSeconds, 60) });
+  const timer = setInterval(() => {
+    sweepWith(sweep.minAgeSeconds).catch((error: unknown) => log(`sweep failed: ${String(error)}`));
+  }, sweep.intervalSeconds * 1000);
+  timer.unref();
+  // Rows left from before this start (a crash, or written before the queue existed) go out now.
+  const requeued = await sweepWith(0);
+  log(`sending e-mail (${concurrency} at a time); ${requeued} waiting message(s) queued again`);
+
+  let stopping: Promise<void> | undefined;
+  const running: RunningWorker = {
+    sweepNow: () => sweepWith(0),
+    stop: () => {
+      stopping ??= (async () => {
+        clearInterval(timer);
+        // Graceful: jobs in hand finish (or time out and are retried later), no new ones are fetched.
+        await boss.stop({ graceful: true, wait: true, timeout: 20_000 });
+        await close();
+        if (current === running) current = undefined;
+      })();
+      return stopping;
+    },
+  };
+  current = running;
+  return running;
+}
+
+export async function stopWorker(): Promise<void> {
+  await current?.stop();
+}
