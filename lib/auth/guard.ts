@@ -68,7 +68,7 @@ export function guardAction<S extends z.ZodType>(action: Action, schema: S, run:
 }
 
 type RouteArgs = { params: Promise<Record<string, string | string[]>> };
-export type GuardedRoute = (req: Request, args?: RouteArgs) => Promise<Response>;
+export type GuardedRoute = (req: Request, args: RouteArgs) => Promise<Response>;
 
 /** Cross-site requests carry another Origin (or Sec-Fetch-Site: cross-site); browsers always send one on a cross-site POST. */
 function sameOrigin(req: Request): boolean {
@@ -102,7 +102,7 @@ export function guardRoute<S extends z.ZodType>(
       if (mutating && !sameOrigin(req)) throw new HttpError(403, "Cross-site request refused.");
       const ctx = await loadContext(req.headers, (c) => cookies.push(c));
       if (!can(ctx.user?.role ?? "visitor", opts.action)) throw permissionFailure(ctx);
-      const params = args ? await args.params : {};
+      const params = (await args?.params) ?? {};
       const parsed = opts.input.safeParse({ ...(await readInput(req, from)), ...params });
       if (!parsed.success) throw new HttpError(400, "The request is not valid.", fieldErrorsOf(parsed.error));
       return withCookies(await run(ctx, parsed.data, req), cookies);

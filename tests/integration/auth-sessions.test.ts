@@ -9,6 +9,7 @@ let A: typeof import("@/lib/auth/actions");
 let signOutRoute: typeof import("@/app/api/auth/sign-out/route");
 let RL: typeof import("@/lib/auth/rate-limit");
 const DAY = 86_400_000;
+const NO_PARAMS = { params: Promise.resolve({}) };
 
 beforeAll(async () => {
   w = await authWorld();
@@ -44,7 +45,7 @@ describe("sessions", () => {
   it("end at sign-out (the header's form POST), which answers with a redirect home", async () => {
     const p = await w.person("teacher");
     const cookie = await w.cookieFor(p.id);
-    const res = await signOutRoute.POST(new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers: { cookie, origin: TEST_APP_URL } }));
+    const res = await signOutRoute.POST(new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers: { cookie, origin: TEST_APP_URL } }), NO_PARAMS);
     expect(res.status).toBe(303);
     expect(res.headers.get("location")).toBe("/");
     expect(res.headers.get("set-cookie")).toMatch(/rosinwood_session=;/);
@@ -56,7 +57,7 @@ describe("sessions", () => {
     const cookie = await w.cookieFor(p.id);
     const attempts: Record<string, string>[] = [{ cookie, origin: "https://elsewhere.example" }, { cookie, "sec-fetch-site": "cross-site" }];
     for (const headers of attempts) {
-      const res = await signOutRoute.POST(new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers }));
+      const res = await signOutRoute.POST(new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers }), NO_PARAMS);
       expect(res.status).toBe(403);
     }
     expect((await w.context(cookie)).ctx.user?.id).toBe(p.id);
