@@ -77,6 +77,12 @@ export async function sendOutboxEmail(db: DbOrTx, outboxId: string, mailer: Mail
       return { outcome: "sent" as const };
     }
     const text = `${error.name} (${error.statusCode ?? "no answer"}): ${error.message}`;
+    if (error.name === "invalid_idempotent_request") {
+      // Resend already accepted a message under this key (an earlier rendering, before a settings change):
+      // it was sent, and sending the new version would be the duplicate the key exists to prevent.
+      await record({ status: "sent", sentAt: new Date(), lastError: `accepted earlier under this key; ${text}` });
+      return { outcome: "sent" as const };
+    }
     if (error.statusCode !== null && PERMANENT_STATUS.has(error.statusCode)) {
       await record({ status: "failed", lastError: text });
       return { outcome: "failed" as const };
