@@ -29,6 +29,7 @@ export async function seed(db: Db): Promise<{ people: number }> {
     const id = await upsertPerson(db, { name: s.name, email: s.email, role: "student", timeZone: s.timeZone }, passwordHash);
     await db.insert(rosterEntries).values({ teacherId: teacherIds[s.teacherIndex], studentId: id }).onConflictDoNothing();
   }
+  await (await import("./seed-catalogue")).seedCatalogue(db); // demo courses and tunes (issue 5, item 8)
   const rows = await db.select({ n: sql<number>`count(*)::int` }).from(users);
   return { people: rows[0].n };
 }
