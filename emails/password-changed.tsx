@@ -10,7 +10,7 @@ type Data = MailTemplates["password-changed"];
 export const subject = subjects["password-changed"];
 
 export default function PasswordChangedEmail({ name, appUrl }: Data & MailFrame) {
-  const signIn = absoluteUrl("/sign-in", appUrl);
+  const forgot = absoluteUrl("/forgot-password", appUrl);
   return (
     <MailLayout preview="Your password was just changed." appUrl={appUrl}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
@@ -21,11 +21,11 @@ export default function PasswordChangedEmail({ name, appUrl }: Data & MailFrame)
         signed out. If that was you, all is well and there is nothing more to do.
       </Text>
       <Text style={paragraph}>
-        If it was not you, please choose a new password straight away from the{" "}
-        <Link href={signIn} style={{ color: "#8A3B12" }}>
-          sign-in page
+        If it was not you, please{" "}
+        <Link href={forgot} style={{ color: "#8A3B12" }}>
+          choose a new password
         </Link>{" "}
-        (&ldquo;Forgot your password?&rdquo;), and reply to this message so we can help.
+        straight away, and reply to this message so we can help.
       </Text>
     </MailLayout>
   );

@@ -118,6 +118,6 @@ describe("the e-mail outbox and its job queue", () => {
     expect(await world.worker.sweepNow()).toBeGreaterThanOrEqual(1);
     await waitSent(id);
     expect(deliveredFor(id)).toHaveLength(1);
-    expect(deliveredFor(id)[0]?.html).toContain("http://127.0.0.1:3000/sign-in");
+    expect(deliveredFor(id)[0]?.html).toContain("http://127.0.0.1:3000/forgot-password");
   });
 });

@@ -10,7 +10,7 @@ const cases: { mail: AnyOutgoingMail; link: string; subject: RegExp }[] = [
   { mail: { to: "a@example.com", template: "welcome", data: { name: "Ann", verifyUrl: "/verify-email?token=w1" } }, link: `${appUrl}/verify-email?token=w1`, subject: /Welcome to Rosinwood, Ann/ },
   { mail: { to: "a@example.com", template: "verify-email", data: { name: "Ann", verifyUrl: `${appUrl}/verify-email?token=v1` } }, link: `${appUrl}/verify-email?token=v1`, subject: /confirm your e-mail/i },
   { mail: { to: "a@example.com", template: "password-reset", data: { name: "Ann", resetUrl: "/reset-password?token=r1", expiresInMinutes: 60 } }, link: `${appUrl}/reset-password?token=r1`, subject: /new Rosinwood password/ },
-  { mail: { to: "a@example.com", template: "password-changed", data: { name: "Ann" } }, link: `${appUrl}/sign-in`, subject: /password was changed/ },
+  { mail: { to: "a@example.com", template: "password-changed", data: { name: "Ann" } }, link: `${appUrl}/forgot-password`, subject: /password was changed/ },
   { mail: { to: "a@example.com", template: "invitation", data: { inviterName: "Morag Reid", role: "student", acceptUrl: "/invite/i1", expiresInDays: 7 } }, link: `${appUrl}/invite/i1`, subject: /Morag Reid invited you/ },
 ];
 

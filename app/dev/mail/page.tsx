@@ -8,7 +8,9 @@ import { env } from "@/lib/env";
 import { listCapturedEmails, type CapturedEmail } from "@/lib/mail/captured";
 
 export const dynamic = "force-dynamic";
-export const metadata = { title: "Captured e-mail" };
+export function generateMetadata() {
+  return { title: env().RESEND_FAKE_URL ? "Captured e-mail" : "Page not found", robots: { index: false } };
+}
 
 // Present only while the local Resend stand-in is configured (npm start, npm test): a real deployment has no such page.
 export default async function CapturedMailPage({ searchParams }: { searchParams: Promise<{ id?: string | string[] }> }) {
@@ -40,7 +42,7 @@ export default async function CapturedMailPage({ searchParams }: { searchParams:
         <Alert>No e-mail yet. Sign up, ask for a password reset or send an invitation, then come back.</Alert>
       ) : (
         <div className="grid gap-6 lg:grid-cols-[minmax(0,2fr)_minmax(0,3fr)]">
-          <TableShell caption={`${emails.length} message${emails.length === 1 ? "" : "s"}`}>
+          <TableShell className="self-start" caption={`${emails.length} message${emails.length === 1 ? "" : "s"}`}>
             <THead>
               <tr>
                 <Th>To</Th>
