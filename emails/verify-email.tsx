@@ -1,5 +1,5 @@
 /** @jsxRuntime automatic @jsxImportSource react */
-// The pragma: tsconfig keeps JSX as is for Next ("preserve"); tsx and vitest need the runtime named.
+// The pragma: tsx reads the root tsconfig, which keeps JSX as is for Next ("preserve"); this names the runtime.
 import { Heading, Text } from "@react-email/components";
 import type { MailTemplates } from "@/lib/mail/types";
 import { subjects } from "./subjects";
