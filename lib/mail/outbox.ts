@@ -31,7 +31,8 @@ export async function enqueueEmail<T extends TemplateName>(db: DbOrTx, mail: Out
     if (!row) return null;
     try {
       // Its own savepoint: a failure here (no worker has created the queue yet) must not undo the row.
-      await tx.transaction((sp) => scheduleEmail(row.id, sp));
+      const jobId = await tx.transaction((sp) => scheduleEmail(row.id, sp));
+      if (!jobId) console.warn(`[mail] outbox row ${row.id} saved; no send-email queue yet, the sweeper will queue it`);
     } catch (error) {
       console.warn(`[mail] outbox row ${row.id} saved; the sweeper will queue it (${errorText(error)})`);
     }
