@@ -1,0 +1,188 @@
+// Playback through abcjs's own synth (CreateSynth) with the app's fiddle samples
+// (public/soundfonts, scripts/make-soundfont.sh): nothing is fetched from beyond the app.
+import type { MidiBuffer, NoteMapTrack, TuneObject } from "abcjs";
+import { loadAbcjs } from "./loaders";
+import { countInClicks, practiceBeatsPerMinute, type Click } from "./playback-abc";
+
+export const SOUND_FONT_URL = "/soundfonts/";
+const FIDDLE = 40; // General MIDI program 41 "Violin", counted from 0 as abcjs does
+// Any valid drum pattern makes abcjs load its percussion samples; the clicks themselves are ours.
+const DRUM = "dd 76 77 100 80";
+const ACCENT = 76; // GM percussion key map: high woodblock
+const BEAT = 77; // low woodblock
+
+export interface PlaySettings {
+  tempo: number; // percent of the tune's tempo, 40–120
+  countIn: boolean;
+  loop: boolean;
+}
+
+export type PlayerStatus = "idle" | "loading" | "playing" | "paused" | "error";
+
+/** Loudest sample of the built audio (every 16th sample is enough): 0 means no sample loaded. */
+function peakOf(buffer: AudioBuffer | undefined): number {
+  if (!buffer) return 0;
+  const data = buffer.getChannelData(0);
+  let peak = 0;
+  for (let i = 0; i < data.length; i += 16) peak = Math.max(peak, Math.abs(data[i]));
+  return peak;
+}
+
+function withClicks(tracks: NoteMapTrack[], clicks: Click[]): NoteMapTrack[] {
+  // abcjs's drum intro stays silent before a pickup and its "drum off" comes back on at a repeat,
+  // so every percussion note it made is dropped and one bar of clicks is placed by hand.
+  for (const track of tracks) {
+    for (let i = track.length - 1; i >= 0; i--) if (track[i].instrument === "percussion") track.splice(i, 1);
+  }
+  if (tracks[0]) {
+    for (const c of clicks) {
+      tracks[0].push({
+        pitch: c.accent ? ACCENT : BEAT, instrument: "percussion", start: c.start, end: c.start + 1 / 16,
+        volume: c.accent ? 120 : 90, startChar: 0, endChar: 0,
+      });
+    }
+  }
+  return tracks;
+}
+
+// Free meter (M:none) has no fraction: it is timed as 4/4, as abcjs itself does.
+function meterOf(tune: TuneObject): { num: number; den: number } {
+  const m = tune.getMeterFraction();
+  return { num: m.num || 4, den: m.den || 4 };
+}
+
+function baseMsPerMeasure(tune: TuneObject): number {
+  if (tune.metaText.tempo) return tune.millisecondsPerMeasure();
+  return (tune.getBeatsPerMeasure() * 60000) / practiceBeatsPerMinute(meterOf(tune));
+}
+
+export class FiddlePlayer {
+  private synth: MidiBuffer | null = null;
+  private startedAt = 0; // audio-clock time at which the buffer's second 0 would have played
+  private pausedAt = 0;
+  private countInSec = 0;
+  private msPerMeasure = 0;
+  private loop = false;
+  private ready = false; // the current synth is primed
+  duration = 0;
+  peak = 0;
+  status: PlayerStatus = "idle";
+
+  constructor(private readonly onChange: (p: FiddlePlayer) => void) {}
+
+  private set(status: PlayerStatus): void {
+    this.status = status;
+    this.onChange(this);
+  }
+
+  private async context(): Promise<AudioContext> {
+    return (await loadAbcjs()).synth.activeAudioContext();
+  }
+
+  /** Builds the audio for `abc`; playing resumes from the same place in the music if it was playing. */
+  async load(abc: string, settings: PlaySettings): Promise<void> {
+    try {
+      await this.build(abc, settings);
+    } catch {
+      this.synth = null;
+      this.set("error");
+    }
+  }
+
+  private async build(abc: string, settings: PlaySettings): Promise<void> {
+    const abcjs = await loadAbcjs();
+    const was = this.status;
+    const at = was === "playing" ? await this.position() : was === "paused" ? this.pausedAt : this.countInSec;
+    const musicAt = Math.max(0, at - this.countInSec);
+    const oldMs = this.msPerMeasure;
+    this.halt();
+    this.ready = false;
+    this.set("loading");
+    const [tune] = abcjs.renderAbc("*", abc);
+    const meter = meterOf(tune);
+    const meterSize = meter.num / meter.den;
+    const pickup = tune.getPickupLength();
+    this.msPerMeasure = (baseMsPerMeasure(tune) * 100) / settings.tempo;
+    this.loop = settings.loop;
+    const clicks = settings.countIn ? countInClicks(meter, pickup) : [];
+    const synth = new abcjs.synth.CreateSynth();
+    this.synth = synth;
+    await synth.init({
+      visualObj: tune,
+      millisecondsPerMeasure: this.msPerMeasure,
+      options: {
+        soundFontUrl: SOUND_FONT_URL,
+        program: FIDDLE,
+        chordsOff: true, // the melody only: chord symbols are for an accompanist
+        ...(settings.countIn ? { drum: DRUM, drumBars: 1, drumIntro: 1 } : {}),
+        sequenceCallback: (tracks) => withClicks(tracks, clicks),
+        onEnded: () => {
+          if (synth === this.synth) void this.ended();
+        },
+      },
+    });
+    const primed = await synth.prime();
+    if (synth !== this.synth) return; // a newer load took over
+    this.duration = primed.duration;
+    this.peak = peakOf(synth.getAudioBuffer());
+    if (this.peak === 0) throw new Error("the fiddle samples did not load");
+    this.ready = true;
+    this.countInSec = settings.countIn ? (((meterSize - pickup) / meterSize) * this.msPerMeasure) / 1000 : 0;
+    // The same place in the music at the new speed (the new count-in is skipped when resuming).
+    this.pausedAt = was === "playing" || was === "paused" ? this.countInSec + (musicAt * this.msPerMeasure) / (oldMs || this.msPerMeasure) : 0;
+    if (was === "playing") await this.play();
+    else this.set(was === "paused" ? "paused" : "idle");
+  }
+
+  async play(): Promise<void> {
+    const synth = this.synth;
+    if (!synth || !this.ready) return;
+    const ctx = await this.context();
+    if (ctx.state !== "running") await ctx.resume();
+    synth.seek(this.pausedAt, "seconds");
+    synth.start();
+    this.startedAt = ctx.currentTime - this.pausedAt;
+    this.set("playing");
+  }
+
+  async pause(): Promise<void> {
+    if (this.status !== "playing") return;
+    this.pausedAt = await this.position();
+    this.synth?.stop();
+    this.set("paused");
+  }
+
+  /** Back to the start (the count-in plays again). */
+  stop(): void {
+    this.halt();
+    this.pausedAt = 0;
+    this.set("idle");
+  }
+
+  dispose(): void {
+    this.halt();
+    this.synth = null;
+  }
+
+  async audioState(): Promise<AudioContextState> {
+    return (await this.context()).state;
+  }
+
+  private halt(): void {
+    if (this.synth?.getIsRunning()) this.synth.stop();
+  }
+
+  private async position(): Promise<number> {
+    return (await this.context()).currentTime - this.startedAt;
+  }
+
+  private async ended(): Promise<void> {
+    const synth = this.synth;
+    // abcjs also reports the end of a sound it was asked to stop: only a natural end counts.
+    if (!synth || this.status !== "playing" || (await this.position()) < this.duration - 0.5) return;
+    synth.stop();
+    this.pausedAt = this.loop ? this.countInSec : 0;
+    if (this.loop) await this.play();
+    else this.set("idle");
+  }
+}
