@@ -133,3 +133,21 @@ wait_http() { # URL SECONDS
   done
   return 1
 }
+
+# start_mail_fake PORT LOGDIR [STOREFILE]: the local Resend stand-in on 127.0.0.1.
+start_mail_fake() {
+  # node --import tsx (not the tsx wrapper) so that $! is the server itself and cleanup stops it.
+  RESEND_FAKE_PORT="$1" RESEND_FAKE_STORE="${3:-}" node --import tsx scripts/fakes/resend.ts >"$2/mail-fake.log" 2>&1 &
+  PIDS+=("$!")
+  wait_http "http://127.0.0.1:$1/_fake/settings" 20 || { tail -n 20 "$2/mail-fake.log" >&2; die "the Resend stand-in did not start (log: $2/mail-fake.log)"; }
+}
+
+# start_worker LOGDIR: the job worker (e-mail sending, retries, sweeper), with the exported environment.
+start_worker() {
+  node --import tsx scripts/worker.ts >"$1/worker.log" 2>&1 &
+  PIDS+=("$!")
+  local i
+  for i in $(seq 1 150); do grep -q "sending e-mail" "$1/worker.log" && return 0; sleep 0.2; done
+  tail -n 20 "$1/worker.log" >&2
+  die "the worker did not start (log: $1/worker.log)"
+}

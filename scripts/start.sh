@@ -34,6 +34,14 @@ node_modules/.bin/tsx scripts/migrate.ts
 node_modules/.bin/tsx scripts/seed.ts --if-empty
 if build_is_stale; then next_build "$DATA/build.log"; fi
 
+# The local Resend stand-in (captured e-mail) and the job worker that sends the outbox through it.
+MAIL_PORT="${RESEND_FAKE_PORT:-4010}"
+require_port RESEND_FAKE_PORT "$MAIL_PORT"
+export RESEND_API_KEY="${RESEND_API_KEY:-re_local_stand_in}"
+export RESEND_BASE_URL="http://127.0.0.1:$MAIL_PORT" RESEND_FAKE_URL="http://127.0.0.1:$MAIL_PORT"
+start_mail_fake "$MAIL_PORT" "$DATA" "$DATA/mail.jsonl"
+start_worker "$DATA"
+
 node_modules/.bin/next start -p "$PORT" -H 127.0.0.1 >"$DATA/app.log" 2>&1 &
 PIDS+=("$!")
 wait_http "http://127.0.0.1:$PORT/api/health" 60 || { tail -n 30 "$DATA/app.log" >&2; die "the app did not start (log: $DATA/app.log)"; }
@@ -44,7 +52,9 @@ cat <<MSG
 
 $(node_modules/.bin/tsx scripts/demo-sign-ins.ts)
 
-  Logs: .data/app.log, .data/postgres.log. Press Ctrl-C to stop.
+  Captured e-mail (sign-up, reset and invitation links): $APP_URL/dev/mail
+
+  Logs: .data/app.log, .data/worker.log, .data/postgres.log. Press Ctrl-C to stop.
 
 MSG
 wait "${PIDS[0]}"

@@ -1,4 +1,6 @@
-export default function Loading() {
+// Used as loading.tsx in the signed-in areas. Not at the root: a root loading boundary makes every page stream,
+// and a streamed notFound() answers 200 instead of 404.
+export function LoadingView() {
   return (
     <div
       role="status"

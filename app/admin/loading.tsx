@@ -1,0 +1,3 @@
+import { LoadingView } from "@/components/layout/loading-view";
+
+export default LoadingView;
