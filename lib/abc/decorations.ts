@@ -1,6 +1,7 @@
 // Decoration names → embellishment kinds. The names are those of the ABC 2.1 decoration table
 // (§4.14, written from memory of the standard's text); the grouping into kinds is PRODUCT.md §3.
-import type { Kind } from "./types";
+import type { Tok } from "./lex";
+import { KINDS, type Kind } from "./types";
 
 const TABLE: Record<string, Kind> = {};
 const put = (kind: Kind, names: string[]): void => names.forEach((n) => (TABLE[n] = kind));
@@ -28,6 +29,37 @@ put("marks", [
 /** Kind of a decoration name; a name the table does not know is a mark (not melody either way). */
 export function kindOfDecoration(name: string): Kind {
   return TABLE[name] ?? "marks";
+}
+
+/** Kind of a lexed token, null for the notes themselves, chord symbols, ties and the like. */
+export function tokKind(t: Tok): Kind | null {
+  switch (t.kind) {
+    case "deco":
+    case "short":
+      return kindOfDecoration(t.name);
+    case "grace":
+      return "ornaments";
+    case "slurOpen":
+    case "slurClose":
+      return "bowing";
+    default:
+      return null;
+  }
+}
+
+// Kinds as bits, so "does this element hold a kind being taken out" is one test per element.
+const KIND_BIT = new Map<Kind, number>(KINDS.map((k, i) => [k, 1 << i]));
+export const kindBit = (k: Kind | null): number => (k === null ? 0 : KIND_BIT.get(k) ?? 0);
+export function kindMask(kinds: Iterable<Kind>): number {
+  let m = 0;
+  for (const k of kinds) m |= kindBit(k);
+  return m;
+}
+/** The kinds of a list of tokens, as bits. */
+export function tokMask(toks: readonly Tok[]): number {
+  let m = 0;
+  for (const t of toks) m |= kindBit(tokKind(t));
+  return m;
 }
 
 /**

@@ -1,7 +1,7 @@
 // Writes a version of the tune with some embellishment kinds taken out, by editing the source
 // text element by element (abcjs offsets); text between elements is copied as it is.
 import { abcLength, div, mul } from "./fraction";
-import { kindOfDecoration } from "./decorations";
+import { kindBit, kindMask, tokKind } from "./decorations";
 import type { FillGroup } from "./groups";
 import type { Tok } from "./lex";
 import type { BarEl, NoteEl, TuneModel } from "./model";
@@ -18,85 +18,127 @@ export interface Emitted {
   notes: Map<NoteEl, MelodyNote>;
 }
 
-export function tokKind(t: Tok): Kind | null {
-  switch (t.kind) {
-    case "deco":
-    case "short":
-      return kindOfDecoration(t.name);
-    case "grace":
-      return "ornaments";
-    case "slurOpen":
-    case "slurClose":
-      return "bowing";
-    default:
-      return null;
-  }
-}
+export { tokKind };
 
 /** Index of the melody note of a body: highest (or lowest) sounding pitch, first on a tie. */
 export function melodyIndex(el: NoteEl, pick: DoubleStop): number {
+  const midi = el.midi;
   let best = 0;
-  el.midi.forEach((m, i) => {
-    const b = el.midi[best];
+  for (let i = 1; i < midi.length; i++) {
+    const m = midi[i];
+    const b = midi[best];
     if (m !== null && b !== null && (pick === "highest" ? m > b : m < b)) best = i;
-  });
+  }
   return best;
 }
+
+/** The output text; a class rather than a closure so that nothing is made per call but itself. */
+class Writer {
+  text = "";
+  write(s: string): void {
+    this.text += s;
+  }
+}
+
+/** What one emit takes out, read once: `mask` holds the removed kinds as bits. */
+interface Removal {
+  mask: number;
+  reduce: boolean; // chords become their melody note
+  pick: DoubleStop;
+}
+
+const keeps = (t: Tok, mask: number): boolean => (kindBit(tokKind(t)) & mask) === 0;
 
 /** `track`: also record offsets and melody notes (only the skeleton's bars need them). */
 export function emit(
   model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<NoteEl, FillGroup>, pick: DoubleStop, track = false,
 ): Emitted {
   const { abc } = model;
-  const out: string[] = [];
-  let outLen = 0;
+  const out = new Writer();
   let pos = 0;
   const offsets = new Map<number, number>();
   const notes = new Map<NoteEl, MelodyNote>();
   const states = new Map<string, BarAccidentals>();
-  const write = (s: string): void => {
-    out.push(s);
-    outLen += s.length;
-  };
-  const keep = (t: Tok): boolean => {
-    const k = tokKind(t);
-    return k === null || !removed.has(k);
-  };
-  const collapse = removed.has("fills");
+  const r: Removal = { mask: kindMask(removed), reduce: removed.has("doubleStops"), pick };
+  const collapse = removed.has("fills") && groupOf.size > 0;
   for (const el of model.edits) {
     if (el.start < pos) continue;
-    write(abc.slice(pos, el.start));
-    if (track) offsets.set(el.start, outLen);
-    const state = states.get(el.voice) ?? new BarAccidentals(new Map());
-    states.set(el.voice, state);
+    if (el.start > pos) out.write(abc.slice(pos, el.start));
+    if (track) offsets.set(el.start, out.text.length);
+    let state = states.get(el.voice);
+    if (!state) {
+      state = new BarAccidentals(NO_KEY);
+      states.set(el.voice, state);
+    }
     if (el.type === "bar") {
       state.reset();
-      write(renderBar(abc, el, keep));
+      out.write((el.kinds & r.mask) === 0 ? abc.slice(el.start, el.end) : renderBar(abc, el, r.mask));
     } else {
       state.key = el.key;
       const g = collapse ? groupOf.get(el) : undefined;
       if (!g || g.els[0] === el) {
-        const start = outLen;
-        const midi = writeNote(abc, el, g, state, removed, pick, keep, write);
+        const start = out.text.length;
+        const midi = writeNote(abc, el, g, state, r, out);
         if (track && el.voice === model.melody) {
           notes.set(el, {
             onset: el.onset, duration: g ? g.total : el.duration, pitch: midi,
-            tiedFromPrevious: el.tiedFromPrevious, startChar: start, endChar: outLen,
+            tiedFromPrevious: el.tiedFromPrevious, startChar: start, endChar: out.text.length,
           });
         }
       }
     }
-    if (track) offsets.set(el.end, outLen);
+    if (track) offsets.set(el.end, out.text.length);
     pos = el.end;
   }
-  write(abc.slice(pos));
-  return { abc: out.join(""), offsets, notes };
+  out.write(abc.slice(pos));
+  return { abc: out.text, offsets, notes };
 }
 
-function renderBar(abc: string, el: BarEl, keep: (t: Tok) => boolean): string {
+const NO_KEY: ReadonlyMap<string, number> = new Map();
+
+/**
+ * Whether emit, with none of the tune's kinds taken out, gives back the source unchanged: every
+ * element is then written as it stands, so only a re-spelt accidental could differ. Runs emit's
+ * walk and spelling without writing anything.
+ */
+export function emitsSource(model: TuneModel): boolean {
+  let pos = 0;
+  const states = new Map<string, BarAccidentals>();
+  for (const el of model.edits) {
+    if (el.start < pos) continue;
+    let state = states.get(el.voice);
+    if (!state) {
+      state = new BarAccidentals(NO_KEY);
+      states.set(el.voice, state);
+    }
+    if (el.type === "bar") state.reset();
+    else {
+      state.key = el.key;
+      if (!el.body.rest && respelt(el, state)) return false;
+    }
+    pos = el.end;
+  }
+  return true;
+}
+
+/**
+ * The kinds emit can take out of this tune, as bits: those of its marks, fills where it has
+ * groups, double stops where it has chords. Taking out any other kind changes nothing.
+ */
+export function kindsIn(model: TuneModel, groupOf: Map<NoteEl, FillGroup>): number {
+  let m = groupOf.size > 0 ? kindBit("fills") : 0;
+  for (const el of model.edits) {
+    m |= el.kinds;
+    if (el.type === "note" && el.body.chord) m |= kindBit("doubleStops");
+  }
+  return m;
+}
+
+function renderBar(abc: string, el: BarEl, mask: number): string {
   let s = abc.slice(el.start, el.end);
-  for (const t of [...el.toks].reverse()) {
-    if (!keep(t)) s = s.slice(0, t.start - el.start) + s.slice(t.end - el.start);
+  for (let i = el.toks.length - 1; i >= 0; i--) {
+    const t = el.toks[i];
+    if (!keeps(t, mask)) s = s.slice(0, t.start - el.start) + s.slice(t.end - el.start);
   }
   return s;
 }
@@ -104,26 +146,23 @@ function renderBar(abc: string, el: BarEl, keep: (t: Tok) => boolean): string {
 const PREFIX = new Set(["gchord", "deco", "short", "grace", "slurOpen"]);
 
 /** Writes one note element (or a whole collapsed group); returns the melody pitch written. */
-function writeNote(
-  src: string, el: NoteEl, g: FillGroup | undefined, state: BarAccidentals, removed: ReadonlySet<Kind>, pick: DoubleStop,
-  keep: (t: Tok) => boolean, write: (s: string) => void,
-): number | null {
+function writeNote(src: string, el: NoteEl, g: FillGroup | undefined, state: BarAccidentals, r: Removal, out: Writer): number | null {
   const body = el.body;
-  const reduce = body.chord && removed.has("doubleStops");
-  const m = melodyIndex(el, pick);
-  if (!g && !reduce && el.lex.toks.every(keep)) {
+  const reduce = body.chord && r.reduce;
+  const m = melodyIndex(el, r.pick);
+  if (!g && !reduce && (el.kinds & r.mask) === 0) {
     // Nothing to take out: the element as written, unless an accidental must be re-spelt.
-    const spelt = body.rest ? null : body.notes.map((n, i) => state.spell(el.pos[i], n.acc, el.midi[i] ?? 0));
-    if (!spelt || spelt.every((a, i) => a === body.notes[i].acc)) write(src.slice(el.start, el.end));
-    else for (const t of el.lex.toks) write(t.kind === "body" ? withAccidentals(src, el, spelt) : src.slice(t.start, t.end));
+    const spelt = body.rest ? null : respelt(el, state);
+    if (!spelt) out.write(src.slice(el.start, el.end));
+    else for (const t of el.lex.toks) out.write(t.kind === "body" ? withAccidentals(src, el, spelt) : src.slice(t.start, t.end));
     return el.midi[m];
   }
   if (!g) {
     // A tie from a reduced chord survives only if the next note still sounds its pitch.
-    const tieOk = !reduce || tiedPitches(el.next, removed, pick).includes(el.midi[m]);
+    const tieOk = !reduce || tiedPitches(el.next, r).includes(el.midi[m]);
     for (const t of el.lex.toks) {
-      if (t.kind === "body") write(renderBody(src, el, state, reduce ? m : null, null, tieOk));
-      else if (keep(t) && (t.kind !== "tie" || tieOk)) write(src.slice(t.start, t.end));
+      if (t.kind === "body") out.write(renderBody(src, el, state, reduce ? m : null, null, tieOk));
+      else if (keeps(t, r.mask) && (t.kind !== "tie" || tieOk)) out.write(src.slice(t.start, t.end));
     }
     return el.midi[m];
   }
@@ -132,23 +171,41 @@ function writeNote(
   for (const member of g.els) {
     for (const t of member.lex.toks) {
       const lead = member === el && t.kind === "ws" && t.end <= el.body.start;
-      if (lead || (PREFIX.has(t.kind) && keep(t))) write(src.slice(t.start, t.end));
+      if (lead || (PREFIX.has(t.kind) && keeps(t, r.mask))) out.write(src.slice(t.start, t.end));
     }
   }
-  write(renderBody(src, el, state, reduce ? m : null, div(g.total, el.unit)));
-  const sameNote = el.midi[m] !== null && tiedPitches(last.next, removed, pick).includes(el.midi[m]);
-  for (const t of last.lex.toks) if (t.kind === "tie" && sameNote) write(src.slice(t.start, t.end));
-  for (const member of g.els) for (const t of member.lex.toks) if (t.kind === "slurClose" && keep(t)) write(src.slice(t.start, t.end));
-  for (const t of last.lex.toks.slice(-1)) if (t.kind === "ws") write(src.slice(t.start, t.end));
+  out.write(renderBody(src, el, state, reduce ? m : null, div(g.total, el.unit)));
+  const sameNote = el.midi[m] !== null && tiedPitches(last.next, r).includes(el.midi[m]);
+  for (const t of last.lex.toks) if (t.kind === "tie" && sameNote) out.write(src.slice(t.start, t.end));
+  for (const member of g.els) for (const t of member.lex.toks) if (t.kind === "slurClose" && keeps(t, r.mask)) out.write(src.slice(t.start, t.end));
+  const tail = last.lex.toks[last.lex.toks.length - 1];
+  if (tail?.kind === "ws") out.write(src.slice(tail.start, tail.end));
   return el.midi[m];
 }
 
+/**
+ * The accidentals to write for each note of the body in the output's bar context, or null when
+ * they are the ones written (the common case, which then allocates nothing).
+ */
+function respelt(el: NoteEl, state: BarAccidentals): string[] | null {
+  const written = el.body.notes;
+  let spelt: string[] | null = null;
+  for (let i = 0; i < written.length; i++) {
+    const a = state.spell(el.pos[i], written[i].acc, el.midi[i] ?? 0);
+    if (spelt) spelt.push(a);
+    else if (a !== written[i].acc) {
+      spelt = [];
+      for (let k = 0; k < i; k++) spelt.push(written[k].acc);
+      spelt.push(a);
+    }
+  }
+  return spelt;
+}
 
-
-/** Pitches a note element sounds once `removed` kinds are gone. */
-function tiedPitches(el: NoteEl | null, removed: ReadonlySet<Kind>, pick: DoubleStop): (number | null)[] {
+/** Pitches a note element sounds once the removed kinds are gone. */
+function tiedPitches(el: NoteEl | null, r: Removal): (number | null)[] {
   if (!el) return [];
-  return el.body.chord && removed.has("doubleStops") ? [el.midi[melodyIndex(el, pick)]] : el.midi;
+  return el.body.chord && r.reduce ? [el.midi[melodyIndex(el, r.pick)]] : el.midi;
 }
 
 /** The body as written, with `spelt` accidentals in place of the written ones. */

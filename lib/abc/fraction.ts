@@ -5,20 +5,30 @@ import type { Fraction } from "./types";
 function gcd(a: number, b: number): number {
   a = Math.abs(a);
   b = Math.abs(b);
-  while (b) [a, b] = [b, a % b];
+  while (b) {
+    const r = a % b;
+    a = b;
+    b = r;
+  }
   return a || 1;
 }
 
+// Plain loops and no destructuring: fractions are made for every note of every analysis.
 export function frac(num: number, den = 1): Fraction {
+  if (den === 1) return { num, den: 1 };
   if (den === 0) throw new RangeError("fraction with zero denominator");
-  if (den < 0) [num, den] = [-num, -den];
+  if (den < 0) {
+    num = -num;
+    den = -den;
+  }
   const g = gcd(num, den);
-  return { num: num / g, den: den / g };
+  return g === 1 ? { num, den } : { num: num / g, den: den / g };
 }
 
 export const ZERO: Fraction = { num: 0, den: 1 };
 const ONE: Fraction = { num: 1, den: 1 };
-export const add = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den + b.num * a.den, a.den * b.den);
+export const add = (a: Fraction, b: Fraction): Fraction =>
+  a.den === b.den ? frac(a.num + b.num, a.den) : frac(a.num * b.den + b.num * a.den, a.den * b.den);
 export const sub = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den - b.num * a.den, a.den * b.den);
 export const mul = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.num, a.den * b.den);
 export const div = (a: Fraction, b: Fraction): Fraction => frac(a.num * b.den, a.den * b.num);
@@ -28,7 +38,11 @@ export const lt = (a: Fraction, b: Fraction): boolean => cmp(a, b) < 0;
 export const toNumber = (a: Fraction): number => a.num / a.den;
 export const toString = (a: Fraction): string => (a.den === 1 ? `${a.num}` : `${a.num}/${a.den}`);
 export const isInteger = (a: Fraction): boolean => a.den === 1;
-export const sum = (xs: Fraction[]): Fraction => xs.reduce(add, ZERO);
+export function sum(xs: readonly Fraction[]): Fraction {
+  let total = ZERO;
+  for (const x of xs) total = add(total, x);
+  return total;
+}
 
 /**
  * abcjs reports durations as floats (1/3 of an eighth is 0.041666…); recover the exact fraction
@@ -71,8 +85,19 @@ export function abcLength(f: Fraction): string {
 }
 
 /** Parse an ABC length suffix ("", "2", "/", "//", "3/2", "/4", "3/") into a multiple of L (§4.3). */
+const LENGTHS = new Map<string, Fraction>();
 export function parseAbcLength(s: string): Fraction {
   if (s === "") return ONE;
+  let f = LENGTHS.get(s);
+  if (!f) {
+    f = readAbcLength(s);
+    // Tunes use a handful of length suffixes; the bound only guards against odd input.
+    if (LENGTHS.size < 1000) LENGTHS.set(s, f);
+  }
+  return f;
+}
+
+function readAbcLength(s: string): Fraction {
   const m = /^(\d*)(\/*)(\d*)$/.exec(s);
   if (!m) return frac(1);
   const num = m[1] ? Number(m[1]) : 1;

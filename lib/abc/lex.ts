@@ -41,29 +41,68 @@ export interface Lexed {
   body: Body | null;
 }
 
-// Sticky regular expressions run on the whole tune text at an index: no substring per character
-// (the lexer runs on every element of every analysis, and allocation is most of its cost).
-const ACC = /\^\^|__|\^|_|=/y;
-const NOTE = /[A-Ga-g][',]*/y;
-const LEN = /\d*\/*\d*/y;
-const WS = /\s+/y;
+// Scanners over the whole tune text at an index, returning where the match ends: no substring
+// or match object per character (the lexer runs on every element of every analysis). Each one
+// matches greedily on the whole text and the match counts only if it ends within the span, as a
+// sticky regular expression with a bound would.
 const TUPLET = /\((\d+)(:\d*)?(:\d*)?/y;
-const BROKEN = /[<>]+/y;
-const TIE = /\.?-/y;
 
-function at(re: RegExp, t: string, i: number, end: number): string {
-  re.lastIndex = i;
-  const m = re.exec(t);
-  return m && re.lastIndex <= end ? m[0] : "";
+function within(j: number, i: number, end: number): number {
+  return j <= end ? j : i;
+}
+const isDigit = (c: number): boolean => c >= 48 && c <= 57;
+/** `\^\^|__|\^|_|=` */
+function scanAcc(t: string, i: number, end: number): number {
+  const c = t.charCodeAt(i);
+  if (c === 94 || c === 95) return within(t.charCodeAt(i + 1) === c ? i + 2 : i + 1, i, end);
+  return c === 61 ? within(i + 1, i, end) : i;
+}
+/** `[A-Ga-g][',]*` */
+function scanNote(t: string, i: number, end: number): number {
+  const c = t.charCodeAt(i);
+  if (!((c >= 65 && c <= 71) || (c >= 97 && c <= 103))) return i;
+  let j = i + 1;
+  for (let d = t.charCodeAt(j); d === 39 || d === 44; d = t.charCodeAt(++j));
+  return within(j, i, end);
+}
+/** `\d*\/*\d*` */
+function scanLen(t: string, i: number, end: number): number {
+  let j = i;
+  while (isDigit(t.charCodeAt(j))) j++;
+  while (t.charCodeAt(j) === 47) j++;
+  while (isDigit(t.charCodeAt(j))) j++;
+  return within(j, i, end);
+}
+/** JavaScript's `\s`. */
+function isWs(c: number): boolean {
+  return c === 32 || (c >= 9 && c <= 13) || c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) ||
+    c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff;
+}
+function scanWs(t: string, i: number, end: number): number {
+  let j = i;
+  while (isWs(t.charCodeAt(j))) j++;
+  return within(j, i, end);
+}
+/** `\.?-` */
+function scanTie(t: string, i: number, end: number): number {
+  const c = t.charCodeAt(i);
+  if (c === 45) return within(i + 1, i, end);
+  return c === 46 && t.charCodeAt(i + 1) === 45 ? within(i + 2, i, end) : i;
+}
+/** `[<>]+` */
+function scanBroken(t: string, i: number, end: number): number {
+  let j = i;
+  for (let c = t.charCodeAt(j); c === 60 || c === 62; c = t.charCodeAt(++j));
+  return within(j, i, end);
 }
 
 function readNote(t: string, i: number, end: number): WrittenNote | null {
-  const acc = at(ACC, t, i, end);
-  const name = at(NOTE, t, i + acc.length, end);
-  if (!name) return null;
-  const j = i + acc.length + name.length;
-  const len = at(LEN, t, j, end);
-  return { start: i, letterStart: i + acc.length, end: j + len.length, acc, name, len: parseAbcLength(len), tie: "" };
+  const a = scanAcc(t, i, end);
+  const n = scanNote(t, a, end);
+  if (n === a) return null;
+  const j = scanLen(t, n, end);
+  const acc = a === i ? "" : t.slice(i, a);
+  return { start: i, letterStart: a, end: j, acc, name: t.slice(a, n), len: parseAbcLength(j === n ? "" : t.slice(n, j)), tie: "" };
 }
 
 function closing(t: string, i: number, ch: string, end: number): number {
@@ -86,7 +125,7 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
     let name = "";
     if (isSpace(c)) {
       kind = "ws";
-      j = i + Math.max(1, at(WS, t, i, end).length);
+      j = Math.max(i + 1, scanWs(t, i, end));
     } else if (c === '"') {
       kind = "gchord";
       j = closing(t, i, '"', end);
@@ -99,7 +138,9 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
       j = closing(t, i, "}", end);
       name = t[i + 1] === "/" ? "acciaccatura" : "appoggiatura";
     } else if (c === "(") {
-      const tuplet = at(TUPLET, t, i, end);
+      TUPLET.lastIndex = i;
+      const m = TUPLET.exec(t);
+      const tuplet = m && TUPLET.lastIndex <= end ? m[0] : "";
       kind = tuplet ? "tuplet" : "slurOpen";
       j = i + Math.max(1, tuplet.length);
       name = tuplet.slice(1);
@@ -110,15 +151,15 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
     } else if (c === ")") kind = "slurClose";
     else if (c === "-" || (c === "." && t[i + 1] === "-" && i + 1 < end)) {
       kind = "tie";
-      j = i + at(TIE, t, i, end).length;
+      j = scanTie(t, i, end);
       name = c === "." ? "dotted" : "";
     } else if (c === "<" || c === ">") {
       kind = "broken";
-      name = at(BROKEN, t, i, end);
-      j = i + name.length;
+      j = scanBroken(t, i, end);
+      name = t.slice(i, j);
     } else if (!body && (c === "z" || c === "x" || c === "Z" || c === "X")) {
-      j = i + 1 + at(LEN, t, i + 1, end).length;
-      const note: WrittenNote = { start: i, letterStart: i, end: j, acc: "", name: c, len: parseAbcLength(t.slice(i + 1, j)), tie: "" };
+      j = scanLen(t, i + 1, end);
+      const note: WrittenNote = { start: i, letterStart: i, end: j, acc: "", name: c, len: parseAbcLength(j === i + 1 ? "" : t.slice(i + 1, j)), tie: "" };
       body = { start: i, end: j, chord: false, rest: c, notes: [note], outerLen: ONE };
       kind = "body";
     } else if (!body && c === "[") {
@@ -150,15 +191,15 @@ function lexChord(t: string, i: number, end: number): Body {
   while (j < end && t[j] !== "]") {
     const note = readNote(t, j, end);
     if (note) {
-      const tie = at(TIE, t, note.end, end);
-      note.tie = tie;
-      note.end += tie.length;
+      const e = scanTie(t, note.end, end);
+      note.tie = e === note.end ? "" : t.slice(note.end, e);
+      note.end = e;
       j = note.end;
       notes.push(note);
     } else if (t[j] === "!" || t[j] === "+" || t[j] === '"') j = closing(t, j, t[j], end);
     else j += 1;
   }
   j = Math.min(end, j + 1);
-  const len = at(LEN, t, j, end);
-  return { start: i, end: j + len.length, chord: true, rest: null, notes, outerLen: parseAbcLength(len) };
+  const e = scanLen(t, j, end);
+  return { start: i, end: e, chord: true, rest: null, notes, outerLen: parseAbcLength(e === j ? "" : t.slice(j, e)) };
 }

@@ -5,9 +5,11 @@ import { div, fromNumber, mul, frac } from "./fraction";
 import { readHeader, valueAt, type HeaderInfo } from "./header";
 import { lexSpan, type Body, type Lexed, type Tok } from "./lex";
 import { BarAccidentals, keyAccOf, staffPos, type KeyAcc } from "./pitch";
-import { shorthandsOf } from "./decorations";
+import { shorthandsOf, tokMask } from "./decorations";
 import { assembleBars, type VBar } from "./bars";
 import type { Fraction } from "./types";
+
+const ONE = frac(1);
 
 export interface Tuplet {
   spec: string; // "3", "3:2:4" …
@@ -28,6 +30,7 @@ export interface NoteEl {
   midi: (number | null)[]; // sounding pitch of each written note of the body (null: rest)
   pos: number[]; // staff position of each written note
   tieOut: boolean;
+  kinds: number; // embellishment kinds among its tokens, as bits (decorations.ts)
   tiedFromPrevious: boolean;
   next: NoteEl | null; // the next note of the same voice
   brokenOut: boolean; // a broken-rhythm mark follows this note
@@ -44,6 +47,7 @@ export interface BarEl {
   start: number;
   end: number;
   toks: Tok[];
+  kinds: number;
   barType: string;
   startEnding: string | null;
   endEnding: boolean;
@@ -70,83 +74,122 @@ export interface TuneModel {
   tuplets: Tuplet[];
 }
 
-const num = (o: object, k: string): number | undefined => {
-  const v: unknown = Reflect.get(o, k);
-  return typeof v === "number" ? v : undefined;
-};
-const str = (o: object, k: string): string | undefined => {
-  const v: unknown = Reflect.get(o, k);
-  return typeof v === "string" ? v : undefined;
-};
+/** The fields of an abcjs voice item read here (abcjs's own types leave some of them out). */
+interface ItemFields {
+  el_type: string;
+  startChar?: unknown;
+  endChar?: unknown;
+  type?: unknown;
+  title?: unknown;
+  startEnding?: unknown;
+  endEnding?: unknown;
+  duration?: unknown;
+  startTriplet?: unknown;
+  tripletMultiplier?: unknown;
+  endTriplet?: unknown;
+}
+const num = (v: unknown): number | undefined => (typeof v === "number" ? v : undefined);
+const str = (v: unknown): string | undefined => (typeof v === "string" ? v : undefined);
+
+interface VoiceState {
+  els: El[];
+  acc: BarAccidentals;
+  tuplet: Tuplet | null;
+  last: NoteEl | undefined;
+}
 
 export function readModel(abc: string, tune: TuneObject): TuneModel {
   const header = readHeader(abc);
   const shorthands = shorthandsOf(abc);
   const voices = new Map<string, El[]>();
-  const seen = new Set<number>();
-  const acc = new Map<string, BarAccidentals>();
-  const openTuplet = new Map<string, Tuplet | null>();
-  const lastNote = new Map<string, NoteEl>();
+  const states = new Map<string, VoiceState>();
+  // Elements already read, by offset (abcjs may list one element in several voices).
+  const seen = new Uint8Array(abc.length + 1);
   const tuplets: Tuplet[] = [];
   for (const line of tune.lines) {
-    (line.staff ?? []).forEach((staff, si) => {
-      (staff.voices ?? []).forEach((items, vi) => {
+    const staves = line.staff ?? [];
+    for (let si = 0; si < staves.length; si++) {
+      const staff = staves[si];
+      const staffVoices = staff.voices ?? [];
+      for (let vi = 0; vi < staffVoices.length; vi++) {
         const voice = `${si}.${vi}`;
-        const els = voices.get(voice) ?? [];
-        voices.set(voice, els);
-        const state = acc.get(voice) ?? new BarAccidentals(keyAccOf(staff.key));
-        acc.set(voice, state);
-        if (staff.key) state.key = keyAccOf(staff.key);
-        for (const item of items) {
-          const start = num(item, "startChar");
-          const end = num(item, "endChar");
-          if (start === undefined || end === undefined || start < header.headerEnd) continue;
-          if (item.el_type === "key") state.key = keyAccOf(item);
-          else if (item.el_type === "part") els.push({ type: "part", voice, start, end, title: str(item, "title") ?? "" });
-          else if (item.el_type === "bar") {
-            state.reset();
-            if (seen.has(start)) continue;
-            seen.add(start);
-            const toks = hasMarks(abc, start, end) ? lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord") : [];
-            const startEnding = str(item, "startEnding") ?? null;
-            els.push({ type: "bar", voice, start, end, toks, barType: item.type, startEnding, endEnding: Reflect.get(item, "endEnding") === true });
-          } else if (item.el_type === "note" && !seen.has(start)) {
-            const lex = lexSpan(abc, start, end, shorthands);
-            if (!lex.body) continue;
-            seen.add(start);
-            const el = noteEl(item, voice, start, end, lex, lex.body, state, header, lastNote.get(voice));
-            const tStart = num(item, "startTriplet");
-            if (tStart !== undefined) {
-              const spec = lex.toks.find((t) => t.kind === "tuplet")?.name ?? String(tStart);
-              const mult = tupletMultiplier(spec, valueAt(header.meters, start)) ?? fromNumber(num(item, "tripletMultiplier") ?? 1);
-              const t: Tuplet = { spec, p: tStart, mult, els: [] };
-              tuplets.push(t);
-              openTuplet.set(voice, t);
-            }
-            const t = openTuplet.get(voice) ?? null;
-            if (t) {
-              el.tuplet = t;
-              t.els.push(el);
-              el.duration = mul(el.duration, t.mult);
-              if (Reflect.get(item, "endTriplet") === true) openTuplet.set(voice, null);
-            }
-            const prevNote = lastNote.get(voice);
-            if (prevNote) prevNote.next = el;
-            lastNote.set(voice, el);
-            els.push(el);
-          }
-        }
-      });
-    });
+        let v = states.get(voice);
+        if (!v) {
+          v = { els: [], acc: new BarAccidentals(keyAccOf(staff.key)), tuplet: null, last: undefined };
+          states.set(voice, v);
+          voices.set(voice, v.els);
+        } else if (staff.key) v.acc.key = keyAccOf(staff.key);
+        readVoice(abc, staffVoices[vi] as readonly ItemFields[], voice, v, header, shorthands, seen, tuplets);
+      }
+    }
   }
   const melody = voices.keys().next().value ?? "0.0";
   const bars = new Map<string, VBar[]>();
   for (const [voice, els] of voices) bars.set(voice, assembleBars(els, header));
   const edits: (NoteEl | BarEl)[] = [];
-  for (const els of voices.values()) for (const e of els) if (e.type !== "part") edits.push(e);
-  edits.sort((a, b) => a.start - b.start);
+  let sorted = true;
+  for (const els of voices.values()) {
+    for (const e of els) {
+      if (e.type === "part") continue;
+      if (edits.length && edits[edits.length - 1].start > e.start) sorted = false;
+      edits.push(e);
+    }
+  }
+  if (!sorted) edits.sort((a, b) => a.start - b.start);
   return { abc, header, shorthands, voices, melody, bars, edits, tuplets };
 }
+
+function readVoice(
+  abc: string, items: readonly ItemFields[], voice: string, v: VoiceState, header: HeaderInfo,
+  shorthands: Record<string, string>, seen: Uint8Array, tuplets: Tuplet[],
+): void {
+  const state = v.acc;
+  const els = v.els;
+  for (const item of items) {
+    const start = num(item.startChar);
+    const end = num(item.endChar);
+    if (start === undefined || end === undefined || start < header.headerEnd) continue;
+    const type = item.el_type;
+    if (type === "key") state.key = keyAccOf(item);
+    else if (type === "part") els.push({ type: "part", voice, start, end, title: str(item.title) ?? "" });
+    else if (type === "bar") {
+      state.reset();
+      if (isSeen(seen, start)) continue;
+      markSeen(seen, start);
+      const toks = hasMarks(abc, start, end) ? lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord") : [];
+      const startEnding = str(item.startEnding) ?? null;
+      els.push({ type: "bar", voice, start, end, toks, kinds: tokMask(toks), barType: str(item.type) ?? "", startEnding, endEnding: item.endEnding === true });
+    } else if (type === "note" && !isSeen(seen, start)) {
+      const lex = lexSpan(abc, start, end, shorthands);
+      if (!lex.body) continue;
+      markSeen(seen, start);
+      const el = noteEl(num(item.duration), voice, start, end, lex, lex.body, state, header, v.last);
+      const tStart = num(item.startTriplet);
+      if (tStart !== undefined) {
+        const spec = lex.toks.find((t) => t.kind === "tuplet")?.name ?? String(tStart);
+        const mult = tupletMultiplier(spec, valueAt(header.meters, start)) ?? fromNumber(num(item.tripletMultiplier) ?? 1);
+        const t: Tuplet = { spec, p: tStart, mult, els: [] };
+        tuplets.push(t);
+        v.tuplet = t;
+      }
+      const t = v.tuplet;
+      if (t) {
+        el.tuplet = t;
+        t.els.push(el);
+        el.duration = mul(el.duration, t.mult);
+        if (item.endTriplet === true) v.tuplet = null;
+      }
+      if (v.last) v.last.next = el;
+      v.last = el;
+      els.push(el);
+    }
+  }
+}
+
+const isSeen = (seen: Uint8Array, at: number): boolean => seen[at] === 1;
+const markSeen = (seen: Uint8Array, at: number): void => {
+  seen[at] = 1;
+};
 
 /** Most bar lines carry nothing to lex: skip the lexer unless a decoration or quote is there. */
 function hasMarks(abc: string, start: number, end: number): boolean {
@@ -158,25 +201,35 @@ function hasMarks(abc: string, start: number, end: number): boolean {
 }
 
 function noteEl(
-  item: object, voice: string, start: number, end: number, lex: Lexed, body: Body,
+  abcjsDuration: number | undefined, voice: string, start: number, end: number, lex: Lexed, body: Body,
   state: BarAccidentals, header: HeaderInfo, prev: NoteEl | undefined,
 ): NoteEl {
-  const written = mul(body.notes[0]?.len ?? frac(1), body.outerLen);
-  const duration = fromNumber(num(item, "duration") ?? 0);
+  const first = body.notes[0]?.len ?? ONE;
+  const outer = body.outerLen;
+  // Lengths come reduced from the lexer, so a single note's written length is its own.
+  const written = outer.num === 1 && outer.den === 1 ? first : mul(first, outer);
+  const duration = fromNumber(abcjsDuration ?? 0);
   let brokenOut = false;
-  for (const t of lex.toks) if (t.kind === "broken") brokenOut = true;
+  let tieOut = false;
+  for (const t of lex.toks) {
+    if (t.kind === "broken") brokenOut = true;
+    else if (t.kind === "tie" && t.start >= body.end) tieOut = true;
+  }
   // The unit abcjs used is exact when no broken rhythm touches the note; it follows L: changes
   // abcjs applied (including inline [L:]) without a second reading of the fields.
   const unit = !brokenOut && !prev?.brokenOut && written.num > 0 && duration.num > 0
     ? div(duration, written)
     : valueAt(header.units, start);
-  const pos = body.notes.map((n) => (body.rest ? 0 : staffPos(n.name)));
-  const midi = body.notes.map((n, i) => (body.rest ? null : state.sound(pos[i], n.acc)));
-  let tieOut = false;
-  for (const t of lex.toks) if (t.kind === "tie" && t.start >= body.end) tieOut = true;
-  for (const n of body.notes) if (n.tie !== "") tieOut = true;
+  const pos: number[] = [];
+  const midi: (number | null)[] = [];
+  for (const n of body.notes) {
+    const p = body.rest ? 0 : staffPos(n.name);
+    pos.push(p);
+    midi.push(body.rest ? null : state.sound(p, n.acc));
+    if (n.tie !== "") tieOut = true;
+  }
   return {
-    type: "note", voice, start, end, lex, body, duration, unit, midi, pos, tieOut,
+    type: "note", voice, start, end, lex, body, duration, unit, midi, pos, tieOut, kinds: tokMask(lex.toks),
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
     bar: null, onset: frac(0), grid: frac(0),
   };

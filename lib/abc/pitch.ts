@@ -6,11 +6,17 @@
 const STEPS = [0, 2, 4, 5, 7, 9, 11];
 const LETTERS = "CDEFGAB";
 
+// Step within the octave of each letter's character code ("A" = 65 … "G" = 71, "a" = 97 …).
+const STEP_OF_CODE = [5, 6, 0, 1, 2, 3, 4];
+
 /** Staff position of a note name: C (middle C) = 0, c = 7, each ' +7, each , −7. */
 export function staffPos(name: string): number {
-  const letter = name[0];
-  let pos = LETTERS.indexOf(letter.toUpperCase()) + (letter === letter.toLowerCase() ? 7 : 0);
-  for (const ch of name.slice(1)) pos += ch === "'" ? 7 : ch === "," ? -7 : 0;
+  const code = name.charCodeAt(0);
+  let pos = code >= 97 ? STEP_OF_CODE[code - 97] + 7 : (STEP_OF_CODE[code - 65] ?? -1);
+  for (let i = 1; i < name.length; i++) {
+    const ch = name.charCodeAt(i);
+    pos += ch === 39 ? 7 : ch === 44 ? -7 : 0;
+  }
   return pos;
 }
 
@@ -19,8 +25,9 @@ export function naturalMidi(pos: number): number {
   return 60 + 12 * oct + STEPS[pos - oct * 7];
 }
 
+const LOWER = LETTERS.toLowerCase();
 export function letterOf(pos: number): string {
-  return LETTERS[((pos % 7) + 7) % 7].toLowerCase();
+  return LOWER[((pos % 7) + 7) % 7];
 }
 
 export const ACC_VALUE: Readonly<Record<string, number>> = { "^^": 2, "^": 1, "=": 0, _: -1, __: -2 };
@@ -42,31 +49,53 @@ export function keyAccOf(key: unknown): KeyAcc {
   return map;
 }
 
+const CARRIED_SIZE = 256;
+const CARRIED_ZERO = 128;
+
 /** Accidentals in force in one bar of one voice. */
 export class BarAccidentals {
-  private carried = new Map<number, number>();
+  // Carried accidentals by staff position, stored +8 so that 0 means none; `touched` lists the
+  // slots in use so a new bar clears only those (this runs for every note of every analysis).
+  // Positions beyond the array (absurd octave marks) go to `far`.
+  private carried = new Int8Array(CARRIED_SIZE);
+  private touched: number[] = [];
+  private far = new Map<number, number>();
   constructor(public key: KeyAcc) {}
   reset(): void {
-    this.carried.clear();
+    for (const i of this.touched) this.carried[i] = 0;
+    this.touched.length = 0;
+    if (this.far.size) this.far.clear();
   }
   /** Sounding pitch of a note written with `acc` (may be "") at `pos`; records the accidental. */
   sound(pos: number, acc: string): number {
-    if (acc in ACC_VALUE) this.carried.set(pos, ACC_VALUE[acc]);
+    const v = ACC_VALUE[acc];
+    if (v !== undefined) this.carry(pos, v);
     return naturalMidi(pos) + this.expected(pos);
   }
   expected(pos: number): number {
-    return this.carried.get(pos) ?? this.key.get(letterOf(pos)) ?? 0;
+    const i = pos + CARRIED_ZERO;
+    const c = i >= 0 && i < CARRIED_SIZE ? this.carried[i] - 8 : this.far.get(pos) ?? -8;
+    return c !== -8 ? c : this.key.get(letterOf(pos)) ?? 0;
   }
   /** The accidental to write so that `pos` sounds `midi` here ("" when none is needed). */
   spell(pos: number, written: string, midi: number): string {
     if (written) {
-      if (written in ACC_VALUE && naturalMidi(pos) + ACC_VALUE[written] === midi) return this.record(pos, written);
+      const v = ACC_VALUE[written];
+      if (v !== undefined && naturalMidi(pos) + v === midi) return this.record(pos, written);
     } else if (naturalMidi(pos) + this.expected(pos) === midi) return "";
     const text = ACC_TEXT[midi - naturalMidi(pos)];
     return text === undefined ? written : this.record(pos, text);
   }
   private record(pos: number, text: string): string {
-    this.carried.set(pos, ACC_VALUE[text]);
+    this.carry(pos, ACC_VALUE[text]);
     return text;
+  }
+  private carry(pos: number, value: number): void {
+    const i = pos + CARRIED_ZERO;
+    if (i < 0 || i >= CARRIED_SIZE) this.far.set(pos, value);
+    else {
+      if (this.carried[i] === 0) this.touched.push(i);
+      this.carried[i] = value + 8;
+    }
   }
 }

@@ -1,5 +1,6 @@
 // Stage plans are data (issue 3 §4): stage 1 is the skeleton, each later stage adds kinds back.
-import { emit, type DoubleStop } from "./emit";
+import { kindMask } from "./decorations";
+import { emit, emitsSource, kindsIn, type DoubleStop } from "./emit";
 import { KINDS, type Kind, type Stage, type StagePlan } from "./types";
 import type { Prepared } from "./tune";
 
@@ -39,17 +40,26 @@ export function validatePlan(plan: unknown): PlanCheck {
   return reasons.length ? { ok: false, reasons } : { ok: true };
 }
 
-/** Every stage's ABC (the plan must be valid). The last stage is the source itself. */
+/**
+ * Every stage's ABC (the plan must be valid). The last stage is the source itself. Emit reads the
+ * removed kinds only where the tune holds them, so stages that take out the same kinds of this
+ * tune are the same text, written once (a tune without slurs has stage 2 = the skeleton, one
+ * without double stops or dynamics has stage 3 = the source).
+ */
 export function buildStages(p: Prepared, plan: StagePlan = DEFAULT_PLAN, pick: DoubleStop = "highest", skeletonAbc?: string): Stage[] {
   const present = new Set<Kind>();
+  const inTune = kindsIn(p.model, p.groupOf);
+  const texts = new Map<number, string>();
+  if (skeletonAbc !== undefined) texts.set(inTune, skeletonAbc);
   return plan.stages.map((s, i) => {
     s.adds.forEach((k) => present.add(k));
     const removed = new Set(KINDS.filter((k) => !present.has(k)));
-    const abc = removed.size === 0
-      ? p.model.abc
-      : removed.size === KINDS.length && skeletonAbc !== undefined
-        ? skeletonAbc
-        : emit(p.model, removed, p.groupOf, pick).abc;
+    const key = kindMask(removed) & inTune;
+    let abc = removed.size === 0 ? p.model.abc : texts.get(key);
+    if (abc === undefined) {
+      abc = key === 0 && emitsSource(p.model) ? p.model.abc : emit(p.model, removed, p.groupOf, pick).abc;
+      texts.set(key, abc);
+    }
     return { index: i + 1, name: s.name, kinds: KINDS.filter((k) => present.has(k)), abc };
   });
 }
