@@ -1,4 +1,4 @@
-import { boolean, check, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
 import { users } from "./people";
 
@@ -150,4 +150,24 @@ export const marginNotes = pgTable(
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [index("margin_notes_user_tune_idx").on(t.userId, t.tuneId), check("margin_notes_bar_nonneg", sql`${t.bar} >= 0`)],
+);
+
+/**
+ * How far a student has come on a tune: the highest stage signed off (or self-checked-in where the
+ * assignment allows it). The ladder opens the next rung when this reaches the rung's required stage.
+ */
+export const tuneProgress = pgTable(
+  "tune_progress",
+  {
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    tuneId: uuid("tune_id")
+      .notNull()
+      .references(() => tunes.id, { onDelete: "cascade" }),
+    reachedStage: integer("reached_stage").notNull().default(0),
+    startedAt: timestamp("started_at", { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.tuneId] }), check("tune_progress_stage_nonneg", sql`${t.reachedStage} >= 0`)],
 );

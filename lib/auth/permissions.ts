@@ -22,6 +22,15 @@ export const ACTIONS = [
   "people:list",
   "people:invite-teacher",
   "people:change-role",
+  // Catalogue, ladders, tune pages and the teacher's tools (issue 5). Which course, rung or tune a
+  // person may open is decided per record by lib/catalogue/access.ts.
+  "catalogue:view",
+  "ladder:view",
+  "tune:view",
+  "notes:write",
+  "tune:edit",
+  "tune:import",
+  "course:edit",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -34,12 +43,25 @@ const EVERYONE: readonly Action[] = [
   "account:reset-password",
   "account:verify-email",
   "invitation:accept",
+  "catalogue:view",
+  "tune:view", // taster rungs are open to visitors; the rest is checked per tune
 ];
 
 const TABLE: Record<Actor, readonly Action[]> = {
   visitor: EVERYONE,
-  student: [...EVERYONE, "area:learn", "people:view"],
-  teacher: [...EVERYONE, "area:teach", "roster:view", "students:invite", "people:view"],
+  student: [...EVERYONE, "area:learn", "people:view", "ladder:view", "notes:write"],
+  teacher: [
+    ...EVERYONE,
+    "area:teach",
+    "roster:view",
+    "students:invite",
+    "people:view",
+    "ladder:view",
+    "notes:write",
+    "tune:edit",
+    "tune:import",
+    "course:edit",
+  ],
   // "admin: everything" (PRODUCT.md §2).
   admin: ACTIONS,
 };
