@@ -10,6 +10,8 @@ export interface BarBox {
   line: number; // abcjs's line class index (abcjs-lN)
   x0: number;
   x1: number;
+  y0: number; // highest and lowest ink of the bar's own notes, chord symbols and decorations
+  y1: number;
 }
 
 /** One line of music: the staff and everything drawn with it (chord symbols, slurs, labels). */
@@ -24,19 +26,22 @@ export interface LineBox {
 interface Extent {
   x0: number;
   x1: number;
+  y0: number;
+  y1: number;
 }
 
 function extentOf(elems: SVGElement[]): Extent | null {
-  let x0 = Infinity;
-  let x1 = -Infinity;
+  const e: Extent = { x0: Infinity, x1: -Infinity, y0: Infinity, y1: -Infinity };
   for (const el of elems) {
     if (!(el instanceof SVGGraphicsElement)) continue;
     const b = el.getBBox();
     if (b.width === 0 && b.height === 0) continue;
-    x0 = Math.min(x0, b.x);
-    x1 = Math.max(x1, b.x + b.width);
+    e.x0 = Math.min(e.x0, b.x);
+    e.x1 = Math.max(e.x1, b.x + b.width);
+    e.y0 = Math.min(e.y0, b.y);
+    e.y1 = Math.max(e.y1, b.y + b.height);
   }
-  return x0 <= x1 ? { x0, x1 } : null;
+  return e.x0 <= e.x1 ? e : null;
 }
 
 const lineClass = (elems: SVGElement[]): number | null => {
@@ -68,10 +73,12 @@ export function measureBars(tune: TuneObject, spans: BarSpan[]): BarBox[] {
       }
       if (!current || current.bar !== bar || current.line !== lineNo) {
         const x0 = lastBarLineRight ?? extent.x0 - 6;
-        current = { bar, line: lineNo, x0, x1: extent.x1 };
+        current = { bar, line: lineNo, x0, x1: extent.x1, y0: extent.y0, y1: extent.y1 };
         boxes.push(current);
       }
       current.x1 = Math.max(current.x1, extent.x1);
+      current.y0 = Math.min(current.y0, extent.y0);
+      current.y1 = Math.max(current.y1, extent.y1);
       if (item.el_type === "bar") {
         // The closing bar line ends the bar: the next one starts where this line is drawn.
         current.x1 = extent.x1;

@@ -31,6 +31,8 @@ interface Segment {
   line: LineBox;
   x0: number;
   x1: number;
+  y0: number; // the phrase's own ink on this line, never less than the staff
+  y1: number;
 }
 
 function segmentsOf(boxes: BarBox[], lines: Map<number, LineBox>): Segment[] {
@@ -42,7 +44,9 @@ function segmentsOf(boxes: BarBox[], lines: Map<number, LineBox>): Segment[] {
     if (seg) {
       seg.x0 = Math.min(seg.x0, b.x0);
       seg.x1 = Math.max(seg.x1, b.x1);
-    } else byLine.set(b.line, { line, x0: b.x0, x1: b.x1 });
+      seg.y0 = Math.min(seg.y0, b.y0);
+      seg.y1 = Math.max(seg.y1, b.y1);
+    } else byLine.set(b.line, { line, x0: b.x0, x1: b.x1, y0: Math.min(b.y0, line.staffTop), y1: Math.max(b.y1, line.staffBottom) });
   }
   return [...byLine.values()].sort((a, b) => a.line.top - b.line.top);
 }
@@ -96,11 +100,12 @@ export function drawOverlay(svg: SVGSVGElement, tune: TuneObject, spans: BarSpan
 
 function cover(s: Segment, id: string): SVGGElement {
   const g = el("g", { "data-hidden-phrase": id });
-  const top = s.line.top - 2;
-  const height = s.line.bottom - top + 4;
+  // Only the phrase's own notes, chord symbols and marks: the line's part and tempo marks stay in view.
+  const top = s.y0 - 3;
+  const height = s.y1 - top + 3;
   g.append(el("rect", { x: s.x0, y: top, width: s.x1 - s.x0, height, rx: 4, fill: SAWDUST, stroke: GRAIN, "stroke-dasharray": "4 3" }));
   const text = el("text", {
-    x: (s.x0 + s.x1) / 2, y: top + height / 2 + 4, "text-anchor": "middle", "font-family": FONT, "font-size": 12, fill: INK,
+    x: (s.x0 + s.x1) / 2, y: (s.line.staffTop + s.line.staffBottom) / 2 + 4, "text-anchor": "middle", "font-family": FONT, "font-size": 12, fill: INK,
   });
   text.textContent = "play from memory";
   g.append(text);

@@ -16,11 +16,17 @@ function keptFields(body: string): string[] {
   return [...last.values()];
 }
 
+// A key, meter, unit or tempo line inside the bars stays, as an inline field (ABC 2.1 §3.1 and §3.2);
+// other field lines (parts, words, notes) do not affect the sound and are dropped.
+const asInline = (line: string): string => {
+  const m = /^\s*([KMLQ]):(.*)$/.exec(line);
+  return m ? `[${m[1]}:${m[2].trim()}]` : FIELD_LINE.test(line) ? "" : line;
+};
+
 function barText(raw: string): string {
   const music = raw
     .split("\n")
-    .map((line) => line.replace(/(^|[^\\])%.*$/, "$1"))
-    .filter((line) => !FIELD_LINE.test(line))
+    .map((line) => asInline(line.replace(/(^|[^\\])%.*$/, "$1")))
     .join(" ")
     .replace(/\\\s*/g, " ")
     .replace(TRAILING_BAR, "")

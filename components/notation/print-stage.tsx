@@ -18,7 +18,7 @@ const PRINT_CSS = `
 @media print {
   body > a[href="#main"], body > header, body > footer, nav, [data-print-hide] { display: none !important; }
   body { background: #fff; }
-  [data-print-sheet] figure { border: 0; padding: 0; }
+  [data-print-sheet] figure { border: 0; padding: 0; background: #fff; }
   [data-print-sheet] svg { break-inside: avoid; }
 }
 @page { margin: 15mm; }
