@@ -31,6 +31,17 @@ export TEST_PG_ADMIN_URL="$BASE/postgres"
 
 # The app under browser test: its own database with the demo data.
 APP_PORT="$(free_port)"
+(
+  export DATABASE_URL="$BASE/rosinwood_e2e" NODE_ENV=production
+  node_modules/.bin/tsx scripts/migrate.ts >/dev/null
+  node_modules/.bin/tsx scripts/seed.ts
+)
+if build_is_stale; then next_build "$RUN/build.log"; fi
+
+# Its mail stand-in and job worker (integration tests start their own).
+MAIL_PORT="$(free_port)"
+export RESEND_API_KEY=re_test RESEND_BASE_URL="http://127.0.0.1:$MAIL_PORT" RESEND_FAKE_URL="http://127.0.0.1:$MAIL_PORT"
+start_mail_fake "$MAIL_PORT" "$RUN"
 APP_ENV=(DATABASE_URL="$BASE/rosinwood_e2e" APP_URL="http://127.0.0.1:$APP_PORT" INSECURE_COOKIES=true NODE_ENV=production
   DEMO_DEV_PAGES=true) # DEMO_DEV_PAGES: the development pages (notation playground) the browser tests use
 env "${APP_ENV[@]}" node_modules/.bin/next start -p "$APP_PORT" -H 127.0.0.1 >"$RUN/app.log" 2>&1 &
