@@ -30,6 +30,7 @@ export async function seed(db: Db): Promise<{ people: number }> {
     await db.insert(rosterEntries).values({ teacherId: teacherIds[s.teacherIndex], studentId: id }).onConflictDoNothing();
   }
   await (await import("./seed-catalogue")).seedCatalogue(db); // demo courses and tunes (issue 5, item 8)
+  await (await import("./seed-progress")).seedProgress(db); // demo ladder progress (issue 5)
   const rows = await db.select({ n: sql<number>`count(*)::int` }).from(users);
   return { people: rows[0].n };
 }
