@@ -10,8 +10,7 @@ export const DEMO_PROGRESS: readonly [number, number, string, number][] = [
   // STUDENTS[0] on "First Steps": the taster done, the second rung under way, the third locked…
   [0, 0, "Little Biscuit Polka", 1],
   [0, 0, "Hop the Puddle", 1],
-  // …and just starting "Tunes for the Dance Floor": the first rung begun, nothing reached yet.
-  [0, 1, "The Rattling Gate", 0],
+  // (and nothing yet on "Tunes for the Dance Floor", whose first rung stays simply open)
   // STUDENTS[3] is further on in "First Steps" and has begun "Ready for the Session".
   [3, 0, "Little Biscuit Polka", 2],
   [3, 0, "Hop the Puddle", 2],

@@ -2,6 +2,7 @@ import { readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { authWorld, TEST_APP_URL, type AuthWorld } from "./helpers/auth-world";
+import { catalogueRows } from "./helpers/catalogue-routes";
 import type { RequestContext } from "@/lib/auth/context";
 import type { GuardedAction } from "@/lib/auth/guard";
 
@@ -40,6 +41,7 @@ const ROWS: Row[] = [
   { covers: ["GET /api/health"], call: (c) => route("health", "GET", c), expect: all(200) },
   // Accounts (issue 4).
   { covers: ["POST /api/auth/sign-out"], call: (c) => route("auth/sign-out", "POST", c), expect: all(303) },
+  { covers: ["GET /api/auth/to-sign-in"], call: (c) => route("auth/to-sign-in", "GET", c, { query: "?next=%2Flearn" }), expect: all(307) },
   { covers: ["app/(auth)/actions.ts#signUp"], call: (c) => act("signUpAction")(c, { name: "New Person", email: fresh(c, "up"), password: "matrix-sign-up-pw" }), expect: all(200) },
   {
     covers: ["app/(auth)/actions.ts#signIn"],
@@ -101,6 +103,8 @@ const ROWS: Row[] = [
     call: (c) => route("people/[id]", "GET", c, { params: { id: c.people.otherStudent.id } }),
     expect: { visitor: 401, student: 404, teacher: 404, otherTeacher: 200, admin: 200 },
   },
+  // Catalogue, ladders, tune pages and margin notes (issue 5): rows in helpers/catalogue-routes.ts.
+  ...catalogueRows(),
 ];
 
 let w: AuthWorld;
