@@ -6,6 +6,7 @@ import type { TuneObject } from "abcjs";
 import type { PhraseMap } from "@/lib/abc/phrase-types";
 import { cx } from "@/components/ui/cx";
 import { barAt, loadAbcjs, loadBarSpans, type BarSpan } from "./loaders";
+import { phoneLineBreaks, phoneLineEnds } from "./phone-layout";
 import { drawOverlay } from "./phrase-overlay";
 import { barsText, phraseLabel, phraseList, twinWords } from "./phrase-words";
 
@@ -27,6 +28,20 @@ type State = "loading" | "ready" | "error";
 
 // Room above every staff for the phrase labels (points, abcjs's %%stafftopmargin).
 const LABEL_ROOM = 16;
+const NARROW = "(max-width: 639px)"; // below Tailwind's sm: a phone gets its own line breaks
+const PHONE_STAFF_WIDTH = 340;
+
+function useNarrow(): boolean {
+  const [narrow, setNarrow] = useState(false);
+  useEffect(() => {
+    const query = window.matchMedia(NARROW);
+    const update = (): void => setNarrow(query.matches);
+    update();
+    query.addEventListener("change", update);
+    return () => query.removeEventListener("change", update);
+  }, []);
+  return narrow;
+}
 
 export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBarClick, label, className }: NotationProps) {
   const paper = useRef<HTMLDivElement>(null);
@@ -36,6 +51,10 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
   const [drawn, setDrawn] = useState<Drawn | null>(null);
   const [state, setState] = useState<State>("loading");
   const descId = useId();
+  const narrow = useNarrow();
+  const mapRef = useRef(phraseMap);
+  mapRef.current = phraseMap;
+  const mapKey = phraseMap ? phraseList(phraseMap).map((p) => p.bars.join("-")).join(",") : "";
 
   useEffect(() => {
     let live = true;
@@ -50,6 +69,13 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
           format: { stafftopmargin: LABEL_ROOM },
           selectTypes: clickable ? ["note", "bar"] : false,
           selectionColor: "#8A3B12",
+          ...(narrow
+            ? {
+                staffwidth: PHONE_STAFF_WIDTH,
+                // abcjs reads one list per section of music (src/parse/wrap_lines.js); its types say number[].
+                lineBreaks: phoneLineBreaks(abcjs, abc, spans, phoneLineEnds(spans, mapRef.current)) as unknown as number[],
+              }
+            : {}),
           clickListener: (elem) => {
             const start = (elem as { startChar?: number }).startChar;
             const bar = start === undefined ? null : barAt(spans, start);
@@ -65,7 +91,7 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
     return () => {
       live = false;
     };
-  }, [abc, clickable, label]);
+  }, [abc, clickable, label, narrow, mapKey]);
 
   useEffect(() => {
     const svg = paper.current?.querySelector("svg");

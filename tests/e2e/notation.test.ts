@@ -147,6 +147,18 @@ describe("the music components in a real browser", () => {
     expect(await page.locator("figure svg").count()).toBe(0);
   });
 
+  it("fits a phone's width, two bars to a line, with the labels still there", async () => {
+    const phone = await browser.newPage({ viewport: { width: 375, height: 800 } });
+    phone.on("request", (r) => requests.push(r.url()));
+    await phone.goto(`${BASE_URL}/dev/notation`);
+    await phone.waitForSelector('[data-notation-state="ready"] text.rw-phrase-label', { timeout: 60_000 });
+    expect(await phone.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(375);
+    expect(await phone.locator("svg .abcjs-staff").count()).toBe(8); // 16 bars, 2 to a line
+    expect(await phone.locator("text.rw-phrase-label").count()).toBe(8);
+    await screenshot(phone, "notation-phone");
+    await phone.close();
+  });
+
   it("asked nothing of any address but the app's own, and raised no page errors", () => {
     expect(requests.length).toBeGreaterThan(0);
     expect(requests.filter((u) => !u.startsWith(BASE_URL))).toEqual([]);
