@@ -9,10 +9,10 @@ export function middleware(request: NextRequest) {
   const { pathname, search } = request.nextUrl;
   const asked = pathname + search;
   if (!request.cookies.get(SESSION_COOKIE)?.value) {
-    const url = request.nextUrl.clone();
-    url.pathname = "/sign-in";
-    url.search = `?next=${encodeURIComponent(asked)}`;
-    return NextResponse.redirect(url);
+    // Through a route handler rather than NextResponse.redirect: Next rewrites the host of a
+    // middleware redirect to "localhost" when it is 127.x (next/dist/server/web/next-url.js), and a
+    // cookie set on one host name is not sent to the other.
+    return NextResponse.rewrite(new URL(`/api/auth/to-sign-in?next=${encodeURIComponent(asked)}`, request.url));
   }
   // The area's layout reads this to send an expired session back here after signing in.
   const headers = new Headers(request.headers);
