@@ -5,9 +5,20 @@ const ACTORS: Actor[] = ["visitor", "student", "teacher", "admin"];
 const allowed = (actor: Actor) => ACTIONS.filter((a) => can(actor, a));
 
 describe("the permission table (PRODUCT.md §2)", () => {
-  it("lets a visitor only sign up, sign in, reset, confirm an address and accept an invitation", () => {
+  it("lets a visitor only browse the public catalogue and use the account doors", () => {
+    // PRODUCT.md §2: a visitor may "browse the public catalogue … sign up"; signing in, a reset link,
+    // an address confirmation and an invitation link all start signed out.
     expect(allowed("visitor").sort()).toEqual(
-      ["account:reset-password", "account:sign-in", "account:sign-out", "account:sign-up", "account:verify-email", "invitation:accept"].sort(),
+      [
+        "account:reset-password",
+        "account:sign-in",
+        "account:sign-out",
+        "account:sign-up",
+        "account:verify-email",
+        "invitation:accept",
+        "catalogue:view",
+        "tune:view",
+      ].sort(),
     );
   });
 
