@@ -1,6 +1,6 @@
 // Bars of one voice from its elements: numbering (a pickup is bar 0), parts from P: in the body,
 // numbered endings (ABC 2.1 §4.9) and the bar line on each side.
-import { add, cmp, frac, sub, sum, ZERO } from "./fraction";
+import { add, cmp, frac, sub, ZERO } from "./fraction";
 import { valueAt, type HeaderInfo } from "./header";
 import type { BarEl, El, NoteEl } from "./model";
 import type { BarLineKind, Fraction } from "./types";
@@ -45,7 +45,8 @@ export function assembleBars(els: El[], header: HeaderInfo): VBar[] {
   let partChanged = false;
   const close = (right: BarEl | null): void => {
     if (notes.length === 0) return;
-    const length = sum(notes.map((n) => n.duration));
+    let length = ZERO;
+    for (const n of notes) length = add(length, n.duration);
     bars.push({
       index: bars.length, number: -1, part: partAtStart, ending, left, right, notes,
       startChar: left ? left.end : notes[0].start, endChar: right ? right.end : notes[notes.length - 1].end,
@@ -96,7 +97,7 @@ function number(bars: VBar[]): void {
     for (const note of bar.notes) {
       note.bar = bar;
       note.onset = onset;
-      note.grid = add(onset, bar.shift);
+      note.grid = bar.shift.num === 0 ? onset : add(onset, bar.shift); // onsets are already reduced
       onset = add(onset, note.duration);
     }
   });

@@ -1,7 +1,7 @@
 // Every embellishment of a tune with its kind and position (issue 3 §2).
 import { add, div, toNumber } from "./fraction";
 import { beatOf } from "./header";
-import { tokKind } from "./emit";
+import { tokKind } from "./decorations";
 import type { VBar } from "./bars";
 import type { NoteEl } from "./model";
 import type { Prepared } from "./tune";
@@ -23,37 +23,40 @@ export function classify(p: Prepared): Embellishment[] {
   const { model } = p;
   const abc = model.abc;
   const found: Embellishment[] = [];
-  const add1 = (kind: Kind, what: string, start: number, end: number, pos: Position): void => {
-    found.push({ kind, what, source: abc.slice(start, end), startChar: start, endChar: end, position: pos });
-  };
-  const barsOf = (voice: string): VBar[] => model.bars.get(voice) ?? [];
   for (const el of model.edits) {
     if (el.type === "bar") {
+      if (!el.toks.some((t) => t.kind === "deco")) continue;
       // A decoration on a bar line belongs to the end of the bar it closes.
-      const bars = barsOf(el.voice);
+      const bars = model.bars.get(el.voice) ?? [];
       const closed = bars.find((b) => b.right === el) ?? null;
       const pos = closed ? position(closed, add(closed.length, closed.shift)) : position(bars[0] ?? null, { num: 0, den: 1 });
-      for (const t of el.toks) if (t.kind === "deco") add1(tokKind(t) ?? "marks", NAMES[t.name] ?? t.name, t.start, t.end, pos);
+      for (const t of el.toks) if (t.kind === "deco") found.push(found1(abc, tokKind(t) ?? "marks", NAMES[t.name] ?? t.name, t.start, t.end, pos));
       continue;
     }
+    const chord = el.body.chord && el.body.notes.length > 1;
+    if (el.kinds === 0 && !chord) continue; // nothing on this note to list
     const pos = position(el.bar, el.grid);
     for (const t of el.lex.toks) {
       const kind = tokKind(t);
       if (!kind || t.kind === "slurClose") continue;
       const what = t.kind === "grace" ? "grace notes" : t.kind === "slurOpen" ? (t.name === "dotted" ? "dotted slur" : "slur") : NAMES[t.name] ?? t.name;
-      add1(kind, what, t.start, t.end, pos);
+      found.push(found1(abc, kind, what, t.start, t.end, pos));
     }
-    if (el.body.chord && el.body.notes.length > 1) add1("doubleStops", chordName(el), el.body.start, el.body.end, pos);
+    if (chord) found.push(found1(abc, "doubleStops", chordName(el), el.body.start, el.body.end, pos));
   }
   for (const g of p.groups) {
     const first = g.els[0];
-    add1("fills", g.what, first.start, g.els[g.els.length - 1].end, position(first.bar, first.grid));
+    found.push(found1(abc, "fills", g.what, first.start, g.els[g.els.length - 1].end, position(first.bar, first.grid)));
   }
   for (const t of p.crossing) {
     const first = t.els[0];
-    if (first) add1("fills", "tuplet across a beat (kept in every stage)", first.start, t.els[t.els.length - 1].end, position(first.bar, first.grid));
+    if (first) found.push(found1(abc, "fills", "tuplet across a beat (kept in every stage)", first.start, t.els[t.els.length - 1].end, position(first.bar, first.grid)));
   }
   return found.sort((a, b) => a.startChar - b.startChar || a.endChar - b.endChar);
+}
+
+function found1(abc: string, kind: Kind, what: string, start: number, end: number, position: Position): Embellishment {
+  return { kind, what, source: abc.slice(start, end), startChar: start, endChar: end, position };
 }
 
 function chordName(el: NoteEl): string {

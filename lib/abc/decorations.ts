@@ -48,8 +48,11 @@ export function tokKind(t: Tok): Kind | null {
 }
 
 // Kinds as bits, so "does this element hold a kind being taken out" is one test per element.
+// A name the table answers from outside its own entries (an inherited property name) gets a bit
+// of its own: it is never taken out, and its element is still not bare.
 const KIND_BIT = new Map<Kind, number>(KINDS.map((k, i) => [k, 1 << i]));
-export const kindBit = (k: Kind | null): number => (k === null ? 0 : KIND_BIT.get(k) ?? 0);
+const UNLISTED_BIT = 1 << 30;
+export const kindBit = (k: Kind | null): number => (k === null ? 0 : KIND_BIT.get(k) ?? UNLISTED_BIT);
 export function kindMask(kinds: Iterable<Kind>): number {
   let m = 0;
   for (const k of kinds) m |= kindBit(k);
@@ -86,6 +89,7 @@ export const DEFAULT_SHORTHANDS: Readonly<Record<string, string>> = {
 /** Shorthands in force after the tune's U: fields (§4.16: U: may redefine h–w, H–W and ~). */
 export function shorthandsOf(abc: string): Record<string, string> {
   const map: Record<string, string> = { ...DEFAULT_SHORTHANDS };
+  if (!abc.includes("U:")) return map; // most tunes redefine nothing: skip the scan
   for (const m of abc.matchAll(/^U:\s*([~H-Wh-w])\s*=\s*(\S+)/gm)) {
     const value = m[2].replace(/^[!+](.*)[!+]$/, "$1");
     if (value === "nil" || value === "none") delete map[m[1]];

@@ -13,9 +13,42 @@ export type DoubleStop = "highest" | "lowest";
 export interface Emitted {
   abc: string;
   /** Source element boundary → offset in the output (for bars and notes). */
-  offsets: Map<number, number>;
-  /** Melody notes as written in the output, keyed by the source element that starts them. */
-  notes: Map<NoteEl, MelodyNote>;
+  offsets: Offsets;
+  /** Melody notes as written in the output, by the index (TuneModel.edits) of the element that starts them. */
+  notes: (MelodyNote | undefined)[];
+}
+
+/**
+ * Source offset → output offset, recorded at each element's start and end as the walk goes.
+ * The walk only moves forward, so the keys come in order and a lookup is a binary search for the
+ * last entry with its key (the value a map would hold after the same writes), with none of a
+ * map's hashing for the many entries that are never read.
+ */
+export class Offsets {
+  private keys: number[] = [];
+  private vals: number[] = [];
+  private ordered = true;
+  set(key: number, value: number): void {
+    const n = this.keys.length;
+    if (n > 0 && key < this.keys[n - 1]) this.ordered = false; // an element ending before it starts
+    this.keys.push(key);
+    this.vals.push(value);
+  }
+  get(key: number): number | undefined {
+    const keys = this.keys;
+    if (!this.ordered) {
+      const i = keys.lastIndexOf(key);
+      return i >= 0 ? this.vals[i] : undefined;
+    }
+    let lo = 0;
+    let hi = keys.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (keys[mid] <= key) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo > 0 && keys[lo - 1] === key ? this.vals[lo - 1] : undefined;
+  }
 }
 
 export { tokKind };
@@ -56,8 +89,8 @@ export function emit(
   const { abc } = model;
   const out = new Writer();
   let pos = 0;
-  const offsets = new Map<number, number>();
-  const notes = new Map<NoteEl, MelodyNote>();
+  const offsets = new Offsets();
+  const notes: (MelodyNote | undefined)[] = track ? new Array<MelodyNote | undefined>(model.edits.length) : [];
   const states = new Map<string, BarAccidentals>();
   const r: Removal = { mask: kindMask(removed), reduce: removed.has("doubleStops"), pick };
   const collapse = removed.has("fills") && groupOf.size > 0;
@@ -80,10 +113,10 @@ export function emit(
         const start = out.text.length;
         const midi = writeNote(abc, el, g, state, r, out);
         if (track && el.voice === model.melody) {
-          notes.set(el, {
+          notes[el.index] = {
             onset: el.onset, duration: g ? g.total : el.duration, pitch: midi,
             tiedFromPrevious: el.tiedFromPrevious, startChar: start, endChar: out.text.length,
-          });
+          };
         }
       }
     }

@@ -20,6 +20,7 @@ export interface Tuplet {
 
 export interface NoteEl {
   type: "note";
+  index: number; // place in TuneModel.edits
   voice: string;
   start: number;
   end: number;
@@ -43,6 +44,7 @@ export interface NoteEl {
 
 export interface BarEl {
   type: "bar";
+  index: number; // place in TuneModel.edits
   voice: string;
   start: number;
   end: number;
@@ -103,8 +105,7 @@ export function readModel(abc: string, tune: TuneObject): TuneModel {
   const shorthands = shorthandsOf(abc);
   const voices = new Map<string, El[]>();
   const states = new Map<string, VoiceState>();
-  // Elements already read, by offset (abcjs may list one element in several voices).
-  const seen = new Uint8Array(abc.length + 1);
+  const seen = seenMarks(abc.length);
   const tuplets: Tuplet[] = [];
   for (const line of tune.lines) {
     const staves = line.staff ?? [];
@@ -136,12 +137,13 @@ export function readModel(abc: string, tune: TuneObject): TuneModel {
     }
   }
   if (!sorted) edits.sort((a, b) => a.start - b.start);
+  for (let i = 0; i < edits.length; i++) edits[i].index = i;
   return { abc, header, shorthands, voices, melody, bars, edits, tuplets };
 }
 
 function readVoice(
   abc: string, items: readonly ItemFields[], voice: string, v: VoiceState, header: HeaderInfo,
-  shorthands: Record<string, string>, seen: Uint8Array, tuplets: Tuplet[],
+  shorthands: Record<string, string>, seen: Seen, tuplets: Tuplet[],
 ): void {
   const state = v.acc;
   const els = v.els;
@@ -158,7 +160,7 @@ function readVoice(
       markSeen(seen, start);
       const toks = hasMarks(abc, start, end) ? lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord") : [];
       const startEnding = str(item.startEnding) ?? null;
-      els.push({ type: "bar", voice, start, end, toks, kinds: tokMask(toks), barType: str(item.type) ?? "", startEnding, endEnding: item.endEnding === true });
+      els.push({ type: "bar", index: -1, voice, start, end, toks, kinds: tokMask(toks), barType: str(item.type) ?? "", startEnding, endEnding: item.endEnding === true });
     } else if (type === "note" && !isSeen(seen, start)) {
       const lex = lexSpan(abc, start, end, shorthands);
       if (!lex.body) continue;
@@ -186,9 +188,25 @@ function readVoice(
   }
 }
 
-const isSeen = (seen: Uint8Array, at: number): boolean => seen[at] === 1;
-const markSeen = (seen: Uint8Array, at: number): void => {
-  seen[at] = 1;
+// Elements already read, by offset (abcjs may list one element in several voices). One array
+// serves every reading: an offset is marked with the reading's number, so nothing is cleared or
+// made per tune, and a reading cut short by an exception leaves no stale mark.
+let marks = new Uint32Array(1 << 14);
+let reading = 0;
+interface Seen {
+  marks: Uint32Array;
+  reading: number;
+}
+function seenMarks(length: number): Seen {
+  if (marks.length <= length || reading === 0xffffffff) {
+    marks = new Uint32Array(Math.max(length + 1, marks.length * 2));
+    reading = 0;
+  }
+  return { marks, reading: ++reading };
+}
+const isSeen = (seen: Seen, at: number): boolean => seen.marks[at] === seen.reading;
+const markSeen = (seen: Seen, at: number): void => {
+  seen.marks[at] = seen.reading;
 };
 
 /** Most bar lines carry nothing to lex: skip the lexer unless a decoration or quote is there. */
@@ -229,7 +247,7 @@ function noteEl(
     if (n.tie !== "") tieOut = true;
   }
   return {
-    type: "note", voice, start, end, lex, body, duration, unit, midi, pos, tieOut, kinds: tokMask(lex.toks),
+    type: "note", index: -1, voice, start, end, lex, body, duration, unit, midi, pos, tieOut, kinds: tokMask(lex.toks),
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
     bar: null, onset: frac(0), grid: frac(0),
   };

@@ -49,22 +49,19 @@ export function keyAccOf(key: unknown): KeyAcc {
   return map;
 }
 
-const CARRIED_SIZE = 256;
-const CARRIED_ZERO = 128;
-
 /** Accidentals in force in one bar of one voice. */
 export class BarAccidentals {
-  // Carried accidentals by staff position, stored +8 so that 0 means none; `touched` lists the
-  // slots in use so a new bar clears only those (this runs for every note of every analysis).
-  // Positions beyond the array (absurd octave marks) go to `far`.
-  private carried = new Int8Array(CARRIED_SIZE);
-  private touched: number[] = [];
-  private far = new Map<number, number>();
+  // Carried accidentals as parallel lists of staff position and semitones: a bar carries a few
+  // at most, so a scan beats a map, and making one or clearing it costs next to nothing (this
+  // runs for every note of every analysis).
+  private carriedPos: number[] = [];
+  private carriedVal: number[] = [];
   constructor(public key: KeyAcc) {}
   reset(): void {
-    for (const i of this.touched) this.carried[i] = 0;
-    this.touched.length = 0;
-    if (this.far.size) this.far.clear();
+    if (this.carriedPos.length) {
+      this.carriedPos.length = 0;
+      this.carriedVal.length = 0;
+    }
   }
   /** Sounding pitch of a note written with `acc` (may be "") at `pos`; records the accidental. */
   sound(pos: number, acc: string): number {
@@ -73,9 +70,8 @@ export class BarAccidentals {
     return naturalMidi(pos) + this.expected(pos);
   }
   expected(pos: number): number {
-    const i = pos + CARRIED_ZERO;
-    const c = i >= 0 && i < CARRIED_SIZE ? this.carried[i] - 8 : this.far.get(pos) ?? -8;
-    return c !== -8 ? c : this.key.get(letterOf(pos)) ?? 0;
+    const i = this.carriedPos.indexOf(pos);
+    return i >= 0 ? this.carriedVal[i] : this.key.get(letterOf(pos)) ?? 0;
   }
   /** The accidental to write so that `pos` sounds `midi` here ("" when none is needed). */
   spell(pos: number, written: string, midi: number): string {
@@ -91,11 +87,11 @@ export class BarAccidentals {
     return text;
   }
   private carry(pos: number, value: number): void {
-    const i = pos + CARRIED_ZERO;
-    if (i < 0 || i >= CARRIED_SIZE) this.far.set(pos, value);
+    const i = this.carriedPos.indexOf(pos);
+    if (i >= 0) this.carriedVal[i] = value;
     else {
-      if (this.carried[i] === 0) this.touched.push(i);
-      this.carried[i] = value + 8;
+      this.carriedPos.push(pos);
+      this.carriedVal.push(value);
     }
   }
 }

@@ -49,16 +49,17 @@ function sourceNote(el: NoteEl, pick: DoubleStop): MelodyNote {
 
 export function shapeOf(p: Prepared, out: Emitted | null, pick: DoubleStop): TuneShape {
   const { model } = p;
-  const at = (offset: number): number => (out ? out.offsets.get(offset) ?? offset : offset);
   const bars: Bar[] = [];
   for (const vb of model.bars.get(model.melody) ?? []) {
     const notes: MelodyNote[] = [];
     for (const el of vb.notes) {
-      const n = out ? out.notes.get(el) : sourceNote(el, pick);
+      const n = out ? out.notes[el.index] : sourceNote(el, pick);
       if (n) notes.push(n);
     }
     bars.push({
-      number: vb.number, part: vb.part, ending: vb.ending, startChar: at(vb.startChar), endChar: at(vb.endChar),
+      number: vb.number, part: vb.part, ending: vb.ending,
+      startChar: out ? out.offsets.get(vb.startChar) ?? vb.startChar : vb.startChar,
+      endChar: out ? out.offsets.get(vb.endChar) ?? vb.endChar : vb.endChar,
       leftLine: vb.index === 0 && !vb.left ? "start" : lineKind(vb.left), rightLine: lineKind(vb.right),
       length: vb.length, notes,
     });
