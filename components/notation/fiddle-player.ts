@@ -15,6 +15,8 @@ export interface PlaySettings {
   tempo: number; // percent of the tune's tempo, 40–120
   countIn: boolean;
   loop: boolean;
+  /** Other music (another phrase to loop): go on from its start, count-in included, not from the same bar. */
+  fromStart?: boolean;
 }
 
 export type PlayerStatus = "idle" | "loading" | "playing" | "paused" | "error";
@@ -64,6 +66,8 @@ export class FiddlePlayer {
   private msPerMeasure = 0;
   private loop = false;
   private ready = false; // the current synth is primed
+  private generation = 0; // each load (and dispose) starts a new one; older loads stop at their next step
+  private resume: { status: PlayerStatus; bars: number } = { status: "idle", bars: 0 };
   duration = 0;
   peak = 0;
   status: PlayerStatus = "idle";
@@ -81,20 +85,25 @@ export class FiddlePlayer {
 
   /** Builds the audio for `abc`; playing resumes from the same place in the music if it was playing. */
   async load(abc: string, settings: PlaySettings): Promise<void> {
+    const token = ++this.generation;
     try {
-      await this.build(abc, settings);
+      await this.build(abc, settings, token);
     } catch {
+      if (token !== this.generation) return;
       this.synth = null;
       this.set("error");
     }
   }
 
-  private async build(abc: string, settings: PlaySettings): Promise<void> {
+  private async build(abc: string, settings: PlaySettings, token: number): Promise<void> {
     const abcjs = await loadAbcjs();
-    const was = this.status;
-    const at = was === "playing" ? await this.position() : was === "paused" ? this.pausedAt : this.countInSec;
-    const musicAt = Math.max(0, at - this.countInSec);
-    const oldMs = this.msPerMeasure;
+    if (this.status !== "loading") {
+      // Where the music was, in bars, so it can go on from there at any speed. A load that
+      // replaces one still in progress keeps what the first one recorded.
+      const at = this.status === "playing" ? await this.position() : this.status === "paused" ? this.pausedAt : this.countInSec;
+      const bars = this.msPerMeasure ? (Math.max(0, at - this.countInSec) * 1000) / this.msPerMeasure : 0;
+      this.resume = { status: this.status, bars };
+    }
     this.halt();
     this.ready = false;
     this.set("loading");
@@ -102,14 +111,13 @@ export class FiddlePlayer {
     const meter = meterOf(tune);
     const meterSize = meter.num / meter.den;
     const pickup = tune.getPickupLength();
-    this.msPerMeasure = (baseMsPerMeasure(tune) * 100) / settings.tempo;
-    this.loop = settings.loop;
+    const msPerMeasure = (baseMsPerMeasure(tune) * 100) / settings.tempo;
     const clicks = settings.countIn ? countInClicks(meter, pickup) : [];
     const synth = new abcjs.synth.CreateSynth();
     this.synth = synth;
     await synth.init({
       visualObj: tune,
-      millisecondsPerMeasure: this.msPerMeasure,
+      millisecondsPerMeasure: msPerMeasure,
       options: {
         soundFontUrl: SOUND_FONT_URL,
         program: FIDDLE,
@@ -122,16 +130,21 @@ export class FiddlePlayer {
       },
     });
     const primed = await synth.prime();
-    if (synth !== this.synth) return; // a newer load took over
-    this.duration = primed.duration;
+    if (token !== this.generation) return; // a newer load took over
     this.peak = peakOf(synth.getAudioBuffer());
     if (this.peak === 0) throw new Error("the fiddle samples did not load");
+    this.duration = primed.duration;
+    this.msPerMeasure = msPerMeasure;
+    this.loop = settings.loop;
+    this.countInSec = settings.countIn ? (((meterSize - pickup) / meterSize) * msPerMeasure) / 1000 : 0;
     this.ready = true;
-    this.countInSec = settings.countIn ? (((meterSize - pickup) / meterSize) * this.msPerMeasure) / 1000 : 0;
-    // The same place in the music at the new speed (the new count-in is skipped when resuming).
-    this.pausedAt = was === "playing" || was === "paused" ? this.countInSec + (musicAt * this.msPerMeasure) / (oldMs || this.msPerMeasure) : 0;
-    if (was === "playing") await this.play();
-    else this.set(was === "paused" ? "paused" : "idle");
+    const { status, bars } = this.resume;
+    // Going on after a change skips the new count-in: the student is already playing along.
+    const goOn = (status === "playing" || status === "paused") && !settings.fromStart;
+    this.pausedAt = goOn ? this.countInSec + (bars * msPerMeasure) / 1000 : 0;
+    if (this.pausedAt >= this.duration - 0.3) this.pausedAt = 0;
+    if (status === "playing") await this.play();
+    else this.set(status === "paused" ? "paused" : "idle");
   }
 
   async play(): Promise<void> {
@@ -160,6 +173,7 @@ export class FiddlePlayer {
   }
 
   dispose(): void {
+    this.generation++;
     this.halt();
     this.synth = null;
   }

@@ -38,6 +38,7 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
   const [countIn, setCountIn] = useState(true);
   const [loopId, setLoopId] = useState("");
   const loaded = useRef(""); // the music and settings the current audio was built from
+  const loadedLoop = useRef("");
   const phrases = phraseMap ? phraseList(phraseMap) : [];
 
   useEffect(() => {
@@ -62,7 +63,9 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
     const key = JSON.stringify([abc, tempo, countIn, loopId]);
     if (!p || key === loaded.current) return;
     loaded.current = key;
-    await p.load(await source(), { tempo, countIn, loop: loopId !== "" });
+    const fromStart = loopId !== loadedLoop.current;
+    loadedLoop.current = loopId;
+    await p.load(await source(), { tempo, countIn, loop: loopId !== "", fromStart });
   };
 
   // Once sound has been asked for, every change of music or setting rebuilds it (the slider waits
