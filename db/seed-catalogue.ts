@@ -7,6 +7,10 @@ import { courses, enrolments, grades, rungs, tunes, tuneStages, tuneTypeEnum, us
 import { DEMO_COURSES, DEMO_TUNES, type DemoCourse } from "./seed-data/catalogue";
 import { STUDENTS, TEACHERS } from "./seed-data/people";
 import { analyze } from "@/lib/abc/index";
+import { headerField, tuneTypeOf } from "@/lib/tunes/header";
+
+// Moved to lib/tunes/header.ts (the tune editor reads them in the browser); still exported from here.
+export { headerField, tuneTypeOf };
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 export type TuneType = (typeof tuneTypeEnum.enumValues)[number];
@@ -14,21 +18,6 @@ export type TuneType = (typeof tuneTypeEnum.enumValues)[number];
 /** The ABC text of one demo tune file. */
 export function demoTuneAbc(file: string): string {
   return readFileSync(new URL(`./seed-data/tunes/${file}`, import.meta.url), "utf8");
-}
-
-/** A header field's value (before K:, where the music starts), trimmed; "" when absent. */
-export function headerField(abc: string, letter: string): string {
-  const k = /^K:.*$/m.exec(abc);
-  const head = k ? abc.slice(0, k.index) : abc;
-  return new RegExp(`^${letter}:(.*)$`, "m").exec(head)?.[1]?.replace(/%.*/, "").trim() ?? "";
-}
-
-/** The tune type from the R: field (ABC 2.1 §3.1.9 "rhythm"), "other" when it names none we know. */
-export function tuneTypeOf(abc: string): TuneType {
-  const r = headerField(abc, "R").toLowerCase().replace(/[-_\s]+/g, " ");
-  const known: readonly string[] = tuneTypeEnum.enumValues;
-  const name = r === "slipjig" ? "slip jig" : r;
-  return known.includes(name) ? (name as TuneType) : "other";
 }
 
 async function idsByEmail(db: Db, emails: string[]): Promise<Map<string, string>> {

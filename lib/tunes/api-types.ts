@@ -1,0 +1,54 @@
+// What the teacher's tune routes answer, as plain types the browser can import (no database).
+import type { Problem, StagePlan } from "@/lib/abc/types";
+import type { TuneType } from "./header";
+
+export interface TuneSummary {
+  id: string;
+  title: string;
+  tuneType: TuneType;
+  key: string;
+  meter: string;
+  teacherName: string;
+  updatedAt: string;
+  stageCount: number;
+}
+
+export interface StageView {
+  index: number;
+  name: string;
+  kinds: string[];
+  abc: string;
+  handEdited: boolean;
+  sourceChanged: boolean;
+}
+
+export interface TuneView {
+  id: string;
+  title: string;
+  tuneType: TuneType;
+  key: string;
+  meter: string;
+  abc: string;
+  stagePlan: StagePlan | null;
+  acceptedSwaps: string[];
+  updatedAt: string;
+  stages: StageView[];
+  /** Courses whose ladders hold the tune. */
+  courses: { id: string; title: string }[];
+}
+
+/** 422 from a save: nothing was stored. */
+export interface ProblemsBody {
+  error: string;
+  problems: Problem[];
+  planReasons: string[];
+}
+
+export interface SavedBody {
+  tuneId: string;
+  title: string;
+  /** Accepted swaps the phrase map no longer offers after the change; they were let go. */
+  droppedSwaps: string[];
+  /** Hand-edited stages flagged by this save because the source changed under them. */
+  flaggedStages: number[];
+}

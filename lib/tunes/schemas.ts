@@ -1,0 +1,50 @@
+// Inputs of the tune editor's routes, checked with the same schemas in the browser and the route
+// handlers (ENGINEERING.md: zod on both sides). Shape only: what the engine thinks of the music
+// (problems with line and column, plan reasons) is lib/tunes/check.ts.
+import { z } from "zod";
+import { KINDS } from "@/lib/abc/types";
+
+/** One tune's ABC; a long medley is a few thousand characters, so this only stops a pasted file. */
+export const MAX_TUNE_CHARS = 50_000;
+export const MAX_STAGES = 8;
+
+export const stagePlanInput = z.object({
+  stages: z
+    .array(
+      z.object({
+        name: z.string().trim().min(1, "Every stage needs a name.").max(60, "Keep stage names under 60 characters."),
+        adds: z.array(z.enum(KINDS)).max(KINDS.length),
+      }),
+    )
+    .min(1, "A plan needs at least one stage.")
+    .max(MAX_STAGES, `A plan has at most ${MAX_STAGES} stages.`),
+});
+
+export const abcText = z
+  .string()
+  .min(1, "Write the tune in ABC first.")
+  .max(MAX_TUNE_CHARS, `One tune is at most ${MAX_TUNE_CHARS.toLocaleString("en")} characters; use Import for a file of many tunes.`);
+
+export const tuneInput = z.object({
+  abc: abcText,
+  /** null: the default plan (lib/abc DEFAULT_PLAN). */
+  stagePlan: stagePlanInput.nullable().default(null),
+  /** Phrase ids of near twins played like their model in the learning version. */
+  acceptedSwaps: z.array(z.string().min(1).max(16)).max(64).default([]),
+});
+export type TuneInput = z.input<typeof tuneInput>;
+
+export const tuneId = z.object({ tuneId: z.uuid("Unknown tune.") });
+
+export const stageEditInput = tuneId.extend({
+  index: z.coerce.number().int().min(1).max(MAX_STAGES),
+  abc: abcText,
+});
+
+export const stageRef = tuneId.extend({ index: z.coerce.number().int().min(1).max(MAX_STAGES) });
+
+/** The plan stored in the tunes row (jsonb) as the engine takes it; null for the default plan. */
+export function storedPlan(json: unknown): z.output<typeof stagePlanInput> | null {
+  const parsed = stagePlanInput.safeParse(json);
+  return parsed.success ? parsed.data : null;
+}
