@@ -24,3 +24,4 @@ export function offeredSwaps(map: PhraseMap, accepted: readonly string[]): { kep
   const offered = map.swaps.map((s) => s.phrase);
   return { kept: offered.filter((id) => accepted.includes(id)), dropped: accepted.filter((id) => !offered.includes(id)) };
 }
+
