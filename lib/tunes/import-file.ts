@@ -3,9 +3,9 @@
 import { splitTunes, type TuneText } from "@/lib/abc/split";
 import { HttpError, unprocessable } from "@/lib/auth/errors";
 
-export const IMPORT_MAX_BYTES = 2 * 1024 * 1024;
-export const IMPORT_MAX_TUNES = 300;
-export const IMPORT_FILE_NAME = /\.abc$/i;
+import { IMPORT_FILE_NAME, IMPORT_MAX_BYTES, IMPORT_MAX_TUNES } from "./import-limits";
+
+export { IMPORT_FILE_NAME, IMPORT_MAX_BYTES, IMPORT_MAX_TUNES };
 
 const MB = (n: number): string => `${(n / 1024 / 1024).toFixed(n % (1024 * 1024) === 0 ? 0 : 1)} MB`;
 
