@@ -7,7 +7,7 @@ import type { Comparison } from "@/lib/abc/compare";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Textarea } from "@/components/ui/input";
-import { compareInput, COMPARE_MAX, fieldErrors } from "@/lib/catalogue/schemas";
+import { COMPARE_MAX } from "@/lib/catalogue/limits";
 import { barWords, differenceWords } from "./compare-words";
 
 export function CompareSettings({ abc, stageName }: { abc: string; stageName: string }) {
@@ -20,6 +20,7 @@ export function CompareSettings({ abc, stageName }: { abc: string; stageName: st
 
   const submit = async (e: FormEvent<HTMLFormElement>): Promise<void> => {
     e.preventDefault();
+    const { compareInput, fieldErrors } = await import("@/lib/catalogue/schemas"); // zod loads on the first send
     const parsed = compareInput.safeParse({ abc: text, on: skeleton ? "skeleton" : "source" });
     if (!parsed.success) return setError(fieldErrors(parsed.error).abc ?? "Please check the ABC.");
     setBusy(true);

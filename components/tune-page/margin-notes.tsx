@@ -6,7 +6,7 @@ import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { errorWords } from "@/lib/catalogue/fetch-json";
 import { NoteForm } from "./note-form";
-import { useNoteMutations, useNotes } from "./use-tune";
+import { useNoteMutations, useNotes } from "./use-notes";
 
 export interface MarginNotesProps {
   tuneId: string;

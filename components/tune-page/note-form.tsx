@@ -4,7 +4,8 @@ import { useId, useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
 import { Input, Textarea } from "@/components/ui/input";
 import { ApiError } from "@/lib/catalogue/fetch-json";
-import { fieldErrors, MAX_BAR, NOTE_MAX, noteInput, type NoteInput } from "@/lib/catalogue/schemas";
+import { MAX_BAR, NOTE_MAX } from "@/lib/catalogue/limits";
+import type { NoteInput } from "@/lib/catalogue/schemas";
 
 export interface NoteFormProps {
   bar: number | null;
@@ -23,6 +24,7 @@ export function NoteForm({ bar, body = "", submitLabel, busy, onSubmit, onCancel
 
   const submit = async (e: FormEvent<HTMLFormElement>): Promise<void> => {
     e.preventDefault();
+    const { fieldErrors, noteInput } = await import("@/lib/catalogue/schemas"); // zod loads on the first send
     const parsed = noteInput.safeParse({ bar: bar ?? "", body: text });
     if (!parsed.success) return setErrors(fieldErrors(parsed.error));
     setErrors({});

@@ -3,15 +3,21 @@
 // with its phrase map, the player, memory mode, margin notes, comparison with another setting and
 // a print view. Used for students (/learn/tunes) and for the public taster (/catalogue/tunes).
 import Link from "next/link";
-import { useEffect, useState } from "react";
-import { MemoryMode, Notation, StageSelector, TunePlayer } from "@/components/notation";
+import { lazy, Suspense, useEffect, useState } from "react";
+import { StageSelector } from "@/components/notation/stage-selector";
 import { tuneWords } from "@/components/catalogue/tune-words";
 import { Alert } from "@/components/ui/alert";
 import { errorWords } from "@/lib/catalogue/fetch-json";
 import type { TuneJson } from "@/lib/catalogue/api-types";
-import { CompareSettings } from "./compare-settings";
-import { MarginNotes } from "./margin-notes";
 import { useStage, useTune } from "./use-tune";
+
+// The music, the notes and the comparison load after the page's first paint: the public taster
+// page stays within its first-load budget (issue 5: 120 kB gzipped) and abcjs loads later still.
+// React's own lazy(), not next/dynamic, which would add its own 2 kB to the first load.
+const StageMusic = lazy(() => import("./stage-music"));
+const MarginNotes = lazy(() => import("./margin-notes").then((m) => ({ default: m.MarginNotes })));
+const CompareSettings = lazy(() => import("./compare-settings").then((m) => ({ default: m.CompareSettings })));
+const waiting = (what: string) => <p role="status" className="text-bark">{`Getting ${what} ready…`}</p>;
 
 export interface TunePageProps {
   tuneId: string;
@@ -26,8 +32,6 @@ const firstStage = (t: TuneJson): number => Math.max(1, ...t.stages.filter((s) =
 export function TunePage({ tuneId, area, notes }: TunePageProps) {
   const tune = useTune(tuneId);
   const [stage, setStage] = useState<number | null>(null);
-  const [loop, setLoop] = useState<string | null>(null);
-  const [hidden, setHidden] = useState<string[]>([]);
   const [bar, setBar] = useState<number | null>(null);
   useEffect(() => {
     if (tune.data && stage === null) setStage(firstStage(tune.data));
@@ -66,27 +70,28 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
       {music.isPending ? <p role="status" className="text-bark">Loading the music of this stage…</p> : null}
       {music.isError ? <Alert tone="error" live>{errorWords(music.error)}</Alert> : null}
       {music.data ? (
-        <>
-          <TunePlayer abc={music.data.abc} phraseMap={t.phraseMap} onLoopChange={setLoop} />
-          {t.phraseMap ? <MemoryMode phraseMap={t.phraseMap} hidden={hidden} onChange={setHidden} /> : null}
-          <Notation
-            abc={music.data.abc} phraseMap={t.phraseMap} highlightPhrase={loop} hiddenPhrases={hidden}
-            onBarClick={notes ? setBar : undefined} label={`${t.tune.title}, stage ${music.data.index}: ${music.data.name}`}
+        <Suspense fallback={waiting("the music")}>
+          <StageMusic
+            stage={music.data} title={t.tune.title} phraseMap={t.phraseMap}
+            printHref={`${printBase}?stage=${music.data.index}`} onBarClick={notes ? setBar : undefined}
           />
-          <p>
-            <Link href={`${printBase}?stage=${music.data.index}`}>{`Print view of stage ${music.data.index} (${music.data.name})`}</Link>
-          </p>
-        </>
+        </Suspense>
       ) : null}
       <div className="grid gap-6 lg:grid-cols-2">
         {notes ? (
-          <MarginNotes tuneId={tuneId} bar={bar} onBarChange={setBar} />
+          <Suspense fallback={waiting("your notes")}>
+            <MarginNotes tuneId={tuneId} bar={bar} onBarChange={setBar} />
+          </Suspense>
         ) : (
           <Alert title="Margin notes">
             <Link href={`/sign-in?next=${encodeURIComponent(`/catalogue/tunes/${tuneId}`)}`}>Sign in</Link> to pin your own notes to bars of this tune.
           </Alert>
         )}
-        {music.data && current ? <CompareSettings abc={music.data.abc} stageName={`stage ${current.index}`} /> : null}
+        {music.data && current ? (
+          <Suspense fallback={null}>
+            <CompareSettings abc={music.data.abc} stageName={`stage ${current.index}`} />
+          </Suspense>
+        ) : null}
       </div>
     </div>
   );

@@ -1,10 +1,9 @@
 // Inputs of the tune page's forms and routes, validated with the same schemas in the browser and
 // in the route handlers (ENGINEERING.md: zod on both sides).
 import { z } from "zod";
+import { COMPARE_MAX, MAX_BAR, NOTE_MAX } from "./limits";
 
-/** Bars are numbered as the phrase map numbers them: a pickup is bar 0. */
-export const MAX_BAR = 999;
-export const NOTE_MAX = 2000;
+export { COMPARE_MAX, MAX_BAR, NOTE_MAX };
 
 export const noteInput = z.object({
   bar: z.coerce.number({ message: "Choose a bar." }).int("Choose a whole bar number.").min(0, "Bars start at 0 (the pickup).").max(MAX_BAR, `Bars go up to ${MAX_BAR}.`),
@@ -13,7 +12,6 @@ export const noteInput = z.object({
 export type NoteInput = z.infer<typeof noteInput>;
 
 
-export const COMPARE_MAX = 20_000;
 export const compareInput = z.object({
   abc: z
     .string()
