@@ -1,0 +1,43 @@
+// Calls the teacher routes (app/api/teach/**) through their real guard, as a given person.
+import path from "node:path";
+import { authWorld, TEST_APP_URL, type AuthWorld } from "./auth-world";
+
+export interface TeachCall {
+  cookie?: string;
+  params?: Record<string, string>;
+  query?: string;
+  /** JSON body (objects) or a raw body (strings, bytes, streams: the import's file). */
+  body?: unknown;
+  raw?: BodyInit;
+}
+
+type Handler = (r: Request, a: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+/** `file` is the folder under app/api, e.g. "teach/tunes/[tuneId]". */
+export async function callRoute(file: string, method: string, c: TeachCall = {}): Promise<Response> {
+  const mod = (await import(/* @vite-ignore */ path.resolve("app/api", file, "route.ts"))) as Record<string, Handler>;
+  const handler = mod[method];
+  if (!handler) throw new Error(`${method} ${file} does not exist`);
+  const headers = new Headers({ origin: TEST_APP_URL });
+  if (c.cookie) headers.set("cookie", c.cookie);
+  let body: BodyInit | undefined = c.raw;
+  if (c.body !== undefined) {
+    headers.set("content-type", "application/json");
+    body = JSON.stringify(c.body);
+  }
+  const init: RequestInit & { duplex?: "half" } = { method, headers, body, duplex: body instanceof ReadableStream ? "half" : undefined };
+  return handler(new Request(`${TEST_APP_URL}/api/${file}${c.query ?? ""}`, init), { params: Promise.resolve(c.params ?? {}) });
+}
+
+export async function teachWorld(): Promise<AuthWorld & { call: typeof callRoute }> {
+  const w = await authWorld();
+  return { ...w, call: callRoute };
+}
+
+/** Reads an NDJSON answer into its lines. */
+export async function ndjsonLines<T>(res: Response): Promise<T[]> {
+  return (await res.text())
+    .split("\n")
+    .filter((l) => l.trim())
+    .map((l) => JSON.parse(l) as T);
+}
