@@ -3,6 +3,7 @@ import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { authWorld, TEST_APP_URL, type AuthWorld } from "./helpers/auth-world";
 import { catalogueRows } from "./helpers/catalogue-routes";
+import { teachRows } from "./helpers/teach-matrix-rows";
 import type { RequestContext } from "@/lib/auth/context";
 import type { GuardedAction } from "@/lib/auth/guard";
 
@@ -105,6 +106,8 @@ const ROWS: Row[] = [
   },
   // Catalogue, ladders, tune pages and margin notes (issue 5): rows in helpers/catalogue-routes.ts.
   ...catalogueRows(),
+  // The teacher's tune editor, bulk import and course builder (issue 5): rows in helpers/teach-matrix-rows.ts.
+  ...teachRows(),
 ];
 
 let w: AuthWorld;
