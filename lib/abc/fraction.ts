@@ -49,12 +49,18 @@ export function sum(xs: readonly Fraction[]): Fraction {
  * by continued fractions, which find the simplest fraction within rounding error.
  */
 const FROM_NUMBER = new Map<number, Fraction>();
+// Runs of notes share a length: the last answer is checked before the map.
+let lastX = NaN;
+let lastF: Fraction = ZERO;
 export function fromNumber(x: number): Fraction {
+  if (x === lastX) return lastF;
   let f = FROM_NUMBER.get(x);
   if (!f) {
     f = continued(x, 100000);
     if (FROM_NUMBER.size < 10000) FROM_NUMBER.set(x, f);
   }
+  lastX = x;
+  lastF = f;
   return f;
 }
 

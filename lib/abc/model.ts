@@ -236,7 +236,7 @@ function noteEl(
   // The unit abcjs used is exact when no broken rhythm touches the note; it follows L: changes
   // abcjs applied (including inline [L:]) without a second reading of the fields.
   const unit = !brokenOut && !prev?.brokenOut && written.num > 0 && duration.num > 0
-    ? div(duration, written)
+    ? unitOf(duration, written)
     : valueAt(header.units, start);
   const pos: number[] = [];
   const midi: (number | null)[] = [];
@@ -251,6 +251,20 @@ function noteEl(
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
     bar: null, onset: frac(0), grid: frac(0),
   };
+}
+
+// Lengths and durations come from caches (the same object for the same value), so a run of notes
+// of one length finds its unit by identity instead of dividing again.
+let lastDuration: Fraction | null = null;
+let lastWritten: Fraction | null = null;
+let lastUnit: Fraction = ONE;
+function unitOf(duration: Fraction, written: Fraction): Fraction {
+  if (duration !== lastDuration || written !== lastWritten) {
+    lastUnit = div(duration, written);
+    lastDuration = duration;
+    lastWritten = written;
+  }
+  return lastUnit;
 }
 
 /**

@@ -49,6 +49,12 @@ export function keyAccOf(key: unknown): KeyAcc {
   return map;
 }
 
+function stepsOf(key: KeyAcc): number[] {
+  const steps: number[] = [];
+  for (let i = 0; i < 7; i++) steps.push(key.get(LOWER[i]) ?? 0);
+  return steps;
+}
+
 /** Accidentals in force in one bar of one voice. */
 export class BarAccidentals {
   // Carried accidentals as parallel lists of staff position and semitones: a bar carries a few
@@ -56,7 +62,20 @@ export class BarAccidentals {
   // runs for every note of every analysis).
   private carriedPos: number[] = [];
   private carriedVal: number[] = [];
-  constructor(public key: KeyAcc) {}
+  private keyAcc: KeyAcc;
+  private keySteps: number[]; // the key's semitones by step (C = 0 … B = 6), read once per key
+  constructor(key: KeyAcc) {
+    this.keyAcc = key;
+    this.keySteps = stepsOf(key);
+  }
+  get key(): KeyAcc {
+    return this.keyAcc;
+  }
+  set key(k: KeyAcc) {
+    if (k === this.keyAcc) return;
+    this.keyAcc = k;
+    this.keySteps = stepsOf(k);
+  }
   reset(): void {
     if (this.carriedPos.length) {
       this.carriedPos.length = 0;
@@ -65,13 +84,13 @@ export class BarAccidentals {
   }
   /** Sounding pitch of a note written with `acc` (may be "") at `pos`; records the accidental. */
   sound(pos: number, acc: string): number {
-    const v = ACC_VALUE[acc];
+    const v = acc === "" ? undefined : ACC_VALUE[acc];
     if (v !== undefined) this.carry(pos, v);
     return naturalMidi(pos) + this.expected(pos);
   }
   expected(pos: number): number {
-    const i = this.carriedPos.indexOf(pos);
-    return i >= 0 ? this.carriedVal[i] : this.key.get(letterOf(pos)) ?? 0;
+    const i = this.carriedPos.length ? this.carriedPos.indexOf(pos) : -1;
+    return i >= 0 ? this.carriedVal[i] : this.keySteps[((pos % 7) + 7) % 7];
   }
   /** The accidental to write so that `pos` sounds `midi` here ("" when none is needed). */
   spell(pos: number, written: string, midi: number): string {
