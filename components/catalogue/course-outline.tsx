@@ -3,7 +3,7 @@
 import Link from "next/link";
 import type { CatalogueCourse } from "@/lib/catalogue/api-types";
 import { Card } from "@/components/ui/card";
-import { tuneWords } from "./tune-words";
+import { tuneWords } from "@/lib/catalogue/tune-words";
 
 export function CourseOutline({ course }: { course: CatalogueCourse }) {
   const tunes = course.grades.reduce((n, g) => n + g.rungs.length, 0);

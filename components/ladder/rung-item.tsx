@@ -2,15 +2,25 @@
 // the next rung, and — when locked — why.
 import Link from "next/link";
 import type { LadderRungJson, RungState } from "@/lib/catalogue/api-types";
-import { tuneWords } from "@/components/catalogue/tune-words";
+import { tuneWords } from "@/lib/catalogue/tune-words";
 import { cx } from "@/components/ui/cx";
 
 const STATE: Record<RungState, { words: string; mark: string; box: string }> = {
   done: { words: "Done", mark: "✓", box: "border-spruce bg-spruce-tint text-spruce" },
   inProgress: { words: "In progress", mark: "◐", box: "border-cedar bg-rosin-tint text-cedar" },
   open: { words: "Open", mark: "○", box: "border-slate bg-slate-tint text-slate" },
-  locked: { words: "Locked", mark: "🔒︎", box: "border-grain border-dashed bg-sawdust text-bark" },
+  locked: { words: "Locked", mark: "", box: "border-grain border-dashed bg-sawdust text-bark" },
 };
+
+// Drawn, not a character: the lock has no glyph in many system fonts.
+function LockIcon() {
+  return (
+    <svg aria-hidden="true" viewBox="0 0 12 14" className="size-3" fill="none" stroke="currentColor" strokeWidth="1.5">
+      <path d="M3 6V4a3 3 0 0 1 6 0v2" />
+      <rect x="1.5" y="6" width="9" height="7" rx="1.5" fill="currentColor" stroke="none" />
+    </svg>
+  );
+}
 
 export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }) {
   const s = STATE[rung.state];
@@ -19,7 +29,7 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
   return (
     <li className={cx("flex flex-col gap-2 rounded-knot border p-4 sm:flex-row sm:items-start sm:gap-4", locked ? "border-dashed border-grain bg-sawdust" : "border-line bg-paper")} data-rung-state={rung.state}>
       <span className={cx("inline-flex w-fit shrink-0 items-center gap-1.5 rounded-sm border px-2 py-0.5 text-small font-semibold", s.box)}>
-        <span aria-hidden="true">{s.mark}</span>
+        {locked ? <LockIcon /> : <span aria-hidden="true">{s.mark}</span>}
         {s.words}
       </span>
       <div className="flex flex-1 flex-col gap-1">
@@ -34,9 +44,11 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
         </p>
         {locked ? (
           <p className="text-small font-semibold text-ink" data-locked-reason>{`Why it is locked: ${rung.reason ?? "not open yet."}`}</p>
-        ) : !last ? (
+        ) : last ? null : rung.state === "done" ? (
+          <p className="text-small text-bark">{`You reached ${need} here, so the next rung is open.`}</p>
+        ) : (
           <p className="text-small text-bark">{`The next rung opens when you reach ${need} here.`}</p>
-        ) : null}
+        )}
       </div>
       {!locked ? (
         <Link href={`/learn/tunes/${rung.tuneId}`} className="shrink-0 self-start font-semibold" aria-label={`Practise ${rung.tuneTitle}`}>

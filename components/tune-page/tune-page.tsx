@@ -4,8 +4,6 @@
 // a print view. Used for students (/learn/tunes) and for the public taster (/catalogue/tunes).
 import Link from "next/link";
 import { lazy, Suspense, useEffect, useState } from "react";
-import { StageSelector } from "@/components/notation/stage-selector";
-import { tuneWords } from "@/components/catalogue/tune-words";
 import { Alert } from "@/components/ui/alert";
 import { errorWords } from "@/lib/catalogue/fetch-json";
 import type { TuneJson } from "@/lib/catalogue/api-types";
@@ -14,7 +12,9 @@ import { useStage, useTune } from "./use-tune";
 // The music, the notes and the comparison load after the page's first paint: the public taster
 // page stays within its first-load budget (issue 5: 120 kB gzipped) and abcjs loads later still.
 // React's own lazy(), not next/dynamic, which would add its own 2 kB to the first load.
-const StageMusic = lazy(() => import("./stage-music"));
+const loadMusic = () => import("./stage-music");
+const StageMusic = lazy(loadMusic);
+const StageSelector = lazy(() => import("@/components/notation/stage-selector").then((m) => ({ default: m.StageSelector })));
 const MarginNotes = lazy(() => import("./margin-notes").then((m) => ({ default: m.MarginNotes })));
 const CompareSettings = lazy(() => import("./compare-settings").then((m) => ({ default: m.CompareSettings })));
 const waiting = (what: string) => <p role="status" className="text-bark">{`Getting ${what} ready…`}</p>;
@@ -37,6 +37,7 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
     if (tune.data && stage === null) setStage(firstStage(tune.data));
   }, [tune.data, stage]);
   const music = useStage(tuneId, stage);
+  useEffect(() => void loadMusic(), []); // fetch the music's code while the tune's data is on its way
 
   if (tune.isPending) return <p role="status" className="text-bark">Loading the tune…</p>;
   if (tune.isError) {
@@ -48,7 +49,6 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
     );
   }
   const t = tune.data;
-  const current = t.stages.find((s) => s.index === stage);
   const printBase = area === "learn" ? `/learn/tunes/${tuneId}/print` : `/catalogue/tunes/${tuneId}/print`;
   return (
     <div className="flex flex-col gap-6">
@@ -60,14 +60,16 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
           </p>
         ) : null}
         <h1 className="text-h2 font-semibold">{t.tune.title}</h1>
-        <p className="text-bark">{`${tuneWords({ tuneType: t.tune.tuneType, tuneKey: t.tune.key })}${t.tune.meter ? `, ${t.tune.meter} time` : ""}`}</p>
+        <p className="text-bark">{t.tune.words}</p>
       </header>
-      <StageSelector
-        stages={t.stages.map((s) => ({ index: s.index, name: s.name, locked: !s.allowed, reason: s.reason }))}
-        value={stage ?? 1}
-        onChange={setStage}
-      />
-      {music.isPending ? <p role="status" className="text-bark">Loading the music of this stage…</p> : null}
+      <Suspense fallback={waiting("the stages")}>
+        <StageSelector
+          stages={t.stages.map((s) => ({ index: s.index, name: s.name, locked: !s.allowed, reason: s.reason }))}
+          value={stage ?? 1}
+          onChange={setStage}
+        />
+      </Suspense>
+      {music.isPending || music.isPlaceholderData ? <p role="status" className="text-bark">Loading the music of this stage…</p> : null}
       {music.isError ? <Alert tone="error" live>{errorWords(music.error)}</Alert> : null}
       {music.data ? (
         <Suspense fallback={waiting("the music")}>
@@ -83,13 +85,13 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
             <MarginNotes tuneId={tuneId} bar={bar} onBarChange={setBar} />
           </Suspense>
         ) : (
-          <Alert title="Margin notes">
-            <Link href={`/sign-in?next=${encodeURIComponent(`/catalogue/tunes/${tuneId}`)}`}>Sign in</Link> to pin your own notes to bars of this tune.
-          </Alert>
+          <p className="rounded-knot border border-line bg-paper p-4 text-bark">
+            <Link href={`/sign-in?next=${encodeURIComponent(`/catalogue/tunes/${tuneId}`)}`}>Sign in</Link> to pin your own margin notes to bars of this tune.
+          </p>
         )}
-        {music.data && current ? (
+        {music.data ? (
           <Suspense fallback={null}>
-            <CompareSettings abc={music.data.abc} stageName={`stage ${current.index}`} />
+            <CompareSettings abc={music.data.abc} stageName={`stage ${music.data.index}`} />
           </Suspense>
         ) : null}
       </div>

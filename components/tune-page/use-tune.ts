@@ -1,6 +1,6 @@
 "use client";
 // The tune page's data, fetched from the route handlers with TanStack Query (issue 5 item 7).
-import { useQuery } from "@tanstack/react-query";
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
 import type { StageAbcJson, TuneJson } from "@/lib/catalogue/api-types";
 import { fetchJson } from "@/lib/catalogue/fetch-json";
 
@@ -20,6 +20,7 @@ export function useStage(tuneId: string, index: number | null) {
     queryKey: tuneKeys.stage(tuneId, index ?? 0),
     queryFn: () => fetchJson<StageAbcJson>(`${base(tuneId)}/stages/${index}`),
     enabled: index !== null,
+    placeholderData: keepPreviousData, // the last stage stays on screen while the next one loads
     staleTime: 5 * 60_000, // a stage's music changes only when the teacher edits the tune
   });
 }

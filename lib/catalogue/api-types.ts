@@ -61,7 +61,8 @@ export interface StageJson {
 }
 
 export interface TuneJson {
-  tune: { id: string; title: string; tuneType: string; key: string; meter: string };
+  /** `words`: type, key and meter in plain words ("polka in G major, 2/4 time"). */
+  tune: { id: string; title: string; tuneType: string; key: string; meter: string; words: string };
   rung: { courseId: string; courseTitle: string; gradeTitle: string; position: number; isTaster: boolean } | null;
   reached: number;
   stages: StageJson[];

@@ -6,6 +6,7 @@ import { forbidden, notFound } from "@/lib/auth/errors";
 import { tuneAccess, type TuneAccess, type Viewer } from "./access";
 import type { StageAbcJson, TuneJson } from "./api-types";
 import { phraseMapOf } from "./phrase-map";
+import { tuneWords } from "./tune-words";
 
 const NOT_FOUND = "We couldn't find that tune.";
 
@@ -21,7 +22,7 @@ export async function tuneJson(db: Db, viewer: Viewer, tuneId: string): Promise<
   const access = await openTune(db, viewer, tuneId);
   const first = await stageOf(db, access.tune.id, 1);
   return {
-    tune: access.tune,
+    tune: { ...access.tune, words: `${tuneWords({ tuneType: access.tune.tuneType, tuneKey: access.tune.key })}${access.tune.meter ? `, ${access.tune.meter} time` : ""}` },
     rung: access.rung,
     reached: access.reached,
     stages: access.stages.map((s) => ({ index: s.index, name: s.name, kinds: s.kinds, allowed: s.allowed, ...(s.reason ? { reason: s.reason } : {}) })),

@@ -5,7 +5,7 @@ import { DEMO_PASSWORD, STUDENTS } from "@/db/seed-data/people";
 
 // Issue 5's student journey in Debian's Chromium, on the demo seed: the first demo student opens a
 // ladder, opens the first rung, plays it, slows it down, loops a phrase, adds a margin note and
-// prints a stage; a locked rung says why. (Demo progress: db/seed-progress.ts.)
+// prints a stage; a locked rung says why; a visitor plays a taster. (Demo progress: db/seed-progress.ts.)
 let browser: Browser;
 let page: Page;
 const requests: string[] = [];
@@ -119,6 +119,33 @@ describe("a student's ladder and tune page in a real browser", () => {
     await page.goto(page.url().replace(/stage=2$/, "stage=4"));
     await page.getByText("This stage is not open to you yet").waitFor();
     expect(await page.locator("figure svg").count()).toBe(0);
+  });
+
+  it("lets a visitor browse the catalogue and play a taster's core melody, the rest closed with why", async () => {
+    const visitor = await browser.newPage({ viewport: { width: 1280, height: 1000 } }); // a fresh context: no session
+    visitor.on("request", (r) => requests.push(r.url()));
+    visitor.on("pageerror", (e) => errors.push(e.message));
+    // Which scripts each page loads: abcjs (its "abcjs-" class names) only where music is drawn.
+    const scripts: Promise<string>[] = [];
+    visitor.on("response", (r) => void (r.url().endsWith(".js") && scripts.push(r.text())));
+    const abcjsLoaded = async () => (await Promise.all(scripts)).some((t) => t.includes("abcjs-note"));
+    await visitor.goto(`${BASE_URL}/catalogue`);
+    await visitor.waitForLoadState("networkidle");
+    for (const title of ["First Steps on the Fiddle", "Tunes for the Dance Floor", "Ready for the Session"]) {
+      expect(await visitor.getByRole("heading", { level: 2, name: title }).isVisible()).toBe(true);
+    }
+    expect(await visitor.getByText("Evening at Thornsby Weir").isVisible()).toBe(true); // tune titles of locked rungs are listed
+    expect(await abcjsLoaded()).toBe(false);
+    await screenshot(visitor, "catalogue");
+    await visitor.getByRole("link", { name: /Little Biscuit Polka/ }).click();
+    await visitor.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
+    expect(await visitor.getByRole("radio", { name: /1\. Skeleton/ }).isChecked()).toBe(true);
+    expect(await visitor.getByRole("radio", { name: /2\. Bowing/ }).isDisabled()).toBe(true);
+    expect(await visitor.getByText(/join the school to learn it stage by stage/).first().isVisible()).toBe(true);
+    expect(await visitor.getByRole("button", { name: "Play" }).isEnabled()).toBe(true);
+    expect(await abcjsLoaded()).toBe(true); // the same check sees abcjs where the music is drawn
+    await screenshot(visitor, "catalogue-taster");
+    await visitor.close();
   });
 
   it("asked nothing of any address but the app's own, and raised no page errors", () => {
