@@ -238,14 +238,19 @@ function noteEl(
   const unit = !brokenOut && !prev?.brokenOut && written.num > 0 && duration.num > 0
     ? unitOf(duration, written)
     : valueAt(header.units, start);
-  const pos: number[] = [];
-  const midi: (number | null)[] = [];
-  for (const n of body.notes) {
-    const p = body.rest ? 0 : staffPos(n.name);
-    pos.push(p);
-    midi.push(body.rest ? null : state.sound(p, n.acc));
-    if (n.tie !== "") tieOut = true;
+  const notes = body.notes;
+  let pos: number[];
+  let midi: (number | null)[];
+  if (notes.length === 1) {
+    // Most bodies are one note: arrays of exact size, with no callback per note.
+    const p = body.rest ? 0 : staffPos(notes[0].name);
+    pos = [p];
+    midi = [body.rest ? null : state.sound(p, notes[0].acc)];
+  } else {
+    pos = notes.map((n) => (body.rest ? 0 : staffPos(n.name)));
+    midi = notes.map((n, i) => (body.rest ? null : state.sound(pos[i], n.acc)));
   }
+  for (const n of notes) if (n.tie !== "") tieOut = true;
   return {
     type: "note", index: -1, voice, start, end, lex, body, duration, unit, midi, pos, tieOut, kinds: tokMask(lex.toks),
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
