@@ -4,8 +4,7 @@
 // a print view. Used for students (/learn/tunes) and for the public taster (/catalogue/tunes).
 import Link from "next/link";
 import { lazy, Suspense, useEffect, useState } from "react";
-import { Alert } from "@/components/ui/alert";
-import { errorWords } from "@/lib/catalogue/fetch-json";
+import { ApiError, errorWords } from "@/lib/catalogue/fetch-json";
 import type { TuneJson } from "@/lib/catalogue/api-types";
 import { useStage, useTune } from "./use-tune";
 
@@ -42,10 +41,12 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
   if (tune.isPending) return <p role="status" className="text-bark">Loading the tune…</p>;
   if (tune.isError) {
     return (
-      <Alert tone="warning" title="This tune is not open to you yet">
-        <p>{errorWords(tune.error)}</p>
+      // Plain markup rather than <Alert>: every byte counts on the public taster page's first load.
+      <div role="alert" className="rounded-knot border-l-4 border-cedar bg-rosin-tint px-4 py-3">
+        <p className="font-semibold text-cedar">{tune.error instanceof ApiError && tune.error.status === 404 ? "We couldn't find this tune" : "This tune is not open to you yet"}</p>
+        <p className="mt-1">{errorWords(tune.error)}</p>
         <p className="mt-2"><Link href={area === "learn" ? "/learn/courses" : "/catalogue"}>{area === "learn" ? "Back to my courses" : "Back to the catalogue"}</Link></p>
-      </Alert>
+      </div>
     );
   }
   const t = tune.data;
@@ -70,7 +71,7 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
         />
       </Suspense>
       {music.isPending || music.isPlaceholderData ? <p role="status" className="text-bark">Loading the music of this stage…</p> : null}
-      {music.isError ? <Alert tone="error" live>{errorWords(music.error)}</Alert> : null}
+      {music.isError ? <p role="alert" className="font-semibold text-berry">{errorWords(music.error)}</p> : null}
       {music.data ? (
         <Suspense fallback={waiting("the music")}>
           <StageMusic
