@@ -1,12 +1,13 @@
 // One abcjs parse → the engine's model: every note and bar element with its lexed parts, exact
 // sounding time, sounding pitches and place in its bar. Everything else derives from this.
 import type { TuneObject } from "abcjs";
-import { div, fromNumber, mul, frac } from "./fraction";
+import { fromNumber, mul, frac } from "./fraction";
 import { readHeader, valueAt, type HeaderInfo } from "./header";
 import { lexSpan, type Body, type Lexed, type Tok } from "./lex";
 import { BarAccidentals, keyAccOf, staffPos, type KeyAcc } from "./pitch";
 import { shorthandsOf, tokMask } from "./decorations";
 import { assembleBars, type VBar } from "./bars";
+import { tupletMultiplier, unitOf } from "./note-time";
 import type { Fraction } from "./types";
 
 const ONE = frac(1);
@@ -256,32 +257,4 @@ function noteEl(
     tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
     bar: null, onset: frac(0), grid: frac(0),
   };
-}
-
-// Lengths and durations come from caches (the same object for the same value), so a run of notes
-// of one length finds its unit by identity instead of dividing again.
-let lastDuration: Fraction | null = null;
-let lastWritten: Fraction | null = null;
-let lastUnit: Fraction = ONE;
-function unitOf(duration: Fraction, written: Fraction): Fraction {
-  if (duration !== lastDuration || written !== lastWritten) {
-    lastUnit = div(duration, written);
-    lastDuration = duration;
-    lastWritten = written;
-  }
-  return lastUnit;
-}
-
-/**
- * ABC 2.1 §4.13: "(p:q:r" puts p notes into the time of q. Without q: 3 for (2, (4 and (8; 2 for
- * (3 and (6; for (5, (7 and (9, 3 in compound meter and 2 otherwise. abcjs 6.7 takes 2 for (5 in
- * 6/8, so the standard's rule is applied here rather than trusting its multiplier.
- */
-export function tupletMultiplier(spec: string, meter: Fraction | null): Fraction | null {
-  const [pText, qText] = spec.split(":");
-  const p = Number(pText);
-  if (!(p > 1)) return null;
-  const compound = meter !== null && meter.num % 3 === 0 && meter.num > 3;
-  const q = qText ? Number(qText) : [2, 4, 8].includes(p) ? 3 : [3, 6].includes(p) ? 2 : compound ? 3 : 2;
-  return q > 0 ? frac(q, p) : null;
 }
