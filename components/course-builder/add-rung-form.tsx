@@ -4,8 +4,8 @@
 import { useQuery } from "@tanstack/react-query";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
-import { controlClasses } from "@/components/ui/input";
 import { cx } from "@/components/ui/cx";
+import { inlineControl } from "./inline-control";
 import { rungInput } from "@/lib/courses/schemas";
 import type { TuneSummary } from "@/lib/tunes/api-types";
 import { teachFetch } from "@/lib/tunes/client-fetch";
@@ -46,7 +46,7 @@ export function AddRungForm({ courseId, gradeId, gradeTitle, usedTunes, busy, on
         <label htmlFor={ids.tune} className="text-small font-semibold">
           Tune
         </label>
-        <select id={ids.tune} className={cx(controlClasses, "w-auto min-w-56")} value={tuneId} onChange={(e) => {
+        <select id={ids.tune} className={cx(inlineControl, "min-w-56")} value={tuneId} onChange={(e) => {
             setTuneId(e.target.value);
             setStage(1);
           }} disabled={busy || tunes.isPending}>
@@ -62,7 +62,7 @@ export function AddRungForm({ courseId, gradeId, gradeTitle, usedTunes, busy, on
         <label htmlFor={ids.stage} className="text-small font-semibold">
           Stage that opens the next rung
         </label>
-        <select id={ids.stage} className={cx(controlClasses, "w-auto")} value={stage} onChange={(e) => setStage(Number(e.target.value))} disabled={busy || !chosen}>
+        <select id={ids.stage} className={inlineControl} value={stage} onChange={(e) => setStage(Number(e.target.value))} disabled={busy || !chosen}>
           {Array.from({ length: chosen?.stageCount ?? 1 }, (_, i) => (
             <option key={i} value={i + 1}>{`stage ${i + 1}`}</option>
           ))}

@@ -4,8 +4,8 @@ import { useSortable } from "@dnd-kit/sortable";
 import { CSS } from "@dnd-kit/utilities";
 import { useState, type FormEvent } from "react";
 import { Button } from "@/components/ui/button";
-import { controlClasses } from "@/components/ui/input";
 import { cx } from "@/components/ui/cx";
+import { inlineControl } from "./inline-control";
 import type { GradeView } from "@/lib/courses/api-types";
 import { AddRungForm, type AddRungFormProps } from "./add-rung-form";
 import { DragHandle } from "./drag-handle";
@@ -49,7 +49,7 @@ export function GradeCard(p: GradeCardProps) {
           <label htmlFor={`grade-title-${grade.id}`} className="sr-only">
             Title of {grade.title}
           </label>
-          <input id={`grade-title-${grade.id}`} value={title} onChange={(e) => setTitle(e.target.value)} className={cx(controlClasses, "w-auto min-w-48 font-serif text-h4 font-semibold")} />
+          <input id={`grade-title-${grade.id}`} value={title} onChange={(e) => setTitle(e.target.value)} className={cx(inlineControl, "min-w-48 flex-1 font-serif text-h4 font-semibold")} />
           {title.trim() !== grade.title ? (
             <Button type="submit" size="sm" variant="secondary" disabled={p.busy}>
               Rename

@@ -4,8 +4,8 @@ import { useSortable } from "@dnd-kit/sortable";
 import { CSS } from "@dnd-kit/utilities";
 import Link from "next/link";
 import { Button } from "@/components/ui/button";
-import { controlClasses } from "@/components/ui/input";
 import { cx } from "@/components/ui/cx";
+import { inlineControl } from "./inline-control";
 import type { RungView } from "@/lib/courses/api-types";
 import { DragHandle } from "./drag-handle";
 
@@ -40,7 +40,7 @@ export function RungRow({ rung, position, canMoveUp, canMoveDown, busy, onMove, 
       </label>
       <select
         id={stageId}
-        className={cx(controlClasses, "w-auto py-1 text-small")}
+        className={cx(inlineControl, "py-1 text-small")}
         value={rung.requiredStage}
         disabled={busy}
         onChange={(e) => onPatch({ requiredStage: Number(e.target.value) })}

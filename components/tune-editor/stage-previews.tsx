@@ -16,7 +16,7 @@ export interface StagePreviewsProps {
 export function StagePreviews({ stages, plan, saved, tuneId, dirty, sourceDirty }: StagePreviewsProps) {
   return (
     <div className="overflow-x-auto pb-2" role="region" aria-label="Stages side by side" tabIndex={0}>
-      <div className="grid auto-cols-[minmax(18rem,1fr)] grid-flow-col gap-3">
+      <div className="grid auto-cols-[minmax(20rem,1fr)] grid-flow-col gap-3">
         {stages.map((s, i) => (
           <StageCard
             key={s.index}
