@@ -86,7 +86,7 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
             <MarginNotes tuneId={tuneId} bar={bar} onBarChange={setBar} />
           </Suspense>
         ) : (
-          <p className="rounded-knot border border-line bg-paper p-4 text-bark">
+          <p className="self-start rounded-knot border border-line bg-paper p-4 text-bark">
             <Link href={`/sign-in?next=${encodeURIComponent(`/catalogue/tunes/${tuneId}`)}`}>Sign in</Link> to pin your own margin notes to bars of this tune.
           </p>
         )}

@@ -103,6 +103,21 @@ describe("a student's ladder and tune page in a real browser", () => {
     await page.getByText("Write something in the note.").waitFor();
   });
 
+  it("compares the stage with another setting pasted in, bar by bar", async () => {
+    // Another player's version: the stage on screen with bar 1's last note moved down a step.
+    const tuneId = new URL(page.url()).pathname.split("/").pop() ?? "";
+    const abc = await page.evaluate(async (id) => ((await (await fetch(`/api/tunes/${id}/stages/2`)).json()) as { abc: string }).abc, tuneId);
+    const other = abc.replace(/^(\|: .*?GB) \|/m, (_, head: string) => `${head.slice(0, -1)}A |`);
+    expect(other).not.toBe(abc);
+    await page.getByLabel("Another setting of this tune, in ABC").fill(other);
+    await page.getByRole("button", { name: "Compare with stage 2" }).click();
+    await page.locator("[data-compare-different]").waitFor();
+    expect(await page.locator("[data-compare-different]").getAttribute("data-compare-different")).toBe("1");
+    expect(await page.getByText(/^Part A, bar 1: 1 difference/).isVisible()).toBe(true);
+    expect(await page.getByText(/this stage plays B4 .*, the other setting A4/).isVisible()).toBe(true);
+    await screenshot(page, "student-compare");
+  });
+
   it("opens the print view of an open stage: music only on paper", async () => {
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     await page.getByRole("link", { name: /^Print view of stage 2/ }).click();
@@ -130,7 +145,7 @@ describe("a student's ladder and tune page in a real browser", () => {
     visitor.on("response", (r) => void (r.url().endsWith(".js") && scripts.push(r.text())));
     const abcjsLoaded = async () => (await Promise.all(scripts)).some((t) => t.includes("abcjs-note"));
     await visitor.goto(`${BASE_URL}/catalogue`);
-    await visitor.waitForLoadState("networkidle");
+    await visitor.waitForLoadState("load");
     for (const title of ["First Steps on the Fiddle", "Tunes for the Dance Floor", "Ready for the Session"]) {
       expect(await visitor.getByRole("heading", { level: 2, name: title }).isVisible()).toBe(true);
     }
