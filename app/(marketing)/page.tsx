@@ -85,7 +85,7 @@ export default function HomePage() {
               the year, and manage it from your billing page.
             </p>
             <p>
-              <Link href="/plans">See plans and prices</Link>
+              <Link href="/catalogue">See what the catalogue holds</Link>
             </p>
           </div>
           <Card tone="plain" className="flex flex-col gap-4 self-start">

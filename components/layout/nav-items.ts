@@ -9,30 +9,26 @@ export type NavItem = {
 
 const visitorItems: NavItem[] = [
   { href: "/catalogue", label: "Catalogue" },
-  { href: "/plans", label: "Plans" },
   { href: "/sign-in", label: "Sign in" },
   { href: "/sign-up", label: "Join", emphasis: true },
 ];
 
+// Only pages that exist: practice log, billing, review, plans and the admin's money tables join the
+// navigation with the issues that build them.
 const roleItems: Record<Role, NavItem[]> = {
   student: [
     { href: "/learn", label: "Today" },
     { href: "/learn/courses", label: "My courses" },
-    { href: "/learn/practice", label: "Practice log" },
-    { href: "/learn/billing", label: "Billing" },
   ],
   teacher: [
     { href: "/teach", label: "Roster" },
     { href: "/teach/tunes", label: "Tunes" },
     { href: "/teach/courses", label: "Courses" },
-    { href: "/teach/review", label: "Review" },
+    { href: "/teach/import", label: "Import" },
+    { href: "/teach/invite", label: "Invite" },
   ],
   admin: [
     { href: "/admin/people", label: "People" },
-    { href: "/admin/payments", label: "Payments" },
-    { href: "/admin/memberships", label: "Memberships" },
-    { href: "/admin/enrolments", label: "Enrolments" },
-    { href: "/admin/plans", label: "Plans" },
   ],
 };
 

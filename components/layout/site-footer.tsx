@@ -24,8 +24,8 @@ export function SiteFooter() {
               </Link>
             </li>
             <li>
-              <Link href="/plans" className="inline-flex min-h-11 items-center text-cream hover:text-rosin">
-                Plans
+              <Link href="/sign-in" className="inline-flex min-h-11 items-center text-cream hover:text-rosin">
+                Sign in
               </Link>
             </li>
           </ul>

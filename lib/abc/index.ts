@@ -12,3 +12,4 @@ export { defaultUnit, parseMeter } from "./header";
 export { kindOfDecoration, DEFAULT_SHORTHANDS } from "./decorations";
 export { phraseMap, type PhraseMap } from "./phrase-map";
 export { twinSwap } from "./twin-swap";
+export { compareSettings, type Comparison } from "./compare";
