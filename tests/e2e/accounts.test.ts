@@ -101,6 +101,7 @@ describe("accounts in a real browser", () => {
     const studentContext = await browser.newContext();
     const student = await studentContext.newPage();
     await student.goto(await mailedLink(invited, "/accept-invitation", { after: sent }));
+    await student.locator("main", { hasText: `${TEACHERS[0].name} has invited` }).waitFor();
     expect(await student.locator("main").textContent()).toContain(`${TEACHERS[0].name} has invited`);
     await student.getByLabel("Your name").fill("Rook Allenby");
     await student.getByLabel("Choose a password").fill("rook-learns-jigs");
@@ -109,11 +110,14 @@ describe("accounts in a real browser", () => {
     await student.waitForURL(`${BASE_URL}/learn`);
 
     await teacher.goto(`${BASE_URL}/teach`);
+    // The area's loading view streams first and React reveals the page a moment later: wait for it.
+    await teacher.locator("main", { hasText: "Rook Allenby" }).waitFor();
     expect(await teacher.locator("main").textContent()).toContain("Rook Allenby");
     await screenshot(teacher, "accounts-roster");
     // The invitation link works once.
     const again = await (await browser.newContext()).newPage();
     await again.goto(await mailedLink(invited, "/accept-invitation", { after: sent }));
+    await again.locator("main", { hasText: /expired or has already been used/ }).waitFor();
     expect(await again.locator("main").textContent()).toMatch(/expired or has already been used/);
     await Promise.all([teacherContext.close(), studentContext.close(), again.context().close()]);
   });
@@ -124,10 +128,10 @@ describe("accounts in a real browser", () => {
     await page.goto(`${BASE_URL}/sign-in`);
     await signIn(page, STUDENTS[0].email, DEMO_PASSWORD);
     await page.waitForURL(`${BASE_URL}/learn`);
-    // Another role's area answers with the not-found page and none of its content. (The status stays
-    // 200: app/loading.tsx makes every page stream, so the head is sent before the area's check runs.)
+    // Another role's area answers with the not-found page and none of its content.
     for (const [area, content] of [["/teach", "Your students"], ["/admin/people", "Invite a teacher"]]) {
       await page.goto(`${BASE_URL}${area}`);
+      await page.locator("main", { hasText: /could not find that page/ }).waitFor();
       const main = await page.locator("main").textContent();
       expect(main).toMatch(/could not find that page/);
       expect(main).not.toContain(content);
