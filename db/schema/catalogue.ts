@@ -1,6 +1,7 @@
 import { boolean, check, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
 import { users } from "./people";
+import { TUNE_TYPES } from "../../lib/tunes/header";
 
 /** A stage plan as the tune engine takes it (lib/abc/types.ts StagePlan): kinds added per stage. */
 export type StagePlanJson = { stages: { name: string; adds: string[] }[] };
@@ -36,20 +37,7 @@ export const grades = pgTable(
   (t) => [unique("grades_course_position_uq").on(t.courseId, t.position)],
 );
 
-export const tuneTypeEnum = pgEnum("tune_type", [
-  "reel",
-  "jig",
-  "slip jig",
-  "hornpipe",
-  "polka",
-  "waltz",
-  "strathspey",
-  "slide",
-  "march",
-  "mazurka",
-  "barndance",
-  "other",
-]);
+export const tuneTypeEnum = pgEnum("tune_type", TUNE_TYPES);
 
 export const tunes = pgTable(
   "tunes",

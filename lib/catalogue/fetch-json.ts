@@ -7,6 +7,8 @@ export class ApiError extends Error {
     readonly status: number,
     message: string,
     readonly fieldErrors: Record<string, string> = {},
+    /** The refusal's whole JSON body, for callers that read more than the message (a tune's problems). */
+    readonly body: Record<string, unknown> = {},
   ) {
     super(message);
   }
@@ -27,8 +29,9 @@ export async function fetchJson<T>(url: string, init: { method?: string; body?: 
   if (res.status === 204) return undefined as T;
   const body: unknown = await res.json().catch(() => null);
   if (!res.ok) {
-    const e = (body ?? {}) as Partial<ErrorJson>;
-    throw new ApiError(res.status, e.error ?? `Something went wrong (${res.status}).`, e.fieldErrors ?? {});
+    const raw = body && typeof body === "object" ? (body as Record<string, unknown>) : {};
+    const e = raw as Partial<ErrorJson>;
+    throw new ApiError(res.status, e.error ?? `Something went wrong (${res.status}).`, e.fieldErrors ?? {}, raw);
   }
   return body as T;
 }

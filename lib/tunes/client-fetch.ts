@@ -1,9 +1,9 @@
 // The browser's side of the teacher routes: JSON in and out, and a refusal as an error that keeps
 // the server's words — including, for a tune, its problems at line and column.
-import { ApiError } from "@/lib/catalogue/fetch-json";
+import { ApiError, errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import type { Problem } from "@/lib/abc/types";
 
-export { ApiError };
+export { ApiError, errorWords };
 
 /** A 422 from a tune save or stage edit: nothing was stored, and here is why. */
 export class ProblemsError extends ApiError {
@@ -16,31 +16,17 @@ export class ProblemsError extends ApiError {
   }
 }
 
-type Body = { error?: string; fieldErrors?: Record<string, string>; problems?: Problem[]; planReasons?: string[] };
+type Body = { problems?: Problem[]; planReasons?: string[] };
 
+/** fetchJson, with a tune's refusal (problems at line and column, plan reasons) as a ProblemsError. */
 export async function teachFetch<T>(url: string, init: { method?: string; body?: unknown } = {}): Promise<T> {
-  let res: Response;
   try {
-    res = await fetch(url, {
-      method: init.method ?? "GET",
-      headers: init.body === undefined ? undefined : { "content-type": "application/json" },
-      body: init.body === undefined ? undefined : JSON.stringify(init.body),
-      credentials: "same-origin",
-    });
-  } catch {
-    throw new ApiError(0, "We couldn't reach Rosinwood. Check your connection and try again.");
+    return await fetchJson<T>(url, init);
+  } catch (error) {
+    const e: Body = error instanceof ApiError ? (error.body as Body) : {};
+    if (error instanceof ApiError && (e.problems || e.planReasons)) {
+      throw new ProblemsError(error.message, e.problems ?? [], e.planReasons ?? []);
+    }
+    throw error;
   }
-  if (res.status === 204) return undefined as T;
-  const body: unknown = await res.json().catch(() => null);
-  if (!res.ok) {
-    const e: Body = body && typeof body === "object" ? (body as Body) : {};
-    const message = e.error ?? `Something went wrong (${res.status}).`;
-    if (e.problems || e.planReasons) throw new ProblemsError(message, e.problems ?? [], e.planReasons ?? []);
-    throw new ApiError(res.status, message, e.fieldErrors ?? {});
-  }
-  return body as T;
-}
-
-export function errorWords(error: unknown): string {
-  return error instanceof Error ? error.message : "Something went wrong.";
 }

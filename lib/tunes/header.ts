@@ -1,7 +1,7 @@
 // What the tune list and the editor show about a tune, read from its ABC header. Pure (no
 // database types), so the editor runs it in the browser as the teacher types.
 
-/** The tune types the catalogue knows; db/schema/catalogue.ts tuneTypeEnum holds the same list (a unit test checks). */
+/** The tune types the catalogue knows; db/schema/catalogue.ts builds tuneTypeEnum from this list. */
 export const TUNE_TYPES = [
   "reel",
   "jig",
