@@ -151,3 +151,20 @@ start_worker() {
   tail -n 20 "$1/worker.log" >&2
   die "the worker did not start (log: $1/worker.log)"
 }
+
+# start_s3_fake PORT DIR LOGDIR: the local S3-compatible stand-in (s3rver) on 127.0.0.1, objects in DIR.
+start_s3_fake() {
+  S3_FAKE_PORT="$1" S3_FAKE_DIR="$2" node --import tsx scripts/fakes/s3.ts >"$3/s3-fake.log" 2>&1 &
+  PIDS+=("$!")
+  wait_http "http://127.0.0.1:$1/" 20 || { tail -n 20 "$3/s3-fake.log" >&2; die "the S3 stand-in did not start (log: $3/s3-fake.log)"; }
+}
+
+# start_stripe_fake PORT LOGDIR STATEFILE WEBHOOK_URL: the project's own Stripe stand-in on 127.0.0.1
+# (scripts/fakes/stripe/), keeping its objects in STATEFILE and sending signed webhooks to WEBHOOK_URL.
+# Reads STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET from the environment.
+start_stripe_fake() {
+  STRIPE_FAKE_PORT="$1" STRIPE_FAKE_STATE="$3" STRIPE_FAKE_WEBHOOK_URL="$4" \
+    node --import tsx scripts/fakes/stripe/server.ts >"$2/stripe-fake.log" 2>&1 &
+  PIDS+=("$!")
+  wait_http "http://127.0.0.1:$1/_fake/health" 20 || { tail -n 20 "$2/stripe-fake.log" >&2; die "the Stripe stand-in did not start (log: $2/stripe-fake.log)"; }
+}

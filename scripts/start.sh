@@ -31,6 +31,21 @@ export INSECURE_COOKIES="${INSECURE_COOKIES:-true}" # plain http on loopback
 export NODE_ENV=production
 
 node_modules/.bin/tsx scripts/migrate.ts
+
+# The local stand-ins for S3 (recordings) and Stripe (memberships); the seed writes the demo school's
+# billing history to both, so they start first.
+S3_PORT="${S3_FAKE_PORT:-4568}"
+STRIPE_PORT="${STRIPE_FAKE_PORT:-4020}"
+require_port S3_FAKE_PORT "$S3_PORT"
+require_port STRIPE_FAKE_PORT "$STRIPE_PORT"
+export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_REGION=us-east-1 S3_BUCKET=rosinwood-recordings
+export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER S3_FORCE_PATH_STYLE=true
+start_s3_fake "$S3_PORT" "$DATA/s3" "$DATA"
+export STRIPE_SECRET_KEY="${STRIPE_SECRET_KEY:-sk_test_rosinwood_local}"
+export STRIPE_WEBHOOK_SECRET="${STRIPE_WEBHOOK_SECRET:-whsec_rosinwood_local_signing_secret}"
+export STRIPE_API_BASE="http://127.0.0.1:$STRIPE_PORT" STRIPE_FAKE_URL="http://127.0.0.1:$STRIPE_PORT"
+start_stripe_fake "$STRIPE_PORT" "$DATA" "$DATA/stripe-state.json" "$APP_URL/api/webhooks/stripe"
+
 node_modules/.bin/tsx scripts/seed.ts --if-empty
 if build_is_stale; then next_build "$DATA/build.log"; fi
 
@@ -54,7 +69,7 @@ $(node_modules/.bin/tsx scripts/demo-sign-ins.ts)
 
   Captured e-mail (sign-up, reset and invitation links): $APP_URL/dev/mail
 
-  Logs: .data/app.log, .data/worker.log, .data/postgres.log. Press Ctrl-C to stop.
+  Logs: .data/app.log, .data/worker.log, .data/postgres.log, .data/*-fake.log. Press Ctrl-C to stop.
 
 MSG
 wait "${PIDS[0]}"

@@ -31,6 +31,17 @@ export TEST_PG_ADMIN_URL="$BASE/postgres"
 
 # The app under browser test: its own database with the demo data.
 APP_PORT="$(free_port)"
+
+# The S3 and Stripe stand-ins; integration tests that need a Stripe of their own start one in-process.
+S3_PORT="$(free_port)"
+export S3_ENDPOINT="http://127.0.0.1:$S3_PORT" S3_REGION=us-east-1 S3_BUCKET=rosinwood-recordings
+export S3_ACCESS_KEY_ID=S3RVER S3_SECRET_ACCESS_KEY=S3RVER S3_FORCE_PATH_STYLE=true
+start_s3_fake "$S3_PORT" "$RUN/s3" "$RUN"
+STRIPE_PORT="$(free_port)"
+export STRIPE_SECRET_KEY=sk_test_rosinwood_test STRIPE_WEBHOOK_SECRET=whsec_rosinwood_test_signing_secret
+export STRIPE_API_BASE="http://127.0.0.1:$STRIPE_PORT" STRIPE_FAKE_URL="http://127.0.0.1:$STRIPE_PORT"
+start_stripe_fake "$STRIPE_PORT" "$RUN" "$RUN/stripe-state.json" "http://127.0.0.1:$APP_PORT/api/webhooks/stripe"
+
 (
   export DATABASE_URL="$BASE/rosinwood_e2e" NODE_ENV=production
   node_modules/.bin/tsx scripts/migrate.ts >/dev/null

@@ -46,7 +46,9 @@ export const subscriptions = pgTable(
       .references(() => plans.id, { onDelete: "restrict" }),
     stripeSubscriptionId: text("stripe_subscription_id").notNull().unique(),
     status: subscriptionStatusEnum("status").notNull(),
+    currentPeriodStart: timestamp("current_period_start", { withTimezone: true }),
     currentPeriodEnd: timestamp("current_period_end", { withTimezone: true }),
+    canceledAt: timestamp("canceled_at", { withTimezone: true }),
     cancelAtPeriodEnd: boolean("cancel_at_period_end").notNull().default(false),
     graceUntil: timestamp("grace_until", { withTimezone: true }),
     // Stripe's event time of the last applied change, so an older event arriving late changes nothing.
@@ -76,12 +78,18 @@ export const payments = pgTable(
     refundedAmount: integer("refunded_amount").notNull().default(0),
     currency: char("currency", { length: 3 }).notNull(),
     status: paymentStatusEnum("status").notNull(),
+    // Why a charge failed, in the card network's words as Stripe reports them (failed payments only).
+    failureMessage: text("failure_message"),
+    receiptNumber: text("receipt_number"),
+    periodStart: timestamp("period_start", { withTimezone: true }),
+    periodEnd: timestamp("period_end", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
   },
   (t) => [
     index("payments_created_idx").on(t.createdAt),
     index("payments_status_created_idx").on(t.status, t.createdAt),
     index("payments_user_idx").on(t.userId),
+    index("payments_plan_created_idx").on(t.planId, t.createdAt),
     check("payments_refund_within_amount", sql`${t.refundedAmount} between 0 and ${t.amount}`),
   ],
 );

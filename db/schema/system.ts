@@ -1,5 +1,6 @@
 import { bigint, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./people";
+import { assignmentStudents } from "./teaching";
 
 export const uploadStatusEnum = pgEnum("upload_status", ["pending", "stored", "rejected"]);
 
@@ -14,6 +15,9 @@ export const uploads = pgTable(
     storageKey: text("storage_key").notNull().unique(),
     contentType: text("content_type").notNull(),
     sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
+    // The student's assignment the recording belongs to; a presigned upload is only issued for one's own.
+    assignmentStudentId: uuid("assignment_student_id").references(() => assignmentStudents.id, { onDelete: "cascade" }),
+    stageIndex: integer("stage_index"),
     status: uploadStatusEnum("status").notNull().default("pending"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

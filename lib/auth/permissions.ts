@@ -31,6 +31,23 @@ export const ACTIONS = [
   "tune:edit",
   "tune:import",
   "course:edit",
+  // Assignments, check-ins, review, practice log, recordings, calendar feed (issue 6). Which
+  // assignment or recording is decided per record in lib/teaching/.
+  "assignment:view",
+  "assignment:manage", // assign, edit, withdraw (a teacher's own roster only)
+  "checkin:create", // check in, withdraw one's own check-in before review
+  "checkin:review", // review queue: listen, feedback, sign off, "needs more time"
+  "practice:write", // one's own practice log
+  "recording:upload", // presigned upload address, for one's own assignment only
+  "recording:listen", // presigned playback address: the recording's student and their teachers
+  "calendar:manage", // one's own private calendar feed address (create, revoke)
+  // Memberships and billing (issue 7). Which membership or payment is decided per record in lib/billing/.
+  "plans:view",
+  "plans:manage",
+  "billing:subscribe", // start a checkout session for oneself
+  "billing:manage", // one's own membership: cancel at period end, resume, change plan, invoices
+  "money:view", // admin tables: payments, memberships, enrolments, revenue, CSV export
+  "payments:refund",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -45,11 +62,26 @@ const EVERYONE: readonly Action[] = [
   "invitation:accept",
   "catalogue:view",
   "tune:view", // taster rungs are open to visitors; the rest is checked per tune
+  "plans:view",
 ];
 
 const TABLE: Record<Actor, readonly Action[]> = {
   visitor: EVERYONE,
-  student: [...EVERYONE, "area:learn", "people:view", "ladder:view", "notes:write"],
+  student: [
+    ...EVERYONE,
+    "area:learn",
+    "people:view",
+    "ladder:view",
+    "notes:write",
+    "assignment:view",
+    "checkin:create",
+    "practice:write",
+    "recording:upload",
+    "recording:listen",
+    "calendar:manage",
+    "billing:subscribe",
+    "billing:manage",
+  ],
   teacher: [
     ...EVERYONE,
     "area:teach",
@@ -61,6 +93,11 @@ const TABLE: Record<Actor, readonly Action[]> = {
     "tune:edit",
     "tune:import",
     "course:edit",
+    "assignment:view",
+    "assignment:manage",
+    "checkin:review",
+    "recording:listen",
+    "calendar:manage",
   ],
   // "admin: everything" (PRODUCT.md §2).
   admin: ACTIONS,

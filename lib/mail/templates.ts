@@ -1,5 +1,7 @@
 import { plainTextSelectors, render, toPlainText } from "@react-email/render";
 import { createElement, type ComponentType } from "react";
+import { billingTemplates } from "@/emails/billing";
+import { teachingTemplates } from "@/emails/teaching";
 import InvitationEmail, { subject as invitationSubject } from "@/emails/invitation";
 import type { MailFrame } from "@/emails/layout";
 import PasswordChangedEmail, { subject as passwordChangedSubject } from "@/emails/password-changed";
@@ -8,7 +10,7 @@ import VerifyEmail, { subject as verifySubject } from "@/emails/verify-email";
 import WelcomeEmail, { subject as welcomeSubject } from "@/emails/welcome";
 import type { MailTemplates, TemplateName } from "./types";
 
-interface TemplateEntry<T extends TemplateName> {
+export interface TemplateEntry<T extends TemplateName> {
   subject: (data: MailTemplates[T]) => string;
   Component: ComponentType<MailTemplates[T] & MailFrame>;
 }
@@ -20,6 +22,8 @@ const templates: { [T in TemplateName]: TemplateEntry<T> } = {
   "password-reset": { subject: passwordResetSubject, Component: PasswordResetEmail },
   "password-changed": { subject: passwordChangedSubject, Component: PasswordChangedEmail },
   invitation: { subject: invitationSubject, Component: InvitationEmail },
+  ...teachingTemplates,
+  ...billingTemplates,
 };
 
 export function isTemplateName(name: string): name is TemplateName {

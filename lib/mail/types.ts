@@ -1,8 +1,11 @@
 // The contract between the code that decides to send an e-mail and the mail system (outbox, queue, templates).
 // Callers only ever enqueue; a worker renders and sends through the resend SDK with retries.
 
-/** Every message Rosinwood sends, with the data its template needs. Later issues add entries. */
-export interface MailTemplates {
+import type { BillingMail } from "./types-billing";
+import type { TeachingMail } from "./types-teaching";
+
+/** Every message Rosinwood sends, with the data its template needs. Teaching and billing keep theirs apart. */
+export interface MailTemplates extends TeachingMail, BillingMail {
   welcome: { name: string; verifyUrl: string };
   "verify-email": { name: string; verifyUrl: string };
   "password-reset": { name: string; resetUrl: string; expiresInMinutes: number };

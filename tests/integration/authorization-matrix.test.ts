@@ -4,6 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { authWorld, TEST_APP_URL, type AuthWorld } from "./helpers/auth-world";
 import { catalogueRows } from "./helpers/catalogue-routes";
 import { teachRows } from "./helpers/teach-matrix-rows";
+import { teachingRows } from "./helpers/teaching-matrix-rows";
+import { billingRows } from "./helpers/billing-matrix-rows";
 import type { RequestContext } from "@/lib/auth/context";
 import type { GuardedAction } from "@/lib/auth/guard";
 
@@ -108,6 +110,8 @@ const ROWS: Row[] = [
   ...catalogueRows(),
   // The teacher's tune editor, bulk import and course builder (issue 5): rows in helpers/teach-matrix-rows.ts.
   ...teachRows(),
+  ...teachingRows(),
+  ...billingRows(),
 ];
 
 let w: AuthWorld;

@@ -6,7 +6,7 @@ const allowed = (actor: Actor) => ACTIONS.filter((a) => can(actor, a));
 
 describe("the permission table (PRODUCT.md §2)", () => {
   it("lets a visitor only browse the public catalogue and use the account doors", () => {
-    // PRODUCT.md §2: a visitor may "browse the public catalogue … sign up"; signing in, a reset link,
+    // PRODUCT.md §2 and §5: a visitor may "browse the public catalogue … sign up" and see plans and prices; signing in, a reset link,
     // an address confirmation and an invitation link all start signed out.
     expect(allowed("visitor").sort()).toEqual(
       [
@@ -18,6 +18,7 @@ describe("the permission table (PRODUCT.md §2)", () => {
         "invitation:accept",
         "catalogue:view",
         "tune:view",
+        "plans:view",
       ].sort(),
     );
   });
@@ -39,6 +40,21 @@ describe("the permission table (PRODUCT.md §2)", () => {
       expect(can("student", action)).toBe(false);
       expect(can("visitor", action)).toBe(false);
     }
+  });
+
+  it("gives assigning and reviewing to teachers, checking in and practice to students, money to admins", () => {
+    const rules: Array<[Action, Actor[]]> = [
+      ["assignment:manage", ["teacher", "admin"]],
+      ["checkin:review", ["teacher", "admin"]],
+      ["checkin:create", ["student", "admin"]],
+      ["practice:write", ["student", "admin"]],
+      ["recording:upload", ["student", "admin"]],
+      ["billing:subscribe", ["student", "admin"]],
+      ["plans:manage", ["admin"]],
+      ["money:view", ["admin"]],
+      ["payments:refund", ["admin"]],
+    ];
+    for (const [action, who] of rules) expect(ACTORS.filter((a) => can(a, action))).toEqual(who);
   });
 
   it("keeps the people list, teacher invitations and role changes to admins", () => {
