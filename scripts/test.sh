@@ -61,10 +61,11 @@ export "${APP_ENV[@]}"
 start_worker "$RUN"
 wait_http "http://127.0.0.1:$APP_PORT/api/health" 60 || { tail -n 30 "$RUN/app.log" >&2; die "the app did not start"; }
 
+# TEST_FILTER (development only): vitest file filters, e.g. TEST_FILTER=tests/e2e/home.test.ts npm test
 say "running tests"
 set +e
 E2E_BASE_URL="http://127.0.0.1:$APP_PORT" NODE_ENV=test \
-  node_modules/.bin/vitest run --reporter=default --reporter=json --outputFile.json="$RUN/results.json"
+  node_modules/.bin/vitest run ${TEST_FILTER:-} --reporter=default --reporter=json --outputFile.json="$RUN/results.json"
 status=$?
 set -e
 
