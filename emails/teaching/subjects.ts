@@ -1,4 +1,10 @@
 import type { TeachingMail } from "@/lib/mail/types-teaching";
 
 // Subjects of the teaching e-mails (apart from the JSX, like emails/subjects.ts).
-export const teachingSubjects: { [T in keyof TeachingMail]: (data: TeachingMail[T]) => string } = {};
+export const teachingSubjects: { [T in keyof TeachingMail]: (data: TeachingMail[T]) => string } = {
+  "assignment-new": (d) => `New tune from ${d.teacherName}: ${d.tuneTitle}`,
+  "checkin-feedback": (d) =>
+    d.outcome === "signed_off" ? `${d.tuneTitle}: ${d.stageName} signed off` : `${d.tuneTitle}: feedback on ${d.stageName}`,
+  "due-reminder": (d) =>
+    d.when === "two_days" ? `${d.tuneTitle} is due in two days` : d.when === "due_today" ? `${d.tuneTitle} is due today` : `${d.tuneTitle} is now overdue`,
+};

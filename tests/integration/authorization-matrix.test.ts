@@ -5,6 +5,8 @@ import { authWorld, TEST_APP_URL, type AuthWorld } from "./helpers/auth-world";
 import { catalogueRows } from "./helpers/catalogue-routes";
 import { teachRows } from "./helpers/teach-matrix-rows";
 import { teachingRows } from "./helpers/teaching-matrix-rows";
+import { learningRows } from "./helpers/learning-matrix-rows";
+import { recordingsRows } from "./helpers/recordings-matrix-rows";
 import { billingRows } from "./helpers/billing-matrix-rows";
 import type { RequestContext } from "@/lib/auth/context";
 import type { GuardedAction } from "@/lib/auth/guard";
@@ -110,7 +112,11 @@ const ROWS: Row[] = [
   ...catalogueRows(),
   // The teacher's tune editor, bulk import and course builder (issue 5): rows in helpers/teach-matrix-rows.ts.
   ...teachRows(),
+  // Issue 6: the teacher's side, the student's side, recordings and the calendar feed.
   ...teachingRows(),
+  ...learningRows(),
+  ...recordingsRows(),
+  // Issue 7: plans, checkout, billing, webhook, the admin's money tables.
   ...billingRows(),
 ];
 
