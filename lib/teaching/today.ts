@@ -35,15 +35,16 @@ export type TodayData = {
   minutes: { day: string; minutes: number }[];
 };
 
-/** Open assignments, soonest due first; one whose stages are all signed off is done and left out. */
-async function openAssignments(db: Db, person: Person, zone: string, now: Date): Promise<TodayAssignment[]> {
+/** Active assignments, soonest due first; `open` leaves out those whose stages are all signed off. */
+export async function assignmentList(db: Db, person: Person, zone: string, now: Date, o: { open: boolean }): Promise<TodayAssignment[]> {
   const rows = await assignmentsOfStudent(db, person.id);
   const states = await stageStatesOf(db, rows.map((r) => r.assignmentStudentId));
   const out: TodayAssignment[] = [];
   for (const r of rows) {
     const mine = states.filter((s) => s.assignmentStudentId === r.assignmentStudentId);
     const signedOff = mine.filter((s) => s.state === "signed_off").length;
-    if (mine.length > 0 && signedOff === mine.length) continue;
+    const done = mine.length > 0 && signedOff === mine.length;
+    if (done && o.open) continue;
     const cur = mine.find((s) => s.state === "open" || s.state === "checked_in");
     out.push({
       assignmentStudentId: r.assignmentStudentId,
@@ -51,7 +52,7 @@ async function openAssignments(db: Db, person: Person, zone: string, now: Date):
       teacherName: r.teacherName,
       dueAt: r.dueAt.toISOString(),
       dueLocal: dueWords(r.dueAt, zone),
-      overdue: r.dueAt < now,
+      overdue: !done && r.dueAt < now,
       stageCount: mine.length,
       signedOff,
       current: cur ? { index: cur.index, waiting: cur.state === "checked_in" } : null,
@@ -84,7 +85,7 @@ export async function todayFor(db: Db, person: Person, now = new Date()): Promis
   const zone = await userZone(db, person.id);
   const today = dayIn(zone, now);
   const [assignments, rungs, feedbackRows, days, minutes] = await Promise.all([
-    openAssignments(db, person, zone, now),
+    assignmentList(db, person, zone, now, { open: true }),
     nextRungs(db, person),
     recentFeedback(db, person.id, FEEDBACK_COUNT),
     practiceDaysUpTo(db, person.id, today),
