@@ -17,6 +17,7 @@ import {
   type CourseRow,
   type RungRow,
 } from "@/db/queries/catalogue";
+import { memberStanding } from "@/lib/billing/gate";
 import { bestRung, decideLadder, decideStage, type RungDecision, type StageDecision, type Standing } from "./rules";
 
 /** Who is asking: the signed-in person, or null for a visitor. */
@@ -29,11 +30,16 @@ export function canSeeCourse(viewer: Viewer, course: CourseRow): boolean {
   return course.published || isStaffOf(viewer, course.teacherId);
 }
 
-/** How the viewer may walk a course (see Standing). A paid membership will be checked here. */
+/**
+ * How the viewer may walk a course (see Standing). A student walks the ladder when the membership
+ * gate (lib/billing/gate.ts) says they are in good standing AND they have an active enrolment (a
+ * member starts a course with one button); otherwise only the taster rungs open, with the reason.
+ */
 export async function courseStanding(db: Db, viewer: Viewer, course: CourseRow): Promise<Standing> {
   if (isStaffOf(viewer, course.teacherId)) return { pathway: "staff" };
   if (!viewer) return { pathway: "taster", why: `Join the school and enrol in “${course.title}” to open this rung.` };
-  const status = await enrolmentIn(db, viewer.id, course.id);
+  const [member, status] = await Promise.all([memberStanding(db, viewer), enrolmentIn(db, viewer.id, course.id)]);
+  if (!member.good) return { pathway: "taster", why: member.why };
   if (status === "active") return { pathway: "ladder" };
   if (status === "paused") return { pathway: "taster", why: "Your enrolment in this course is paused: ask your teacher to resume it." };
   if (status === "ended") return { pathway: "taster", why: "Your enrolment in this course has ended." };

@@ -5,6 +5,7 @@ import { enrolments, tuneProgress } from "@/db/schema";
 import type { NoteJson } from "@/lib/catalogue/api-types";
 import { authWorld, type AuthWorld } from "./helpers/auth-world";
 import { makeCatalogueFixture, type CatalogueFixture } from "./helpers/catalogue-fixture";
+import { giveMembership } from "./helpers/membership";
 import { callRoute } from "./helpers/catalogue-routes";
 
 let w: AuthWorld;
@@ -20,6 +21,7 @@ beforeAll(async () => {
   const other = await w.person("student");
   f = await makeCatalogueFixture(w.db, { teacher, student });
   await w.db.insert(enrolments).values({ userId: other.id, courseId: f.courseId, status: "active" });
+  await giveMembership(w.db, other.id);
   await w.db.insert(tuneProgress).values({ userId: other.id, tuneId: f.tunes.A, reachedStage: 1 });
   me = await w.cookieFor(student.id);
   classmate = await w.cookieFor(other.id);

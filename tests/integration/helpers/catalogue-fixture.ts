@@ -4,6 +4,7 @@
 import { analyze } from "@/lib/abc";
 import type { Db } from "@/db/client";
 import { courses, enrolments, grades, marginNotes, rungs, tuneProgress, tunes, tuneStages } from "@/db/schema";
+import { giveMembership } from "./membership";
 
 /** An invented polka with every kind of embellishment, so its four stages differ. */
 export function fixtureTune(title: string, shift = 0): string {
@@ -65,6 +66,8 @@ export async function makeCatalogueFixture(db: Db, people: { teacher: { id: stri
     .returning({ id: rungs.id, tuneId: rungs.tuneId });
   const rungOf = (tune: string) => made.find((r) => r.tuneId === tune)?.id ?? "";
   await db.insert(enrolments).values({ userId: people.student.id, courseId: course.id, status: "active" });
+  // Member-only rungs open to members in good standing (lib/billing/gate.ts).
+  await giveMembership(db, people.student.id);
   // The taster is reached at stage 1 (its required stage), so rung B is open; B is started at 0, so C stays locked.
   await db.insert(tuneProgress).values([
     { userId: people.student.id, tuneId: ids.A, reachedStage: 1 },

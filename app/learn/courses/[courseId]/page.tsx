@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { StartCourse } from "@/components/billing/start-course";
 import { LadderView } from "@/components/ladder/ladder-view";
 import { PageContainer } from "@/components/layout/page-container";
 import { QueryProvider } from "@/components/providers/query-provider";
@@ -12,6 +13,7 @@ export default async function LadderPage({ params }: { params: Promise<{ courseI
   return (
     <PageContainer>
       <QueryProvider>
+        <StartCourse courseId={courseId} />
         <LadderView courseId={courseId} />
       </QueryProvider>
     </PageContainer>
