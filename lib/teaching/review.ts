@@ -1,0 +1,55 @@
+// The teacher's review queue (issue 6 item 4): check-ins waiting on the teacher's own assignments,
+// oldest first, and the review itself through the state machine (transitions.ts).
+import type { Tx } from "@/db/queries/auth";
+import { findCheckIn, waitingForReview } from "@/db/queries/teaching-review";
+import type { StagePlanJson } from "@/db/schema";
+import { notFound } from "@/lib/auth/errors";
+import type { Manager } from "./assignments";
+import type { ReviewItem } from "./teach-api-types";
+import { assignmentStages, type AssignmentStage } from "./teach-stages";
+import { applyTransition, type ApplyResult } from "./transitions";
+
+export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
+  const rows = await waitingForReview(db, me.role === "admin" ? null : me.id);
+  // Stages are worked out once per assignment: several students' check-ins often share one.
+  const stagesOf = new Map<string, Promise<AssignmentStage[]>>();
+  const stages = (assignmentId: string, tuneId: string, plan: StagePlanJson | null) => {
+    if (!stagesOf.has(assignmentId)) stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
+    return stagesOf.get(assignmentId) as Promise<AssignmentStage[]>;
+  };
+  const out: ReviewItem[] = [];
+  for (const r of rows) {
+    const all = await stages(r.assignmentId, r.tuneId, r.stagePlan);
+    const stage = all.find((s) => s.index === r.stageIndex);
+    out.push({
+      checkInId: r.checkInId,
+      createdAt: r.createdAt.toISOString(),
+      student: { id: r.studentId, name: r.studentName },
+      tune: { id: r.tuneId, title: r.tuneTitle },
+      assignmentId: r.assignmentId,
+      stage: { index: r.stageIndex, name: stage?.name ?? `Stage ${r.stageIndex}`, abc: stage?.abc ?? "", count: all.length },
+      selfRating: r.selfRating,
+      fromMemory: r.fromMemory,
+      uploadId: r.uploadId,
+    });
+  }
+  return out;
+}
+
+export async function reviewCheckIn(
+  db: Tx,
+  me: Manager,
+  input: { checkInId: string; outcome: "signed_off" | "needs_more_time"; feedback: string },
+  now: Date,
+): Promise<ApplyResult> {
+  const checkIn = await findCheckIn(db, input.checkInId);
+  if (!checkIn) throw notFound("We couldn't find that check-in.");
+  return applyTransition(db, {
+    stageStateId: checkIn.stageStateId,
+    transition: input.outcome === "signed_off" ? "signOff" : "needsMoreTime",
+    actor: me,
+    feedback: input.feedback,
+    checkInId: checkIn.id,
+    now,
+  });
+}

@@ -1,0 +1,51 @@
+// The JSON the teacher's assignment, review and roster routes answer with; shared by the routes and
+// the pages' client components (no server imports here).
+import type { StagePlanJson } from "@/db/schema/catalogue";
+
+export type AssignmentStudentView = {
+  assignmentStudentId: string;
+  studentId: string;
+  name: string;
+  timeZone: string;
+  stages: number;
+  signedOff: number;
+  waiting: number;
+};
+
+export type AssignmentView = {
+  id: string;
+  tune: { id: string; title: string };
+  teacherName: string;
+  dueAt: string;
+  /** The due date on the wall clock of `dueZone`: the zone the edit form shows it in. */
+  dueLocal: string;
+  dueZone: string;
+  stagePlan: StagePlanJson | null;
+  unlockRule: "teacher_sign_off" | "self_check_in";
+  unlockMinutes: number | null;
+  note: string;
+  status: "active" | "withdrawn";
+  overdue: boolean;
+  students: AssignmentStudentView[];
+};
+
+export type ReviewItem = {
+  checkInId: string;
+  createdAt: string;
+  student: { id: string; name: string };
+  tune: { id: string; title: string };
+  assignmentId: string;
+  stage: { index: number; name: string; abc: string; count: number };
+  selfRating: number;
+  fromMemory: boolean;
+  uploadId: string | null;
+};
+
+export type RosterRow = {
+  studentId: string;
+  name: string;
+  email: string;
+  lastPractice: string | null;
+  openAssignments: number;
+  overdueAssignments: number;
+};
