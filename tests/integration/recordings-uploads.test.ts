@@ -48,7 +48,7 @@ function request(a: AssignmentFixture, who: Person, o: { contentType?: string; s
 }
 
 /** Ask, upload the bytes, complete: the complete answer. */
-async function upload(bytes: Uint8Array, contentType = "audio/wav", declared = bytes.length) {
+async function upload(bytes: Uint8Array<ArrayBuffer>, contentType = "audio/wav", declared = bytes.length) {
   const res = await ask(student, request(mine, student, { contentType, sizeBytes: declared }));
   expect(res.status).toBe(201);
   const ticket = (await res.json()) as Ticket;

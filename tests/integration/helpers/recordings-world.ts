@@ -80,7 +80,7 @@ export async function signOffAll(db: Db, assignmentStudentId: string): Promise<v
  * chunk of 16 bytes, a "data" chunk) and `samples` of 16-bit mono silence at 8 kHz — the canonical
  * layout (Microsoft/IBM RIFF WAVE format, 1991).
  */
-export function wavBytes(samples = 8000): Uint8Array {
+export function wavBytes(samples = 8000): Uint8Array<ArrayBuffer> {
   const dataBytes = samples * 2;
   const buf = Buffer.alloc(44 + dataBytes);
   buf.write("RIFF", 0, "ascii");
@@ -100,13 +100,13 @@ export function wavBytes(samples = 8000): Uint8Array {
 }
 
 /** A PNG's signature and IHDR start: recognisably an image whatever type it is uploaded under (PNG spec §5.2). */
-export function pngBytes(): Uint8Array {
+export function pngBytes(): Uint8Array<ArrayBuffer> {
   const b = Buffer.alloc(64);
   Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52]).copy(b, 0);
   return new Uint8Array(b);
 }
 
 /** The browser's part: PUT the bytes to the presigned address with the headers it was issued with. */
-export async function putTicket(ticket: { url: string; headers: Record<string, string> }, body: Uint8Array): Promise<Response> {
+export async function putTicket(ticket: { url: string; headers: Record<string, string> }, body: Uint8Array<ArrayBuffer>): Promise<Response> {
   return fetch(ticket.url, { method: "PUT", headers: ticket.headers, body });
 }
