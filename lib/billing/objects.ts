@@ -27,7 +27,7 @@ export const subscriptionObject = z
         z.object({
           current_period_start: unix.optional(),
           current_period_end: unix.optional(),
-          price: z.object({ id: z.string() }),
+          price: z.object({ id: z.string(), product: idOf.optional() }),
         }),
       ),
     }),
@@ -45,6 +45,7 @@ export const subscriptionObject = z
       periodStart: item?.current_period_start ?? s.current_period_start ?? null,
       periodEnd: item?.current_period_end ?? s.current_period_end ?? null,
       priceId: item?.price.id ?? null,
+      productId: item?.price.product ?? null,
       metadata: s.metadata ?? {},
     };
   });

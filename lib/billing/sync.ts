@@ -23,7 +23,7 @@ export async function syncSubscription(db: Db, stripe: Stripe, facts: Subscripti
   const s = seen === at.getTime() ? await fetchSubscription(stripe, facts.id) : facts;
   const user = existing ? { id: existing.userId } : await userByCustomer(db, s.customer);
   const userId = user?.id ?? s.metadata.userId;
-  const plan = s.priceId ? await planByPrice(db, s.priceId) : null;
+  const plan = s.priceId ? await planByPrice(db, s.priceId, s.productId) : null;
   const planId = plan?.id ?? existing?.planId ?? s.metadata.planId;
   if (!userId || !planId) {
     console.warn(`[billing] subscription ${s.id}: no member or plan of ours (customer ${s.customer}, price ${s.priceId}); ignored`);
