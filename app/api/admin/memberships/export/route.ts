@@ -1,0 +1,9 @@
+import { db } from "@/db/client";
+import { guardRoute } from "@/lib/auth/guard";
+import { membershipsCsv } from "@/lib/billing/admin/exports";
+import { membershipsQuery, parseQuery, rawQuery } from "@/lib/billing/admin/params";
+
+export const dynamic = "force-dynamic";
+
+/** Every membership row matching the table's filters, in its order, as streamed CSV (RFC 4180). */
+export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => membershipsCsv(db(), parseQuery(membershipsQuery, raw)));

@@ -1,0 +1,13 @@
+import { db } from "@/db/client";
+import { listMemberships } from "@/db/queries/admin-money";
+import { guardRoute } from "@/lib/auth/guard";
+import { membershipsQuery, parseQuery, rawQuery } from "@/lib/billing/admin/params";
+
+export const dynamic = "force-dynamic";
+
+/** One page of the admin's memberships table, sorted and filtered on the server. */
+export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => {
+  const q = parseQuery(membershipsQuery, raw);
+  const { rows, total } = await listMemberships(db(), q);
+  return Response.json({ rows, total, page: q.page, pageSize: q.pageSize }, { headers: { "cache-control": "no-store" } });
+});
