@@ -2,7 +2,7 @@
 // `teacherId` argument (null: an admin, everyone's), always the signed-in person's id.
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import { assignments, assignmentStudents, checkIns, practiceLogs, rosterEntries, stageStates, tunes, users } from "../schema";
+import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
 
 /** Check-ins waiting for review on active assignments, oldest first. */
 export async function waitingForReview(db: Tx, teacherId: string | null) {
@@ -41,17 +41,19 @@ export async function findCheckIn(db: Tx, id: string) {
  * of anyone for an admin, who sees every student). "Open": active and not every stage signed off.
  */
 export async function rosterFigures(db: Tx, teacherId: string | null, now: Date) {
-  const mine = teacherId === null ? sql`true` : sql`${assignments.teacherId} = ${teacherId}`;
-  const unfinished = sql`exists (select 1 from ${stageStates} where ${stageStates.assignmentStudentId} = ${assignmentStudents.id} and ${stageStates.state} <> 'signed_off')`;
+  // Written with qualified names: drizzle leaves columns bare in a one-table select, which the
+  // correlated subqueries below would find ambiguous.
+  const mine = teacherId === null ? sql`true` : sql`a.teacher_id = ${teacherId}`;
+  const open = sql`from assignment_students s join assignments a on a.id = s.assignment_id
+    where s.student_id = "users"."id" and a.status = 'active' and ${mine}
+    and exists (select 1 from stage_states st where st.assignment_student_id = s.id and st.state <> 'signed_off')`;
   const cols = {
     studentId: users.id,
     name: users.name,
     email: users.email,
-    lastPractice: sql<string | null>`(select max(${practiceLogs.practisedOn})::text from ${practiceLogs} where ${practiceLogs.userId} = ${users.id})`,
-    openAssignments: sql<number>`(select count(*)::int from ${assignmentStudents} join ${assignments} on ${assignments.id} = ${assignmentStudents.assignmentId}
-      where ${assignmentStudents.studentId} = ${users.id} and ${assignments.status} = 'active' and ${mine} and ${unfinished})`,
-    overdueAssignments: sql<number>`(select count(*)::int from ${assignmentStudents} join ${assignments} on ${assignments.id} = ${assignmentStudents.assignmentId}
-      where ${assignmentStudents.studentId} = ${users.id} and ${assignments.status} = 'active' and ${mine} and ${unfinished} and ${assignments.dueAt} < ${now.toISOString()}::timestamptz)`,
+    lastPractice: sql<string | null>`(select max(p.practised_on)::text from practice_logs p where p.user_id = "users"."id")`,
+    openAssignments: sql<number>`(select count(*)::int ${open})`,
+    overdueAssignments: sql<number>`(select count(*)::int ${open} and a.due_at < ${now.toISOString()}::timestamptz)`,
   };
   if (teacherId === null) return db.select(cols).from(users).where(eq(users.role, "student")).orderBy(asc(users.name));
   return db
