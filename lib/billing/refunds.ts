@@ -5,7 +5,10 @@ import { and, eq, sql } from "drizzle-orm";
 import type Stripe from "stripe";
 import type { Tx as Db } from "@/db/queries/auth";
 import { payments, refunds } from "@/db/schema";
-import { adminStripe } from "./admin/stripe-client";
+import { enqueueEmail } from "@/lib/mail/outbox";
+import { users } from "@/db/schema";
+import { formatMoney } from "./money";
+import { stripe as appStripe } from "./stripe";
 
 export type RefundPaymentRef =
   | { paymentId: string }
@@ -118,7 +121,7 @@ export type RefundsApi = { refunds: { create: Stripe["refunds"]["create"] } };
  * The admin's refund: checks what remains, asks Stripe (through the SDK) to refund, then records it.
  * The charge.refunded webhook Stripe sends for the same refund finds it already recorded.
  */
-export async function refundPayment(db: Db, admin: { id: string }, req: RefundRequest, stripe: RefundsApi = adminStripe()): Promise<RecordRefundResult> {
+export async function refundPayment(db: Db, admin: { id: string }, req: RefundRequest, stripe: RefundsApi = appStripe()): Promise<RecordRefundResult> {
   const reason = req.reason.trim();
   if (!reason) throw new RefundError("bad_amount", "Say why the payment is refunded.", "amount");
   const [p] = await db
@@ -140,5 +143,22 @@ export async function refundPayment(db: Db, admin: { id: string }, req: RefundRe
     { idempotencyKey: `refund:${p.id}:${p.refundedAmount}:${amount}` },
   );
   const result = await recordRefund(db, { paymentId: p.id, stripeRefundId: refund.id, amount: refund.amount, currency: refund.currency, reason, createdBy: admin.id });
+  await mailRefund(db, p.id, refund.id, refund.amount, p.currency, reason);
   return result;
+}
+
+/** "refund-issued" to the member; the same key as the charge.refunded webhook's, so one mail whichever path comes first. */
+async function mailRefund(db: Db, paymentId: string, stripeRefundId: string, amount: number, currency: string, reason: string): Promise<void> {
+  const [p] = await db
+    .select({ email: users.email, name: users.name, receipt: payments.receiptNumber, invoice: payments.stripeInvoiceId })
+    .from(payments)
+    .innerJoin(users, eq(users.id, payments.userId))
+    .where(eq(payments.id, paymentId));
+  if (!p) return;
+  await enqueueEmail(db, {
+    to: p.email,
+    template: "refund-issued",
+    data: { name: p.name, amount: formatMoney(amount, currency), receiptNumber: p.receipt ?? p.invoice, reason, receiptUrl: `/learn/billing/receipts/${paymentId}` },
+    dedupeKey: `refund-issued:${stripeRefundId}`,
+  });
 }
