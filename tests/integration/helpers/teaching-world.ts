@@ -43,12 +43,12 @@ export async function teachingWorld() {
   }
 
   async function assign(
-    teacher: { id: string; role?: "teacher" | "admin" },
-    o: { tuneId: string; studentIds: string[]; dueLocal?: string; unlockRule?: "teacher_sign_off" | "self_check_in"; unlockMinutes?: number | null },
+    teacher: { id: string },
+    o: { role?: "teacher" | "admin"; tuneId: string; studentIds: string[]; dueLocal?: string; unlockRule?: "teacher_sign_off" | "self_check_in"; unlockMinutes?: number | null },
   ) {
     return createAssignment(
       w.db,
-      { id: teacher.id, role: teacher.role ?? "teacher" },
+      { id: teacher.id, role: o.role ?? "teacher" },
       { tuneId: o.tuneId, studentIds: o.studentIds, dueLocal: o.dueLocal ?? dueIn(7), stagePlan: null, unlockRule: o.unlockRule ?? "teacher_sign_off", unlockMinutes: o.unlockMinutes ?? null, note: "Slow first." },
       new Date(),
     );
