@@ -77,7 +77,7 @@ function subscription(o: O): Subscription {
   return {
     id, object: "subscription", created: num(o, "created"), start_date: num(o, "start_date", num(o, "created")), customer: idOf(o.customer) ?? "",
     currency: str(o, "currency") ?? "gbp", status: status as Subscription["status"], items: subItems,
-    billing_cycle_anchor: num(o, "billing_cycle_anchor", num(o, "start_date", num(o, "created"))), cancel_at_period_end: bool(o, "cancel_at_period_end", false),
+    billing_cycle_anchor: num(o, "billing_cycle_anchor", subItems[0]?.current_period_start ?? num(o, "created")), cancel_at_period_end: bool(o, "cancel_at_period_end", false),
     cancel_at: numOrNull(o, "cancel_at"), canceled_at: numOrNull(o, "canceled_at"), ended_at: numOrNull(o, "ended_at"),
     cancellation_details: { comment: str(cd, "comment"), feedback: str(cd, "feedback"), reason: str(cd, "reason") },
     default_payment_method: idOf(o.default_payment_method), latest_invoice: idOf(o.latest_invoice), metadata: meta(o), pending_lines: [],
