@@ -78,9 +78,10 @@ export const invoiceObject = z
         data: z.array(
           z.object({
             period: z.object({ start: unix, end: unix }).optional(),
-            price: z.object({ id: z.string() }).nullable().optional(),
+            price: idOf.nullable().optional(),
             pricing: z.object({ price_details: z.object({ price: idOf }).nullable().optional() }).nullable().optional(),
             proration: z.boolean().optional(),
+            parent: z.object({ subscription_item_details: z.object({ proration: z.boolean() }).nullable().optional() }).nullable().optional(),
           }),
         ),
       })
@@ -90,8 +91,8 @@ export const invoiceObject = z
   .transform((i) => {
     const lines = i.lines?.data ?? [];
     // The subscription's own line (not a proration) carries the period and the price paid for.
-    const main = lines.find((l) => !l.proration) ?? lines[0];
-    const priceId = main?.price?.id ?? main?.pricing?.price_details?.price ?? null;
+    const main = lines.find((l) => !(l.proration ?? l.parent?.subscription_item_details?.proration)) ?? lines[0];
+    const priceId = main?.price ?? main?.pricing?.price_details?.price ?? null;
     return {
       id: i.id,
       customer: i.customer,
