@@ -170,11 +170,13 @@ export async function insertPractice(db: Db, userId: string, v: PracticeValues):
 }
 
 export async function updatePractice(db: Db, id: string, userId: string, v: Partial<PracticeValues>): Promise<boolean> {
+  if (!isUuid(id)) return false;
   const rows = await db.update(practiceLogs).set(v).where(and(eq(practiceLogs.id, id), eq(practiceLogs.userId, userId))).returning({ id: practiceLogs.id });
   return rows.length > 0;
 }
 
 export async function deletePractice(db: Db, id: string, userId: string): Promise<boolean> {
+  if (!isUuid(id)) return false; // a malformed id names nothing (PostgreSQL would reject it)
   const rows = await db.delete(practiceLogs).where(and(eq(practiceLogs.id, id), eq(practiceLogs.userId, userId))).returning({ id: practiceLogs.id });
   return rows.length > 0;
 }

@@ -1,0 +1,107 @@
+// Today's data against a real database at fixed instants: the streak and the minutes per day are
+// counted in the student's own time zone; open assignments come by due date with overdue marked;
+// the next rung of a course; the teacher's latest words.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { eq } from "drizzle-orm";
+import { courses, enrolments, grades, rungs } from "@/db/schema";
+import { streakOf } from "@/lib/teaching/learn-dates";
+import { CHART_DAYS, todayFor } from "@/lib/teaching/today";
+import { makeAssignment, makePractice, makeTune, makeUpload } from "./helpers/learning-matrix-rows";
+import { teachWorld } from "./helpers/teach-world";
+
+type World = Awaited<ReturnType<typeof teachWorld>>;
+let w: World;
+let teacherId: string;
+
+beforeAll(async () => {
+  w = await teachWorld();
+  teacherId = (await w.person("teacher")).id;
+});
+afterAll(async () => w?.close());
+
+async function student(timeZone: string) {
+  const p = await w.person("student");
+  await w.setUser(p.id, { timeZone });
+  return { id: p.id, role: "student" as const };
+}
+
+// 20:00 UTC on 10 March 2026 is already 09:00 on 11 March in Auckland (NZDT, UTC+13 until 5 April;
+// IANA tz database) and still 10 March in London (GMT).
+const NOW = new Date("2026-03-10T20:00:00Z");
+
+describe("streak", () => {
+  it("counts days in the student's zone: the same log is a 3-day streak in Auckland and 2 in London", async () => {
+    const auck = await student("Pacific/Auckland");
+    const lond = await student("Europe/London");
+    for (const p of [auck, lond]) for (const day of ["2026-03-11", "2026-03-10", "2026-03-09", "2026-03-07"]) await makePractice(w.db, p.id, { practisedOn: day, minutes: 20 });
+    const a = await todayFor(w.db, auck, NOW);
+    expect(a.today).toBe("2026-03-11");
+    expect([a.streak, a.practisedToday]).toEqual([3, true]);
+    // In London 11 March has not come yet: that entry is not counted, the streak is 10 and 9 March.
+    const l = await todayFor(w.db, lond, NOW);
+    expect(l.today).toBe("2026-03-10");
+    expect([l.streak, l.practisedToday]).toEqual([2, true]);
+  });
+
+  it("is not broken by a day with no practice yet today, and broken after a whole day without", async () => {
+    const p = await student("Pacific/Auckland");
+    for (const day of ["2026-03-10", "2026-03-09"]) await makePractice(w.db, p.id, { practisedOn: day, minutes: 15 });
+    const sameDay = await todayFor(w.db, p, NOW); // 11 March in Auckland, nothing yet today
+    expect([sameDay.streak, sameDay.practisedToday]).toEqual([2, false]);
+    const dayAfter = await todayFor(w.db, p, new Date("2026-03-11T20:00:00Z")); // 12 March: 11 March passed empty
+    expect(dayAfter.streak).toBe(0);
+  });
+
+  it("streakOf: duplicates and order do not matter", () => {
+    expect(streakOf(["2026-01-03", "2026-01-01", "2026-01-02", "2026-01-03"], "2026-01-03")).toBe(3);
+    expect(streakOf([], "2026-01-03")).toBe(0);
+    expect(streakOf(["2025-12-31", "2026-01-01"], "2026-01-02")).toBe(2); // across a year's end
+  });
+});
+
+describe("minutes per day", () => {
+  it("gives the last four weeks up to today in the student's zone, zero-filled, summing a day's entries", async () => {
+    const p = await student("Pacific/Auckland");
+    await makePractice(w.db, p.id, { practisedOn: "2026-03-11", minutes: 30 });
+    await makePractice(w.db, p.id, { practisedOn: "2026-03-11", minutes: 12 });
+    await makePractice(w.db, p.id, { practisedOn: "2026-02-12", minutes: 25 }); // the first day shown
+    await makePractice(w.db, p.id, { practisedOn: "2026-02-11", minutes: 99 }); // a day too early
+    const t = await todayFor(w.db, p, NOW);
+    expect(t.minutes).toHaveLength(CHART_DAYS);
+    expect(t.minutes[0]).toEqual({ day: "2026-02-12", minutes: 25 });
+    expect(t.minutes[CHART_DAYS - 1]).toEqual({ day: "2026-03-11", minutes: 42 });
+    expect(t.minutes.reduce((n, d) => n + d.minutes, 0)).toBe(67);
+  });
+});
+
+describe("assignments, next rung and feedback", () => {
+  it("lists open assignments soonest due first, marks the overdue one and leaves out a finished one", async () => {
+    const p = await student("America/Halifax");
+    const later = await makeAssignment(w.db, { teacherId, studentIds: [p.id], dueAt: new Date("2026-03-20T21:00:00Z") });
+    const overdue = await makeAssignment(w.db, { teacherId, studentIds: [p.id], dueAt: new Date("2026-03-09T21:00:00Z") });
+    const t = await todayFor(w.db, p, NOW);
+    expect(t.assignments.map((a) => a.assignmentStudentId)).toEqual([overdue.students[p.id], later.students[p.id]]);
+    expect(t.assignments.map((a) => a.overdue)).toEqual([true, false]);
+    // 21:00 UTC on 20 March is 18:00 in Halifax (ADT, UTC−3 from 8 March 2026; IANA tz database).
+    expect(t.assignments[1].dueLocal).toBe("Friday 20 March, 18:00");
+    expect(t.assignments[1].current).toEqual({ index: 1, waiting: false });
+  });
+
+  it("shows the next rung of an enrolled course and the teacher's latest words", async () => {
+    const p = await student("Europe/London");
+    const tune = await makeTune(w.db, teacherId, { title: "Today Taster" });
+    const [rung] = await w.db.select().from(rungs).where(eq(rungs.tuneId, tune.tuneId));
+    const [grade] = await w.db.select().from(grades).where(eq(grades.id, rung.gradeId));
+    const [course] = await w.db.select().from(courses).where(eq(courses.id, grade.courseId));
+    await w.db.insert(enrolments).values({ userId: p.id, courseId: course.id, status: "active" });
+    const f = await makeAssignment(w.db, { teacherId, studentIds: [p.id], tuneId: tune.tuneId });
+    const id = f.students[p.id];
+    const { checkIn } = await import("@/lib/teaching/check-in");
+    const { applyTransition } = await import("@/lib/teaching/transitions");
+    const made = await checkIn(w.db, p, { assignmentStudentId: id, stageIndex: 1, uploadId: await makeUpload(w.db, { ownerId: p.id, assignmentStudentId: id }), selfRating: 3, fromMemory: false });
+    await applyTransition(w.db, { stageStateId: made.stageStateId, transition: "needsMoreTime", actor: { id: teacherId, role: "teacher" }, feedback: "Keep the bow straighter.", checkInId: made.checkInId, now: new Date() });
+    const t = await todayFor(w.db, p, new Date());
+    expect(t.nextRungs).toEqual([expect.objectContaining({ courseId: course.id, tuneId: tune.tuneId, tuneTitle: "Today Taster", position: 1 })]);
+    expect(t.feedback).toEqual([expect.objectContaining({ checkInId: made.checkInId, feedback: "Keep the bow straighter.", outcome: "needs_more_time", tuneTitle: "Today Taster" })]);
+  });
+});
