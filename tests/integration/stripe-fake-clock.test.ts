@@ -4,7 +4,7 @@
 import { mkdtempSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import type Stripe from "stripe";
+import Stripe from "stripe";
 import { afterEach, describe, expect, it } from "vitest";
 import { periodEnd } from "@/scripts/fakes/stripe/clock";
 import { CARDS, DAY, monthlyPlan, startStripeWorld, subscribe, updateCard, type StripeWorld } from "./helpers/stripe-fake-world";
@@ -55,6 +55,8 @@ describe("advancing the clock", () => {
       ["subscription_create", "paid", 1800],
     ]);
     expect(invoices.data[0]?.created).toBe(first?.current_period_end);
+    // Stripe's invoice period is the usage period just ended; the new service period is on the line.
+    expect([invoices.data[0]?.period_start, invoices.data[0]?.period_end]).toEqual([first?.current_period_start, first?.current_period_end]);
     expect(invoices.data[0]?.lines.data[0]?.period).toEqual({ start: renewed.items.data[0]?.current_period_start, end: renewed.items.data[0]?.current_period_end });
     // A whole year more: eleven further renewals, each at its own period's end.
     await w.fake.advanceClock(335 * DAY);
@@ -99,6 +101,11 @@ describe("advancing the clock", () => {
     await updateCard(w, customer.id, sub?.id ?? "", CARDS.chargeFails);
     await w.fake.advanceClock(31 * DAY);
     expect((await w.stripe.subscriptions.retrieve(sub?.id ?? "")).status).toBe("past_due");
+    // Paying the open invoice again with the same card: Stripe's 402 card_error, as the SDK surfaces it.
+    const [open] = (await w.stripe.invoices.list({ subscription: sub?.id, status: "open" })).data;
+    const declined = await w.stripe.invoices.pay(open?.id ?? "").catch((e: unknown) => e);
+    expect(declined).toBeInstanceOf(Stripe.errors.StripeCardError);
+    expect(declined).toMatchObject({ statusCode: 402, code: "card_declined", decline_code: "generic_decline", message: "Your card was declined." });
     const mark = w.fake.events().length;
     const saved = await updateCard(w, customer.id, sub?.id ?? "", CARDS.visa);
     expect(saved.status).toBe(303);

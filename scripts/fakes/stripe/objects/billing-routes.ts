@@ -3,7 +3,7 @@
 // lines, paying an open invoice, and invoices.createPreview (POST /v1/invoices/create_preview, the
 // SDK 23 name for what was the "upcoming invoice").
 import type { Handler } from "../context";
-import { cardError, requestError } from "../errors";
+import { cardError, notFound, requestError } from "../errors";
 import { expand, paginate } from "../expand";
 import { line, listOf, render } from "../render";
 import { newId } from "../state";
@@ -88,7 +88,8 @@ const updateSub: Handler = ({ fake, params, ids }) => {
 
 const cancelSub: Handler = ({ fake, params, ids }) => {
   const sub = fake.store.get("subscription", ids[0] ?? "");
-  if (sub.status === "canceled") throw requestError(`No such subscription: '${sub.id}' is already canceled.`, "resource_missing", "id");
+  // Stripe answers a second cancel as if the subscription were gone.
+  if (sub.status === "canceled") throw notFound("subscription", sub.id);
   cancelNow(fake, sub, "cancellation_requested");
   return expand(fake.store, render(fake.store, sub), params);
 };

@@ -25,26 +25,27 @@ export function itemLine(fake: Fake, sub: Subscription, itemId: string, price: P
 
 /** An invoice built but not stored: used as is by the preview, stored by createInvoice. */
 export function draftInvoice(
-  fake: Fake, args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason; id?: string },
+  fake: Fake, args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason; id?: string; usage?: { start: number; end: number } },
 ): Invoice {
   const now = fake.clock.now();
   const customer = fake.store.get("customer", args.sub.customer);
   const total = args.lines.reduce((s, l) => s + l.amount, 0);
   const starting = customer.balance;
   const amountDue = Math.max(0, total + starting);
-  const periods = args.lines.filter((l) => !l.proration).map((l) => l.period);
   return {
     id: args.id ?? newId("in"), object: "invoice", created: now, customer: customer.id, currency: args.sub.currency,
     status: "draft", billing_reason: args.reason, number: null, receipt_number: null, subscription: args.sub.id,
     lines: args.lines, subtotal: total, total, starting_balance: starting, ending_balance: null, amount_due: amountDue,
     amount_paid: 0, amount_remaining: amountDue, attempt_count: 0, attempted: false, next_payment_attempt: null,
-    period_start: periods[0]?.start ?? now, period_end: periods[0]?.start ?? now, metadata: {}, payments: [],
+    // Stripe's invoice period is the usage period before the invoice (for a renewal, the period that just
+    // ended; otherwise the moment it is made); the service period is on each line.
+    period_start: args.usage?.start ?? now, period_end: args.usage?.end ?? now, metadata: {}, payments: [],
     status_transitions: { finalized_at: null, paid_at: null, voided_at: null, marked_uncollectible_at: null },
   };
 }
 
 /** Creates and finalizes the invoice; a zero amount due is paid on the spot, as Stripe does. */
-export function createInvoice(fake: Fake, args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason }): Invoice {
+export function createInvoice(fake: Fake, args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason; usage?: { start: number; end: number } }): Invoice {
   const inv = draftInvoice(fake, args);
   const customer = fake.store.get("customer", inv.customer);
   const now = fake.clock.now();

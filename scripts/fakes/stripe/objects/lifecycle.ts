@@ -54,7 +54,8 @@ export function renew(fake: Fake, sub: Subscription): void {
   let inv: Invoice | undefined;
   let failed = false;
   updateSubscription(fake, sub, () => {
-    const start = currentPeriod(sub).end;
+    const usage = currentPeriod(sub);
+    const start = usage.end;
     const lines = [...(sub.pending_lines ?? [])];
     sub.pending_lines = [];
     for (const item of sub.items) {
@@ -64,7 +65,7 @@ export function renew(fake: Fake, sub: Subscription): void {
       item.current_period_end = periodEnd(sub.billing_cycle_anchor, start, rec.interval, rec.interval_count);
       lines.push(itemLine(fake, sub, item.id, price, item.quantity, { start, end: item.current_period_end }));
     }
-    inv = createInvoice(fake, { sub, lines, reason: "subscription_cycle" });
+    inv = createInvoice(fake, { sub, lines, reason: "subscription_cycle", usage });
     failed = payInvoice(fake, inv, sub) !== null;
     if (failed && sub.status === "active") sub.status = "past_due";
   });

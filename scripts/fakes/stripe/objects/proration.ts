@@ -78,10 +78,12 @@ export function planChange(fake: Fake, sub: Subscription, changes: ItemChange[],
 
 /** The lines of the invoice a change would bring, as invoices.createPreview shows them. */
 export function previewLines(fake: Fake, sub: Subscription, pc: PlanChange, behavior: ProrationBehavior): InvoiceLine[] {
-  if (pc.reset) return [...pc.prorations, ...pc.reset.lines];
-  if (behavior === "always_invoice" && pc.prorations.length > 0) return pc.prorations;
+  // Prorations waiting from earlier changes are swept into whichever invoice comes next.
+  const waiting = sub.pending_lines ?? [];
+  if (pc.reset) return [...waiting, ...pc.prorations, ...pc.reset.lines];
+  if (behavior === "always_invoice" && pc.prorations.length > 0) return [...waiting, ...pc.prorations];
   // The next renewal: waiting prorations, then a full period of each item at its (new) price.
-  const lines = [...(sub.pending_lines ?? []), ...pc.prorations];
+  const lines = [...waiting, ...pc.prorations];
   for (const item of sub.items) {
     const change = pc.changes.find((c) => c.item.id === item.id);
     const price = change?.price ?? fake.store.get("price", item.price);
