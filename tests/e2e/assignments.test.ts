@@ -1,0 +1,176 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, BrowserContext, Page } from "playwright-core";
+import { DEMO_PASSWORD, STUDENTS, TEACHERS } from "@/db/seed-data/people";
+import { BASE_URL, launch, screenshot } from "./helpers/browser";
+
+// Issue 6's browser journey in Debian's Chromium: a teacher assigns a tune to two students with a
+// due date; both get e-mail; one checks in with an uploaded recording; the teacher listens, writes
+// feedback and signs off; stage 2 opens for that student only — the other's stays locked on the
+// page and in the API. The tune is on a taster rung, so no membership is involved.
+const TEACHER = TEACHERS[0]; // Isla Penhallow: her course "First Steps on the Fiddle" holds the taster
+const TUNE = "Little Biscuit Polka"; // taster rung of that course (db/seed-data/catalogue.ts)
+// Two students on Isla's roster (teacherIndex 0) in different zones: Juno (America/Halifax), Morwen (Europe/London).
+const JUNO = STUDENTS.find((s) => s.name.startsWith("Juno "))!;
+const MORWEN = STUDENTS.find((s) => s.name.startsWith("Morwen "))!;
+const FEEDBACK = `Steady bow and a clean last bar — on to the next stage. (${Date.now().toString(36)})`;
+
+/**
+ * A small valid WAV: RIFF header + 0.5 s of 16-bit mono silence at 8 kHz. Layout per the RIFF WAVE
+ * format (Microsoft Multimedia Programming Interface and Data Specifications 1.0: "RIFF" size
+ * "WAVE", a 16-byte "fmt " chunk with PCM = 1, then the "data" chunk).
+ */
+function silentWav(): Buffer {
+  const rate = 8000;
+  const data = Buffer.alloc(rate); // 4000 samples × 2 bytes
+  const h = Buffer.alloc(44);
+  h.write("RIFF", 0, "ascii");
+  h.writeUInt32LE(36 + data.length, 4);
+  h.write("WAVE", 8, "ascii");
+  h.write("fmt ", 12, "ascii");
+  h.writeUInt32LE(16, 16);
+  h.writeUInt16LE(1, 20); // PCM
+  h.writeUInt16LE(1, 22); // mono
+  h.writeUInt32LE(rate, 24);
+  h.writeUInt32LE(rate * 2, 28); // byte rate
+  h.writeUInt16LE(2, 32); // block align
+  h.writeUInt16LE(16, 34); // bits per sample
+  h.write("data", 36, "ascii");
+  h.writeUInt32LE(data.length, 40);
+  return Buffer.concat([h, data]);
+}
+
+type FakeEmail = { to: string[]; subject: string; text: string | null; html: string | null; created_at: string };
+
+/** The assignment link of the newest "assignment-new" mail to an address, read from the Resend stand-in (like helpers/mail-link.ts). */
+async function assignmentLinkMailed(to: string, after: number): Promise<string> {
+  const base = process.env.RESEND_FAKE_URL;
+  if (!base) throw new Error("RESEND_FAKE_URL is not set: run browser tests through `npm test`");
+  const pattern = /\/learn\/assignments\/([0-9a-f-]{36})/;
+  const deadline = Date.now() + 45_000;
+  for (;;) {
+    const { data } = (await (await fetch(`${base}/_fake/emails`)).json()) as { data: FakeEmail[] };
+    const mail = data.find((m) => m.to.some((a) => a.toLowerCase() === to.toLowerCase()) && Date.parse(m.created_at) >= after && pattern.test(m.text ?? m.html ?? "") && (m.text ?? m.html ?? "").includes(TUNE));
+    if (mail) return pattern.exec(mail.text ?? mail.html ?? "")![1];
+    if (Date.now() > deadline) throw new Error(`no assignment mail to ${to} arrived in time`);
+    await new Promise((r) => setTimeout(r, 300));
+  }
+}
+
+let browser: Browser;
+const contexts: BrowserContext[] = [];
+const errors: string[] = [];
+
+async function signedIn(email: string, home: RegExp): Promise<Page> {
+  const context = await browser.newContext({ viewport: { width: 1280, height: 1000 } });
+  contexts.push(context);
+  const page = await context.newPage();
+  page.on("pageerror", (e) => errors.push(`${email} ${new URL(page.url()).pathname}: ${e.message}`));
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL(home);
+  return page;
+}
+
+/** Opens a page and waits until React has taken over `selector`'s element, so clicks never race hydration. */
+async function open(page: Page, path: string, selector: string): Promise<void> {
+  await page.goto(`${BASE_URL}${path}`);
+  await page.waitForFunction((sel) => {
+    const el = document.querySelector(sel);
+    return el !== null && Object.keys(el).some((k) => k.startsWith("__reactFiber"));
+  }, selector);
+}
+
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  for (const c of contexts) await c.close();
+  await browser?.close();
+});
+
+describe("assignments, check-in and sign-off in the browser", () => {
+  let teacher: Page;
+  let juno: Page;
+  let morwen: Page;
+  let junoId = "";
+  let morwenId = "";
+
+  it("the teacher assigns a tune to two roster students with a due date; both get e-mail", async () => {
+    const started = Date.now() - 1000;
+    teacher = await signedIn(TEACHER.email, /\/teach/);
+    await open(teacher, "/teach/assign", "#assign-tune");
+    await teacher.locator("#assign-tune").selectOption({ label: TUNE });
+    await teacher.getByRole("checkbox", { name: JUNO.name }).check();
+    await teacher.getByRole("checkbox", { name: MORWEN.name }).check();
+    const due = new Date(Date.now() + 10 * 86_400_000).toISOString().slice(0, 10);
+    await teacher.locator("#assign-due").fill(`${due}T18:00`);
+    await teacher.locator("#assign-note").fill("Keep the bow light in bar 3.");
+    await screenshot(teacher, "assignments-01-assign-form");
+    await teacher.getByRole("button", { name: "Assign" }).click();
+    await teacher.getByText(`Assigned “${TUNE}” to 2 students`).waitFor();
+    junoId = await assignmentLinkMailed(JUNO.email, started);
+    morwenId = await assignmentLinkMailed(MORWEN.email, started);
+    expect(junoId).not.toBe(morwenId);
+  });
+
+  it("one student uploads a recording and checks in", async () => {
+    juno = await signedIn(JUNO.email, /\/learn/);
+    await open(juno, `/learn/assignments/${junoId}`, "form[aria-label='Check in stage 1'] button[type=submit]");
+    await expect(juno.locator('li[data-stage="1"]').getAttribute("data-state")).resolves.toBe("open");
+    await expect(juno.getByTestId("due").textContent()).resolves.toContain("America/Halifax");
+    await juno.getByLabel("Choose a recording file").setInputFiles({ name: "biscuit-take-1.wav", mimeType: "audio/wav", buffer: silentWav() });
+    await juno.getByText("biscuit-take-1.wav is uploaded and ready").waitFor();
+    await juno.getByRole("radio", { name: /^4/ }).check();
+    await juno.getByRole("checkbox", { name: "Played from memory" }).check();
+    await screenshot(juno, "assignments-02-check-in-form");
+    await juno.getByRole("button", { name: "Check in" }).click();
+    await juno.getByRole("button", { name: "Withdraw check-in" }).waitFor();
+    await expect(juno.locator('li[data-stage="1"]').getAttribute("data-state")).resolves.toBe("checked_in");
+    await screenshot(juno, "assignments-03-checked-in");
+  });
+
+  it("the teacher listens in the review queue, writes feedback and signs off", async () => {
+    await open(teacher, "/teach/review", "main");
+    const item = teacher.locator("li, article, section").filter({ hasText: JUNO.name }).filter({ hasText: TUNE }).filter({ has: teacher.locator("audio") }).last();
+    await item.locator("audio").waitFor();
+    // A playable source: a short-lived address that answers with audio bytes.
+    await teacher.waitForFunction((el) => Boolean((el as HTMLAudioElement | null)?.currentSrc || (el as HTMLAudioElement | null)?.src), await item.locator("audio").elementHandle());
+    const src = await item.locator("audio").evaluate((el) => (el as HTMLAudioElement).currentSrc || (el as HTMLAudioElement).src);
+    expect(src).toMatch(/^https?:\/\//);
+    const probe = await teacher.evaluate(async (u) => {
+      const r = await fetch(u, { headers: { range: "bytes=0-11" } });
+      const b = new Uint8Array(await r.arrayBuffer());
+      return { status: r.status, head: String.fromCharCode(...b.slice(0, 4)) + String.fromCharCode(...b.slice(8, 12)) };
+    }, src);
+    expect([200, 206]).toContain(probe.status);
+    expect(probe.head).toBe("RIFFWAVE");
+    await item.getByRole("textbox").first().fill(FEEDBACK);
+    await screenshot(teacher, "assignments-04-review");
+    await item.getByRole("button", { name: /sign off/i }).click();
+    await teacher.getByText(/signed off/i).first().waitFor();
+  });
+
+  it("stage 2 opens for that student only; the other student's stays locked on the page and in the API", async () => {
+    await open(juno, `/learn/assignments/${junoId}`, "form[aria-label='Check in stage 2'] button[type=submit]");
+    await expect(juno.locator('li[data-stage="1"]').getAttribute("data-state")).resolves.toBe("signed_off");
+    await expect(juno.locator('li[data-stage="2"]').getAttribute("data-state")).resolves.toBe("open");
+    await juno.getByText(FEEDBACK).first().waitFor();
+    await screenshot(juno, "assignments-05-stage-2-open");
+
+    morwen = await signedIn(MORWEN.email, /\/learn/);
+    await open(morwen, `/learn/assignments/${morwenId}`, "form[aria-label='Check in stage 1'] button[type=submit]");
+    await expect(morwen.locator('li[data-stage="1"]').getAttribute("data-state")).resolves.toBe("open");
+    await expect(morwen.locator('li[data-stage="2"]').getAttribute("data-state")).resolves.toBe("locked");
+    await screenshot(morwen, "assignments-06-other-student-locked");
+    const res = await morwen.request.get(`${BASE_URL}/api/learn/assignments/${morwenId}`);
+    expect(res.status()).toBe(200);
+    const body = (await res.json()) as { stages: { index: number; state: string }[] };
+    expect(body.stages.find((s) => s.index === 2)?.state).toBe("locked");
+    expect(body.stages.find((s) => s.index === 1)?.state).toBe("open");
+    // And the first student's assignment is not hers to read.
+    expect((await morwen.request.get(`${BASE_URL}/api/learn/assignments/${junoId}`)).status()).toBe(404);
+    expect(errors).toEqual([]);
+  });
+});
