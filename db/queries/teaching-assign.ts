@@ -105,3 +105,18 @@ export async function listAssignments(db: Tx, teacherId: string | null, onlyId?:
   return heads.map((h) => ({ ...h, students: progress.filter((p) => p.assignmentId === h.a.id) }));
 }
 export type AssignmentListRow = Awaited<ReturnType<typeof listAssignments>>[number];
+
+/** What the assign form offers: the teacher's tunes (every tune for an admin) and students they may assign to. */
+export async function assignFormData(db: Tx, teacherId: string | null) {
+  const tuneRows = await db
+    .select({ id: tunes.id, title: tunes.title, stagePlan: tunes.stagePlan })
+    .from(tunes)
+    .where(teacherId === null ? undefined : eq(tunes.teacherId, teacherId))
+    .orderBy(asc(tunes.title));
+  const cols = { id: users.id, name: users.name, timeZone: users.timeZone };
+  const students =
+    teacherId === null
+      ? await db.select(cols).from(users).where(eq(users.role, "student")).orderBy(asc(users.name))
+      : await db.select(cols).from(rosterEntries).innerJoin(users, eq(users.id, rosterEntries.studentId)).where(eq(rosterEntries.teacherId, teacherId)).orderBy(asc(users.name));
+  return { tunes: tuneRows, students };
+}
