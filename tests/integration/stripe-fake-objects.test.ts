@@ -86,6 +86,18 @@ describe("objects and lists", () => {
   });
 });
 
+describe("idempotent requests", () => {
+  it("answers a repeated Idempotency-Key with the first result, and refuses it with other parameters", async () => {
+    // Stripe docs: "Idempotent requests".
+    const a = await world.stripe.customers.create({ email: "once@example.test" }, { idempotencyKey: "customer:once" });
+    const b = await world.stripe.customers.create({ email: "once@example.test" }, { idempotencyKey: "customer:once" });
+    expect(b.id).toBe(a.id);
+    expect((await world.stripe.customers.list({ email: "once@example.test" })).data).toHaveLength(1);
+    const other = await world.stripe.customers.create({ email: "twice@example.test" }, { idempotencyKey: "customer:once" }).catch((e: unknown) => e);
+    expect(other).toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
+  });
+});
+
 describe("errors as the SDK surfaces them", () => {
   it("answers a wrong key with 401 (StripeAuthenticationError)", async () => {
     const wrong = sdkFor(world.fake.url, "sk_test_not_the_key");

@@ -40,6 +40,7 @@ describe("plan change previews and invoices", () => {
     expect(preview.lines.data[1]?.period).toEqual({ start: t, end: t + 365 * DAY });
     expect(preview).toMatchObject({ total: 17100, amount_due: 17100, status: "draft" });
     expect(preview.id).toMatch(/^upcoming_in_/);
+    expect(preview.parent?.subscription_details?.subscription_proration_date).toBe(t);
 
     const changed = await w.stripe.subscriptions.update(sub?.id ?? "", {
       items: [{ id: item?.id, price: yearly.id }], proration_behavior: "always_invoice", proration_date: t,

@@ -60,7 +60,9 @@ export function periodEnd(anchor: number, start: number, interval: "day" | "week
   if (interval === "day") return start + count * DAY;
   if (interval === "week") return start + count * WEEK;
   const step = interval === "year" ? 12 * count : count;
+  // At least half a period: guards imported data whose period does not sit on its anchor's day.
+  const minimum = start + step * 14 * DAY;
   let k = 1;
-  while (addMonthsClamped(anchor, k * step) <= start) k++;
+  while (addMonthsClamped(anchor, k * step) < minimum) k++;
   return addMonthsClamped(anchor, k * step);
 }

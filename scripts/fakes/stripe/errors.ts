@@ -5,7 +5,7 @@
 import type { CardError } from "./types";
 
 export interface ErrorBody {
-  type: "invalid_request_error" | "card_error" | "api_error";
+  type: "invalid_request_error" | "card_error" | "api_error" | "idempotency_error";
   message: string;
   code?: string;
   param?: string;

@@ -87,7 +87,7 @@ export function line(store: Store, invoiceId: string, l: InvoiceLine): JsonObjec
 export function invoice(store: Store, inv: Invoice): JsonObject {
   const c = store.find("customer", inv.customer);
   const sub = inv.subscription ? store.find("subscription", inv.subscription) : undefined;
-  const { subscription: subId, lines, payments, ...rest } = inv;
+  const { subscription: subId, lines, payments, proration_date: prorationDate, ...rest } = inv;
   return j({
     ...rest, account_country: "GB", account_name: "Stripe stand-in", amount_overpaid: 0, amount_shipping: 0,
     application: null, auto_advance: inv.status === "open", automatic_tax: { enabled: false, liability: null, status: null },
@@ -96,7 +96,10 @@ export function invoice(store: Store, inv: Invoice): JsonObject {
     hosted_invoice_url: null, invoice_pdf: null, issuer: { type: "self" }, last_finalization_error: null, livemode: false,
     lines: listOf(`/v1/invoices/${inv.id}/lines`, lines.map((l) => line(store, inv.id, l))),
     parent: subId
-      ? { type: "subscription_details", quote_details: null, subscription_details: { metadata: sub?.metadata ?? {}, subscription: subId } }
+      ? {
+          type: "subscription_details", quote_details: null,
+          subscription_details: { metadata: sub?.metadata ?? {}, subscription: subId, ...(prorationDate === undefined ? {} : { subscription_proration_date: prorationDate }) },
+        }
       : null,
     // Stripe includes `payments` only when expanded; the stand-in always does (documented in README.md).
     payments: listOf(`/v1/invoice_payments?invoice=${inv.id}`, payments.map((p) => j(p))),

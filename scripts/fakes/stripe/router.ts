@@ -33,7 +33,7 @@ function send(res: ServerResponse, status: number, body: unknown, headers: Recor
   res.end(JSON.stringify(body, null, 2));
 }
 
-interface Replay { status: number; body: unknown; at: number }
+interface Replay { status: number; body: unknown; at: number; params: string }
 
 export function createHandler(fake: Fake, apiKey: string, routes: Route[], fakeRoutes: FakeRoute) {
   // Idempotency-Key (Stripe docs: "Idempotent requests"): the SDK sends one with each POST and reuses it
@@ -45,9 +45,15 @@ export function createHandler(fake: Fake, apiKey: string, routes: Route[], fakeR
     if (key !== apiKey) throw badKey(key);
     const idem = method === "POST" ? req.headers["idempotency-key"] : undefined;
     const replayKey = typeof idem === "string" ? `${path} ${idem}` : null;
-    const seen = replayKey ? replays.get(replayKey) : undefined;
-    if (seen) return send(res, seen.status, seen.body, { "idempotent-replayed": "true" });
     const body = method === "POST" ? await readBody(req) : query;
+    const seen = replayKey ? replays.get(replayKey) : undefined;
+    if (seen && seen.params !== body) {
+      throw new StripeFakeError(400, {
+        type: "idempotency_error",
+        message: `Keys for idempotent requests can only be used with the same parameters they were first used with. Try using a key other than '${String(idem)}' if you meant to execute a different request.`,
+      });
+    }
+    if (seen) return send(res, seen.status, seen.body, { "idempotent-replayed": "true" });
     for (const [m, pattern, handler] of routes) {
       const match = m === method ? pattern.exec(path) : null;
       if (!match) continue;
@@ -63,7 +69,7 @@ export function createHandler(fake: Fake, apiKey: string, routes: Route[], fakeR
         fake.store.save();
       }
       if (replayKey) {
-        replays.set(replayKey, { status, body: out, at: Date.now() });
+        replays.set(replayKey, { status, body: out, at: Date.now(), params: body });
         for (const [k, r] of replays) if (r.at < Date.now() - 86_400_000) replays.delete(k);
       }
       return send(res, status, out, { "stripe-version": String(req.headers["stripe-version"] ?? "") });

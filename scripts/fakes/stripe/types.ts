@@ -85,6 +85,8 @@ export interface Invoice {
   attempt_count: number; attempted: boolean; next_payment_attempt: number | null;
   period_start: number; period_end: number; metadata: Metadata; payments: InvoicePayment[];
   status_transitions: { finalized_at: number | null; paid_at: number | null; voided_at: number | null; marked_uncollectible_at: number | null };
+  /** Previews only: the moment prorations were computed for (parent.subscription_details.subscription_proration_date). */
+  proration_date?: number;
 }
 
 export interface CardError { code: string; decline_code: string; message: string }

@@ -149,6 +149,7 @@ const preview: Handler = ({ fake, params }) => {
     sub, lines: previewLines(fake, sub, pc, behavior), id: `upcoming_${newId("in")}`,
     reason: pc.reset || behavior === "always_invoice" ? "subscription_update" : "subscription_cycle",
   });
+  if (pc.prorations.length > 0 || pc.reset) draft.proration_date = t;
   if (!pc.reset && !(behavior === "always_invoice" && pc.prorations.length > 0)) {
     // A renewal preview: it would be made, and charged, at the end of the current period.
     const { start, end } = currentPeriod(sub);
