@@ -4,6 +4,7 @@ import { env } from "@/lib/env";
 import { mailerFromEnv, sendOutboxEmail, type Mailer } from "@/lib/mail/send";
 import { SEND_EMAIL_QUEUE, type SendEmailJob } from "./queue";
 import { sweepOutbox } from "./sweeper";
+import { sendDueReminders } from "./reminders";
 
 export interface RetryPolicy {
   /** Retries after the first attempt. */
@@ -22,12 +23,18 @@ export interface WorkerOptions {
   retry?: RetryPolicy;
   sweep?: { intervalSeconds: number; minAgeSeconds: number };
   log?: (line: string) => void;
+  /** Due-date reminders (lib/jobs/reminders.ts): how often to look; they are checked once at start too. */
+  reminders?: { intervalSeconds: number };
+  /** The time reminders are judged at; tests pass a clock they can move. */
+  clock?: () => Date;
 }
 
 export interface RunningWorker {
   stop: () => Promise<void>;
   /** One sweep now, whatever the rows' age; returns how many rows were queued again. */
   sweepNow: () => Promise<number>;
+  /** One reminder pass now, at the worker's clock; returns the dedupe keys it queued. */
+  remindNow: () => Promise<string[]>;
 }
 
 // 5 s doubling ten times: the last retry comes one to three hours after the first try, long enough
@@ -83,12 +90,27 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
   const requeued = await sweepWith(0);
   log(`sending e-mail (${concurrency} at a time); ${requeued} waiting message(s) queued again`);
 
+  const clock = options.clock ?? (() => new Date());
+  const remind = () => sendDueReminders(db, clock());
+  const reminderTimer = setInterval(() => {
+    remind().catch((error: unknown) => log(`reminders failed: ${String(error)}`));
+  }, (options.reminders?.intervalSeconds ?? 60) * 1000);
+  reminderTimer.unref();
+  // Reminders missed while no worker ran go out now; each key can only be queued once.
+  const reminded = await remind().catch((error: unknown) => {
+    log(`reminders failed: ${String(error)}`);
+    return [];
+  });
+  if (reminded.length) log(`${reminded.length} due-date reminder(s) queued`);
+
   let stopping: Promise<void> | undefined;
   const running: RunningWorker = {
     sweepNow: () => sweepWith(0),
+    remindNow: remind,
     stop: () => {
       stopping ??= (async () => {
         clearInterval(timer);
+        clearInterval(reminderTimer);
         // Graceful: jobs in hand finish (or time out and are retried later), no new ones are fetched.
         await boss.stop({ graceful: true, wait: true, timeout: 20_000 });
         await close();
