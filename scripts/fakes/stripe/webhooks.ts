@@ -14,6 +14,7 @@ import { newId, type Store } from "./state";
 import type { EventRecord, JsonObject, Stored } from "./types";
 
 export const MAX_ATTEMPTS = 8;
+const KEEP_EVENTS = 5000;
 
 export function signatureHeader(payload: string, secret: string, t: number): string {
   const v1 = createHmac("sha256", secret).update(`${t}.${payload}`, "utf8").digest("hex");
@@ -52,9 +53,18 @@ export class Webhooks {
       },
     };
     this.store.events.push(event);
+    this.trim();
     this.opts.onEvent?.(event);
     this.kick();
     return event;
+  }
+
+  /** Keeps the state file small on a long-running `npm start`: the oldest finished events go first. */
+  private trim(): void {
+    const events = this.store.events;
+    let excess = events.length - KEEP_EVENTS;
+    if (excess <= 0) return;
+    this.store.events = events.filter((e) => !(excess > 0 && e.delivery.status !== "pending" && excess-- > 0));
   }
 
   /** Resolves once nothing is due now (later retries may still be waiting). */
