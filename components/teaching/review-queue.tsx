@@ -1,0 +1,34 @@
+"use client";
+// The review queue (issue 6 item 4): check-ins waiting on the teacher's assignments, oldest first.
+import { useQuery } from "@tanstack/react-query";
+import { useState } from "react";
+import { Alert } from "@/components/ui/alert";
+import { Card } from "@/components/ui/card";
+import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
+import type { ReviewItem } from "@/lib/teaching/teach-api-types";
+import { REVIEW_KEY } from "./query-keys";
+import { ReviewCard } from "./review-card";
+
+export function ReviewQueue() {
+  const [last, setLast] = useState<string | null>(null);
+  const q = useQuery({ queryKey: REVIEW_KEY, queryFn: () => fetchJson<{ checkIns: ReviewItem[] }>("/api/teach/review"), staleTime: 0 });
+  return (
+    <div className="flex flex-col gap-4">
+      {last ? <Alert tone="success" live>{last}</Alert> : null}
+      {q.isPending ? <p className="text-bark">Loading the check-ins…</p> : null}
+      {q.isError ? <Alert tone="error">{errorWords(q.error)}</Alert> : null}
+      {q.data && !q.data.checkIns.length ? (
+        <Card tone="warm" className="max-w-prose">
+          <p>Nothing waiting: every check-in has been reviewed.</p>
+        </Card>
+      ) : null}
+      {q.data?.checkIns.length ? (
+        <ul className="flex flex-col gap-4" aria-label="Check-ins waiting">
+          {q.data.checkIns.map((item) => (
+            <ReviewCard key={item.checkInId} item={item} onReviewed={setLast} />
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
