@@ -31,6 +31,7 @@ export async function seed(db: Db): Promise<{ people: number }> {
   }
   await (await import("./seed-catalogue")).seedCatalogue(db); // demo courses and tunes (issue 5, item 8)
   await (await import("./seed-progress")).seedProgress(db); // demo ladder progress (issue 5)
+  await (await import("./seed-data/billing")).seedBilling(db); // plans and a year of billing, also in the Stripe stand-in (issue 7)
   const rows = await db.select({ n: sql<number>`count(*)::int` }).from(users);
   return { people: rows[0].n };
 }

@@ -1,7 +1,7 @@
 // The admin money tables (issue 7 item 6): payments, memberships and enrolments, each sorted,
 // filtered and paged here in SQL (never in the browser), plus keyset batches for the streamed CSV
 // export and the revenue by month.
-import { and, asc, eq, sql, type SQL } from "drizzle-orm";
+import { and, asc, eq, gte, sql, type SQL } from "drizzle-orm";
 import type { AnyPgColumn } from "drizzle-orm/pg-core";
 import type { Tx as Db } from "./auth";
 import { courses, enrolments, payments, plans, refunds, subscriptions, users } from "../schema";
@@ -152,7 +152,7 @@ const ENROLMENT_SORT: Record<EnrolmentsQuery["sort"], SortKey> = {
 
 // The member's newest subscription says where their membership stands beside each enrolment.
 const latestSub = (col: SQL) =>
-  sql<string | null>`(select ${col} from ${subscriptions} s join ${plans} pl on pl.id = s.plan_id where s.user_id = ${enrolments.userId} order by s.started_at desc limit 1)`;
+  sql<string | null>`(select ${col} from ${subscriptions} s join ${plans} pl on pl.id = s.plan_id where s.user_id = "enrolments"."user_id" order by s.started_at desc limit 1)`;
 
 const enrolmentCols = {
   id: enrolments.id,
@@ -241,12 +241,12 @@ export async function revenueByMonth(db: Db, since: Date): Promise<RevenueMonth[
         renewals: sql<number>`coalesce(sum(${payments.amount}) filter (where ${payments.kind} <> 'new'), 0)::int`,
       })
       .from(payments)
-      .where(and(sql`${payments.status} <> 'failed'`, sql`${payments.createdAt} >= ${since}`))
+      .where(and(sql`${payments.status} <> 'failed'`, gte(payments.createdAt, since)))
       .groupBy(sql`1`, payments.currency),
     db
       .select({ month: month(refunds.createdAt), currency: refunds.currency, refunds: sql<number>`(-sum(${refunds.amount}))::int` })
       .from(refunds)
-      .where(sql`${refunds.createdAt} >= ${since}`)
+      .where(gte(refunds.createdAt, since))
       .groupBy(sql`1`, refunds.currency),
   ]);
   const out = new Map<string, RevenueMonth>();
