@@ -122,6 +122,7 @@ export const checkoutSessionObject = z.object({
 
 export const chargeObject = z.object({
   id: z.string(),
+  customer: nullableId,
   payment_intent: nullableId,
   invoice: nullableId,
   currency: z.string().length(3),

@@ -3,6 +3,8 @@ import { payments, users } from "@/db/schema";
 import { enqueueEmail } from "@/lib/mail/outbox";
 import { formatMoney } from "../money";
 import { chargeObject } from "../objects";
+import type { Stripe } from "../stripe";
+import { invoicePaid } from "./invoice-paid";
 import { recordRefund, RefundError } from "../refunds";
 import type { Handler } from "./types";
 
@@ -18,6 +20,8 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
   const ref = pi ? { stripePaymentIntentId: pi } : inv ? { stripeInvoiceId: inv } : null;
   if (!ref) return;
   const which = pi ? eq(payments.stripePaymentIntentId, pi) : eq(payments.stripeInvoiceId, inv ?? "");
+  const [known] = await db.select({ id: payments.id }).from(payments).where(which).limit(1);
+  if (!known && pi && charge.customer) await recordPaidInvoice(db, stripe, event.created, charge.customer, pi);
   for (const r of list) {
     if (r.status && r.status !== "succeeded" && r.status !== "pending") continue;
     const reason = r.metadata?.reason ?? (r.reason ? r.reason.replaceAll("_", " ") : "Refunded");
@@ -46,3 +50,17 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
     });
   }
 };
+
+/**
+ * The refund overtook its invoice.paid event (webhooks arrive in any order): the invoice this payment
+ * intent paid is read from Stripe and recorded first, exactly as invoice.paid would record it.
+ */
+async function recordPaidInvoice(db: Parameters<Handler>[0], stripe: Stripe, created: number, customer: string, paymentIntent: string): Promise<void> {
+  for await (const inv of stripe.invoices.list({ customer, limit: 100 })) {
+    const pis = (inv.payments?.data ?? []).map((p) => p.payment.payment_intent);
+    if (inv.status === "paid" && pis.some((x) => (typeof x === "string" ? x : x?.id) === paymentIntent)) {
+      await invoicePaid(db, { id: `replay:${inv.id}`, type: "invoice.paid", created, data: { object: inv } }, stripe);
+      return;
+    }
+  }
+}

@@ -1,0 +1,34 @@
+"use client";
+// After Stripe's hosted page: waits until the webhook has written the membership, then goes to the
+// course ladder. It only reads (GET /api/billing); the membership is written by the webhook alone.
+import { useEffect, useState } from "react";
+import { useRouter } from "next/navigation";
+import { useQuery } from "@tanstack/react-query";
+import { Alert } from "@/components/ui/alert";
+import type { BillingSummary } from "@/lib/billing/account";
+import { fetchJson } from "@/lib/catalogue/fetch-json";
+
+const PATIENCE_MS = 60_000;
+
+export function WelcomeWait({ course }: { course: string | null }) {
+  const router = useRouter();
+  const [started] = useState(() => Date.now());
+  const summary = useQuery({
+    queryKey: ["billing"],
+    queryFn: () => fetchJson<BillingSummary>("/api/billing"),
+    refetchInterval: (q) => (q.state.data?.membership?.good || Date.now() - started > PATIENCE_MS ? false : 1000),
+  });
+  const good = summary.data?.membership?.good === true;
+  useEffect(() => {
+    if (good) router.replace(course ? `/learn/courses/${encodeURIComponent(course)}` : "/learn/billing?welcome=1");
+  }, [good, course, router]);
+  if (good) return <p role="status">Your membership is active. Taking you to your course…</p>;
+  if (Date.now() - started > PATIENCE_MS && !summary.isFetching) {
+    return (
+      <Alert tone="warning" title="Still waiting for the payment confirmation">
+        Stripe has not confirmed the payment yet. This page will not charge you again; check the billing page in a few minutes.
+      </Alert>
+    );
+  }
+  return <p role="status">Thank you. Confirming your payment with Stripe…</p>;
+}
