@@ -12,7 +12,13 @@ import type { AssignmentView } from "@/lib/teaching/teach-api-types";
 import { ASSIGNMENTS_KEY } from "./query-keys";
 import { UnlockRuleFields, type UnlockRule } from "./unlock-rule-fields";
 
-export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () => void }) {
+export function AssignmentEdit({
+  a,
+  onDone,
+}: {
+  a: AssignmentView;
+  onDone: () => void;
+}) {
   const qc = useQueryClient();
   const [due, setDue] = useState(a.dueLocal);
   const [rule, setRule] = useState<UnlockRule>(a.unlockRule);
@@ -22,7 +28,12 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
     mutationFn: () =>
       fetchJson<AssignmentView>(`/api/teach/assignments/${a.id}`, {
         method: "PATCH",
-        body: { dueLocal: due, unlockRule: rule, unlockMinutes: rule === "self_check_in" ? minutes : null, note },
+        body: {
+          dueLocal: due,
+          unlockRule: rule,
+          unlockMinutes: rule === "self_check_in" ? minutes : null,
+          note,
+        },
       }),
     onSuccess: async () => {
       await qc.invalidateQueries({ queryKey: ASSIGNMENTS_KEY });
@@ -36,18 +47,58 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
   };
   const id = `edit-${a.id}`;
   return (
-    <form onSubmit={submit} className="mt-4 flex flex-col gap-4 border-t border-line pt-4" noValidate aria-label={`Edit ${a.tune.title}`}>
-      {save.isError ? <Alert tone="error" live>{errorWords(save.error)}</Alert> : null}
-      <Field id={`${id}-due`} label="Due" hint={`Date and time in ${a.dueZone}.`} error={errors.dueLocal}>
-        {(c) => <Input {...c} type="datetime-local" value={due} onChange={(e) => setDue(e.target.value)} />}
+    <form
+      onSubmit={submit}
+      className="mt-4 flex flex-col gap-4 border-t border-line pt-4"
+      noValidate
+      aria-label={`Edit ${a.tune.title}`}
+    >
+      {save.isError ? (
+        <Alert tone="error" live>
+          {errorWords(save.error)}
+        </Alert>
+      ) : null}
+      <Field
+        id={`${id}-due`}
+        label="Due"
+        hint={`Date and time in ${a.dueZone}.`}
+        error={errors.dueLocal}
+      >
+        {(c) => (
+          <Input
+            {...c}
+            type="datetime-local"
+            value={due}
+            onChange={(e) => setDue(e.target.value)}
+          />
+        )}
       </Field>
-      <UnlockRuleFields idPrefix={id} rule={rule} minutes={minutes} onRule={setRule} onMinutes={setMinutes} errors={errors} />
+      <UnlockRuleFields
+        idPrefix={id}
+        rule={rule}
+        minutes={minutes}
+        onRule={setRule}
+        onMinutes={setMinutes}
+        errors={errors}
+      />
       <Field id={`${id}-note`} label="Note to the students" error={errors.note}>
-        {(c) => <Textarea {...c} rows={3} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
+        {(c) => (
+          <Textarea
+            {...c}
+            rows={3}
+            value={note}
+            onChange={(e) => setNote(e.target.value)}
+            maxLength={2000}
+          />
+        )}
       </Field>
       <div className="flex gap-2">
-        <Button type="submit" disabled={save.isPending}>{save.isPending ? "Saving…" : "Save changes"}</Button>
-        <Button variant="quiet" onClick={onDone}>Cancel</Button>
+        <Button type="submit" disabled={save.isPending}>
+          {save.isPending ? "Saving…" : "Save changes"}
+        </Button>
+        <Button variant="quiet" onClick={onDone}>
+          Cancel
+        </Button>
       </div>
     </form>
   );

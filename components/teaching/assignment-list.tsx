@@ -10,8 +10,13 @@ import { AssignmentCard } from "./assignment-card";
 import { ASSIGNMENTS_KEY } from "./query-keys";
 
 export function AssignmentList() {
-  const q = useQuery({ queryKey: ASSIGNMENTS_KEY, queryFn: () => fetchJson<{ assignments: AssignmentView[] }>("/api/teach/assignments") });
-  if (q.isPending) return <p className="text-bark">Loading your assignments…</p>;
+  const q = useQuery({
+    queryKey: ASSIGNMENTS_KEY,
+    queryFn: () =>
+      fetchJson<{ assignments: AssignmentView[] }>("/api/teach/assignments"),
+  });
+  if (q.isPending)
+    return <p className="text-bark">Loading your assignments…</p>;
   if (q.isError) return <Alert tone="error">{errorWords(q.error)}</Alert>;
   const list = q.data.assignments;
   if (!list.length) {

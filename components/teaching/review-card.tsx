@@ -16,12 +16,22 @@ import { RecordingPlayer } from "./recording-player";
 type Outcome = "signed_off" | "needs_more_time";
 type Result = { openedStage: number | null };
 
-export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed: (words: string) => void }) {
+export function ReviewCard({
+  item,
+  onReviewed,
+}: {
+  item: ReviewItem;
+  onReviewed: (words: string) => void;
+}) {
   const qc = useQueryClient();
   const id = useId();
   const [feedback, setFeedback] = useState("");
   const review = useMutation({
-    mutationFn: (outcome: Outcome) => fetchJson<Result>(`/api/teach/review/${item.checkInId}`, { method: "POST", body: { outcome, feedback } }),
+    mutationFn: (outcome: Outcome) =>
+      fetchJson<Result>(`/api/teach/review/${item.checkInId}`, {
+        method: "POST",
+        body: { outcome, feedback },
+      }),
     onSuccess: async (r, outcome) => {
       const who = item.student.name;
       onReviewed(
@@ -34,30 +44,75 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
     },
     // Someone else (another tab, an admin) reviewed it first: the queue is out of date.
     onError: (e) => {
-      if (e instanceof ApiError && e.status === 409) void qc.invalidateQueries({ queryKey: REVIEW_KEY });
+      if (e instanceof ApiError && e.status === 409)
+        void qc.invalidateQueries({ queryKey: REVIEW_KEY });
     },
   });
-  const when = new Date(item.createdAt).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short" });
+  const when = new Date(item.createdAt).toLocaleString("en-GB", {
+    dateStyle: "medium",
+    timeStyle: "short",
+  });
   const title = `${item.student.name}: ${item.tune.title}, stage ${item.stage.index} of ${item.stage.count}`;
   return (
     <Card as="li" aria-label={title} className="flex flex-col gap-4">
       <div>
         <CardTitle level={2}>{title}</CardTitle>
         <p className="text-small text-bark">
-          {item.stage.name} · checked in {when} · self-rating {item.selfRating} of 5 · {item.fromMemory ? "played from memory" : "played from the music"}
+          {item.stage.name} · checked in {when} · self-rating {item.selfRating}{" "}
+          of 5 ·{" "}
+          {item.fromMemory ? "played from memory" : "played from the music"}
         </p>
       </div>
-      <RecordingPlayer uploadId={item.uploadId} label={`Recording by ${item.student.name}`} />
+      <RecordingPlayer
+        uploadId={item.uploadId}
+        label={`Recording by ${item.student.name}`}
+      />
       {item.stage.abc ? (
-        <Notation abc={item.stage.abc} label={`${item.tune.title}, ${item.stage.name}`} className="rounded-knot border border-line p-2" />
+        <Notation
+          abc={item.stage.abc}
+          label={`${item.tune.title}, ${item.stage.name}`}
+          className="rounded-knot border border-line p-2"
+        />
       ) : null}
-      <Field id={`${id}-feedback`} label="Feedback" hint="The student reads this in their e-mail and on the assignment page." error={review.error instanceof ApiError ? review.error.fieldErrors.feedback : undefined}>
-        {(c) => <Textarea {...c} rows={3} value={feedback} maxLength={4000} onChange={(e) => setFeedback(e.target.value)} />}
+      <Field
+        id={`${id}-feedback`}
+        label="Feedback"
+        hint="The student reads this in their e-mail and on the assignment page."
+        error={
+          review.error instanceof ApiError
+            ? review.error.fieldErrors.feedback
+            : undefined
+        }
+      >
+        {(c) => (
+          <Textarea
+            {...c}
+            rows={3}
+            value={feedback}
+            maxLength={4000}
+            onChange={(e) => setFeedback(e.target.value)}
+          />
+        )}
       </Field>
-      {review.isError ? <Alert tone="error" live>{errorWords(review.error)}</Alert> : null}
+      {review.isError ? (
+        <Alert tone="error" live>
+          {errorWords(review.error)}
+        </Alert>
+      ) : null}
       <div className="flex flex-wrap gap-2">
-        <Button disabled={review.isPending} onClick={() => review.mutate("signed_off")}>Sign off</Button>
-        <Button variant="secondary" disabled={review.isPending} onClick={() => review.mutate("needs_more_time")}>Needs more time</Button>
+        <Button
+          disabled={review.isPending}
+          onClick={() => review.mutate("signed_off")}
+        >
+          Sign off
+        </Button>
+        <Button
+          variant="secondary"
+          disabled={review.isPending}
+          onClick={() => review.mutate("needs_more_time")}
+        >
+          Needs more time
+        </Button>
       </div>
     </Card>
   );

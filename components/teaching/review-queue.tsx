@@ -11,10 +11,18 @@ import { ReviewCard } from "./review-card";
 
 export function ReviewQueue() {
   const [last, setLast] = useState<string | null>(null);
-  const q = useQuery({ queryKey: REVIEW_KEY, queryFn: () => fetchJson<{ checkIns: ReviewItem[] }>("/api/teach/review"), staleTime: 0 });
+  const q = useQuery({
+    queryKey: REVIEW_KEY,
+    queryFn: () => fetchJson<{ checkIns: ReviewItem[] }>("/api/teach/review"),
+    staleTime: 0,
+  });
   return (
     <div className="flex flex-col gap-4">
-      {last ? <Alert tone="success" live>{last}</Alert> : null}
+      {last ? (
+        <Alert tone="success" live>
+          {last}
+        </Alert>
+      ) : null}
       {q.isPending ? <p className="text-bark">Loading the check-ins…</p> : null}
       {q.isError ? <Alert tone="error">{errorWords(q.error)}</Alert> : null}
       {q.data && !q.data.checkIns.length ? (

@@ -2,7 +2,15 @@
 // The roster (issue 6 item 4): student, last practice, open and overdue assignments, with sorting on
 // every column, a name filter and "only with overdue" (TanStack Table, headless).
 import { useQuery } from "@tanstack/react-query";
-import { flexRender, getCoreRowModel, getFilteredRowModel, getSortedRowModel, useReactTable, type ColumnFiltersState, type SortingState } from "@tanstack/react-table";
+import {
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnFiltersState,
+  type SortingState,
+} from "@tanstack/react-table";
 import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Input } from "@/components/ui/input";
@@ -16,8 +24,13 @@ const ARROWS = { asc: " ▲", desc: " ▼" } as const;
 const ARIA = { asc: "ascending", desc: "descending" } as const;
 
 export function RosterTable() {
-  const q = useQuery({ queryKey: ROSTER_KEY, queryFn: () => fetchJson<{ students: RosterRow[] }>("/api/teach/roster") });
-  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
+  const q = useQuery({
+    queryKey: ROSTER_KEY,
+    queryFn: () => fetchJson<{ students: RosterRow[] }>("/api/teach/roster"),
+  });
+  const [sorting, setSorting] = useState<SortingState>([
+    { id: "name", desc: false },
+  ]);
   const [filters, setFilters] = useState<ColumnFiltersState>([]);
   const table = useReactTable({
     data: q.data?.students ?? [],
@@ -40,14 +53,28 @@ export function RosterTable() {
       <div className="flex flex-wrap items-end gap-4">
         <label className="flex flex-col gap-1.5 font-semibold">
           Filter by name
-          <Input type="search" value={(name?.getFilterValue() as string) ?? ""} onChange={(e) => name?.setFilterValue(e.target.value || undefined)} className="w-64 max-w-full" />
+          <Input
+            type="search"
+            value={(name?.getFilterValue() as string) ?? ""}
+            onChange={(e) => name?.setFilterValue(e.target.value || undefined)}
+            className="w-64 max-w-full"
+          />
         </label>
         <label className="flex min-h-11 items-center gap-2">
-          <input type="checkbox" className="size-5 accent-cedar" checked={Boolean(overdue?.getFilterValue())} onChange={(e) => overdue?.setFilterValue(e.target.checked || undefined)} />
+          <input
+            type="checkbox"
+            className="size-5 accent-cedar"
+            checked={Boolean(overdue?.getFilterValue())}
+            onChange={(e) =>
+              overdue?.setFilterValue(e.target.checked || undefined)
+            }
+          />
           Only students with overdue assignments
         </label>
       </div>
-      <TableShell caption={`${shown.length} of ${total} student${total === 1 ? "" : "s"}`}>
+      <TableShell
+        caption={`${shown.length} of ${total} student${total === 1 ? "" : "s"}`}
+      >
         <THead>
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>
@@ -55,7 +82,11 @@ export function RosterTable() {
                 const dir = h.column.getIsSorted();
                 return (
                   <Th key={h.id} aria-sort={dir ? ARIA[dir] : "none"}>
-                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold underline-offset-2 hover:underline">
+                    <button
+                      type="button"
+                      onClick={h.column.getToggleSortingHandler()}
+                      className="font-semibold underline-offset-2 hover:underline"
+                    >
                       {flexRender(h.column.columnDef.header, h.getContext())}
                       {dir ? ARROWS[dir] : ""}
                     </button>
@@ -69,13 +100,17 @@ export function RosterTable() {
           {shown.map((r) => (
             <tr key={r.id}>
               {r.getVisibleCells().map((c) => (
-                <Td key={c.id}>{flexRender(c.column.columnDef.cell, c.getContext())}</Td>
+                <Td key={c.id}>
+                  {flexRender(c.column.columnDef.cell, c.getContext())}
+                </Td>
               ))}
             </tr>
           ))}
           {!shown.length ? (
             <tr>
-              <Td colSpan={4} className="text-bark">No student matches the filters.</Td>
+              <Td colSpan={4} className="text-bark">
+                No student matches the filters.
+              </Td>
             </tr>
           ) : null}
         </TBody>

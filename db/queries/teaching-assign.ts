@@ -2,14 +2,35 @@
 // allowed is decided in lib/teaching/assignments.ts; these only read and write rows.
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
+import {
+  assignments,
+  assignmentStudents,
+  checkIns,
+  rosterEntries,
+  stageStates,
+  tunes,
+  users,
+} from "../schema";
 
 export type AssignmentRow = typeof assignments.$inferSelect;
 
 /** Those of `ids` the teacher may assign to: their roster, or any student for an admin (teacherId null). */
-export async function assignableStudents(db: Tx, teacherId: string | null, ids: string[]) {
-  const cols = { id: users.id, name: users.name, email: users.email, timeZone: users.timeZone };
-  if (teacherId === null) return db.select(cols).from(users).where(and(inArray(users.id, ids), eq(users.role, "student")));
+export async function assignableStudents(
+  db: Tx,
+  teacherId: string | null,
+  ids: string[],
+) {
+  const cols = {
+    id: users.id,
+    name: users.name,
+    email: users.email,
+    timeZone: users.timeZone,
+  };
+  if (teacherId === null)
+    return db
+      .select(cols)
+      .from(users)
+      .where(and(inArray(users.id, ids), eq(users.role, "student")));
   return db
     .select(cols)
     .from(rosterEntries)
@@ -17,16 +38,35 @@ export async function assignableStudents(db: Tx, teacherId: string | null, ids: 
     .where(and(eq(rosterEntries.teacherId, teacherId), inArray(users.id, ids)));
 }
 
-export async function insertAssignment(db: Tx, v: typeof assignments.$inferInsert): Promise<string> {
-  return (await db.insert(assignments).values(v).returning({ id: assignments.id }))[0].id;
+export async function insertAssignment(
+  db: Tx,
+  v: typeof assignments.$inferInsert,
+): Promise<string> {
+  return (
+    await db.insert(assignments).values(v).returning({ id: assignments.id })
+  )[0].id;
 }
 
-export async function insertAssignmentStudent(db: Tx, assignmentId: string, studentId: string): Promise<string> {
-  return (await db.insert(assignmentStudents).values({ assignmentId, studentId }).returning({ id: assignmentStudents.id }))[0].id;
+export async function insertAssignmentStudent(
+  db: Tx,
+  assignmentId: string,
+  studentId: string,
+): Promise<string> {
+  return (
+    await db
+      .insert(assignmentStudents)
+      .values({ assignmentId, studentId })
+      .returning({ id: assignmentStudents.id })
+  )[0].id;
 }
 
 /** Stage 1 open from now, the rest locked (shared design). */
-export async function insertStageStates(db: Tx, assignmentStudentId: string, count: number, now: Date): Promise<void> {
+export async function insertStageStates(
+  db: Tx,
+  assignmentStudentId: string,
+  count: number,
+  now: Date,
+): Promise<void> {
   const rows = Array.from({ length: count }, (_, i) => ({
     assignmentStudentId,
     stageIndex: i + 1,
@@ -36,49 +76,102 @@ export async function insertStageStates(db: Tx, assignmentStudentId: string, cou
   if (rows.length) await db.insert(stageStates).values(rows);
 }
 
-export async function findAssignment(db: Tx, id: string): Promise<AssignmentRow | null> {
-  return (await db.select().from(assignments).where(eq(assignments.id, id)))[0] ?? null;
+export async function findAssignment(
+  db: Tx,
+  id: string,
+): Promise<AssignmentRow | null> {
+  return (
+    (await db.select().from(assignments).where(eq(assignments.id, id)))[0] ??
+    null
+  );
 }
 
 /** The assignment row locked for an edit, so two edits (or an edit and a check-in) take turns. */
-export async function lockAssignment(db: Tx, id: string): Promise<AssignmentRow | null> {
-  return (await db.select().from(assignments).where(eq(assignments.id, id)).for("update"))[0] ?? null;
+export async function lockAssignment(
+  db: Tx,
+  id: string,
+): Promise<AssignmentRow | null> {
+  return (
+    (
+      await db
+        .select()
+        .from(assignments)
+        .where(eq(assignments.id, id))
+        .for("update")
+    )[0] ?? null
+  );
 }
 
-export async function updateAssignment(db: Tx, id: string, set: Partial<typeof assignments.$inferInsert>): Promise<void> {
+export async function updateAssignment(
+  db: Tx,
+  id: string,
+  set: Partial<typeof assignments.$inferInsert>,
+): Promise<void> {
   await db.update(assignments).set(set).where(eq(assignments.id, id));
 }
 
 export async function studentsOfAssignment(db: Tx, assignmentId: string) {
   return db
-    .select({ assignmentStudentId: assignmentStudents.id, studentId: users.id, name: users.name, email: users.email, timeZone: users.timeZone })
+    .select({
+      assignmentStudentId: assignmentStudents.id,
+      studentId: users.id,
+      name: users.name,
+      email: users.email,
+      timeZone: users.timeZone,
+    })
     .from(assignmentStudents)
     .innerJoin(users, eq(users.id, assignmentStudents.studentId))
     .where(eq(assignmentStudents.assignmentId, assignmentId))
     .orderBy(asc(users.name));
 }
 
-export async function countCheckIns(db: Tx, assignmentId: string): Promise<number> {
+export async function countCheckIns(
+  db: Tx,
+  assignmentId: string,
+): Promise<number> {
   const [row] = await db
     .select({ n: sql<number>`count(*)::int` })
     .from(checkIns)
     .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
-    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
+    .innerJoin(
+      assignmentStudents,
+      eq(assignmentStudents.id, stageStates.assignmentStudentId),
+    )
     .where(eq(assignmentStudents.assignmentId, assignmentId));
   return row?.n ?? 0;
 }
 
 /** Drops the stage rows of every student of the assignment (only before anyone checked in). */
-export async function deleteStageStates(db: Tx, assignmentId: string): Promise<void> {
-  const ids = db.select({ id: assignmentStudents.id }).from(assignmentStudents).where(eq(assignmentStudents.assignmentId, assignmentId));
-  await db.delete(stageStates).where(inArray(stageStates.assignmentStudentId, ids));
+export async function deleteStageStates(
+  db: Tx,
+  assignmentId: string,
+): Promise<void> {
+  const ids = db
+    .select({ id: assignmentStudents.id })
+    .from(assignmentStudents)
+    .where(eq(assignmentStudents.assignmentId, assignmentId));
+  await db
+    .delete(stageStates)
+    .where(inArray(stageStates.assignmentStudentId, ids));
 }
 
 /** A teacher's assignments (every one for an admin: teacherId null), newest due first, with each student's progress. */
-export async function listAssignments(db: Tx, teacherId: string | null, onlyId?: string) {
-  const where = and(teacherId === null ? undefined : eq(assignments.teacherId, teacherId), onlyId ? eq(assignments.id, onlyId) : undefined);
+export async function listAssignments(
+  db: Tx,
+  teacherId: string | null,
+  onlyId?: string,
+) {
+  const where = and(
+    teacherId === null ? undefined : eq(assignments.teacherId, teacherId),
+    onlyId ? eq(assignments.id, onlyId) : undefined,
+  );
   const heads = await db
-    .select({ a: assignments, tuneTitle: tunes.title, teacherName: users.name, teacherZone: users.timeZone })
+    .select({
+      a: assignments,
+      tuneTitle: tunes.title,
+      teacherName: users.name,
+      teacherZone: users.timeZone,
+    })
     .from(assignments)
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, assignments.teacherId))
@@ -98,13 +191,26 @@ export async function listAssignments(db: Tx, teacherId: string | null, onlyId?:
     })
     .from(assignmentStudents)
     .innerJoin(users, eq(users.id, assignmentStudents.studentId))
-    .leftJoin(stageStates, eq(stageStates.assignmentStudentId, assignmentStudents.id))
-    .where(inArray(assignmentStudents.assignmentId, heads.map((h) => h.a.id)))
+    .leftJoin(
+      stageStates,
+      eq(stageStates.assignmentStudentId, assignmentStudents.id),
+    )
+    .where(
+      inArray(
+        assignmentStudents.assignmentId,
+        heads.map((h) => h.a.id),
+      ),
+    )
     .groupBy(assignmentStudents.id, users.id)
     .orderBy(asc(users.name));
-  return heads.map((h) => ({ ...h, students: progress.filter((p) => p.assignmentId === h.a.id) }));
+  return heads.map((h) => ({
+    ...h,
+    students: progress.filter((p) => p.assignmentId === h.a.id),
+  }));
 }
-export type AssignmentListRow = Awaited<ReturnType<typeof listAssignments>>[number];
+export type AssignmentListRow = Awaited<
+  ReturnType<typeof listAssignments>
+>[number];
 
 /** What the assign form offers: the teacher's tunes (every tune for an admin) and students they may assign to. */
 export async function assignFormData(db: Tx, teacherId: string | null) {
@@ -116,7 +222,16 @@ export async function assignFormData(db: Tx, teacherId: string | null) {
   const cols = { id: users.id, name: users.name, timeZone: users.timeZone };
   const students =
     teacherId === null
-      ? await db.select(cols).from(users).where(eq(users.role, "student")).orderBy(asc(users.name))
-      : await db.select(cols).from(rosterEntries).innerJoin(users, eq(users.id, rosterEntries.studentId)).where(eq(rosterEntries.teacherId, teacherId)).orderBy(asc(users.name));
+      ? await db
+          .select(cols)
+          .from(users)
+          .where(eq(users.role, "student"))
+          .orderBy(asc(users.name))
+      : await db
+          .select(cols)
+          .from(rosterEntries)
+          .innerJoin(users, eq(users.id, rosterEntries.studentId))
+          .where(eq(rosterEntries.teacherId, teacherId))
+          .orderBy(asc(users.name));
   return { tunes: tuneRows, students };
 }

@@ -13,8 +13,13 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
   const rows = await waitingForReview(db, me.role === "admin" ? null : me.id);
   // Stages are worked out once per assignment: several students' check-ins often share one.
   const stagesOf = new Map<string, Promise<AssignmentStage[]>>();
-  const stages = (assignmentId: string, tuneId: string, plan: StagePlanJson | null) => {
-    if (!stagesOf.has(assignmentId)) stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
+  const stages = (
+    assignmentId: string,
+    tuneId: string,
+    plan: StagePlanJson | null,
+  ) => {
+    if (!stagesOf.has(assignmentId))
+      stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
     return stagesOf.get(assignmentId) as Promise<AssignmentStage[]>;
   };
   const out: ReviewItem[] = [];
@@ -27,7 +32,12 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
       student: { id: r.studentId, name: r.studentName },
       tune: { id: r.tuneId, title: r.tuneTitle },
       assignmentId: r.assignmentId,
-      stage: { index: r.stageIndex, name: stage?.name ?? `Stage ${r.stageIndex}`, abc: stage?.abc ?? "", count: all.length },
+      stage: {
+        index: r.stageIndex,
+        name: stage?.name ?? `Stage ${r.stageIndex}`,
+        abc: stage?.abc ?? "",
+        count: all.length,
+      },
       selfRating: r.selfRating,
       fromMemory: r.fromMemory,
       uploadId: r.uploadId,
@@ -39,7 +49,11 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
 export async function reviewCheckIn(
   db: Tx,
   me: Manager,
-  input: { checkInId: string; outcome: "signed_off" | "needs_more_time"; feedback: string },
+  input: {
+    checkInId: string;
+    outcome: "signed_off" | "needs_more_time";
+    feedback: string;
+  },
   now: Date,
 ): Promise<ApplyResult> {
   const checkIn = await findCheckIn(db, input.checkInId);

@@ -24,8 +24,16 @@ function wallParts(ms: number, zone: string): number[] {
     minute: "2-digit",
     second: "2-digit",
   }).formatToParts(new Date(ms));
-  const get = (t: Intl.DateTimeFormatPartTypes) => Number(parts.find((p) => p.type === t)?.value ?? 0);
-  return [get("year"), get("month"), get("day"), get("hour"), get("minute"), get("second")];
+  const get = (t: Intl.DateTimeFormatPartTypes) =>
+    Number(parts.find((p) => p.type === t)?.value ?? 0);
+  return [
+    get("year"),
+    get("month"),
+    get("day"),
+    get("hour"),
+    get("minute"),
+    get("second"),
+  ];
 }
 
 /** How far the zone's wall clock is ahead of UTC at that instant, in ms. */
@@ -56,7 +64,17 @@ export function instantToZonedLocal(instant: Date, zone: string): string {
 
 /** "Friday 11 December, 18:00" in the zone, as the teaching e-mails expect (lib/mail/types-teaching.ts). */
 export function dueForMail(instant: Date, zone: string): string {
-  const date = new Intl.DateTimeFormat("en-GB", { timeZone: zone, weekday: "long", day: "numeric", month: "long" }).format(instant);
-  const time = new Intl.DateTimeFormat("en-GB", { timeZone: zone, hour: "2-digit", minute: "2-digit", hourCycle: "h23" }).format(instant);
+  const date = new Intl.DateTimeFormat("en-GB", {
+    timeZone: zone,
+    weekday: "long",
+    day: "numeric",
+    month: "long",
+  }).format(instant);
+  const time = new Intl.DateTimeFormat("en-GB", {
+    timeZone: zone,
+    hour: "2-digit",
+    minute: "2-digit",
+    hourCycle: "h23",
+  }).format(instant);
   return `${date}, ${time}`;
 }

@@ -4,7 +4,11 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { emailOutbox } from "@/db/schema";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
-import { dueIn, teachingWorld, type TeachingWorld } from "./helpers/teaching-world";
+import {
+  dueIn,
+  teachingWorld,
+  type TeachingWorld,
+} from "./helpers/teaching-world";
 
 let w: TeachingWorld;
 let room: Awaited<ReturnType<TeachingWorld["classroom"]>>;
@@ -19,7 +23,13 @@ beforeAll(async () => {
 });
 afterAll(async () => w?.close());
 
-const body = (o: Record<string, unknown> = {}) => ({ tuneId: room.tuneId, studentIds: room.students.map((s) => s.id), dueLocal: dueIn(7), note: "Mind the rolls.", ...o });
+const body = (o: Record<string, unknown> = {}) => ({
+  tuneId: room.tuneId,
+  studentIds: room.students.map((s) => s.id),
+  dueLocal: dueIn(7),
+  note: "Mind the rolls.",
+  ...o,
+});
 type Refusal = { error: string; fieldErrors?: Record<string, string> };
 
 async function create(o: Record<string, unknown> = {}) {
@@ -32,109 +42,249 @@ describe("creating an assignment", () => {
   it("opens stage 1 for each student, locks the rest, and e-mails each student once", async () => {
     const made = await create();
     expect(made.assignmentStudentIds).toHaveLength(2);
-    for (const asId of made.assignmentStudentIds) expect(await w.states(asId)).toEqual(["open", "locked", "locked", "locked"]);
+    for (const asId of made.assignmentStudentIds)
+      expect(await w.states(asId)).toEqual([
+        "open",
+        "locked",
+        "locked",
+        "locked",
+      ]);
     for (const s of room.students) {
-      const mails = (await w.mailsTo(s.email)).filter((m) => m.template === "assignment-new");
-      const forThis = mails.filter((m) => made.assignmentStudentIds.some((id) => m.dedupeKey === `assignment-new:${id}`));
+      const mails = (await w.mailsTo(s.email)).filter(
+        (m) => m.template === "assignment-new",
+      );
+      const forThis = mails.filter((m) =>
+        made.assignmentStudentIds.some(
+          (id) => m.dedupeKey === `assignment-new:${id}`,
+        ),
+      );
       expect(forThis).toHaveLength(1);
-      expect(forThis[0].payload).toMatchObject({ studentName: s.name, note: "Mind the rolls." });
+      expect(forThis[0].payload).toMatchObject({
+        studentName: s.name,
+        note: "Mind the rolls.",
+      });
     }
-    const keys = await w.db.select({ k: emailOutbox.dedupeKey }).from(emailOutbox).where(eq(emailOutbox.template, "assignment-new"));
-    expect(keys.filter((k) => made.assignmentStudentIds.some((id) => k.k === `assignment-new:${id}`))).toHaveLength(2);
+    const keys = await w.db
+      .select({ k: emailOutbox.dedupeKey })
+      .from(emailOutbox)
+      .where(eq(emailOutbox.template, "assignment-new"));
+    expect(
+      keys.filter((k) =>
+        made.assignmentStudentIds.some((id) => k.k === `assignment-new:${id}`),
+      ),
+    ).toHaveLength(2);
   });
 
   it("takes the due date on the student's own wall clock when there is one student", async () => {
     await w.setUser(room.students[0].id, { timeZone: "America/New_York" });
-    const made = await create({ studentIds: [room.students[0].id], dueLocal: "2099-12-11T18:00" });
-    const view = (await (await w.call(ONE, "GET", { cookie, params: { id: made.id } })).json()) as AssignmentView;
+    const made = await create({
+      studentIds: [room.students[0].id],
+      dueLocal: "2099-12-11T18:00",
+    });
+    const view = (await (
+      await w.call(ONE, "GET", { cookie, params: { id: made.id } })
+    ).json()) as AssignmentView;
     // New York is UTC−5 in December (IANA time zone database).
     expect(view.dueAt).toBe("2099-12-11T23:00:00.000Z");
-    expect([view.dueLocal, view.dueZone]).toEqual(["2099-12-11T18:00", "America/New_York"]);
-    const mail = (await w.mailsTo(room.students[0].email)).find((m) => m.dedupeKey === `assignment-new:${made.assignmentStudentIds[0]}`);
-    expect(mail?.payload).toMatchObject({ dueLocal: "Friday 11 December, 18:00" });
+    expect([view.dueLocal, view.dueZone]).toEqual([
+      "2099-12-11T18:00",
+      "America/New_York",
+    ]);
+    const mail = (await w.mailsTo(room.students[0].email)).find(
+      (m) => m.dedupeKey === `assignment-new:${made.assignmentStudentIds[0]}`,
+    );
+    expect(mail?.payload).toMatchObject({
+      dueLocal: "Friday 11 December, 18:00",
+    });
     await w.setUser(room.students[0].id, { timeZone: "UTC" });
   });
 
   it("refuses a past due date, naming the field", async () => {
-    const res = await w.call(LIST, "POST", { cookie, body: body({ dueLocal: "2020-01-01T10:00" }) });
+    const res = await w.call(LIST, "POST", {
+      cookie,
+      body: body({ dueLocal: "2020-01-01T10:00" }),
+    });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.dueLocal).toMatch(/in the past/);
+    expect(((await res.json()) as Refusal).fieldErrors?.dueLocal).toMatch(
+      /in the past/,
+    );
   });
 
   it("refuses a student not on the roster", async () => {
     const stranger = await w.person("student");
-    const res = await w.call(LIST, "POST", { cookie, body: body({ studentIds: [room.students[0].id, stranger.id] }) });
+    const res = await w.call(LIST, "POST", {
+      cookie,
+      body: body({ studentIds: [room.students[0].id, stranger.id] }),
+    });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.studentIds).toBe("One of the chosen students is not on your roster.");
+    expect(((await res.json()) as Refusal).fieldErrors?.studentIds).toBe(
+      "One of the chosen students is not on your roster.",
+    );
   });
 
   it("refuses another teacher's tune like a missing one", async () => {
     const other = await w.person("teacher");
     const theirs = await w.tuneOf(other.id, "Not yours");
     for (const tuneId of [theirs, "00000000-0000-4000-8000-000000000000"]) {
-      const res = await w.call(LIST, "POST", { cookie, body: body({ tuneId }) });
+      const res = await w.call(LIST, "POST", {
+        cookie,
+        body: body({ tuneId }),
+      });
       expect(res.status).toBe(422);
-      expect(((await res.json()) as Refusal).fieldErrors?.tuneId).toBe("Choose one of your own tunes.");
+      expect(((await res.json()) as Refusal).fieldErrors?.tuneId).toBe(
+        "Choose one of your own tunes.",
+      );
     }
   });
 
   it("refuses self check-in without minutes, and a stage plan the tune can't take", async () => {
-    const res = await w.call(LIST, "POST", { cookie, body: body({ unlockRule: "self_check_in" }) });
+    const res = await w.call(LIST, "POST", {
+      cookie,
+      body: body({ unlockRule: "self_check_in" }),
+    });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.unlockMinutes).toMatch(/practice minutes/);
-    const bad = await w.call(LIST, "POST", { cookie, body: body({ stagePlan: { stages: [] } }) });
+    expect(((await res.json()) as Refusal).fieldErrors?.unlockMinutes).toMatch(
+      /practice minutes/,
+    );
+    const bad = await w.call(LIST, "POST", {
+      cookie,
+      body: body({ stagePlan: { stages: [] } }),
+    });
     expect(bad.status).toBe(400);
     expect(((await bad.json()) as Refusal).fieldErrors?.stagePlan).toBeTruthy();
     // The engine's own plan rule (lib/abc/stages.ts): every kind comes back by the last stage.
-    const short = { stages: [{ name: "Bare", adds: [] }, { name: "Bowing", adds: ["bowing"] }] };
-    const res2 = await w.call(LIST, "POST", { cookie, body: body({ stagePlan: short }) });
+    const short = {
+      stages: [
+        { name: "Bare", adds: [] },
+        { name: "Bowing", adds: ["bowing"] },
+      ],
+    };
+    const res2 = await w.call(LIST, "POST", {
+      cookie,
+      body: body({ stagePlan: short }),
+    });
     expect(res2.status).toBe(422);
-    expect(((await res2.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/never added back/);
+    expect(((await res2.json()) as Refusal).fieldErrors?.stagePlan).toMatch(
+      /never added back/,
+    );
   });
 
   it("builds the stages from a changed plan", async () => {
-    const plan = { stages: [{ name: "Bare tune", adds: [] }, { name: "Everything", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] }] };
-    const res = await w.call(LIST, "POST", { cookie, body: body({ stagePlan: plan }) });
+    const plan = {
+      stages: [
+        { name: "Bare tune", adds: [] },
+        {
+          name: "Everything",
+          adds: [
+            "bowing",
+            "ornaments",
+            "slides",
+            "fills",
+            "doubleStops",
+            "dynamics",
+            "articulation",
+            "fingerings",
+            "marks",
+          ],
+        },
+      ],
+    };
+    const res = await w.call(LIST, "POST", {
+      cookie,
+      body: body({ stagePlan: plan }),
+    });
     if (res.status !== 201) throw new Error(JSON.stringify(await res.json()));
     const made = (await res.json()) as { assignmentStudentIds: string[] };
-    expect(await w.states(made.assignmentStudentIds[0])).toEqual(["open", "locked"]);
+    expect(await w.states(made.assignmentStudentIds[0])).toEqual([
+      "open",
+      "locked",
+    ]);
   });
 });
 
 describe("editing and withdrawing", () => {
   it("changes due date, note and rule; refuses a past date; withdraws once", async () => {
     const made = await create();
-    const patch = (b: Record<string, unknown>) => w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: b });
-    const ok = await patch({ dueLocal: "2099-01-02T09:00", note: "New note", unlockRule: "self_check_in", unlockMinutes: 45 });
+    const patch = (b: Record<string, unknown>) =>
+      w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: b });
+    const ok = await patch({
+      dueLocal: "2099-01-02T09:00",
+      note: "New note",
+      unlockRule: "self_check_in",
+      unlockMinutes: 45,
+    });
     expect(ok.status).toBe(200);
-    expect(await ok.json()).toMatchObject({ dueAt: "2099-01-02T09:00:00.000Z", note: "New note", unlockRule: "self_check_in", unlockMinutes: 45 });
+    expect(await ok.json()).toMatchObject({
+      dueAt: "2099-01-02T09:00:00.000Z",
+      note: "New note",
+      unlockRule: "self_check_in",
+      unlockMinutes: 45,
+    });
     const past = await patch({ dueLocal: "2001-01-01T09:00" });
     expect(past.status).toBe(422);
-    expect(((await past.json()) as Refusal).fieldErrors?.dueLocal).toMatch(/in the past/);
+    expect(((await past.json()) as Refusal).fieldErrors?.dueLocal).toMatch(
+      /in the past/,
+    );
 
-    const gone = await w.call(ONE, "DELETE", { cookie, params: { id: made.id } });
+    const gone = await w.call(ONE, "DELETE", {
+      cookie,
+      params: { id: made.id },
+    });
     expect(gone.status).toBe(200);
     expect(((await gone.json()) as AssignmentView).status).toBe("withdrawn");
-    expect((await w.call(ONE, "DELETE", { cookie, params: { id: made.id } })).status).toBe(409);
+    expect(
+      (await w.call(ONE, "DELETE", { cookie, params: { id: made.id } })).status,
+    ).toBe(409);
     expect((await patch({ note: "too late" })).status).toBe(409);
   });
 
   it("refuses a new stage plan once someone has checked in", async () => {
     const made = await create();
     await w.checkIn(made.assignmentStudentIds[0]);
-    const plan = { stages: [{ name: "Bare tune", adds: [] }, { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] }] };
-    const res = await w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan } });
+    const plan = {
+      stages: [
+        { name: "Bare tune", adds: [] },
+        {
+          name: "All",
+          adds: [
+            "bowing",
+            "ornaments",
+            "slides",
+            "fills",
+            "doubleStops",
+            "dynamics",
+            "articulation",
+            "fingerings",
+            "marks",
+          ],
+        },
+      ],
+    };
+    const res = await w.call(ONE, "PATCH", {
+      cookie,
+      params: { id: made.id },
+      body: { stagePlan: plan },
+    });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/checked in already/);
+    expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(
+      /checked in already/,
+    );
   });
 
   it("lists only the teacher's own; another teacher gets 404 on one of them", async () => {
     const made = await create();
-    const list = (await (await w.call(LIST, "GET", { cookie })).json()) as { assignments: AssignmentView[] };
+    const list = (await (await w.call(LIST, "GET", { cookie })).json()) as {
+      assignments: AssignmentView[];
+    };
     expect(list.assignments.some((a) => a.id === made.id)).toBe(true);
     const other = await w.cookieFor((await w.person("teacher")).id);
-    const theirs = (await (await w.call(LIST, "GET", { cookie: other })).json()) as { assignments: AssignmentView[] };
+    const theirs = (await (
+      await w.call(LIST, "GET", { cookie: other })
+    ).json()) as { assignments: AssignmentView[] };
     expect(theirs.assignments).toEqual([]);
-    expect((await w.call(ONE, "GET", { cookie: other, params: { id: made.id } })).status).toBe(404);
+    expect(
+      (await w.call(ONE, "GET", { cookie: other, params: { id: made.id } }))
+        .status,
+    ).toBe(404);
   });
 });

@@ -4,9 +4,17 @@
 import { readFileSync } from "node:fs";
 import { and, asc, eq } from "drizzle-orm";
 import { teachWorld } from "./teach-world";
-import { assignmentStudents, checkIns, stageStates, uploads } from "@/db/schema";
+import {
+  assignmentStudents,
+  checkIns,
+  stageStates,
+  uploads,
+} from "@/db/schema";
 
-export const WICKER = readFileSync("tests/fixtures/teach/wicker-gate.abc", "utf8"); // an invented reel (this project's own), 4 stages
+export const WICKER = readFileSync(
+  "tests/fixtures/teach/wicker-gate.abc",
+  "utf8",
+); // an invented reel (this project's own), 4 stages
 
 /** A local date+time `days` ahead of now, as the form's datetime-local field writes it (UTC wall clock). */
 export function dueIn(days: number): string {
@@ -21,9 +29,14 @@ export async function teachingWorld() {
   const { applyTransition } = await import("@/lib/teaching/transitions");
   let n = 0;
 
-  async function tuneOf(teacherId: string, title = "Wicker Gate"): Promise<string> {
+  async function tuneOf(
+    teacherId: string,
+    title = "Wicker Gate",
+  ): Promise<string> {
     n += 1;
-    const saved = await createTune(w.db, teacherId, { abc: WICKER.replace("T:Wicker Gate", `T:${title} ${n}`) });
+    const saved = await createTune(w.db, teacherId, {
+      abc: WICKER.replace("T:Wicker Gate", `T:${title} ${n}`),
+    });
     if (!saved.ok) throw new Error("fixture tune refused");
     return saved.tuneId;
   }
@@ -44,41 +57,93 @@ export async function teachingWorld() {
 
   async function assign(
     teacher: { id: string },
-    o: { role?: "teacher" | "admin"; tuneId: string; studentIds: string[]; dueLocal?: string; unlockRule?: "teacher_sign_off" | "self_check_in"; unlockMinutes?: number | null },
+    o: {
+      role?: "teacher" | "admin";
+      tuneId: string;
+      studentIds: string[];
+      dueLocal?: string;
+      unlockRule?: "teacher_sign_off" | "self_check_in";
+      unlockMinutes?: number | null;
+    },
   ) {
     return createAssignment(
       w.db,
       { id: teacher.id, role: o.role ?? "teacher" },
-      { tuneId: o.tuneId, studentIds: o.studentIds, dueLocal: o.dueLocal ?? dueIn(7), stagePlan: null, unlockRule: o.unlockRule ?? "teacher_sign_off", unlockMinutes: o.unlockMinutes ?? null, note: "Slow first." },
+      {
+        tuneId: o.tuneId,
+        studentIds: o.studentIds,
+        dueLocal: o.dueLocal ?? dueIn(7),
+        stagePlan: null,
+        unlockRule: o.unlockRule ?? "teacher_sign_off",
+        unlockMinutes: o.unlockMinutes ?? null,
+        note: "Slow first.",
+      },
       new Date(),
     );
   }
 
   /** The states of one student's stages, in order. */
   async function states(assignmentStudentId: string): Promise<string[]> {
-    const rows = await w.db.select({ state: stageStates.state }).from(stageStates).where(eq(stageStates.assignmentStudentId, assignmentStudentId)).orderBy(asc(stageStates.stageIndex));
+    const rows = await w.db
+      .select({ state: stageStates.state })
+      .from(stageStates)
+      .where(eq(stageStates.assignmentStudentId, assignmentStudentId))
+      .orderBy(asc(stageStates.stageIndex));
     return rows.map((r) => r.state);
   }
 
-  async function stageId(assignmentStudentId: string, index: number): Promise<string> {
-    const [row] = await w.db.select({ id: stageStates.id }).from(stageStates).where(and(eq(stageStates.assignmentStudentId, assignmentStudentId), eq(stageStates.stageIndex, index)));
+  async function stageId(
+    assignmentStudentId: string,
+    index: number,
+  ): Promise<string> {
+    const [row] = await w.db
+      .select({ id: stageStates.id })
+      .from(stageStates)
+      .where(
+        and(
+          eq(stageStates.assignmentStudentId, assignmentStudentId),
+          eq(stageStates.stageIndex, index),
+        ),
+      );
     return row.id;
   }
 
   /** A recording as the upload flow leaves it: stored, the student's own, for that assignment. */
-  async function storedUpload(studentId: string, assignmentStudentId: string, stageIndex = 1): Promise<string> {
+  async function storedUpload(
+    studentId: string,
+    assignmentStudentId: string,
+    stageIndex = 1,
+  ): Promise<string> {
     n += 1;
     const [row] = await w.db
       .insert(uploads)
-      .values({ ownerId: studentId, storageKey: `fixture/${assignmentStudentId}/${n}.ogg`, contentType: "audio/ogg", sizeBytes: 1000, assignmentStudentId, stageIndex, status: "stored" })
+      .values({
+        ownerId: studentId,
+        storageKey: `fixture/${assignmentStudentId}/${n}.ogg`,
+        contentType: "audio/ogg",
+        sizeBytes: 1000,
+        assignmentStudentId,
+        stageIndex,
+        status: "stored",
+      })
       .returning({ id: uploads.id });
     return row.id;
   }
 
   /** The student checks in on stage `index` with a fresh stored recording; returns the check-in id. */
-  async function checkIn(assignmentStudentId: string, index = 1): Promise<string> {
-    const [as] = await w.db.select({ studentId: assignmentStudents.studentId }).from(assignmentStudents).where(eq(assignmentStudents.id, assignmentStudentId));
-    const uploadId = await storedUpload(as.studentId, assignmentStudentId, index);
+  async function checkIn(
+    assignmentStudentId: string,
+    index = 1,
+  ): Promise<string> {
+    const [as] = await w.db
+      .select({ studentId: assignmentStudents.studentId })
+      .from(assignmentStudents)
+      .where(eq(assignmentStudents.id, assignmentStudentId));
+    const uploadId = await storedUpload(
+      as.studentId,
+      assignmentStudentId,
+      index,
+    );
     const r = await applyTransition(w.db, {
       stageStateId: await stageId(assignmentStudentId, index),
       transition: "checkIn",
@@ -93,7 +158,17 @@ export async function teachingWorld() {
     return (await w.db.select().from(checkIns).where(eq(checkIns.id, id)))[0];
   }
 
-  return { ...w, tuneOf, classroom, assign, states, stageId, storedUpload, checkIn, checkInRow };
+  return {
+    ...w,
+    tuneOf,
+    classroom,
+    assign,
+    states,
+    stageId,
+    storedUpload,
+    checkIn,
+    checkInRow,
+  };
 }
 
 export type TeachingWorld = Awaited<ReturnType<typeof teachingWorld>>;

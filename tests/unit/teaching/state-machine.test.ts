@@ -1,18 +1,54 @@
 import { describe, expect, it } from "vitest";
-import { decide, TRANSITIONS, type Actor, type DecideContext, type StageState, type Transition } from "@/lib/teaching/state-machine";
+import {
+  decide,
+  TRANSITIONS,
+  type Actor,
+  type DecideContext,
+  type StageState,
+  type Transition,
+} from "@/lib/teaching/state-machine";
 
 // Every transition × every state × every kind of person (issue 6 item 6, shared design's state machine).
 type Who = "owner" | "otherStudent" | "teacher" | "otherTeacher" | "admin";
 const ACTORS: Record<Who, Actor> = {
-  owner: { id: "s1", role: "student", isStudentOwner: true, isAssignmentTeacher: false },
-  otherStudent: { id: "s2", role: "student", isStudentOwner: false, isAssignmentTeacher: false },
-  teacher: { id: "t1", role: "teacher", isStudentOwner: false, isAssignmentTeacher: true },
-  otherTeacher: { id: "t2", role: "teacher", isStudentOwner: false, isAssignmentTeacher: false },
-  admin: { id: "a1", role: "admin", isStudentOwner: false, isAssignmentTeacher: false },
+  owner: {
+    id: "s1",
+    role: "student",
+    isStudentOwner: true,
+    isAssignmentTeacher: false,
+  },
+  otherStudent: {
+    id: "s2",
+    role: "student",
+    isStudentOwner: false,
+    isAssignmentTeacher: false,
+  },
+  teacher: {
+    id: "t1",
+    role: "teacher",
+    isStudentOwner: false,
+    isAssignmentTeacher: true,
+  },
+  otherTeacher: {
+    id: "t2",
+    role: "teacher",
+    isStudentOwner: false,
+    isAssignmentTeacher: false,
+  },
+  admin: {
+    id: "a1",
+    role: "admin",
+    isStudentOwner: false,
+    isAssignmentTeacher: false,
+  },
 };
 const STATES: StageState[] = ["locked", "open", "checked_in", "signed_off"];
 
-const ctx = (state: StageState, who: Who, o: Partial<DecideContext> = {}): DecideContext => ({
+const ctx = (
+  state: StageState,
+  who: Who,
+  o: Partial<DecideContext> = {},
+): DecideContext => ({
   state,
   actor: ACTORS[who],
   assignmentStatus: "active",
@@ -23,7 +59,12 @@ const ctx = (state: StageState, who: Who, o: Partial<DecideContext> = {}): Decid
 });
 
 /** The allowed cells of the table: transition → state → who → resulting state. Everything else is refused. */
-const ALLOWED: Partial<Record<Transition, Partial<Record<StageState, Partial<Record<Who, StageState>>>>>> = {
+const ALLOWED: Partial<
+  Record<
+    Transition,
+    Partial<Record<StageState, Partial<Record<Who, StageState>>>>
+  >
+> = {
   checkIn: { open: { owner: "checked_in" } },
   withdraw: { checked_in: { owner: "open" } },
   signOff: { checked_in: { teacher: "signed_off", admin: "signed_off" } },
@@ -43,8 +84,12 @@ describe("decide: the whole table", () => {
             expect(d.ok).toBe(false);
             // Strangers to the assignment learn nothing (404); the wrong person gets 403; the right person in the wrong state 409.
             const stranger = who === "otherStudent" || who === "otherTeacher";
-            const rightPerson = t === "checkIn" || t === "withdraw" ? who === "owner" : who === "teacher" || who === "admin";
-            if (!d.ok) expect(d.status).toBe(stranger ? 404 : rightPerson ? 409 : 403);
+            const rightPerson =
+              t === "checkIn" || t === "withdraw"
+                ? who === "owner"
+                : who === "teacher" || who === "admin";
+            if (!d.ok)
+              expect(d.status).toBe(stranger ? 404 : rightPerson ? 409 : 403);
             if (!d.ok) expect(d.message.length).toBeGreaterThan(10);
           }
         });
@@ -55,25 +100,54 @@ describe("decide: the whole table", () => {
 
 describe("decide: reasons", () => {
   it("refuses a check-in on a locked stage with the state named", () => {
-    expect(decide("checkIn", ctx("locked", "owner"))).toEqual({ ok: false, status: 409, message: "You can't check in: this stage is still locked." });
+    expect(decide("checkIn", ctx("locked", "owner"))).toEqual({
+      ok: false,
+      status: 409,
+      message: "You can't check in: this stage is still locked.",
+    });
   });
   it("refuses a double check-in", () => {
-    expect(decide("checkIn", ctx("checked_in", "owner"))).toMatchObject({ ok: false, status: 409, message: expect.stringMatching(/already checked in/) });
+    expect(decide("checkIn", ctx("checked_in", "owner"))).toMatchObject({
+      ok: false,
+      status: 409,
+      message: expect.stringMatching(/already checked in/),
+    });
   });
   it("refuses a sign-off of a stage not checked in", () => {
-    expect(decide("signOff", ctx("open", "teacher"))).toMatchObject({ ok: false, status: 409, message: expect.stringMatching(/no check-in to review/) });
+    expect(decide("signOff", ctx("open", "teacher"))).toMatchObject({
+      ok: false,
+      status: 409,
+      message: expect.stringMatching(/no check-in to review/),
+    });
   });
   it("refuses a double sign-off", () => {
-    expect(decide("signOff", ctx("signed_off", "teacher"))).toMatchObject({ ok: false, status: 409, message: "This stage has already been signed off." });
+    expect(decide("signOff", ctx("signed_off", "teacher"))).toMatchObject({
+      ok: false,
+      status: 409,
+      message: "This stage has already been signed off.",
+    });
   });
   it("refuses the teacher checking in for the student (403) and the student signing off (403)", () => {
-    expect(decide("checkIn", ctx("open", "teacher"))).toMatchObject({ ok: false, status: 403 });
-    expect(decide("signOff", ctx("checked_in", "owner"))).toMatchObject({ ok: false, status: 403, message: expect.stringMatching(/teacher or an admin/) });
+    expect(decide("checkIn", ctx("open", "teacher"))).toMatchObject({
+      ok: false,
+      status: 403,
+    });
+    expect(decide("signOff", ctx("checked_in", "owner"))).toMatchObject({
+      ok: false,
+      status: 403,
+      message: expect.stringMatching(/teacher or an admin/),
+    });
   });
   it("refuses everyone on a withdrawn assignment", () => {
     for (const t of TRANSITIONS) {
       for (const who of ["owner", "teacher", "admin"] as Who[]) {
-        expect(decide(t, ctx("checked_in", who, { assignmentStatus: "withdrawn" }))).toMatchObject({ ok: false, status: 409, message: expect.stringMatching(/withdrawn/) });
+        expect(
+          decide(t, ctx("checked_in", who, { assignmentStatus: "withdrawn" })),
+        ).toMatchObject({
+          ok: false,
+          status: 409,
+          message: expect.stringMatching(/withdrawn/),
+        });
       }
     }
   });
@@ -81,19 +155,60 @@ describe("decide: reasons", () => {
 
 describe("decide: what opens", () => {
   it("a sign-off opens the next stage, except on the last stage", () => {
-    expect(decide("signOff", ctx("checked_in", "teacher"))).toMatchObject({ ok: true, opensNext: true, checkInStatus: "signed_off" });
-    expect(decide("signOff", ctx("checked_in", "teacher", { isLastStage: true }))).toMatchObject({ ok: true, opensNext: false });
+    expect(decide("signOff", ctx("checked_in", "teacher"))).toMatchObject({
+      ok: true,
+      opensNext: true,
+      checkInStatus: "signed_off",
+    });
+    expect(
+      decide("signOff", ctx("checked_in", "teacher", { isLastStage: true })),
+    ).toMatchObject({ ok: true, opensNext: false });
   });
   it("needs more time and withdraw open nothing and reopen the stage", () => {
-    expect(decide("needsMoreTime", ctx("checked_in", "admin"))).toEqual({ ok: true, next: "open", checkInStatus: "needs_more_time", opensNext: false });
-    expect(decide("withdraw", ctx("checked_in", "owner"))).toEqual({ ok: true, next: "open", checkInStatus: "withdrawn", opensNext: false });
+    expect(decide("needsMoreTime", ctx("checked_in", "admin"))).toEqual({
+      ok: true,
+      next: "open",
+      checkInStatus: "needs_more_time",
+      opensNext: false,
+    });
+    expect(decide("withdraw", ctx("checked_in", "owner"))).toEqual({
+      ok: true,
+      next: "open",
+      checkInStatus: "withdrawn",
+      opensNext: false,
+    });
   });
   it("self check-in signs off at once when the minutes are reached, waits below them", () => {
     const rule = { unlockRule: "self_check_in" as const, unlockMinutes: 60 };
-    expect(decide("checkIn", ctx("open", "owner", { ...rule, minutesSinceOpened: 60 }))).toEqual({ ok: true, next: "signed_off", checkInStatus: "signed_off", opensNext: true });
-    expect(decide("checkIn", ctx("open", "owner", { ...rule, minutesSinceOpened: 59 }))).toEqual({ ok: true, next: "checked_in", checkInStatus: "waiting", opensNext: false });
+    expect(
+      decide(
+        "checkIn",
+        ctx("open", "owner", { ...rule, minutesSinceOpened: 60 }),
+      ),
+    ).toEqual({
+      ok: true,
+      next: "signed_off",
+      checkInStatus: "signed_off",
+      opensNext: true,
+    });
+    expect(
+      decide(
+        "checkIn",
+        ctx("open", "owner", { ...rule, minutesSinceOpened: 59 }),
+      ),
+    ).toEqual({
+      ok: true,
+      next: "checked_in",
+      checkInStatus: "waiting",
+      opensNext: false,
+    });
   });
   it("teacher sign-off rule: a check-in waits whatever the minutes", () => {
-    expect(decide("checkIn", ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }))).toMatchObject({ ok: true, next: "checked_in" });
+    expect(
+      decide(
+        "checkIn",
+        ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }),
+      ),
+    ).toMatchObject({ ok: true, next: "checked_in" });
   });
 });
