@@ -135,6 +135,18 @@ describe("advancing the clock", () => {
   });
 });
 
+describe("deleting a customer", () => {
+  it("cancels their subscriptions at once, as Stripe does", async () => {
+    const w = await world();
+    const price = await monthlyPlan(w.stripe);
+    const { customer, sub } = await subscribe(w, price.id);
+    const gone = await w.stripe.customers.del(customer.id);
+    expect(gone).toMatchObject({ id: customer.id, deleted: true });
+    expect((await w.stripe.subscriptions.retrieve(sub?.id ?? "")).status).toBe("canceled");
+    expect((await w.fake.advanceClock(40 * DAY)).ran).toBe(0);
+  });
+});
+
 describe("state", () => {
   it("survives a restart through the state file, clock included", async () => {
     const file = join(mkdtempSync(join(tmpdir(), "stripe-fake-")), "state.json");

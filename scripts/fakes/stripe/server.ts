@@ -71,7 +71,14 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   store.save();
   hooks.kick();
   const tickMs = opts.tickMs ?? 5000;
-  const tick = tickMs > 0 ? setInterval(() => runDue(fake, clock.now()), tickMs) : null;
+  const tick = tickMs > 0 ? setInterval(() => {
+    try {
+      runDue(fake, clock.now());
+    } catch (err) {
+      // Bad imported data must not stop the stand-in; the log says what failed.
+      console.error("Stripe stand-in: due work failed:", err);
+    }
+  }, tickMs) : null;
   tick?.unref();
   return {
     url: fake.baseUrl,

@@ -5,7 +5,7 @@ import { expand, paginate } from "../expand";
 import { listOf, render } from "../render";
 import { newId } from "../state";
 import type { Customer } from "../types";
-import { changedFields } from "./lifecycle";
+import { cancelNow, changedFields } from "./lifecycle";
 
 const create: Handler = ({ fake, params }) => {
   const pm = params.obj("invoice_settings")?.str("default_payment_method") ?? null;
@@ -51,6 +51,8 @@ const list: Handler = ({ fake, params }) => {
 
 const remove: Handler = ({ fake, ids }) => {
   const c = fake.store.get("customer", ids[0] ?? "");
+  // Stripe docs: deleting a customer "immediately cancels any active subscriptions on the customer".
+  for (const sub of fake.store.all("subscription")) if (sub.customer === c.id && sub.status !== "canceled") cancelNow(fake, sub, "cancellation_requested");
   fake.store.objects.delete(c.id);
   fake.hooks.emit("customer.deleted", c);
   return { id: c.id, object: "customer", deleted: true };
