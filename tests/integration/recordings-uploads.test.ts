@@ -119,11 +119,19 @@ describe("completing an upload", () => {
   });
 
   it("refuses an object that is actually over 25 MB though a small size was declared", async () => {
-    // A real S3 refuses this PUT already (Content-Length is a signed header: AWS Signature Version 4);
-    // the stand-in does not check signatures, which is why "complete" measures the object itself.
     const big = new Uint8Array(MB25 + 1);
     big.set(wavBytes(100));
-    const { ticket, done } = await upload(big, "audio/wav", 16_044);
+    const res = await ask(student, request(mine, student, { sizeBytes: 16_044 }));
+    const ticket = (await res.json()) as Ticket;
+    // First line of defence: Content-Length is a signed header, so the presigned PUT refuses a body of
+    // another size (403 SignatureDoesNotMatch — AWS Signature Version 4; the stand-in checks it too).
+    expect((await putTicket(ticket, big)).status).toBe(403);
+    // "complete" must not trust that alone (a storage that ignores the signed length, or a later write):
+    // the object is written under the same key with a PUT signed for its real size, and complete measures it.
+    const { presignPut } = await import("@/lib/storage/s3");
+    const direct = await presignPut((await rowOf(ticket.uploadId)).storageKey, "audio/wav", big.length);
+    expect((await putTicket(direct, big)).status).toBe(200);
+    const done = await complete(student, ticket.uploadId);
     expect(done.status).toBe(422);
     expect(((await done.json()) as { error: string }).error).toMatch(/larger than 25 MB/);
     expect(await objectExists(ticket.uploadId)).toBe(false);
@@ -161,5 +169,30 @@ describe("playback", () => {
     const ticket = (await (await ask(student, request(mine, student))).json()) as Ticket;
     expect((await playback(student, ticket.uploadId)).status).toBe(404);
     expect((await playback(admin, ticket.uploadId)).status).toBe(404);
+  });
+});
+
+describe("the storage stays private", () => {
+  it("refuses an unsigned read, a PUT that changes a signed header and a presigned address past its expiry", async () => {
+    const { ticket } = await upload(wavBytes(500));
+    const key = (await rowOf(ticket.uploadId)).storageKey;
+    const endpoint = process.env.S3_ENDPOINT ?? "";
+    // No public-read: an object is reachable only through a signed request (AWS S3 docs: "Blocking public access").
+    expect((await fetch(`${endpoint}/rosinwood-recordings/${key}`)).status).toBe(403);
+
+    const fresh = (await (await ask(student, request(mine, student, { sizeBytes: 1044 }))).json()) as Ticket;
+    // Content-Type and Content-Length are signed: another type or size breaks the signature (AWS Signature Version 4).
+    expect((await putTicket({ url: fresh.url, headers: { "Content-Type": "image/png" } }, wavBytes(500))).status).toBe(403);
+    expect((await putTicket(fresh, wavBytes(900))).status).toBe(403);
+    expect((await putTicket(fresh, wavBytes(500))).status).toBe(200);
+
+    // An address signed 11 minutes ago with a 10-minute life, through the same presigner the app uses.
+    const { S3Client, GetObjectCommand } = await import("@aws-sdk/client-s3");
+    const { getSignedUrl } = await import("@aws-sdk/s3-request-presigner");
+    const client = new S3Client({ endpoint, region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" } });
+    const old = await getSignedUrl(client, new GetObjectCommand({ Bucket: "rosinwood-recordings", Key: key }), { expiresIn: 600, signingDate: new Date(Date.now() - 11 * 60_000) });
+    expect((await fetch(old)).status).toBe(403);
+    const current = await getSignedUrl(client, new GetObjectCommand({ Bucket: "rosinwood-recordings", Key: key }), { expiresIn: 600 });
+    expect((await fetch(current)).status).toBe(200);
   });
 });
