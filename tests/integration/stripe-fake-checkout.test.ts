@@ -31,7 +31,7 @@ describe("hosted checkout page", () => {
     expect(paid.status).toBe(303);
     expect(paid.location).toBe(`http://app.test/billing/done?session=${session.id}`);
     const done = await world.stripe.checkout.sessions.retrieve(session.id, { expand: ["invoice"] });
-    expect(done).toMatchObject({ status: "complete", payment_status: "paid", customer: customer.id });
+    expect(done).toMatchObject({ status: "complete", payment_status: "paid", customer: customer.id, customer_details: { email: "ok@example.test", name: "Ffion Test" } });
     expect(sub?.status).toBe("active");
     expect(sub?.items.data[0]?.price.id).toBe(price.id);
     const invoice = done.invoice as Stripe.Invoice;

@@ -112,7 +112,8 @@ function session(s: CheckoutSession): JsonObject {
   const { line_items: _items, last_error: _err, subscription_data: _sd, setup_intent_data: _sid, ...rest } = s;
   return j({
     ...rest, allow_promotion_codes: null, billing_address_collection: null, customer_creation: s.customer ? null : "always",
-    customer_details: null, invoice_creation: null, livemode: false, locale: null, payment_intent: null,
+    customer_details: s.customer_details ? { ...s.customer_details, address: null, phone: null, tax_exempt: "none", tax_ids: [] } : null,
+    invoice_creation: null, livemode: false, locale: null, payment_intent: null,
     payment_link: null, payment_method_collection: "always", payment_method_types: ["card"], ui_mode: "hosted",
     submit_type: null, total_details: s.amount_total === null ? null : { amount_discount: 0, amount_shipping: 0, amount_tax: 0 },
   });

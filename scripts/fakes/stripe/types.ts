@@ -41,6 +41,8 @@ export interface CheckoutSession {
   subscription: string | null; invoice: string | null; setup_intent: string | null;
   subscription_data: { metadata: Metadata }; setup_intent_data: { metadata: Metadata };
   last_error: string | null; url: string | null;
+  /** Filled when the person completes the page. */
+  customer_details?: { email: string | null; name: string | null };
 }
 
 export interface SubscriptionItem {

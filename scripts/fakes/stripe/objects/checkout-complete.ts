@@ -64,7 +64,7 @@ function completeSubscription(fake: Fake, s: CheckoutSession, input: CardInput):
   const paid = chargeCard(fake, { amount: inv.amount_due, currency, customer: customer.id, paymentMethod: pm, description: "Subscription creation" });
   recordAttempt(fake, inv, paid);
   Object.assign(s, { status: "complete", payment_status: "paid", customer: customer.id, subscription: sub.id, invoice: inv.id });
-  s.customer_email ??= customer.email;
+  s.customer_details = { email: customer.email, name: input.name };
   fake.hooks.emit("customer.subscription.created", sub);
   fake.hooks.emit("invoice.paid", inv);
   fake.hooks.emit("checkout.session.completed", s);
@@ -77,7 +77,7 @@ function completeSetup(fake: Fake, s: CheckoutSession, input: CardInput): Outcom
   const customer = fake.store.get("customer", s.customer ?? "");
   const pm = createPaymentMethod(fake, input.card, input.exp, input.name, customer.id);
   customer.invoice_settings.default_payment_method = pm.id;
-  Object.assign(s, { status: "complete", setup_intent: newId("seti") });
+  Object.assign(s, { status: "complete", setup_intent: newId("seti"), customer_details: { email: customer.email, name: input.name } });
   fake.hooks.emit("checkout.session.completed", s);
   const named = s.setup_intent_data.metadata.subscription_id ?? s.metadata.subscription_id;
   const subs = fake.store.all("subscription").filter((x) => x.customer === customer.id && x.status !== "canceled" && (!named || x.id === named));
