@@ -9,6 +9,7 @@
 //
 // Run directly (scripts/lib.sh start_stripe_fake), it reads STRIPE_FAKE_PORT, STRIPE_FAKE_STATE,
 // STRIPE_FAKE_WEBHOOK_URL, STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET.
+import { existsSync } from "node:fs";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
 import { pathToFileURL } from "node:url";
@@ -53,7 +54,7 @@ export interface StripeFake {
 }
 
 export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFake> {
-  const hadState = opts.stateFile !== undefined && (await import("node:fs")).existsSync(opts.stateFile);
+  const hadState = opts.stateFile !== undefined && existsSync(opts.stateFile);
   const store = new Store(opts.stateFile);
   const clock = new Clock(store);
   if (opts.startAt && !hadState) clock.setStart(opts.startAt);
