@@ -1,0 +1,25 @@
+import type { Metadata } from "next";
+import { Suspense } from "react";
+import { EnrolmentsTable } from "@/components/admin/enrolments-table";
+import { PageContainer } from "@/components/layout/page-container";
+import { QueryProvider } from "@/components/providers/query-provider";
+import { db } from "@/db/client";
+import { filterChoices } from "@/db/queries/admin-money";
+import { requireArea } from "@/lib/auth/next-context";
+
+export const metadata: Metadata = { title: "Enrolments" };
+
+export default async function EnrolmentsPage() {
+  await requireArea("area:admin");
+  const { plans, courses } = await filterChoices(db());
+  return (
+    <PageContainer className="flex flex-col gap-6">
+      <h1 className="text-h2 font-semibold">Enrolments</h1>
+      <QueryProvider>
+        <Suspense fallback={<p>Loading enrolments…</p>}>
+          <EnrolmentsTable plans={plans} courses={courses} />
+        </Suspense>
+      </QueryProvider>
+    </PageContainer>
+  );
+}

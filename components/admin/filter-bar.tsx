@@ -1,0 +1,67 @@
+"use client";
+// The filters above an admin table: choices (status, plan, course), a date range and a name or
+// e-mail search. Applied together on submit, written to the URL by the table.
+import { useId } from "react";
+import { Button } from "@/components/ui/button";
+import { Input, Select } from "@/components/ui/input";
+
+export type FilterDef = { name: string; label: string; options: { value: string; label: string }[] };
+
+type Props = {
+  filters: FilterDef[];
+  values: URLSearchParams;
+  onApply: (change: Record<string, string | null>) => void;
+};
+
+const FIXED = ["from", "to", "q"];
+
+export function FilterBar({ filters, values, onApply }: Props) {
+  const id = useId();
+  const names = [...filters.map((f) => f.name), ...FIXED];
+  return (
+    <form
+      role="search"
+      aria-label="Filter the table"
+      className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-4"
+      // Remounted when the URL changes (Clear, back button) so the fields show what is applied.
+      key={values.toString()}
+      onSubmit={(e) => {
+        e.preventDefault();
+        const form = new FormData(e.currentTarget);
+        onApply(Object.fromEntries(names.map((n) => [n, String(form.get(n) ?? "").trim() || null])));
+      }}
+    >
+      {filters.map((f) => (
+        <label key={f.name} className="flex flex-col gap-1 text-small font-semibold" htmlFor={`${id}-${f.name}`}>
+          {f.label}
+          <Select id={`${id}-${f.name}`} name={f.name} defaultValue={values.get(f.name) ?? ""}>
+            <option value="">Any</option>
+            {f.options.map((o) => (
+              <option key={o.value} value={o.value}>
+                {o.label}
+              </option>
+            ))}
+          </Select>
+        </label>
+      ))}
+      <label className="flex flex-col gap-1 text-small font-semibold" htmlFor={`${id}-from`}>
+        From
+        <Input id={`${id}-from`} name="from" type="date" defaultValue={values.get("from") ?? ""} />
+      </label>
+      <label className="flex flex-col gap-1 text-small font-semibold" htmlFor={`${id}-to`}>
+        To
+        <Input id={`${id}-to`} name="to" type="date" defaultValue={values.get("to") ?? ""} />
+      </label>
+      <label className="flex flex-col gap-1 text-small font-semibold" htmlFor={`${id}-q`}>
+        Name or e-mail
+        <Input id={`${id}-q`} name="q" type="search" maxLength={100} defaultValue={values.get("q") ?? ""} />
+      </label>
+      <div className="flex items-end gap-2">
+        <Button type="submit">Apply filters</Button>
+        <Button type="button" variant="quiet" onClick={() => onApply(Object.fromEntries(names.map((n) => [n, null])))}>
+          Clear
+        </Button>
+      </div>
+    </form>
+  );
+}
