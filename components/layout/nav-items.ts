@@ -9,19 +9,24 @@ export type NavItem = {
 
 const visitorItems: NavItem[] = [
   { href: "/catalogue", label: "Catalogue" },
+  { href: "/plans", label: "Plans" },
   { href: "/sign-in", label: "Sign in" },
   { href: "/sign-up", label: "Join", emphasis: true },
 ];
 
-// Only pages that exist: practice log, billing, review, plans and the admin's money tables join the
-// navigation with the issues that build them.
+// The calendar feed pages (/learn/calendar, /teach/calendar) are reached from Today and the assignments list,
+// and "Assign" from the assignments list, so the bar stays short enough to sit on one line at 1024 px.
 const roleItems: Record<Role, NavItem[]> = {
   student: [
     { href: "/learn", label: "Today" },
     { href: "/learn/courses", label: "My courses" },
+    { href: "/learn/practice", label: "Practice log" },
+    { href: "/learn/billing", label: "Membership" },
   ],
   teacher: [
     { href: "/teach", label: "Roster" },
+    { href: "/teach/review", label: "Review" },
+    { href: "/teach/assignments", label: "Assignments" },
     { href: "/teach/tunes", label: "Tunes" },
     { href: "/teach/courses", label: "Courses" },
     { href: "/teach/import", label: "Import" },
@@ -29,6 +34,11 @@ const roleItems: Record<Role, NavItem[]> = {
   ],
   admin: [
     { href: "/admin/people", label: "People" },
+    { href: "/admin/payments", label: "Payments" },
+    { href: "/admin/memberships", label: "Memberships" },
+    { href: "/admin/enrolments", label: "Enrolments" },
+    { href: "/admin/revenue", label: "Revenue" },
+    { href: "/admin/plans", label: "Plans" },
   ],
 };
 
