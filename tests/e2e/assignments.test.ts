@@ -131,25 +131,54 @@ describe("assignments, check-in and sign-off in the browser", () => {
     await screenshot(juno, "assignments-03-checked-in");
   });
 
+  it("the student logs practice beside the cautions and sees it on Today", async () => {
+    await open(juno, "/learn/practice", "form[aria-label='Log practice'] button[type=submit]");
+    await juno.getByText("Take a short break every 20–30 minutes").waitFor();
+    await juno.getByLabel("Minutes").fill("700");
+    await juno.getByRole("button", { name: "Log practice" }).click();
+    await juno.getByText("Minutes can be at most 600").waitFor(); // the server's 422 names the field
+    await juno.getByLabel("Minutes").fill("25");
+    await juno.getByLabel("Tune").selectOption({ label: TUNE });
+    await juno.getByLabel("Note").fill("Skeleton, slow then at speed");
+    await juno.getByRole("button", { name: "Log practice" }).click();
+    await juno.getByText(`25 min · ${TUNE}`).waitFor();
+    await screenshot(juno, "assignments-03b-practice-log");
+    await juno.goto(`${BASE_URL}/learn`);
+    await juno.getByTestId("streak").waitFor();
+    await expect(juno.getByTestId("streak").textContent()).resolves.toMatch(/in a row, today included/);
+    await juno.getByRole("list", { name: "Open assignments" }).getByRole("link", { name: TUNE }).first().waitFor();
+    await juno.getByTestId("minutes-chart").locator("svg").first().waitFor();
+    await screenshot(juno, "assignments-03c-today");
+  });
+
   it("the teacher listens in the review queue, writes feedback and signs off", async () => {
-    await open(teacher, "/teach/review", "main");
-    const item = teacher.locator("li, article, section").filter({ hasText: JUNO.name }).filter({ hasText: TUNE }).filter({ has: teacher.locator("audio") }).last();
-    await item.locator("audio").waitFor();
-    // A playable source: a short-lived address that answers with audio bytes.
-    await teacher.waitForFunction((el) => Boolean((el as HTMLAudioElement | null)?.currentSrc || (el as HTMLAudioElement | null)?.src), await item.locator("audio").elementHandle());
-    const src = await item.locator("audio").evaluate((el) => (el as HTMLAudioElement).currentSrc || (el as HTMLAudioElement).src);
+    await open(teacher, "/teach/review", "main h1");
+    // The review card of this check-in (components/teaching/review-card.tsx names it "<student>: <tune>, stage i of n").
+    const item = teacher.locator(`li[aria-label^="${JUNO.name}: ${TUNE}, stage 1 of"]`).last();
+    const audio = item.getByLabel(`Recording by ${JUNO.name}`);
+    await audio.waitFor();
+    const src = await audio.evaluate((el) => (el as HTMLAudioElement).currentSrc || (el as HTMLAudioElement).src);
     expect(src).toMatch(/^https?:\/\//);
-    const probe = await teacher.evaluate(async (u) => {
-      const r = await fetch(u, { headers: { range: "bytes=0-11" } });
-      const b = new Uint8Array(await r.arrayBuffer());
-      return { status: r.status, head: String.fromCharCode(...b.slice(0, 4)) + String.fromCharCode(...b.slice(8, 12)) };
-    }, src);
-    expect([200, 206]).toContain(probe.status);
-    expect(probe.head).toBe("RIFFWAVE");
-    await item.getByRole("textbox").first().fill(FEEDBACK);
+    // Playable: the browser reads the recording's header and knows its length (0.5 s of our silence).
+    const duration = await audio.evaluate(
+      (el) =>
+        new Promise<number>((resolve, reject) => {
+          const a = el as HTMLAudioElement;
+          if (a.readyState >= 1) return resolve(a.duration);
+          a.addEventListener("loadedmetadata", () => resolve(a.duration), { once: true });
+          a.addEventListener("error", () => reject(new Error(`audio error ${a.error?.code ?? "?"}`)), { once: true });
+          a.load();
+        }),
+    );
+    expect(duration).toBeCloseTo(0.5, 1);
+    // And the short-lived address hands back the very bytes uploaded (read here, outside the page, where no CORS applies).
+    const bytes = new Uint8Array(await (await fetch(src)).arrayBuffer());
+    expect(Buffer.from(bytes).equals(silentWav())).toBe(true);
+    await item.getByLabel("Feedback").fill(FEEDBACK);
     await screenshot(teacher, "assignments-04-review");
-    await item.getByRole("button", { name: /sign off/i }).click();
-    await teacher.getByText(/signed off/i).first().waitFor();
+    await item.getByRole("button", { name: "Sign off" }).click();
+    await teacher.getByText(`Stage 2 is open for ${JUNO.name}.`).waitFor();
+    await screenshot(teacher, "assignments-04b-signed-off");
   });
 
   it("stage 2 opens for that student only; the other student's stays locked on the page and in the API", async () => {
