@@ -92,6 +92,21 @@ describe("checkout → webhook → gate", () => {
     expect((await canOpenRung(w.db, viewer, f.rungs.A))?.allowed).toBe(true);
     expect((await canOpenRung(w.db, viewer, f.rungs.B))?.allowed).toBe(true);
     expect((await w.mailsTo(student.email)).map((m) => m.template)).toContain("payment-receipt");
+    // The billing page's summary: status in words, the next charge, the invoice with its receipt number.
+    const summary = await w.json<{ membership: { statusWords: string; nextCharge: { amount: number; date: string } }; payments: { receiptNumber: string }[] }>(
+      await w.call("billing", "GET", { cookie }),
+    );
+    expect(summary.membership.statusWords).toBe("Active");
+    expect(summary.membership.nextCharge).toMatchObject({ amount: 1800, date: sub.currentPeriodEnd?.toISOString() });
+    expect(summary.payments.map((p) => p.receiptNumber)).toEqual([pay.receiptNumber]);
+    // Cancel at period end goes to Stripe; the row follows from the webhook, and resume undoes it.
+    expect((await w.call("billing/cancel", "POST", { cookie, body: {} })).status).toBe(200);
+    await w.fake.settled();
+    expect((await w.db.select().from(subscriptions).where(eq(subscriptions.id, sub.id)))[0].cancelAtPeriodEnd).toBe(true);
+    expect((await canOpenRung(w.db, viewer, f.rungs.B))?.allowed).toBe(true); // open until the period ends
+    expect((await w.call("billing/resume", "POST", { cookie, body: {} })).status).toBe(200);
+    await w.fake.settled();
+    expect((await w.db.select().from(subscriptions).where(eq(subscriptions.id, sub.id)))[0].cancelAtPeriodEnd).toBe(false);
   });
 
   it("a declined card opens nothing and writes no membership", async () => {
