@@ -13,18 +13,13 @@ export const metadata: Metadata = { title: "Roster" };
 export default async function RosterPage() {
   const user = await requireArea("area:teach");
   // Only this teacher's own students (the table's route is keyed by the signed-in person too); an admin sees everyone.
-  const empty =
-    user.role !== "admin" && (await listRoster(db(), user.id)).length === 0;
+  const empty = user.role !== "admin" && (await listRoster(db(), user.id)).length === 0;
   return (
     <PageContainer className="flex flex-col gap-6">
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <p className="text-small font-semibold tracking-widest text-cedar uppercase">
-            Roster
-          </p>
-          <h1 className="text-h2 font-semibold">
-            {user.role === "admin" ? "Every student" : "Your students"}
-          </h1>
+          <p className="text-small font-semibold tracking-widest text-cedar uppercase">Roster</p>
+          <h1 className="text-h2 font-semibold">{user.role === "admin" ? "Every student" : "Your students"}</h1>
         </div>
         <div className="flex flex-wrap gap-2">
           <LinkButton href="/teach/review" variant="secondary">
@@ -39,10 +34,7 @@ export default async function RosterPage() {
       {empty ? (
         <Card tone="warm" className="max-w-prose">
           <CardTitle level={2}>No students yet</CardTitle>
-          <p className="text-bark">
-            Invite your students by e-mail; each one joins this roster when they
-            accept.
-          </p>
+          <p className="text-bark">Invite your students by e-mail; each one joins this roster when they accept.</p>
         </Card>
       ) : (
         <QueryProvider>

@@ -31,30 +31,15 @@ export type AssignFormProps = {
 
 type Done = { count: number; title: string };
 
-export function AssignForm({
-  tunes,
-  students,
-  teacherZone,
-  defaultDue,
-  tuneId: initialTune,
-  studentId,
-}: AssignFormProps) {
-  const [tuneId, setTuneId] = useState(
-    initialTune && tunes.some((t) => t.id === initialTune)
-      ? initialTune
-      : (tunes[0]?.id ?? ""),
-  );
-  const [chosen, setChosen] = useState<string[]>(
-    studentId && students.some((s) => s.id === studentId) ? [studentId] : [],
-  );
+export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: initialTune, studentId }: AssignFormProps) {
+  const [tuneId, setTuneId] = useState(initialTune && tunes.some((t) => t.id === initialTune) ? initialTune : (tunes[0]?.id ?? ""));
+  const [chosen, setChosen] = useState<string[]>(studentId && students.some((s) => s.id === studentId) ? [studentId] : []);
   const [due, setDue] = useState(defaultDue);
   const [changePlan, setChangePlan] = useState(false);
   const tune = tunes.find((t) => t.id === tuneId);
   const tunePlan = tune?.stagePlan ?? DEFAULT_PLAN;
   const [plan, setPlan] = useState<StagePlan>(tunePlan);
-  const [rule, setRule] = useState<"teacher_sign_off" | "self_check_in">(
-    "teacher_sign_off",
-  );
+  const [rule, setRule] = useState<"teacher_sign_off" | "self_check_in">("teacher_sign_off");
   const [minutes, setMinutes] = useState("60");
   const [note, setNote] = useState("");
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -71,8 +56,7 @@ export function AssignForm({
     setTuneId(id);
     setPlan(tunes.find((t) => t.id === id)?.stagePlan ?? DEFAULT_PLAN);
   };
-  const toggle = (id: string, on: boolean): void =>
-    setChosen((c) => (on ? [...c, id] : c.filter((x) => x !== id)));
+  const toggle = (id: string, on: boolean): void => setChosen((c) => (on ? [...c, id] : c.filter((x) => x !== id)));
 
   async function submit(e: FormEvent): Promise<void> {
     e.preventDefault();
@@ -98,9 +82,7 @@ export function AssignForm({
       setNote("");
     } catch (error) {
       setErrors(error instanceof ApiError ? error.fieldErrors : {});
-      setMessage(
-        error instanceof Error ? error.message : "Something went wrong.",
-      );
+      setMessage(error instanceof Error ? error.message : "Something went wrong.");
     } finally {
       setBusy(false);
     }
@@ -120,16 +102,11 @@ export function AssignForm({
     );
 
   return (
-    <form
-      onSubmit={submit}
-      className="flex max-w-3xl flex-col gap-6"
-      noValidate
-    >
+    <form onSubmit={submit} className="flex max-w-3xl flex-col gap-6" noValidate>
       {done ? (
         <Alert tone="success" title="Assigned" live>
           Assigned “{done.title}” to {done.count} student
-          {done.count === 1 ? "" : "s"}; each gets an e-mail.{" "}
-          <Link href="/teach/assignments">See your assignments</Link>
+          {done.count === 1 ? "" : "s"}; each gets an e-mail. <Link href="/teach/assignments">See your assignments</Link>
         </Alert>
       ) : null}
       {message ? (
@@ -139,11 +116,7 @@ export function AssignForm({
       ) : null}
       <Field id="assign-tune" label="Tune" error={errors.tuneId} required>
         {(c) => (
-          <Select
-            {...c}
-            value={tuneId}
-            onChange={(e) => pickTune(e.target.value)}
-          >
+          <Select {...c} value={tuneId} onChange={(e) => pickTune(e.target.value)}>
             {tunes.map((t) => (
               <option key={t.id} value={t.id}>
                 {t.title}
@@ -152,34 +125,18 @@ export function AssignForm({
           </Select>
         )}
       </Field>
-      <fieldset
-        className="flex flex-col gap-2"
-        aria-describedby={
-          errors.studentIds ? "assign-students-error" : undefined
-        }
-      >
+      <fieldset className="flex flex-col gap-2" aria-describedby={errors.studentIds ? "assign-students-error" : undefined}>
         <legend className="font-semibold text-ink">Students</legend>
         <div className="grid gap-2 sm:grid-cols-2">
           {students.map((s) => (
-            <label
-              key={s.id}
-              className="flex min-h-11 items-center gap-3 rounded-knot border border-line bg-paper px-3"
-            >
-              <input
-                type="checkbox"
-                className="size-5 accent-cedar"
-                checked={chosen.includes(s.id)}
-                onChange={(e) => toggle(s.id, e.target.checked)}
-              />
+            <label key={s.id} className="flex min-h-11 items-center gap-3 rounded-knot border border-line bg-paper px-3">
+              <input type="checkbox" className="size-5 accent-cedar" checked={chosen.includes(s.id)} onChange={(e) => toggle(s.id, e.target.checked)} />
               <span>{s.name}</span>
             </label>
           ))}
         </div>
         {errors.studentIds ? (
-          <p
-            id="assign-students-error"
-            className="text-small font-semibold text-berry"
-          >
+          <p id="assign-students-error" className="text-small font-semibold text-berry">
             {errors.studentIds}
           </p>
         ) : null}
@@ -191,14 +148,7 @@ export function AssignForm({
         error={errors.dueLocal}
         required
       >
-        {(c) => (
-          <Input
-            {...c}
-            type="datetime-local"
-            value={due}
-            onChange={(e) => setDue(e.target.value)}
-          />
-        )}
+        {(c) => <Input {...c} type="datetime-local" value={due} onChange={(e) => setDue(e.target.value)} />}
       </Field>
       <fieldset className="flex flex-col gap-3">
         <legend className="font-semibold text-ink">Stage plan</legend>
@@ -212,10 +162,7 @@ export function AssignForm({
               setPlan(tunePlan);
             }}
           />
-          <span>
-            Change the stage plan for this assignment (otherwise the tune&apos;s
-            own {tunePlan.stages.length} stages)
-          </span>
+          <span>Change the stage plan for this assignment (otherwise the tune&apos;s own {tunePlan.stages.length} stages)</span>
         </label>
         {changePlan ? (
           <PlanEditor
@@ -226,30 +173,11 @@ export function AssignForm({
             isDefault={JSON.stringify(plan) === JSON.stringify(tunePlan)}
           />
         ) : null}
-        {errors.stagePlan ? (
-          <p className="text-small font-semibold text-berry">
-            {errors.stagePlan}
-          </p>
-        ) : null}
+        {errors.stagePlan ? <p className="text-small font-semibold text-berry">{errors.stagePlan}</p> : null}
       </fieldset>
-      <UnlockRuleFields
-        idPrefix="assign"
-        rule={rule}
-        minutes={minutes}
-        onRule={setRule}
-        onMinutes={setMinutes}
-        errors={errors}
-      />
+      <UnlockRuleFields idPrefix="assign" rule={rule} minutes={minutes} onRule={setRule} onMinutes={setMinutes} errors={errors} />
       <Field id="assign-note" label="Note to the students" error={errors.note}>
-        {(c) => (
-          <Textarea
-            {...c}
-            rows={4}
-            value={note}
-            onChange={(e) => setNote(e.target.value)}
-            maxLength={2000}
-          />
-        )}
+        {(c) => <Textarea {...c} rows={4} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
       </Field>
       <div>
         <Button type="submit" disabled={busy || reasons.length > 0}>

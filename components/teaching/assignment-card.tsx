@@ -36,38 +36,23 @@ export function AssignmentCard({ a }: { a: AssignmentView }) {
   });
   const withdrawn = a.status === "withdrawn";
   return (
-    <Card
-      as="li"
-      className={withdrawn ? "opacity-75" : undefined}
-      aria-label={`${a.tune.title}, due ${dueWords(a)}`}
-    >
+    <Card as="li" className={withdrawn ? "opacity-75" : undefined} aria-label={`${a.tune.title}, due ${dueWords(a)}`}>
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <CardTitle level={2}>{a.tune.title}</CardTitle>
           <p className="text-small text-bark">
             Due {dueWords(a)}
-            {a.overdue ? (
-              <strong className="ml-2 text-berry">Overdue</strong>
-            ) : null}
-            {withdrawn ? (
-              <strong className="ml-2 text-bark">Withdrawn</strong>
-            ) : null}
+            {a.overdue ? <strong className="ml-2 text-berry">Overdue</strong> : null}
+            {withdrawn ? <strong className="ml-2 text-bark">Withdrawn</strong> : null}
           </p>
           <p className="text-small text-bark">
-            {a.unlockRule === "teacher_sign_off"
-              ? "You sign off each stage."
-              : `Self check-in after ${a.unlockMinutes ?? 0} practice minutes.`}
+            {a.unlockRule === "teacher_sign_off" ? "You sign off each stage." : `Self check-in after ${a.unlockMinutes ?? 0} practice minutes.`}
             {a.stagePlan ? " Stage plan changed for this assignment." : ""}
           </p>
         </div>
         {withdrawn ? null : (
           <div className="flex flex-wrap gap-2">
-            <Button
-              variant="secondary"
-              size="sm"
-              onClick={() => setEditing((v) => !v)}
-              aria-expanded={editing}
-            >
+            <Button variant="secondary" size="sm" onClick={() => setEditing((v) => !v)} aria-expanded={editing}>
               {editing ? "Close editing" : "Edit"}
             </Button>
             <Button
@@ -75,12 +60,7 @@ export function AssignmentCard({ a }: { a: AssignmentView }) {
               size="sm"
               disabled={withdraw.isPending}
               onClick={() => {
-                if (
-                  window.confirm(
-                    `Withdraw “${a.tune.title}” from ${a.students.length} student(s)? Their stages stop changing.`,
-                  )
-                )
-                  withdraw.mutate();
+                if (window.confirm(`Withdraw “${a.tune.title}” from ${a.students.length} student(s)? Their stages stop changing.`)) withdraw.mutate();
               }}
             >
               Withdraw
@@ -92,11 +72,8 @@ export function AssignmentCard({ a }: { a: AssignmentView }) {
       <ul className="mt-3 flex flex-col gap-1 text-small" aria-label="Students">
         {a.students.map((s) => (
           <li key={s.assignmentStudentId}>
-            <span className="font-semibold">{s.name}</span>: {s.signedOff} of{" "}
-            {s.stages} stages signed off
-            {s.waiting ? (
-              <span className="ml-1 text-cedar">· check-in waiting</span>
-            ) : null}
+            <span className="font-semibold">{s.name}</span>: {s.signedOff} of {s.stages} stages signed off
+            {s.waiting ? <span className="ml-1 text-cedar">· check-in waiting</span> : null}
           </li>
         ))}
       </ul>
@@ -105,9 +82,7 @@ export function AssignmentCard({ a }: { a: AssignmentView }) {
           {errorWords(withdraw.error)}
         </Alert>
       ) : null}
-      {editing && !withdrawn ? (
-        <AssignmentEdit a={a} onDone={() => setEditing(false)} />
-      ) : null}
+      {editing && !withdrawn ? <AssignmentEdit a={a} onDone={() => setEditing(false)} /> : null}
     </Card>
   );
 }

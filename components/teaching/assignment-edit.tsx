@@ -12,13 +12,7 @@ import type { AssignmentView } from "@/lib/teaching/teach-api-types";
 import { ASSIGNMENTS_KEY } from "./query-keys";
 import { UnlockRuleFields, type UnlockRule } from "./unlock-rule-fields";
 
-export function AssignmentEdit({
-  a,
-  onDone,
-}: {
-  a: AssignmentView;
-  onDone: () => void;
-}) {
+export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () => void }) {
   const qc = useQueryClient();
   const [due, setDue] = useState(a.dueLocal);
   const [rule, setRule] = useState<UnlockRule>(a.unlockRule);
@@ -47,50 +41,18 @@ export function AssignmentEdit({
   };
   const id = `edit-${a.id}`;
   return (
-    <form
-      onSubmit={submit}
-      className="mt-4 flex flex-col gap-4 border-t border-line pt-4"
-      noValidate
-      aria-label={`Edit ${a.tune.title}`}
-    >
+    <form onSubmit={submit} className="mt-4 flex flex-col gap-4 border-t border-line pt-4" noValidate aria-label={`Edit ${a.tune.title}`}>
       {save.isError ? (
         <Alert tone="error" live>
           {errorWords(save.error)}
         </Alert>
       ) : null}
-      <Field
-        id={`${id}-due`}
-        label="Due"
-        hint={`Date and time in ${a.dueZone}.`}
-        error={errors.dueLocal}
-      >
-        {(c) => (
-          <Input
-            {...c}
-            type="datetime-local"
-            value={due}
-            onChange={(e) => setDue(e.target.value)}
-          />
-        )}
+      <Field id={`${id}-due`} label="Due" hint={`Date and time in ${a.dueZone}.`} error={errors.dueLocal}>
+        {(c) => <Input {...c} type="datetime-local" value={due} onChange={(e) => setDue(e.target.value)} />}
       </Field>
-      <UnlockRuleFields
-        idPrefix={id}
-        rule={rule}
-        minutes={minutes}
-        onRule={setRule}
-        onMinutes={setMinutes}
-        errors={errors}
-      />
+      <UnlockRuleFields idPrefix={id} rule={rule} minutes={minutes} onRule={setRule} onMinutes={setMinutes} errors={errors} />
       <Field id={`${id}-note`} label="Note to the students" error={errors.note}>
-        {(c) => (
-          <Textarea
-            {...c}
-            rows={3}
-            value={note}
-            onChange={(e) => setNote(e.target.value)}
-            maxLength={2000}
-          />
-        )}
+        {(c) => <Textarea {...c} rows={3} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
       </Field>
       <div className="flex gap-2">
         <Button type="submit" disabled={save.isPending}>

@@ -12,11 +12,9 @@ import { ASSIGNMENTS_KEY } from "./query-keys";
 export function AssignmentList() {
   const q = useQuery({
     queryKey: ASSIGNMENTS_KEY,
-    queryFn: () =>
-      fetchJson<{ assignments: AssignmentView[] }>("/api/teach/assignments"),
+    queryFn: () => fetchJson<{ assignments: AssignmentView[] }>("/api/teach/assignments"),
   });
-  if (q.isPending)
-    return <p className="text-bark">Loading your assignments…</p>;
+  if (q.isPending) return <p className="text-bark">Loading your assignments…</p>;
   if (q.isError) return <Alert tone="error">{errorWords(q.error)}</Alert>;
   const list = q.data.assignments;
   if (!list.length) {

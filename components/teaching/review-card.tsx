@@ -16,13 +16,7 @@ import { RecordingPlayer } from "./recording-player";
 type Outcome = "signed_off" | "needs_more_time";
 type Result = { openedStage: number | null };
 
-export function ReviewCard({
-  item,
-  onReviewed,
-}: {
-  item: ReviewItem;
-  onReviewed: (words: string) => void;
-}) {
+export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed: (words: string) => void }) {
   const qc = useQueryClient();
   const id = useId();
   const [feedback, setFeedback] = useState("");
@@ -44,8 +38,7 @@ export function ReviewCard({
     },
     // Someone else (another tab, an admin) reviewed it first: the queue is out of date.
     onError: (e) => {
-      if (e instanceof ApiError && e.status === 409)
-        void qc.invalidateQueries({ queryKey: REVIEW_KEY });
+      if (e instanceof ApiError && e.status === 409) void qc.invalidateQueries({ queryKey: REVIEW_KEY });
     },
   });
   const when = new Date(item.createdAt).toLocaleString("en-GB", {
@@ -58,41 +51,20 @@ export function ReviewCard({
       <div>
         <CardTitle level={2}>{title}</CardTitle>
         <p className="text-small text-bark">
-          {item.stage.name} · checked in {when} · self-rating {item.selfRating}{" "}
-          of 5 ·{" "}
-          {item.fromMemory ? "played from memory" : "played from the music"}
+          {item.stage.name} · checked in {when} · self-rating {item.selfRating} of 5 · {item.fromMemory ? "played from memory" : "played from the music"}
         </p>
       </div>
-      <RecordingPlayer
-        uploadId={item.uploadId}
-        label={`Recording by ${item.student.name}`}
-      />
+      <RecordingPlayer uploadId={item.uploadId} label={`Recording by ${item.student.name}`} />
       {item.stage.abc ? (
-        <Notation
-          abc={item.stage.abc}
-          label={`${item.tune.title}, ${item.stage.name}`}
-          className="rounded-knot border border-line p-2"
-        />
+        <Notation abc={item.stage.abc} label={`${item.tune.title}, ${item.stage.name}`} className="rounded-knot border border-line p-2" />
       ) : null}
       <Field
         id={`${id}-feedback`}
         label="Feedback"
         hint="The student reads this in their e-mail and on the assignment page."
-        error={
-          review.error instanceof ApiError
-            ? review.error.fieldErrors.feedback
-            : undefined
-        }
+        error={review.error instanceof ApiError ? review.error.fieldErrors.feedback : undefined}
       >
-        {(c) => (
-          <Textarea
-            {...c}
-            rows={3}
-            value={feedback}
-            maxLength={4000}
-            onChange={(e) => setFeedback(e.target.value)}
-          />
-        )}
+        {(c) => <Textarea {...c} rows={3} value={feedback} maxLength={4000} onChange={(e) => setFeedback(e.target.value)} />}
       </Field>
       {review.isError ? (
         <Alert tone="error" live>
@@ -100,17 +72,10 @@ export function ReviewCard({
         </Alert>
       ) : null}
       <div className="flex flex-wrap gap-2">
-        <Button
-          disabled={review.isPending}
-          onClick={() => review.mutate("signed_off")}
-        >
+        <Button disabled={review.isPending} onClick={() => review.mutate("signed_off")}>
           Sign off
         </Button>
-        <Button
-          variant="secondary"
-          disabled={review.isPending}
-          onClick={() => review.mutate("needs_more_time")}
-        >
+        <Button variant="secondary" disabled={review.isPending} onClick={() => review.mutate("needs_more_time")}>
           Needs more time
         </Button>
       </div>

@@ -6,8 +6,7 @@ import type { RosterRow } from "@/lib/teaching/teach-api-types";
 const col = createColumnHelper<RosterRow>();
 
 /** "Only with overdue" rides on the overdue column's filter value. */
-export const onlyOverdue: FilterFn<RosterRow> = (row, id, on: boolean) =>
-  !on || (row.getValue<number>(id) ?? 0) > 0;
+export const onlyOverdue: FilterFn<RosterRow> = (row, id, on: boolean) => !on || (row.getValue<number>(id) ?? 0) > 0;
 
 const dayWords = (day: string) =>
   new Date(`${day}T12:00:00Z`).toLocaleDateString("en-GB", {
@@ -25,10 +24,7 @@ export const rosterColumns = [
       <div className="flex flex-col">
         <span className="font-semibold">{c.getValue()}</span>
         <span className="text-bark">{c.row.original.email}</span>
-        <Link
-          href={`/teach/assign?student=${c.row.original.studentId}`}
-          className="text-small"
-        >
+        <Link href={`/teach/assign?student=${c.row.original.studentId}`} className="text-small">
           Assign a tune
         </Link>
       </div>
@@ -37,16 +33,8 @@ export const rosterColumns = [
   col.accessor("lastPractice", {
     header: "Last practice",
     // Days without any practice sort as the oldest.
-    sortingFn: (a, b) =>
-      (a.original.lastPractice ?? "").localeCompare(
-        b.original.lastPractice ?? "",
-      ),
-    cell: (c) =>
-      c.getValue() ? (
-        dayWords(c.getValue() as string)
-      ) : (
-        <span className="text-bark">None logged</span>
-      ),
+    sortingFn: (a, b) => (a.original.lastPractice ?? "").localeCompare(b.original.lastPractice ?? ""),
+    cell: (c) => (c.getValue() ? dayWords(c.getValue() as string) : <span className="text-bark">None logged</span>),
   }),
   col.accessor("openAssignments", {
     header: "Open assignments",
@@ -55,11 +43,6 @@ export const rosterColumns = [
   col.accessor("overdueAssignments", {
     header: "Overdue",
     filterFn: onlyOverdue,
-    cell: (c) =>
-      c.getValue() > 0 ? (
-        <strong className="text-berry">{c.getValue()} overdue</strong>
-      ) : (
-        <span className="text-bark">0</span>
-      ),
+    cell: (c) => (c.getValue() > 0 ? <strong className="text-berry">{c.getValue()} overdue</strong> : <span className="text-bark">0</span>),
   }),
 ];

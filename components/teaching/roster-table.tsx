@@ -28,9 +28,7 @@ export function RosterTable() {
     queryKey: ROSTER_KEY,
     queryFn: () => fetchJson<{ students: RosterRow[] }>("/api/teach/roster"),
   });
-  const [sorting, setSorting] = useState<SortingState>([
-    { id: "name", desc: false },
-  ]);
+  const [sorting, setSorting] = useState<SortingState>([{ id: "name", desc: false }]);
   const [filters, setFilters] = useState<ColumnFiltersState>([]);
   const table = useReactTable({
     data: q.data?.students ?? [],
@@ -65,16 +63,12 @@ export function RosterTable() {
             type="checkbox"
             className="size-5 accent-cedar"
             checked={Boolean(overdue?.getFilterValue())}
-            onChange={(e) =>
-              overdue?.setFilterValue(e.target.checked || undefined)
-            }
+            onChange={(e) => overdue?.setFilterValue(e.target.checked || undefined)}
           />
           Only students with overdue assignments
         </label>
       </div>
-      <TableShell
-        caption={`${shown.length} of ${total} student${total === 1 ? "" : "s"}`}
-      >
+      <TableShell caption={`${shown.length} of ${total} student${total === 1 ? "" : "s"}`}>
         <THead>
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>
@@ -82,11 +76,7 @@ export function RosterTable() {
                 const dir = h.column.getIsSorted();
                 return (
                   <Th key={h.id} aria-sort={dir ? ARIA[dir] : "none"}>
-                    <button
-                      type="button"
-                      onClick={h.column.getToggleSortingHandler()}
-                      className="font-semibold underline-offset-2 hover:underline"
-                    >
+                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold underline-offset-2 hover:underline">
                       {flexRender(h.column.columnDef.header, h.getContext())}
                       {dir ? ARROWS[dir] : ""}
                     </button>
@@ -100,9 +90,7 @@ export function RosterTable() {
           {shown.map((r) => (
             <tr key={r.id}>
               {r.getVisibleCells().map((c) => (
-                <Td key={c.id}>
-                  {flexRender(c.column.columnDef.cell, c.getContext())}
-                </Td>
+                <Td key={c.id}>{flexRender(c.column.columnDef.cell, c.getContext())}</Td>
               ))}
             </tr>
           ))}

@@ -2,24 +2,12 @@
 // allowed is decided in lib/teaching/assignments.ts; these only read and write rows.
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import {
-  assignments,
-  assignmentStudents,
-  checkIns,
-  rosterEntries,
-  stageStates,
-  tunes,
-  users,
-} from "../schema";
+import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
 
 export type AssignmentRow = typeof assignments.$inferSelect;
 
 /** Those of `ids` the teacher may assign to: their roster, or any student for an admin (teacherId null). */
-export async function assignableStudents(
-  db: Tx,
-  teacherId: string | null,
-  ids: string[],
-) {
+export async function assignableStudents(db: Tx, teacherId: string | null, ids: string[]) {
   const cols = {
     id: users.id,
     name: users.name,
@@ -38,35 +26,16 @@ export async function assignableStudents(
     .where(and(eq(rosterEntries.teacherId, teacherId), inArray(users.id, ids)));
 }
 
-export async function insertAssignment(
-  db: Tx,
-  v: typeof assignments.$inferInsert,
-): Promise<string> {
-  return (
-    await db.insert(assignments).values(v).returning({ id: assignments.id })
-  )[0].id;
+export async function insertAssignment(db: Tx, v: typeof assignments.$inferInsert): Promise<string> {
+  return (await db.insert(assignments).values(v).returning({ id: assignments.id }))[0].id;
 }
 
-export async function insertAssignmentStudent(
-  db: Tx,
-  assignmentId: string,
-  studentId: string,
-): Promise<string> {
-  return (
-    await db
-      .insert(assignmentStudents)
-      .values({ assignmentId, studentId })
-      .returning({ id: assignmentStudents.id })
-  )[0].id;
+export async function insertAssignmentStudent(db: Tx, assignmentId: string, studentId: string): Promise<string> {
+  return (await db.insert(assignmentStudents).values({ assignmentId, studentId }).returning({ id: assignmentStudents.id }))[0].id;
 }
 
 /** Stage 1 open from now, the rest locked (shared design). */
-export async function insertStageStates(
-  db: Tx,
-  assignmentStudentId: string,
-  count: number,
-  now: Date,
-): Promise<void> {
+export async function insertStageStates(db: Tx, assignmentStudentId: string, count: number, now: Date): Promise<void> {
   const rows = Array.from({ length: count }, (_, i) => ({
     assignmentStudentId,
     stageIndex: i + 1,
@@ -76,37 +45,16 @@ export async function insertStageStates(
   if (rows.length) await db.insert(stageStates).values(rows);
 }
 
-export async function findAssignment(
-  db: Tx,
-  id: string,
-): Promise<AssignmentRow | null> {
-  return (
-    (await db.select().from(assignments).where(eq(assignments.id, id)))[0] ??
-    null
-  );
+export async function findAssignment(db: Tx, id: string): Promise<AssignmentRow | null> {
+  return (await db.select().from(assignments).where(eq(assignments.id, id)))[0] ?? null;
 }
 
 /** The assignment row locked for an edit, so two edits (or an edit and a check-in) take turns. */
-export async function lockAssignment(
-  db: Tx,
-  id: string,
-): Promise<AssignmentRow | null> {
-  return (
-    (
-      await db
-        .select()
-        .from(assignments)
-        .where(eq(assignments.id, id))
-        .for("update")
-    )[0] ?? null
-  );
+export async function lockAssignment(db: Tx, id: string): Promise<AssignmentRow | null> {
+  return (await db.select().from(assignments).where(eq(assignments.id, id)).for("update"))[0] ?? null;
 }
 
-export async function updateAssignment(
-  db: Tx,
-  id: string,
-  set: Partial<typeof assignments.$inferInsert>,
-): Promise<void> {
+export async function updateAssignment(db: Tx, id: string, set: Partial<typeof assignments.$inferInsert>): Promise<void> {
   await db.update(assignments).set(set).where(eq(assignments.id, id));
 }
 
@@ -125,46 +73,25 @@ export async function studentsOfAssignment(db: Tx, assignmentId: string) {
     .orderBy(asc(users.name));
 }
 
-export async function countCheckIns(
-  db: Tx,
-  assignmentId: string,
-): Promise<number> {
+export async function countCheckIns(db: Tx, assignmentId: string): Promise<number> {
   const [row] = await db
     .select({ n: sql<number>`count(*)::int` })
     .from(checkIns)
     .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
-    .innerJoin(
-      assignmentStudents,
-      eq(assignmentStudents.id, stageStates.assignmentStudentId),
-    )
+    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
     .where(eq(assignmentStudents.assignmentId, assignmentId));
   return row?.n ?? 0;
 }
 
 /** Drops the stage rows of every student of the assignment (only before anyone checked in). */
-export async function deleteStageStates(
-  db: Tx,
-  assignmentId: string,
-): Promise<void> {
-  const ids = db
-    .select({ id: assignmentStudents.id })
-    .from(assignmentStudents)
-    .where(eq(assignmentStudents.assignmentId, assignmentId));
-  await db
-    .delete(stageStates)
-    .where(inArray(stageStates.assignmentStudentId, ids));
+export async function deleteStageStates(db: Tx, assignmentId: string): Promise<void> {
+  const ids = db.select({ id: assignmentStudents.id }).from(assignmentStudents).where(eq(assignmentStudents.assignmentId, assignmentId));
+  await db.delete(stageStates).where(inArray(stageStates.assignmentStudentId, ids));
 }
 
 /** A teacher's assignments (every one for an admin: teacherId null), newest due first, with each student's progress. */
-export async function listAssignments(
-  db: Tx,
-  teacherId: string | null,
-  onlyId?: string,
-) {
-  const where = and(
-    teacherId === null ? undefined : eq(assignments.teacherId, teacherId),
-    onlyId ? eq(assignments.id, onlyId) : undefined,
-  );
+export async function listAssignments(db: Tx, teacherId: string | null, onlyId?: string) {
+  const where = and(teacherId === null ? undefined : eq(assignments.teacherId, teacherId), onlyId ? eq(assignments.id, onlyId) : undefined);
   const heads = await db
     .select({
       a: assignments,
@@ -191,10 +118,7 @@ export async function listAssignments(
     })
     .from(assignmentStudents)
     .innerJoin(users, eq(users.id, assignmentStudents.studentId))
-    .leftJoin(
-      stageStates,
-      eq(stageStates.assignmentStudentId, assignmentStudents.id),
-    )
+    .leftJoin(stageStates, eq(stageStates.assignmentStudentId, assignmentStudents.id))
     .where(
       inArray(
         assignmentStudents.assignmentId,
@@ -208,9 +132,7 @@ export async function listAssignments(
     students: progress.filter((p) => p.assignmentId === h.a.id),
   }));
 }
-export type AssignmentListRow = Awaited<
-  ReturnType<typeof listAssignments>
->[number];
+export type AssignmentListRow = Awaited<ReturnType<typeof listAssignments>>[number];
 
 /** What the assign form offers: the teacher's tunes (every tune for an admin) and students they may assign to. */
 export async function assignFormData(db: Tx, teacherId: string | null) {
@@ -222,11 +144,7 @@ export async function assignFormData(db: Tx, teacherId: string | null) {
   const cols = { id: users.id, name: users.name, timeZone: users.timeZone };
   const students =
     teacherId === null
-      ? await db
-          .select(cols)
-          .from(users)
-          .where(eq(users.role, "student"))
-          .orderBy(asc(users.name))
+      ? await db.select(cols).from(users).where(eq(users.role, "student")).orderBy(asc(users.name))
       : await db
           .select(cols)
           .from(rosterEntries)

@@ -2,15 +2,7 @@
 // `teacherId` argument (null: an admin, everyone's), always the signed-in person's id.
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import {
-  assignments,
-  assignmentStudents,
-  checkIns,
-  rosterEntries,
-  stageStates,
-  tunes,
-  users,
-} from "../schema";
+import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
 
 /** Check-ins waiting for review on active assignments, oldest first. */
 export async function waitingForReview(db: Tx, teacherId: string | null) {
@@ -31,28 +23,16 @@ export async function waitingForReview(db: Tx, teacherId: string | null) {
     })
     .from(checkIns)
     .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
-    .innerJoin(
-      assignmentStudents,
-      eq(assignmentStudents.id, stageStates.assignmentStudentId),
-    )
+    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, checkIns.studentId))
-    .where(
-      and(
-        eq(checkIns.status, "waiting"),
-        eq(assignments.status, "active"),
-        teacherId === null ? undefined : eq(assignments.teacherId, teacherId),
-      ),
-    )
+    .where(and(eq(checkIns.status, "waiting"), eq(assignments.status, "active"), teacherId === null ? undefined : eq(assignments.teacherId, teacherId)))
     .orderBy(asc(checkIns.createdAt), asc(checkIns.id));
 }
 
 export async function findCheckIn(db: Tx, id: string) {
-  const [row] = await db
-    .select({ id: checkIns.id, stageStateId: checkIns.stageStateId })
-    .from(checkIns)
-    .where(eq(checkIns.id, id));
+  const [row] = await db.select({ id: checkIns.id, stageStateId: checkIns.stageStateId }).from(checkIns).where(eq(checkIns.id, id));
   return row ?? null;
 }
 
@@ -60,15 +40,10 @@ export async function findCheckIn(db: Tx, id: string) {
  * The roster with each student's last practice day and open / overdue assignments (of this teacher;
  * of anyone for an admin, who sees every student). "Open": active and not every stage signed off.
  */
-export async function rosterFigures(
-  db: Tx,
-  teacherId: string | null,
-  now: Date,
-) {
+export async function rosterFigures(db: Tx, teacherId: string | null, now: Date) {
   // Written with qualified names: drizzle leaves columns bare in a one-table select, which the
   // correlated subqueries below would find ambiguous.
-  const mine =
-    teacherId === null ? sql`true` : sql`a.teacher_id = ${teacherId}`;
+  const mine = teacherId === null ? sql`true` : sql`a.teacher_id = ${teacherId}`;
   const open = sql`from assignment_students s join assignments a on a.id = s.assignment_id
     where s.student_id = "users"."id" and a.status = 'active' and ${mine}
     and exists (select 1 from stage_states st where st.assignment_student_id = s.id and st.state <> 'signed_off')`;
@@ -76,18 +51,11 @@ export async function rosterFigures(
     studentId: users.id,
     name: users.name,
     email: users.email,
-    lastPractice: sql<
-      string | null
-    >`(select max(p.practised_on)::text from practice_logs p where p.user_id = "users"."id")`,
+    lastPractice: sql<string | null>`(select max(p.practised_on)::text from practice_logs p where p.user_id = "users"."id")`,
     openAssignments: sql<number>`(select count(*)::int ${open})`,
     overdueAssignments: sql<number>`(select count(*)::int ${open} and a.due_at < ${now.toISOString()}::timestamptz)`,
   };
-  if (teacherId === null)
-    return db
-      .select(cols)
-      .from(users)
-      .where(eq(users.role, "student"))
-      .orderBy(asc(users.name));
+  if (teacherId === null) return db.select(cols).from(users).where(eq(users.role, "student")).orderBy(asc(users.name));
   return db
     .select(cols)
     .from(rosterEntries)

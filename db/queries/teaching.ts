@@ -2,17 +2,7 @@
 // lib/teaching/*; these only read and write rows.
 import { and, eq, gte, max, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import {
-  assignments,
-  assignmentStudents,
-  checkIns,
-  practiceLogs,
-  stageStates,
-  tuneProgress,
-  tunes,
-  uploads,
-  users,
-} from "../schema";
+import { assignments, assignmentStudents, checkIns, practiceLogs, stageStates, tuneProgress, tunes, uploads, users } from "../schema";
 
 /** The stage row locked for the rest of the transaction, with what the state machine needs to decide. */
 export async function lockStage(tx: Tx, stageStateId: string) {
@@ -33,10 +23,7 @@ export async function lockStage(tx: Tx, stageStateId: string) {
       unlockMinutes: assignments.unlockMinutes,
     })
     .from(stageStates)
-    .innerJoin(
-      assignmentStudents,
-      eq(assignmentStudents.id, stageStates.assignmentStudentId),
-    )
+    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .where(eq(stageStates.id, stageStateId))
     .for("update", { of: stageStates });
@@ -44,10 +31,7 @@ export async function lockStage(tx: Tx, stageStateId: string) {
 }
 export type LockedStage = NonNullable<Awaited<ReturnType<typeof lockStage>>>;
 
-export async function lastStageIndex(
-  tx: Tx,
-  assignmentStudentId: string,
-): Promise<number> {
+export async function lastStageIndex(tx: Tx, assignmentStudentId: string): Promise<number> {
   const [row] = await tx
     .select({ n: max(stageStates.stageIndex) })
     .from(stageStates)
@@ -56,24 +40,13 @@ export async function lastStageIndex(
 }
 
 /** Minutes the student logged on this tune on or after `sinceDay` (YYYY-MM-DD in the student's zone). */
-export async function practiceMinutesSince(
-  tx: Tx,
-  studentId: string,
-  tuneId: string,
-  sinceDay: string,
-): Promise<number> {
+export async function practiceMinutesSince(tx: Tx, studentId: string, tuneId: string, sinceDay: string): Promise<number> {
   const [row] = await tx
     .select({
       total: sql<number>`coalesce(sum(${practiceLogs.minutes}), 0)::int`,
     })
     .from(practiceLogs)
-    .where(
-      and(
-        eq(practiceLogs.userId, studentId),
-        eq(practiceLogs.tuneId, tuneId),
-        gte(practiceLogs.practisedOn, sinceDay),
-      ),
-    );
+    .where(and(eq(practiceLogs.userId, studentId), eq(practiceLogs.tuneId, tuneId), gte(practiceLogs.practisedOn, sinceDay)));
   return row?.total ?? 0;
 }
 
@@ -86,21 +59,11 @@ export async function waitingCheckIn(tx: Tx, stageStateId: string) {
   const [row] = await tx
     .select()
     .from(checkIns)
-    .where(
-      and(
-        eq(checkIns.stageStateId, stageStateId),
-        eq(checkIns.status, "waiting"),
-      ),
-    );
+    .where(and(eq(checkIns.stageStateId, stageStateId), eq(checkIns.status, "waiting")));
   return row ?? null;
 }
 
-export async function setStageState(
-  tx: Tx,
-  id: string,
-  state: "open" | "checked_in" | "signed_off",
-  now: Date,
-): Promise<void> {
+export async function setStageState(tx: Tx, id: string, state: "open" | "checked_in" | "signed_off", now: Date): Promise<void> {
   await tx
     .update(stageStates)
     .set({ state, ...(state === "signed_off" ? { signedOffAt: now } : {}) })
@@ -108,33 +71,16 @@ export async function setStageState(
 }
 
 /** Opens stage `index` when it is still locked; returns whether it did. */
-export async function openStage(
-  tx: Tx,
-  assignmentStudentId: string,
-  index: number,
-  now: Date,
-): Promise<boolean> {
+export async function openStage(tx: Tx, assignmentStudentId: string, index: number, now: Date): Promise<boolean> {
   const rows = await tx
     .update(stageStates)
     .set({ state: "open", openedAt: now })
-    .where(
-      and(
-        eq(stageStates.assignmentStudentId, assignmentStudentId),
-        eq(stageStates.stageIndex, index),
-        eq(stageStates.state, "locked"),
-      ),
-    )
+    .where(and(eq(stageStates.assignmentStudentId, assignmentStudentId), eq(stageStates.stageIndex, index), eq(stageStates.state, "locked")))
     .returning({ id: stageStates.id });
   return rows.length > 0;
 }
 
-export async function raiseTuneProgress(
-  tx: Tx,
-  userId: string,
-  tuneId: string,
-  stage: number,
-  now: Date,
-): Promise<void> {
+export async function raiseTuneProgress(tx: Tx, userId: string, tuneId: string, stage: number, now: Date): Promise<void> {
   await tx
     .insert(tuneProgress)
     .values({ userId, tuneId, reachedStage: stage, updatedAt: now })
@@ -148,24 +94,10 @@ export async function raiseTuneProgress(
 }
 
 /** Names and addresses for the feedback e-mail. */
-export async function mailPeople(
-  tx: Tx,
-  studentId: string,
-  teacherId: string,
-  tuneId: string,
-) {
-  const [student] = await tx
-    .select({ name: users.name, email: users.email, timeZone: users.timeZone })
-    .from(users)
-    .where(eq(users.id, studentId));
-  const [teacher] = await tx
-    .select({ name: users.name })
-    .from(users)
-    .where(eq(users.id, teacherId));
-  const [tune] = await tx
-    .select({ title: tunes.title })
-    .from(tunes)
-    .where(eq(tunes.id, tuneId));
+export async function mailPeople(tx: Tx, studentId: string, teacherId: string, tuneId: string) {
+  const [student] = await tx.select({ name: users.name, email: users.email, timeZone: users.timeZone }).from(users).where(eq(users.id, studentId));
+  const [teacher] = await tx.select({ name: users.name }).from(users).where(eq(users.id, teacherId));
+  const [tune] = await tx.select({ title: tunes.title }).from(tunes).where(eq(tunes.id, tuneId));
   return {
     student,
     teacherName: teacher?.name ?? "Your teacher",

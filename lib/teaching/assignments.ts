@@ -22,10 +22,7 @@ import { appLink } from "@/lib/auth/links";
 import type { Role } from "@/lib/auth/permissions";
 import { enqueueEmail } from "@/lib/mail/outbox";
 import { checkTune } from "@/lib/tunes/check";
-import type {
-  AssignmentCreateInput,
-  AssignmentEditInput,
-} from "./teach-schemas";
+import type { AssignmentCreateInput, AssignmentEditInput } from "./teach-schemas";
 import { assignmentStages } from "./teach-stages";
 import { dueForMail, isTimeZone, zonedLocalToInstant } from "./teach-time";
 
@@ -35,63 +32,36 @@ type Errors = Record<string, string>;
 const scopeOf = (me: Manager) => (me.role === "admin" ? null : me.id);
 
 /** The zone a due date is typed in: the student's own when there is one, else the teacher's (shared design). */
-export function formZone(
-  students: { timeZone: string }[],
-  teacherZone: string,
-): string {
+export function formZone(students: { timeZone: string }[], teacherZone: string): string {
   const zone = students.length === 1 ? students[0].timeZone : teacherZone;
   return isTimeZone(zone) ? zone : "UTC";
 }
 
-export async function managedAssignment(
-  db: Tx,
-  me: Manager,
-  id: string,
-): Promise<AssignmentRow> {
+export async function managedAssignment(db: Tx, me: Manager, id: string): Promise<AssignmentRow> {
   const row = await findAssignment(db, id);
-  if (!row || (me.role !== "admin" && row.teacherId !== me.id))
-    throw notFound("We couldn't find that assignment among yours.");
+  if (!row || (me.role !== "admin" && row.teacherId !== me.id)) throw notFound("We couldn't find that assignment among yours.");
   return row;
 }
 
-function checkDue(
-  dueLocal: string,
-  zone: string,
-  now: Date,
-  errors: Errors,
-): Date | null {
+function checkDue(dueLocal: string, zone: string, now: Date, errors: Errors): Date | null {
   const due = zonedLocalToInstant(dueLocal, zone);
   if (!due) errors.dueLocal = "Give a real date and time.";
-  else if (due.getTime() <= now.getTime())
-    errors.dueLocal = `The due date is in the past (times are in ${zone}).`;
+  else if (due.getTime() <= now.getTime()) errors.dueLocal = `The due date is in the past (times are in ${zone}).`;
   return due;
 }
 
-function checkPlan(
-  tune: TuneRow,
-  plan: AssignmentCreateInput["stagePlan"],
-  errors: Errors,
-): void {
+function checkPlan(tune: TuneRow, plan: AssignmentCreateInput["stagePlan"], errors: Errors): void {
   if (!plan) return;
   const check = checkTune(tune.abc, {
     stagePlan: plan,
     acceptedSwaps: tune.acceptedSwaps,
   });
-  if (!check.ok)
-    errors.stagePlan =
-      check.planReasons.join(" ") ||
-      "This stage plan doesn't make clean stages of this tune.";
+  if (!check.ok) errors.stagePlan = check.planReasons.join(" ") || "This stage plan doesn't make clean stages of this tune.";
 }
 
-function checkRule(
-  rule: "teacher_sign_off" | "self_check_in",
-  minutes: number | null,
-  errors: Errors,
-): number | null {
+function checkRule(rule: "teacher_sign_off" | "self_check_in", minutes: number | null, errors: Errors): number | null {
   if (rule === "teacher_sign_off") return null;
-  if (minutes === null)
-    errors.unlockMinutes =
-      "Give the practice minutes a student needs before their own check-in opens the next stage.";
+  if (minutes === null) errors.unlockMinutes = "Give the practice minutes a student needs before their own check-in opens the next stage.";
   return minutes;
 }
 
@@ -113,10 +83,7 @@ async function mailNew(
       studentName: s.name,
       teacherName: a.teacherName,
       tuneTitle: a.tuneTitle,
-      dueLocal: dueForMail(
-        a.dueAt,
-        isTimeZone(s.timeZone) ? s.timeZone : "UTC",
-      ),
+      dueLocal: dueForMail(a.dueAt, isTimeZone(s.timeZone) ? s.timeZone : "UTC"),
       note: a.note,
       assignmentUrl: appLink(`/learn/assignments/${asId}`),
     },
@@ -124,48 +91,26 @@ async function mailNew(
   });
 }
 
-export async function createAssignment(
-  db: Tx,
-  me: Manager,
-  input: AssignmentCreateInput,
-  now: Date,
-): Promise<{ id: string; assignmentStudentIds: string[] }> {
+export async function createAssignment(db: Tx, me: Manager, input: AssignmentCreateInput, now: Date): Promise<{ id: string; assignmentStudentIds: string[] }> {
   const errors: Errors = {};
   const tune = await findTune(db, input.tuneId);
-  if (!tune || (me.role !== "admin" && tune.teacherId !== me.id))
-    errors.tuneId = "Choose one of your own tunes.";
+  if (!tune || (me.role !== "admin" && tune.teacherId !== me.id)) errors.tuneId = "Choose one of your own tunes.";
   const ids = [...new Set(input.studentIds)];
   const students = await assignableStudents(db, scopeOf(me), ids);
   if (students.length !== ids.length) {
     const missing = ids.length - students.length;
-    errors.studentIds =
-      missing === 1
-        ? "One of the chosen students is not on your roster."
-        : `${missing} of the chosen students are not on your roster.`;
+    errors.studentIds = missing === 1 ? "One of the chosen students is not on your roster." : `${missing} of the chosen students are not on your roster.`;
   }
   const teacher = await findUserById(db, me.id);
-  const due = checkDue(
-    input.dueLocal,
-    formZone(students, teacher?.timeZone ?? "UTC"),
-    now,
-    errors,
-  );
+  const due = checkDue(input.dueLocal, formZone(students, teacher?.timeZone ?? "UTC"), now, errors);
   if (tune) checkPlan(tune, input.stagePlan, errors);
-  const unlockMinutes = checkRule(
-    input.unlockRule,
-    input.unlockMinutes,
-    errors,
-  );
+  const unlockMinutes = checkRule(input.unlockRule, input.unlockMinutes, errors);
   fail(errors);
   if (!tune || !due) throw new Error("unreachable: errors were raised above");
 
   return db.transaction(async (tx) => {
     const stages = await assignmentStages(tx, tune.id, input.stagePlan);
-    if (!stages.length)
-      throw unprocessable(
-        "This tune has no stages yet; save it in the tune editor first.",
-        { tuneId: "This tune has no stages yet." },
-      );
+    if (!stages.length) throw unprocessable("This tune has no stages yet; save it in the tune editor first.", { tuneId: "This tune has no stages yet." });
     const id = await insertAssignment(tx, {
       teacherId: me.id,
       tuneId: tune.id,
@@ -193,85 +138,48 @@ export async function createAssignment(
   });
 }
 
-export async function editAssignment(
-  db: Tx,
-  me: Manager,
-  input: AssignmentEditInput,
-  now: Date,
-): Promise<void> {
+export async function editAssignment(db: Tx, me: Manager, input: AssignmentEditInput, now: Date): Promise<void> {
   await db.transaction(async (tx) => {
     const found = await managedAssignment(tx, me, input.id);
     const a = (await lockAssignment(tx, found.id)) as AssignmentRow;
-    if (a.status === "withdrawn")
-      throw conflict(
-        "This assignment has been withdrawn; it can't be changed.",
-      );
+    if (a.status === "withdrawn") throw conflict("This assignment has been withdrawn; it can't be changed.");
     const errors: Errors = {};
     const set: Partial<AssignmentRow> = { updatedAt: now };
     if (input.dueLocal !== undefined) {
       const teacher = await findUserById(tx, a.teacherId);
-      const due = checkDue(
-        input.dueLocal,
-        formZone(
-          await studentsOfAssignment(tx, a.id),
-          teacher?.timeZone ?? "UTC",
-        ),
-        now,
-        errors,
-      );
+      const due = checkDue(input.dueLocal, formZone(await studentsOfAssignment(tx, a.id), teacher?.timeZone ?? "UTC"), now, errors);
       if (due) set.dueAt = due;
     }
     if (input.note !== undefined) set.note = input.note;
     const rule = input.unlockRule ?? a.unlockRule;
     if (input.unlockRule !== undefined || input.unlockMinutes !== undefined) {
       set.unlockRule = rule;
-      set.unlockMinutes = checkRule(
-        rule,
-        input.unlockMinutes === undefined
-          ? a.unlockMinutes
-          : input.unlockMinutes,
-        errors,
-      );
+      set.unlockMinutes = checkRule(rule, input.unlockMinutes === undefined ? a.unlockMinutes : input.unlockMinutes, errors);
     }
-    const planChanged =
-      input.stagePlan !== undefined &&
-      JSON.stringify(input.stagePlan) !== JSON.stringify(a.stagePlan);
+    const planChanged = input.stagePlan !== undefined && JSON.stringify(input.stagePlan) !== JSON.stringify(a.stagePlan);
     if (planChanged) {
       const tune = (await findTune(tx, a.tuneId)) as TuneRow;
       checkPlan(tune, input.stagePlan ?? null, errors);
       // Stages already checked in would lose their meaning if the plan changed under them.
-      if (!errors.stagePlan && (await countCheckIns(tx, a.id)) > 0)
-        errors.stagePlan =
-          "Students have checked in already, so the stage plan stays as it is.";
+      if (!errors.stagePlan && (await countCheckIns(tx, a.id)) > 0) errors.stagePlan = "Students have checked in already, so the stage plan stays as it is.";
       set.stagePlan = input.stagePlan ?? null;
     }
     fail(errors);
     await updateAssignment(tx, a.id, set);
     if (planChanged) {
-      const stages = await assignmentStages(
-        tx,
-        a.tuneId,
-        input.stagePlan ?? null,
-      );
+      const stages = await assignmentStages(tx, a.tuneId, input.stagePlan ?? null);
       await deleteStageStates(tx, a.id);
-      for (const s of await studentsOfAssignment(tx, a.id))
-        await insertStageStates(tx, s.assignmentStudentId, stages.length, now);
+      for (const s of await studentsOfAssignment(tx, a.id)) await insertStageStates(tx, s.assignmentStudentId, stages.length, now);
     }
   });
 }
 
 /** Withdrawn assignments stay for the record; their stages no longer change (state-machine.ts refuses). */
-export async function withdrawAssignment(
-  db: Tx,
-  me: Manager,
-  id: string,
-  now: Date,
-): Promise<void> {
+export async function withdrawAssignment(db: Tx, me: Manager, id: string, now: Date): Promise<void> {
   await db.transaction(async (tx) => {
     const found = await managedAssignment(tx, me, id);
     const a = (await lockAssignment(tx, found.id)) as AssignmentRow;
-    if (a.status === "withdrawn")
-      throw conflict("This assignment is already withdrawn.");
+    if (a.status === "withdrawn") throw conflict("This assignment is already withdrawn.");
     await updateAssignment(tx, a.id, { status: "withdrawn", updatedAt: now });
   });
 }

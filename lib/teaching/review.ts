@@ -13,13 +13,8 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
   const rows = await waitingForReview(db, me.role === "admin" ? null : me.id);
   // Stages are worked out once per assignment: several students' check-ins often share one.
   const stagesOf = new Map<string, Promise<AssignmentStage[]>>();
-  const stages = (
-    assignmentId: string,
-    tuneId: string,
-    plan: StagePlanJson | null,
-  ) => {
-    if (!stagesOf.has(assignmentId))
-      stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
+  const stages = (assignmentId: string, tuneId: string, plan: StagePlanJson | null) => {
+    if (!stagesOf.has(assignmentId)) stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
     return stagesOf.get(assignmentId) as Promise<AssignmentStage[]>;
   };
   const out: ReviewItem[] = [];

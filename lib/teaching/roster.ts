@@ -4,10 +4,6 @@ import { rosterFigures } from "@/db/queries/teaching-review";
 import type { Manager } from "./assignments";
 import type { RosterRow } from "./teach-api-types";
 
-export async function rosterTable(
-  db: Tx,
-  me: Manager,
-  now: Date,
-): Promise<RosterRow[]> {
+export async function rosterTable(db: Tx, me: Manager, now: Date): Promise<RosterRow[]> {
   return rosterFigures(db, me.role === "admin" ? null : me.id, now);
 }

@@ -5,17 +5,11 @@ import type { Role } from "@/lib/auth/permissions";
 
 export type StageState = "locked" | "open" | "checked_in" | "signed_off";
 export type Transition = "checkIn" | "withdraw" | "signOff" | "needsMoreTime";
-export type CheckInStatus =
-  "waiting" | "signed_off" | "needs_more_time" | "withdrawn";
+export type CheckInStatus = "waiting" | "signed_off" | "needs_more_time" | "withdrawn";
 export type UnlockRule = "teacher_sign_off" | "self_check_in";
 export type AssignmentStatus = "active" | "withdrawn";
 
-export const TRANSITIONS: readonly Transition[] = [
-  "checkIn",
-  "withdraw",
-  "signOff",
-  "needsMoreTime",
-];
+export const TRANSITIONS: readonly Transition[] = ["checkIn", "withdraw", "signOff", "needsMoreTime"];
 
 /** Who asks, and how they relate to this stage's assignment (worked out by the caller from the rows). */
 export type Actor = {
@@ -56,9 +50,7 @@ const refuse = (status: 403 | 404 | 409, message: string): Decision => ({
 
 /** Someone with no tie to the assignment must not learn it exists: 404 (ENGINEERING.md, per-record rules). */
 function canSee(actor: Actor): boolean {
-  return (
-    actor.isStudentOwner || actor.isAssignmentTeacher || actor.role === "admin"
-  );
+  return actor.isStudentOwner || actor.isAssignmentTeacher || actor.role === "admin";
 }
 
 function reviewer(actor: Actor): boolean {
@@ -73,22 +65,11 @@ const STATE_WORDS: Record<StageState, string> = {
 };
 
 function checkIn(ctx: DecideContext): Decision {
-  if (!ctx.actor.isStudentOwner)
-    return refuse(403, "Only the student of this assignment can check in.");
-  if (ctx.state === "checked_in")
-    return refuse(
-      409,
-      "This stage is already checked in and waiting for review.",
-    );
-  if (ctx.state !== "open")
-    return refuse(
-      409,
-      `You can't check in: this stage is ${STATE_WORDS[ctx.state]}.`,
-    );
+  if (!ctx.actor.isStudentOwner) return refuse(403, "Only the student of this assignment can check in.");
+  if (ctx.state === "checked_in") return refuse(409, "This stage is already checked in and waiting for review.");
+  if (ctx.state !== "open") return refuse(409, `You can't check in: this stage is ${STATE_WORDS[ctx.state]}.`);
   const needed = ctx.unlockMinutes ?? 0;
-  const selfUnlock =
-    ctx.unlockRule === "self_check_in" &&
-    (ctx.minutesSinceOpened ?? 0) >= needed;
+  const selfUnlock = ctx.unlockRule === "self_check_in" && (ctx.minutesSinceOpened ?? 0) >= needed;
   if (selfUnlock)
     return {
       ok: true,
@@ -105,21 +86,9 @@ function checkIn(ctx: DecideContext): Decision {
 }
 
 function withdraw(ctx: DecideContext): Decision {
-  if (!ctx.actor.isStudentOwner)
-    return refuse(
-      403,
-      "Only the student who checked in can withdraw the check-in.",
-    );
-  if (ctx.state === "signed_off")
-    return refuse(
-      409,
-      "This check-in has already been reviewed and signed off.",
-    );
-  if (ctx.state !== "checked_in")
-    return refuse(
-      409,
-      "There is no check-in waiting for review on this stage to withdraw.",
-    );
+  if (!ctx.actor.isStudentOwner) return refuse(403, "Only the student who checked in can withdraw the check-in.");
+  if (ctx.state === "signed_off") return refuse(409, "This check-in has already been reviewed and signed off.");
+  if (ctx.state !== "checked_in") return refuse(409, "There is no check-in waiting for review on this stage to withdraw.");
   return {
     ok: true,
     next: "open",
@@ -128,22 +97,10 @@ function withdraw(ctx: DecideContext): Decision {
   };
 }
 
-function review(
-  transition: "signOff" | "needsMoreTime",
-  ctx: DecideContext,
-): Decision {
-  if (!reviewer(ctx.actor))
-    return refuse(
-      403,
-      "Only the assignment's teacher or an admin can review a check-in.",
-    );
-  if (ctx.state === "signed_off")
-    return refuse(409, "This stage has already been signed off.");
-  if (ctx.state !== "checked_in")
-    return refuse(
-      409,
-      `There is no check-in to review: this stage is ${STATE_WORDS[ctx.state]}.`,
-    );
+function review(transition: "signOff" | "needsMoreTime", ctx: DecideContext): Decision {
+  if (!reviewer(ctx.actor)) return refuse(403, "Only the assignment's teacher or an admin can review a check-in.");
+  if (ctx.state === "signed_off") return refuse(409, "This stage has already been signed off.");
+  if (ctx.state !== "checked_in") return refuse(409, `There is no check-in to review: this stage is ${STATE_WORDS[ctx.state]}.`);
   if (transition === "signOff")
     return {
       ok: true,
@@ -161,11 +118,7 @@ function review(
 
 export function decide(transition: Transition, ctx: DecideContext): Decision {
   if (!canSee(ctx.actor)) return refuse(404, "Assignment not found.");
-  if (ctx.assignmentStatus === "withdrawn")
-    return refuse(
-      409,
-      "This assignment has been withdrawn; its stages can't change.",
-    );
+  if (ctx.assignmentStatus === "withdrawn") return refuse(409, "This assignment has been withdrawn; its stages can't change.");
   switch (transition) {
     case "checkIn":
       return checkIn(ctx);

@@ -10,13 +10,8 @@ export const MAX_FEEDBACK_CHARS = 4000;
 /** Ten hours: a week of long days' practice is already far past what a stage needs (common practice). */
 export const MAX_UNLOCK_MINUTES = 600;
 
-const dueLocal = z
-  .string()
-  .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, "Give the due date and time.");
-const unlockRule = z.enum(
-  ["teacher_sign_off", "self_check_in"],
-  "Choose how the next stage unlocks.",
-);
+const dueLocal = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, "Give the due date and time.");
+const unlockRule = z.enum(["teacher_sign_off", "self_check_in"], "Choose how the next stage unlocks.");
 const unlockMinutes = z.coerce
   .number("Give the practice minutes as a number.")
   .int("Give whole minutes.")
@@ -24,19 +19,14 @@ const unlockMinutes = z.coerce
   .max(MAX_UNLOCK_MINUTES, `At most ${MAX_UNLOCK_MINUTES} minutes.`)
   .nullable()
   .default(null);
-const note = z
-  .string()
-  .max(MAX_NOTE_CHARS, `Keep the note under ${MAX_NOTE_CHARS} characters.`);
+const note = z.string().max(MAX_NOTE_CHARS, `Keep the note under ${MAX_NOTE_CHARS} characters.`);
 
 export const assignmentCreateInput = z.object({
   tuneId: z.uuid("Choose a tune."),
   studentIds: z
     .array(z.uuid("Unknown student."), "Choose at least one student.")
     .min(1, "Choose at least one student.")
-    .max(
-      MAX_STUDENTS_PER_ASSIGNMENT,
-      `At most ${MAX_STUDENTS_PER_ASSIGNMENT} students in one assignment.`,
-    ),
+    .max(MAX_STUDENTS_PER_ASSIGNMENT, `At most ${MAX_STUDENTS_PER_ASSIGNMENT} students in one assignment.`),
   dueLocal,
   stagePlan: stagePlanInput.nullable().default(null),
   unlockRule: unlockRule.default("teacher_sign_off"),
@@ -58,16 +48,6 @@ export type AssignmentEditInput = z.output<typeof assignmentEditInput>;
 
 export const reviewInput = z.object({
   checkInId: z.uuid("Unknown check-in."),
-  outcome: z.enum(
-    ["signed_off", "needs_more_time"],
-    "Choose sign off or needs more time.",
-  ),
-  feedback: z
-    .string()
-    .trim()
-    .max(
-      MAX_FEEDBACK_CHARS,
-      `Keep the feedback under ${MAX_FEEDBACK_CHARS} characters.`,
-    )
-    .default(""),
+  outcome: z.enum(["signed_off", "needs_more_time"], "Choose sign off or needs more time."),
+  feedback: z.string().trim().max(MAX_FEEDBACK_CHARS, `Keep the feedback under ${MAX_FEEDBACK_CHARS} characters.`).default(""),
 });

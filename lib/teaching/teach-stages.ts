@@ -9,11 +9,7 @@ import { storedPlan } from "@/lib/tunes/schemas";
 export type AssignmentStage = { index: number; name: string; abc: string };
 
 /** Stages from a changed plan; null when the tune does not read cleanly with it (the plan is then refused). */
-export function stagesForPlan(
-  abc: string,
-  acceptedSwaps: string[],
-  plan: StagePlanJson,
-): AssignmentStage[] | null {
+export function stagesForPlan(abc: string, acceptedSwaps: string[], plan: StagePlanJson): AssignmentStage[] | null {
   const parsedPlan = storedPlan(plan);
   if (!parsedPlan) return null;
   const check = checkTune(abc, { stagePlan: parsedPlan, acceptedSwaps });
@@ -25,19 +21,10 @@ export function stagesForPlan(
   }));
 }
 
-export async function assignmentStages(
-  db: Tx,
-  tuneId: string,
-  plan: StagePlanJson | null,
-): Promise<AssignmentStage[]> {
+export async function assignmentStages(db: Tx, tuneId: string, plan: StagePlanJson | null): Promise<AssignmentStage[]> {
   if (plan) {
-    const [tune] = await db
-      .select({ abc: tunes.abc, acceptedSwaps: tunes.acceptedSwaps })
-      .from(tunes)
-      .where(eq(tunes.id, tuneId));
-    const stages = tune
-      ? stagesForPlan(tune.abc, tune.acceptedSwaps, plan)
-      : null;
+    const [tune] = await db.select({ abc: tunes.abc, acceptedSwaps: tunes.acceptedSwaps }).from(tunes).where(eq(tunes.id, tuneId));
+    const stages = tune ? stagesForPlan(tune.abc, tune.acceptedSwaps, plan) : null;
     // The plan was checked against this tune when saved; if the tune changed since, fall back to its own stages.
     if (stages) return stages;
   }

@@ -24,16 +24,8 @@ function wallParts(ms: number, zone: string): number[] {
     minute: "2-digit",
     second: "2-digit",
   }).formatToParts(new Date(ms));
-  const get = (t: Intl.DateTimeFormatPartTypes) =>
-    Number(parts.find((p) => p.type === t)?.value ?? 0);
-  return [
-    get("year"),
-    get("month"),
-    get("day"),
-    get("hour"),
-    get("minute"),
-    get("second"),
-  ];
+  const get = (t: Intl.DateTimeFormatPartTypes) => Number(parts.find((p) => p.type === t)?.value ?? 0);
+  return [get("year"), get("month"), get("day"), get("hour"), get("minute"), get("second")];
 }
 
 /** How far the zone's wall clock is ahead of UTC at that instant, in ms. */

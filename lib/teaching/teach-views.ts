@@ -4,10 +4,7 @@ import { formZone } from "./assignments";
 import type { AssignmentView } from "./teach-api-types";
 import { instantToZonedLocal } from "./teach-time";
 
-export function assignmentView(
-  row: AssignmentListRow,
-  now: Date,
-): AssignmentView {
+export function assignmentView(row: AssignmentListRow, now: Date): AssignmentView {
   const a = row.a;
   const zone = formZone(row.students, row.teacherZone);
   return {
@@ -22,10 +19,7 @@ export function assignmentView(
     unlockMinutes: a.unlockMinutes,
     note: a.note,
     status: a.status,
-    overdue:
-      a.status === "active" &&
-      a.dueAt.getTime() < now.getTime() &&
-      row.students.some((s) => s.signedOff < s.stages),
+    overdue: a.status === "active" && a.dueAt.getTime() < now.getTime() && row.students.some((s) => s.signedOff < s.stages),
     students: row.students.map(({ assignmentId: _a, ...s }) => s),
   };
 }

@@ -19,16 +19,8 @@ import {
 } from "@/db/queries/teaching";
 import type { Role } from "@/lib/auth/permissions";
 import { conflict, HttpError, unprocessable } from "@/lib/auth/errors";
-import { appLink } from "@/lib/auth/links";
-import { enqueueEmail } from "@/lib/mail/outbox";
-import {
-  decide,
-  type Actor,
-  type CheckInStatus,
-  type StageState,
-  type Transition,
-} from "./state-machine";
-import { assignmentStages } from "./teach-stages";
+import { mailFeedback } from "./teach-feedback-mail";
+import { decide, type Actor, type CheckInStatus, type StageState, type Transition } from "./state-machine";
 
 export type CheckInInput = {
   uploadId: string;
@@ -77,42 +69,26 @@ function actorFor(stage: LockedStage, actor: ApplyInput["actor"]): Actor {
 
 function isUniqueViolation(e: unknown): boolean {
   const inner = e instanceof Error && e.cause instanceof Error ? e.cause : e;
-  return (
-    typeof inner === "object" &&
-    inner !== null &&
-    "code" in inner &&
-    (inner as { code: unknown }).code === "23505"
-  );
+  return typeof inner === "object" && inner !== null && "code" in inner && (inner as { code: unknown }).code === "23505";
 }
 
-async function checkUpload(
-  tx: Tx,
-  stage: LockedStage,
-  input: CheckInInput | undefined,
-): Promise<CheckInInput> {
-  if (!input)
-    throw unprocessable(
-      "A check-in needs a recording, a self-rating and whether you played from memory.",
-      { uploadId: "Add a recording." },
-    );
-  if (
-    !Number.isInteger(input.selfRating) ||
-    input.selfRating < 1 ||
-    input.selfRating > 5
-  ) {
+async function checkUpload(tx: Tx, stage: LockedStage, input: CheckInInput | undefined): Promise<CheckInInput> {
+  if (!input) throw unprocessable("A check-in needs a recording, a self-rating and whether you played from memory.", { uploadId: "Add a recording." });
+  if (!Number.isInteger(input.selfRating) || input.selfRating < 1 || input.selfRating > 5) {
     throw unprocessable("Rate yourself from 1 to 5.", {
       selfRating: "Choose a whole number from 1 to 5.",
     });
   }
   const upload = await findUpload(tx, input.uploadId);
   // Another student's recording answers like a missing one: no hint that it exists.
-  if (
-    !upload ||
-    upload.ownerId !== stage.studentId ||
-    upload.assignmentStudentId !== stage.assignmentStudentId
-  ) {
+  if (!upload || upload.ownerId !== stage.studentId || upload.assignmentStudentId !== stage.assignmentStudentId) {
     throw unprocessable("That recording was not found for this assignment.", {
       uploadId: "Upload the recording for this assignment again.",
+    });
+  }
+  if (upload.stageIndex !== null && upload.stageIndex !== stage.stageIndex) {
+    throw unprocessable(`That recording was made for stage ${upload.stageIndex}, not stage ${stage.stageIndex}.`, {
+      uploadId: "Record or upload this stage's recording.",
     });
   }
   if (upload.status !== "stored")
@@ -122,27 +98,12 @@ async function checkUpload(
   return input;
 }
 
-async function minutesFor(
-  tx: Tx,
-  stage: LockedStage,
-  timeZone: string,
-): Promise<number> {
+async function minutesFor(tx: Tx, stage: LockedStage, timeZone: string): Promise<number> {
   if (stage.unlockRule !== "self_check_in" || !stage.openedAt) return 0;
-  return practiceMinutesSince(
-    tx,
-    stage.studentId,
-    stage.tuneId,
-    dayIn(stage.openedAt, timeZone),
-  );
+  return practiceMinutesSince(tx, stage.studentId, stage.tuneId, dayIn(stage.openedAt, timeZone));
 }
 
-async function writeCheckIn(
-  tx: Tx,
-  stage: LockedStage,
-  input: ApplyInput,
-  status: CheckInStatus,
-): Promise<string> {
-  const c = input.checkInInput as CheckInInput;
+async function writeCheckIn(tx: Tx, stage: LockedStage, input: ApplyInput, c: CheckInInput, status: CheckInStatus): Promise<string> {
   try {
     const [row] = await tx
       .insert(checkIns)
@@ -159,23 +120,14 @@ async function writeCheckIn(
       .returning({ id: checkIns.id });
     return row.id;
   } catch (e) {
-    if (isUniqueViolation(e))
-      throw conflict(
-        "This stage is already checked in and waiting for review.",
-      );
+    if (isUniqueViolation(e)) throw conflict("This stage is already checked in and waiting for review.");
     throw e;
   }
 }
 
-async function closeWaiting(
-  tx: Tx,
-  stage: LockedStage,
-  input: ApplyInput,
-  status: CheckInStatus,
-): Promise<string> {
+async function closeWaiting(tx: Tx, stage: LockedStage, input: ApplyInput, status: CheckInStatus): Promise<string> {
   const waiting = await waitingCheckIn(tx, stage.id);
-  if (!waiting || (input.checkInId && waiting.id !== input.checkInId))
-    throw conflict("This check-in has already been dealt with.");
+  if (!waiting || (input.checkInId && waiting.id !== input.checkInId)) throw conflict("This check-in has already been dealt with.");
   const review = input.transition !== "withdraw";
   await tx
     .update(checkIns)
@@ -193,114 +145,37 @@ async function closeWaiting(
   return waiting.id;
 }
 
-async function mailFeedback(
-  tx: Tx,
-  stage: LockedStage,
-  checkInId: string,
-  input: ApplyInput,
-  outcome: "signed_off" | "needs_more_time",
-  openedStage: number | null,
-) {
-  const people = await mailPeople(
-    tx,
-    stage.studentId,
-    stage.teacherId,
-    stage.tuneId,
-  );
-  if (!people.student) return;
-  const stages = await assignmentStages(tx, stage.tuneId, stage.stagePlan);
-  const nameOf = (i: number) =>
-    stages.find((s) => s.index === i)?.name ?? `Stage ${i}`;
-  await enqueueEmail(tx, {
-    to: people.student.email,
-    template: "checkin-feedback",
-    data: {
-      studentName: people.student.name,
-      teacherName: people.teacherName,
-      tuneTitle: people.tuneTitle,
-      stageName: nameOf(stage.stageIndex),
-      outcome,
-      feedback: input.feedback ?? "",
-      nextStageName: openedStage === null ? null : nameOf(openedStage),
-      assignmentUrl: appLink(`/learn/assignments/${stage.assignmentStudentId}`),
-    },
-    dedupeKey: `checkin-feedback:${checkInId}`,
-  });
-}
-
-export async function applyTransition(
-  db: Tx,
-  input: ApplyInput,
-): Promise<ApplyResult> {
+export async function applyTransition(db: Tx, input: ApplyInput): Promise<ApplyResult> {
   return db.transaction(async (tx) => {
     const stage = await lockStage(tx, input.stageStateId);
     if (!stage) throw new HttpError(404, "Stage not found.");
     const actor = actorFor(stage, input.actor);
-    const people =
-      input.transition === "checkIn"
-        ? await mailPeople(tx, stage.studentId, stage.teacherId, stage.tuneId)
-        : null;
+    const people = input.transition === "checkIn" ? await mailPeople(tx, stage.studentId, stage.teacherId, stage.tuneId) : null;
     const decision = decide(input.transition, {
       state: stage.state,
       actor,
       assignmentStatus: stage.status,
       unlockRule: stage.unlockRule,
       unlockMinutes: stage.unlockMinutes,
-      minutesSinceOpened:
-        input.transition === "checkIn"
-          ? await minutesFor(tx, stage, people?.student?.timeZone ?? "UTC")
-          : undefined,
-      isLastStage:
-        stage.stageIndex >=
-        (await lastStageIndex(tx, stage.assignmentStudentId)),
+      minutesSinceOpened: input.transition === "checkIn" ? await minutesFor(tx, stage, people?.student?.timeZone ?? "UTC") : undefined,
+      isLastStage: stage.stageIndex >= (await lastStageIndex(tx, stage.assignmentStudentId)),
     });
     if (!decision.ok) throw new HttpError(decision.status, decision.message);
 
     let checkInId: string;
     if (input.transition === "checkIn") {
-      input.checkInInput = await checkUpload(tx, stage, input.checkInInput);
-      checkInId = await writeCheckIn(tx, stage, input, decision.checkInStatus);
+      const checked = await checkUpload(tx, stage, input.checkInInput);
+      checkInId = await writeCheckIn(tx, stage, input, checked, decision.checkInStatus);
     } else {
       checkInId = await closeWaiting(tx, stage, input, decision.checkInStatus);
     }
-    await setStageState(
-      tx,
-      stage.id,
-      decision.next as "open" | "checked_in" | "signed_off",
-      input.now,
-    );
+    await setStageState(tx, stage.id, decision.next as "open" | "checked_in" | "signed_off", input.now);
 
     let openedStage: number | null = null;
-    if (
-      decision.opensNext &&
-      (await openStage(
-        tx,
-        stage.assignmentStudentId,
-        stage.stageIndex + 1,
-        input.now,
-      ))
-    )
-      openedStage = stage.stageIndex + 1;
-    if (decision.next === "signed_off")
-      await raiseTuneProgress(
-        tx,
-        stage.studentId,
-        stage.tuneId,
-        stage.stageIndex,
-        input.now,
-      );
-    if (
-      input.transition === "signOff" ||
-      input.transition === "needsMoreTime"
-    ) {
-      await mailFeedback(
-        tx,
-        stage,
-        checkInId,
-        input,
-        decision.checkInStatus as "signed_off" | "needs_more_time",
-        openedStage,
-      );
+    if (decision.opensNext && (await openStage(tx, stage.assignmentStudentId, stage.stageIndex + 1, input.now))) openedStage = stage.stageIndex + 1;
+    if (decision.next === "signed_off") await raiseTuneProgress(tx, stage.studentId, stage.tuneId, stage.stageIndex, input.now);
+    if (input.transition === "signOff" || input.transition === "needsMoreTime") {
+      await mailFeedback(tx, stage, checkInId, input.feedback ?? "", decision.checkInStatus as "signed_off" | "needs_more_time", openedStage);
     }
     return {
       stageStateId: stage.id,

@@ -4,11 +4,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { emailOutbox } from "@/db/schema";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
-import {
-  dueIn,
-  teachingWorld,
-  type TeachingWorld,
-} from "./helpers/teaching-world";
+import { dueIn, teachingWorld, type TeachingWorld } from "./helpers/teaching-world";
 
 let w: TeachingWorld;
 let room: Awaited<ReturnType<TeachingWorld["classroom"]>>;
@@ -42,37 +38,18 @@ describe("creating an assignment", () => {
   it("opens stage 1 for each student, locks the rest, and e-mails each student once", async () => {
     const made = await create();
     expect(made.assignmentStudentIds).toHaveLength(2);
-    for (const asId of made.assignmentStudentIds)
-      expect(await w.states(asId)).toEqual([
-        "open",
-        "locked",
-        "locked",
-        "locked",
-      ]);
+    for (const asId of made.assignmentStudentIds) expect(await w.states(asId)).toEqual(["open", "locked", "locked", "locked"]);
     for (const s of room.students) {
-      const mails = (await w.mailsTo(s.email)).filter(
-        (m) => m.template === "assignment-new",
-      );
-      const forThis = mails.filter((m) =>
-        made.assignmentStudentIds.some(
-          (id) => m.dedupeKey === `assignment-new:${id}`,
-        ),
-      );
+      const mails = (await w.mailsTo(s.email)).filter((m) => m.template === "assignment-new");
+      const forThis = mails.filter((m) => made.assignmentStudentIds.some((id) => m.dedupeKey === `assignment-new:${id}`));
       expect(forThis).toHaveLength(1);
       expect(forThis[0].payload).toMatchObject({
         studentName: s.name,
         note: "Mind the rolls.",
       });
     }
-    const keys = await w.db
-      .select({ k: emailOutbox.dedupeKey })
-      .from(emailOutbox)
-      .where(eq(emailOutbox.template, "assignment-new"));
-    expect(
-      keys.filter((k) =>
-        made.assignmentStudentIds.some((id) => k.k === `assignment-new:${id}`),
-      ),
-    ).toHaveLength(2);
+    const keys = await w.db.select({ k: emailOutbox.dedupeKey }).from(emailOutbox).where(eq(emailOutbox.template, "assignment-new"));
+    expect(keys.filter((k) => made.assignmentStudentIds.some((id) => k.k === `assignment-new:${id}`))).toHaveLength(2);
   });
 
   it("takes the due date on the student's own wall clock when there is one student", async () => {
@@ -81,18 +58,11 @@ describe("creating an assignment", () => {
       studentIds: [room.students[0].id],
       dueLocal: "2099-12-11T18:00",
     });
-    const view = (await (
-      await w.call(ONE, "GET", { cookie, params: { id: made.id } })
-    ).json()) as AssignmentView;
+    const view = (await (await w.call(ONE, "GET", { cookie, params: { id: made.id } })).json()) as AssignmentView;
     // New York is UTC−5 in December (IANA time zone database).
     expect(view.dueAt).toBe("2099-12-11T23:00:00.000Z");
-    expect([view.dueLocal, view.dueZone]).toEqual([
-      "2099-12-11T18:00",
-      "America/New_York",
-    ]);
-    const mail = (await w.mailsTo(room.students[0].email)).find(
-      (m) => m.dedupeKey === `assignment-new:${made.assignmentStudentIds[0]}`,
-    );
+    expect([view.dueLocal, view.dueZone]).toEqual(["2099-12-11T18:00", "America/New_York"]);
+    const mail = (await w.mailsTo(room.students[0].email)).find((m) => m.dedupeKey === `assignment-new:${made.assignmentStudentIds[0]}`);
     expect(mail?.payload).toMatchObject({
       dueLocal: "Friday 11 December, 18:00",
     });
@@ -105,9 +75,7 @@ describe("creating an assignment", () => {
       body: body({ dueLocal: "2020-01-01T10:00" }),
     });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.dueLocal).toMatch(
-      /in the past/,
-    );
+    expect(((await res.json()) as Refusal).fieldErrors?.dueLocal).toMatch(/in the past/);
   });
 
   it("refuses a student not on the roster", async () => {
@@ -117,9 +85,7 @@ describe("creating an assignment", () => {
       body: body({ studentIds: [room.students[0].id, stranger.id] }),
     });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.studentIds).toBe(
-      "One of the chosen students is not on your roster.",
-    );
+    expect(((await res.json()) as Refusal).fieldErrors?.studentIds).toBe("One of the chosen students is not on your roster.");
   });
 
   it("refuses another teacher's tune like a missing one", async () => {
@@ -131,9 +97,7 @@ describe("creating an assignment", () => {
         body: body({ tuneId }),
       });
       expect(res.status).toBe(422);
-      expect(((await res.json()) as Refusal).fieldErrors?.tuneId).toBe(
-        "Choose one of your own tunes.",
-      );
+      expect(((await res.json()) as Refusal).fieldErrors?.tuneId).toBe("Choose one of your own tunes.");
     }
   });
 
@@ -143,9 +107,7 @@ describe("creating an assignment", () => {
       body: body({ unlockRule: "self_check_in" }),
     });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.unlockMinutes).toMatch(
-      /practice minutes/,
-    );
+    expect(((await res.json()) as Refusal).fieldErrors?.unlockMinutes).toMatch(/practice minutes/);
     const bad = await w.call(LIST, "POST", {
       cookie,
       body: body({ stagePlan: { stages: [] } }),
@@ -164,9 +126,7 @@ describe("creating an assignment", () => {
       body: body({ stagePlan: short }),
     });
     expect(res2.status).toBe(422);
-    expect(((await res2.json()) as Refusal).fieldErrors?.stagePlan).toMatch(
-      /never added back/,
-    );
+    expect(((await res2.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/never added back/);
   });
 
   it("builds the stages from a changed plan", async () => {
@@ -175,17 +135,7 @@ describe("creating an assignment", () => {
         { name: "Bare tune", adds: [] },
         {
           name: "Everything",
-          adds: [
-            "bowing",
-            "ornaments",
-            "slides",
-            "fills",
-            "doubleStops",
-            "dynamics",
-            "articulation",
-            "fingerings",
-            "marks",
-          ],
+          adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"],
         },
       ],
     };
@@ -195,18 +145,14 @@ describe("creating an assignment", () => {
     });
     if (res.status !== 201) throw new Error(JSON.stringify(await res.json()));
     const made = (await res.json()) as { assignmentStudentIds: string[] };
-    expect(await w.states(made.assignmentStudentIds[0])).toEqual([
-      "open",
-      "locked",
-    ]);
+    expect(await w.states(made.assignmentStudentIds[0])).toEqual(["open", "locked"]);
   });
 });
 
 describe("editing and withdrawing", () => {
   it("changes due date, note and rule; refuses a past date; withdraws once", async () => {
     const made = await create();
-    const patch = (b: Record<string, unknown>) =>
-      w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: b });
+    const patch = (b: Record<string, unknown>) => w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: b });
     const ok = await patch({
       dueLocal: "2099-01-02T09:00",
       note: "New note",
@@ -222,9 +168,7 @@ describe("editing and withdrawing", () => {
     });
     const past = await patch({ dueLocal: "2001-01-01T09:00" });
     expect(past.status).toBe(422);
-    expect(((await past.json()) as Refusal).fieldErrors?.dueLocal).toMatch(
-      /in the past/,
-    );
+    expect(((await past.json()) as Refusal).fieldErrors?.dueLocal).toMatch(/in the past/);
 
     const gone = await w.call(ONE, "DELETE", {
       cookie,
@@ -232,9 +176,7 @@ describe("editing and withdrawing", () => {
     });
     expect(gone.status).toBe(200);
     expect(((await gone.json()) as AssignmentView).status).toBe("withdrawn");
-    expect(
-      (await w.call(ONE, "DELETE", { cookie, params: { id: made.id } })).status,
-    ).toBe(409);
+    expect((await w.call(ONE, "DELETE", { cookie, params: { id: made.id } })).status).toBe(409);
     expect((await patch({ note: "too late" })).status).toBe(409);
   });
 
@@ -246,17 +188,7 @@ describe("editing and withdrawing", () => {
         { name: "Bare tune", adds: [] },
         {
           name: "All",
-          adds: [
-            "bowing",
-            "ornaments",
-            "slides",
-            "fills",
-            "doubleStops",
-            "dynamics",
-            "articulation",
-            "fingerings",
-            "marks",
-          ],
+          adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"],
         },
       ],
     };
@@ -266,9 +198,7 @@ describe("editing and withdrawing", () => {
       body: { stagePlan: plan },
     });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(
-      /checked in already/,
-    );
+    expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/checked in already/);
   });
 
   it("lists only the teacher's own; another teacher gets 404 on one of them", async () => {
@@ -278,13 +208,8 @@ describe("editing and withdrawing", () => {
     };
     expect(list.assignments.some((a) => a.id === made.id)).toBe(true);
     const other = await w.cookieFor((await w.person("teacher")).id);
-    const theirs = (await (
-      await w.call(LIST, "GET", { cookie: other })
-    ).json()) as { assignments: AssignmentView[] };
+    const theirs = (await (await w.call(LIST, "GET", { cookie: other })).json()) as { assignments: AssignmentView[] };
     expect(theirs.assignments).toEqual([]);
-    expect(
-      (await w.call(ONE, "GET", { cookie: other, params: { id: made.id } }))
-        .status,
-    ).toBe(404);
+    expect((await w.call(ONE, "GET", { cookie: other, params: { id: made.id } })).status).toBe(404);
   });
 });

@@ -20,12 +20,7 @@ beforeAll(async () => {
 });
 afterAll(async () => w?.close());
 
-const review = (
-  checkInId: string,
-  outcome: string,
-  feedback = "Lovely lift in the B part.",
-  c = cookie,
-) =>
+const review = (checkInId: string, outcome: string, feedback = "Lovely lift in the B part.", c = cookie) =>
   w.call(REVIEW, "POST", {
     cookie: c,
     params: { checkInId },
@@ -47,9 +42,7 @@ describe("the review queue", () => {
     const second = await w.checkIn(a);
     const res = await w.call(QUEUE, "GET", { cookie });
     expect(res.status).toBe(200);
-    const items = (
-      (await res.json()) as { checkIns: ReviewItem[] }
-    ).checkIns.filter((i) => [first, second].includes(i.checkInId));
+    const items = ((await res.json()) as { checkIns: ReviewItem[] }).checkIns.filter((i) => [first, second].includes(i.checkInId));
     expect(items.map((i) => i.checkInId)).toEqual([first, second]);
     expect(items[0].stage).toMatchObject({
       index: 1,
@@ -80,12 +73,7 @@ describe("signing off", () => {
       openedStage: 2,
       checkInStatus: "signed_off",
     });
-    expect(await w.states(a)).toEqual([
-      "signed_off",
-      "open",
-      "locked",
-      "locked",
-    ]);
+    expect(await w.states(a)).toEqual(["signed_off", "open", "locked", "locked"]);
     expect(await w.states(b)).toEqual(["open", "locked", "locked", "locked"]);
     const row = await w.checkInRow(checkInId);
     expect(row).toMatchObject({
@@ -96,16 +84,9 @@ describe("signing off", () => {
     const [progress] = await w.db
       .select()
       .from(tuneProgress)
-      .where(
-        and(
-          eq(tuneProgress.userId, room.students[0].id),
-          eq(tuneProgress.tuneId, room.tuneId),
-        ),
-      );
+      .where(and(eq(tuneProgress.userId, room.students[0].id), eq(tuneProgress.tuneId, room.tuneId)));
     expect(progress.reachedStage).toBeGreaterThanOrEqual(1);
-    const mails = (await w.mailsTo(room.students[0].email)).filter(
-      (m) => m.dedupeKey === `checkin-feedback:${checkInId}`,
-    );
+    const mails = (await w.mailsTo(room.students[0].email)).filter((m) => m.dedupeKey === `checkin-feedback:${checkInId}`);
     expect(mails).toHaveLength(1);
     expect(mails[0].payload).toMatchObject({
       outcome: "signed_off",
@@ -120,32 +101,20 @@ describe("signing off", () => {
     expect((await review(checkInId, "signed_off")).status).toBe(200);
     const again = await review(checkInId, "signed_off");
     expect(again.status).toBe(409);
-    expect(((await again.json()) as { error: string }).error).toMatch(
-      /already/,
-    );
-    expect(await w.states(a)).toEqual([
-      "signed_off",
-      "open",
-      "locked",
-      "locked",
-    ]);
+    expect(((await again.json()) as { error: string }).error).toMatch(/already/);
+    expect(await w.states(a)).toEqual(["signed_off", "open", "locked", "locked"]);
   });
 
   it("two concurrent sign-offs leave one result and one 409", async () => {
     const [a] = await twoStudents();
     const checkInId = await w.checkIn(a);
-    const both = await Promise.all([
-      review(checkInId, "signed_off"),
-      review(checkInId, "needs_more_time"),
-    ]);
+    const both = await Promise.all([review(checkInId, "signed_off"), review(checkInId, "needs_more_time")]);
     expect(both.map((r) => r.status).sort()).toEqual([200, 409]);
     const winner = (await both.find((r) => r.status === 200)?.json()) as {
       checkInStatus: string;
     };
     expect((await w.checkInRow(checkInId)).status).toBe(winner.checkInStatus);
-    const mails = (await w.mailsTo(room.students[0].email)).filter(
-      (m) => m.dedupeKey === `checkin-feedback:${checkInId}`,
-    );
+    const mails = (await w.mailsTo(room.students[0].email)).filter((m) => m.dedupeKey === `checkin-feedback:${checkInId}`);
     expect(mails).toHaveLength(1);
   });
 
@@ -157,21 +126,11 @@ describe("signing off", () => {
         openedStage: stage < 4 ? stage + 1 : null,
       });
     }
-    expect(await w.states(a)).toEqual([
-      "signed_off",
-      "signed_off",
-      "signed_off",
-      "signed_off",
-    ]);
+    expect(await w.states(a)).toEqual(["signed_off", "signed_off", "signed_off", "signed_off"]);
     const [progress] = await w.db
       .select()
       .from(tuneProgress)
-      .where(
-        and(
-          eq(tuneProgress.userId, room.students[0].id),
-          eq(tuneProgress.tuneId, room.tuneId),
-        ),
-      );
+      .where(and(eq(tuneProgress.userId, room.students[0].id), eq(tuneProgress.tuneId, room.tuneId)));
     expect(progress.reachedStage).toBe(4);
   });
 });
@@ -180,20 +139,14 @@ describe("needs more time, refusals and the self check-in rule", () => {
   it("needs more time reopens the stage, keeps the next one locked and lets the student check in again", async () => {
     const [a] = await twoStudents();
     const checkInId = await w.checkIn(a);
-    const res = await review(
-      checkInId,
-      "needs_more_time",
-      "Steadier tempo, please.",
-    );
+    const res = await review(checkInId, "needs_more_time", "Steadier tempo, please.");
     expect(await res.json()).toMatchObject({
       state: "open",
       openedStage: null,
       checkInStatus: "needs_more_time",
     });
     expect(await w.states(a)).toEqual(["open", "locked", "locked", "locked"]);
-    const mail = (await w.mailsTo(room.students[0].email)).find(
-      (m) => m.dedupeKey === `checkin-feedback:${checkInId}`,
-    );
+    const mail = (await w.mailsTo(room.students[0].email)).find((m) => m.dedupeKey === `checkin-feedback:${checkInId}`);
     expect(mail?.payload).toMatchObject({
       outcome: "needs_more_time",
       nextStageName: null,
@@ -210,16 +163,7 @@ describe("needs more time, refusals and the self check-in rule", () => {
     const checkInId = await w.checkIn(made.assignmentStudentIds[0]);
     const other = await w.cookieFor((await w.person("teacher")).id);
     expect((await review(checkInId, "signed_off", "", other)).status).toBe(404);
-    expect(
-      (
-        await review(
-          checkInId,
-          "signed_off",
-          "",
-          await w.cookieFor(room.students[0].id),
-        )
-      ).status,
-    ).toBe(403);
+    expect((await review(checkInId, "signed_off", "", await w.cookieFor(room.students[0].id))).status).toBe(403);
     expect(
       (
         await w.call("teach/assignments/[id]", "DELETE", {
@@ -230,9 +174,7 @@ describe("needs more time, refusals and the self check-in rule", () => {
     ).toBe(200);
     const late = await review(checkInId, "signed_off");
     expect(late.status).toBe(409);
-    expect(((await late.json()) as { error: string }).error).toMatch(
-      /withdrawn/,
-    );
+    expect(((await late.json()) as { error: string }).error).toMatch(/withdrawn/);
   });
 
   it("a double check-in answers 409", async () => {
@@ -250,38 +192,24 @@ describe("needs more time, refusals and the self check-in rule", () => {
     });
     const [a, b] = made.assignmentStudentIds;
     const today = new Date().toISOString().slice(0, 10);
-    await w.db
-      .insert(practiceLogs)
-      .values({
-        userId: room.students[0].id,
-        tuneId: room.tuneId,
-        practisedOn: today,
-        minutes: 30,
-      });
-    await w.db
-      .insert(practiceLogs)
-      .values({
-        userId: room.students[1].id,
-        tuneId: room.tuneId,
-        practisedOn: today,
-        minutes: 29,
-      });
+    await w.db.insert(practiceLogs).values({
+      userId: room.students[0].id,
+      tuneId: room.tuneId,
+      practisedOn: today,
+      minutes: 30,
+    });
+    await w.db.insert(practiceLogs).values({
+      userId: room.students[1].id,
+      tuneId: room.tuneId,
+      practisedOn: today,
+      minutes: 29,
+    });
     const mine = await w.checkIn(a);
     expect((await w.checkInRow(mine)).status).toBe("signed_off");
-    expect(await w.states(a)).toEqual([
-      "signed_off",
-      "open",
-      "locked",
-      "locked",
-    ]);
+    expect(await w.states(a)).toEqual(["signed_off", "open", "locked", "locked"]);
     const theirs = await w.checkIn(b);
     expect((await w.checkInRow(theirs)).status).toBe("waiting");
-    expect(await w.states(b)).toEqual([
-      "checked_in",
-      "locked",
-      "locked",
-      "locked",
-    ]);
+    expect(await w.states(b)).toEqual(["checked_in", "locked", "locked", "locked"]);
   });
 });
 
@@ -299,14 +227,12 @@ describe("the roster table", () => {
       .update(assignments)
       .set({ dueAt: new Date(Date.now() - 86_400_000) })
       .where(eq(assignments.id, late.id));
-    await w.db
-      .insert(practiceLogs)
-      .values({
-        userId: s.id,
-        tuneId: lone.tuneId,
-        practisedOn: "2026-11-20",
-        minutes: 15,
-      });
+    await w.db.insert(practiceLogs).values({
+      userId: s.id,
+      tuneId: lone.tuneId,
+      practisedOn: "2026-11-20",
+      minutes: 15,
+    });
     const res = await w.call("teach/roster", "GET", {
       cookie: await w.cookieFor(lone.teacher.id),
     });

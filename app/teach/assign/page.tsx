@@ -14,20 +14,12 @@ type Search = Promise<{
   tune?: string | string[];
   student?: string | string[];
 }>;
-const one = (v: string | string[] | undefined) =>
-  typeof v === "string" ? v : undefined;
+const one = (v: string | string[] | undefined) => (typeof v === "string" ? v : undefined);
 
-export default async function AssignPage({
-  searchParams,
-}: {
-  searchParams: Search;
-}) {
+export default async function AssignPage({ searchParams }: { searchParams: Search }) {
   const user = await requireArea("area:teach");
   const q = await searchParams;
-  const data = await assignFormData(
-    db(),
-    user.role === "admin" ? null : user.id,
-  );
+  const data = await assignFormData(db(), user.role === "admin" ? null : user.id);
   const me = await findUserById(db(), user.id);
   const zone = me && isTimeZone(me.timeZone) ? me.timeZone : "UTC";
   // A week ahead at six in the evening, the teacher's clock: a common rhythm of weekly lessons.
@@ -35,9 +27,7 @@ export default async function AssignPage({
   return (
     <PageContainer className="flex flex-col gap-6">
       <header>
-        <p className="text-small font-semibold tracking-widest text-cedar uppercase">
-          Assign
-        </p>
+        <p className="text-small font-semibold tracking-widest text-cedar uppercase">Assign</p>
         <h1 className="text-h2 font-semibold">Assign a tune</h1>
       </header>
       <AssignForm

@@ -13,14 +13,9 @@ export default async function ReviewPage() {
     <PageContainer className="flex flex-col gap-6">
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div>
-          <p className="text-small font-semibold tracking-widest text-cedar uppercase">
-            Review
-          </p>
+          <p className="text-small font-semibold tracking-widest text-cedar uppercase">Review</p>
           <h1 className="text-h2 font-semibold">Check-ins waiting</h1>
-          <p className="text-bark">
-            Oldest first. Signing off opens the next stage for that student
-            only.
-          </p>
+          <p className="text-bark">Oldest first. Signing off opens the next stage for that student only.</p>
         </div>
         <LinkButton href="/teach/assignments" variant="secondary">
           Assignments

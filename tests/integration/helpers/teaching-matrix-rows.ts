@@ -22,8 +22,7 @@ type RowLike = {
 };
 
 const WICKER = readFileSync("tests/fixtures/teach/wicker-gate.abc", "utf8"); // an invented reel (this project's own)
-const DUE = () =>
-  new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 16);
+const DUE = () => new Date(Date.now() + 7 * 86_400_000).toISOString().slice(0, 16);
 
 const staff = (s: number): Record<Who, number> => ({
   visitor: 401,
@@ -50,10 +49,7 @@ async function tune(c: CallLike): Promise<string> {
 }
 
 /** A fresh assignment of the matrix teacher to the matrix student; with a waiting check-in on stage 1 when asked. */
-async function assignment(
-  c: CallLike,
-  withCheckIn = false,
-): Promise<{ id: string; checkInId: string | null }> {
+async function assignment(c: CallLike, withCheckIn = false): Promise<{ id: string; checkInId: string | null }> {
   const { createAssignment } = await import("@/lib/teaching/assignments");
   const teacher = { id: c.people.teacher.id, role: "teacher" as const };
   const input = {
@@ -73,12 +69,7 @@ async function assignment(
   const [stage] = await c.w.db
     .select({ id: stageStates.id })
     .from(stageStates)
-    .where(
-      and(
-        eq(stageStates.assignmentStudentId, asId),
-        eq(stageStates.stageIndex, 1),
-      ),
-    );
+    .where(and(eq(stageStates.assignmentStudentId, asId), eq(stageStates.stageIndex, 1)));
   const [upload] = await c.w.db
     .insert(uploads)
     .values({
@@ -102,15 +93,8 @@ async function assignment(
   return { id: made.id, checkInId: r.checkInId };
 }
 
-const status = (
-  c: CallLike,
-  file: string,
-  method: string,
-  o: Omit<TeachCall, "cookie"> = {},
-) =>
-  callRoute(`teach/${file}`, method, { ...o, cookie: c.cookie }).then(
-    (r) => r.status,
-  );
+const status = (c: CallLike, file: string, method: string, o: Omit<TeachCall, "cookie"> = {}) =>
+  callRoute(`teach/${file}`, method, { ...o, cookie: c.cookie }).then((r) => r.status);
 
 export function teachingRows(): RowLike[] {
   return [

@@ -4,17 +4,9 @@
 import { readFileSync } from "node:fs";
 import { and, asc, eq } from "drizzle-orm";
 import { teachWorld } from "./teach-world";
-import {
-  assignmentStudents,
-  checkIns,
-  stageStates,
-  uploads,
-} from "@/db/schema";
+import { assignmentStudents, checkIns, stageStates, uploads } from "@/db/schema";
 
-export const WICKER = readFileSync(
-  "tests/fixtures/teach/wicker-gate.abc",
-  "utf8",
-); // an invented reel (this project's own), 4 stages
+export const WICKER = readFileSync("tests/fixtures/teach/wicker-gate.abc", "utf8"); // an invented reel (this project's own), 4 stages
 
 /** A local date+time `days` ahead of now, as the form's datetime-local field writes it (UTC wall clock). */
 export function dueIn(days: number): string {
@@ -29,10 +21,7 @@ export async function teachingWorld() {
   const { applyTransition } = await import("@/lib/teaching/transitions");
   let n = 0;
 
-  async function tuneOf(
-    teacherId: string,
-    title = "Wicker Gate",
-  ): Promise<string> {
+  async function tuneOf(teacherId: string, title = "Wicker Gate"): Promise<string> {
     n += 1;
     const saved = await createTune(w.db, teacherId, {
       abc: WICKER.replace("T:Wicker Gate", `T:${title} ${n}`),
@@ -92,28 +81,16 @@ export async function teachingWorld() {
     return rows.map((r) => r.state);
   }
 
-  async function stageId(
-    assignmentStudentId: string,
-    index: number,
-  ): Promise<string> {
+  async function stageId(assignmentStudentId: string, index: number): Promise<string> {
     const [row] = await w.db
       .select({ id: stageStates.id })
       .from(stageStates)
-      .where(
-        and(
-          eq(stageStates.assignmentStudentId, assignmentStudentId),
-          eq(stageStates.stageIndex, index),
-        ),
-      );
+      .where(and(eq(stageStates.assignmentStudentId, assignmentStudentId), eq(stageStates.stageIndex, index)));
     return row.id;
   }
 
   /** A recording as the upload flow leaves it: stored, the student's own, for that assignment. */
-  async function storedUpload(
-    studentId: string,
-    assignmentStudentId: string,
-    stageIndex = 1,
-  ): Promise<string> {
+  async function storedUpload(studentId: string, assignmentStudentId: string, stageIndex = 1): Promise<string> {
     n += 1;
     const [row] = await w.db
       .insert(uploads)
@@ -131,19 +108,9 @@ export async function teachingWorld() {
   }
 
   /** The student checks in on stage `index` with a fresh stored recording; returns the check-in id. */
-  async function checkIn(
-    assignmentStudentId: string,
-    index = 1,
-  ): Promise<string> {
-    const [as] = await w.db
-      .select({ studentId: assignmentStudents.studentId })
-      .from(assignmentStudents)
-      .where(eq(assignmentStudents.id, assignmentStudentId));
-    const uploadId = await storedUpload(
-      as.studentId,
-      assignmentStudentId,
-      index,
-    );
+  async function checkIn(assignmentStudentId: string, index = 1): Promise<string> {
+    const [as] = await w.db.select({ studentId: assignmentStudents.studentId }).from(assignmentStudents).where(eq(assignmentStudents.id, assignmentStudentId));
+    const uploadId = await storedUpload(as.studentId, assignmentStudentId, index);
     const r = await applyTransition(w.db, {
       stageStateId: await stageId(assignmentStudentId, index),
       transition: "checkIn",

@@ -1,12 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  decide,
-  TRANSITIONS,
-  type Actor,
-  type DecideContext,
-  type StageState,
-  type Transition,
-} from "@/lib/teaching/state-machine";
+import { decide, TRANSITIONS, type Actor, type DecideContext, type StageState, type Transition } from "@/lib/teaching/state-machine";
 
 // Every transition × every state × every kind of person (issue 6 item 6, shared design's state machine).
 type Who = "owner" | "otherStudent" | "teacher" | "otherTeacher" | "admin";
@@ -44,11 +37,7 @@ const ACTORS: Record<Who, Actor> = {
 };
 const STATES: StageState[] = ["locked", "open", "checked_in", "signed_off"];
 
-const ctx = (
-  state: StageState,
-  who: Who,
-  o: Partial<DecideContext> = {},
-): DecideContext => ({
+const ctx = (state: StageState, who: Who, o: Partial<DecideContext> = {}): DecideContext => ({
   state,
   actor: ACTORS[who],
   assignmentStatus: "active",
@@ -59,12 +48,7 @@ const ctx = (
 });
 
 /** The allowed cells of the table: transition → state → who → resulting state. Everything else is refused. */
-const ALLOWED: Partial<
-  Record<
-    Transition,
-    Partial<Record<StageState, Partial<Record<Who, StageState>>>>
-  >
-> = {
+const ALLOWED: Partial<Record<Transition, Partial<Record<StageState, Partial<Record<Who, StageState>>>>>> = {
   checkIn: { open: { owner: "checked_in" } },
   withdraw: { checked_in: { owner: "open" } },
   signOff: { checked_in: { teacher: "signed_off", admin: "signed_off" } },
@@ -84,12 +68,8 @@ describe("decide: the whole table", () => {
             expect(d.ok).toBe(false);
             // Strangers to the assignment learn nothing (404); the wrong person gets 403; the right person in the wrong state 409.
             const stranger = who === "otherStudent" || who === "otherTeacher";
-            const rightPerson =
-              t === "checkIn" || t === "withdraw"
-                ? who === "owner"
-                : who === "teacher" || who === "admin";
-            if (!d.ok)
-              expect(d.status).toBe(stranger ? 404 : rightPerson ? 409 : 403);
+            const rightPerson = t === "checkIn" || t === "withdraw" ? who === "owner" : who === "teacher" || who === "admin";
+            if (!d.ok) expect(d.status).toBe(stranger ? 404 : rightPerson ? 409 : 403);
             if (!d.ok) expect(d.message.length).toBeGreaterThan(10);
           }
         });
@@ -141,9 +121,7 @@ describe("decide: reasons", () => {
   it("refuses everyone on a withdrawn assignment", () => {
     for (const t of TRANSITIONS) {
       for (const who of ["owner", "teacher", "admin"] as Who[]) {
-        expect(
-          decide(t, ctx("checked_in", who, { assignmentStatus: "withdrawn" })),
-        ).toMatchObject({
+        expect(decide(t, ctx("checked_in", who, { assignmentStatus: "withdrawn" }))).toMatchObject({
           ok: false,
           status: 409,
           message: expect.stringMatching(/withdrawn/),
@@ -160,9 +138,7 @@ describe("decide: what opens", () => {
       opensNext: true,
       checkInStatus: "signed_off",
     });
-    expect(
-      decide("signOff", ctx("checked_in", "teacher", { isLastStage: true })),
-    ).toMatchObject({ ok: true, opensNext: false });
+    expect(decide("signOff", ctx("checked_in", "teacher", { isLastStage: true }))).toMatchObject({ ok: true, opensNext: false });
   });
   it("needs more time and withdraw open nothing and reopen the stage", () => {
     expect(decide("needsMoreTime", ctx("checked_in", "admin"))).toEqual({
@@ -180,23 +156,13 @@ describe("decide: what opens", () => {
   });
   it("self check-in signs off at once when the minutes are reached, waits below them", () => {
     const rule = { unlockRule: "self_check_in" as const, unlockMinutes: 60 };
-    expect(
-      decide(
-        "checkIn",
-        ctx("open", "owner", { ...rule, minutesSinceOpened: 60 }),
-      ),
-    ).toEqual({
+    expect(decide("checkIn", ctx("open", "owner", { ...rule, minutesSinceOpened: 60 }))).toEqual({
       ok: true,
       next: "signed_off",
       checkInStatus: "signed_off",
       opensNext: true,
     });
-    expect(
-      decide(
-        "checkIn",
-        ctx("open", "owner", { ...rule, minutesSinceOpened: 59 }),
-      ),
-    ).toEqual({
+    expect(decide("checkIn", ctx("open", "owner", { ...rule, minutesSinceOpened: 59 }))).toEqual({
       ok: true,
       next: "checked_in",
       checkInStatus: "waiting",
@@ -204,11 +170,6 @@ describe("decide: what opens", () => {
     });
   });
   it("teacher sign-off rule: a check-in waits whatever the minutes", () => {
-    expect(
-      decide(
-        "checkIn",
-        ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }),
-      ),
-    ).toMatchObject({ ok: true, next: "checked_in" });
+    expect(decide("checkIn", ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }))).toMatchObject({ ok: true, next: "checked_in" });
   });
 });

@@ -8,12 +8,6 @@ import { NO_STORE } from "@/lib/tunes/respond";
 export const dynamic = "force-dynamic";
 
 /** The roster with last practice day and open / overdue assignments per student. */
-export const GET = guardRoute(
-  { action: "roster:view", input: z.object({}) },
-  async (ctx) => {
-    return Response.json(
-      { students: await rosterTable(db(), editorOf(ctx.user), new Date()) },
-      { headers: NO_STORE },
-    );
-  },
-);
+export const GET = guardRoute({ action: "roster:view", input: z.object({}) }, async (ctx) => {
+  return Response.json({ students: await rosterTable(db(), editorOf(ctx.user), new Date()) }, { headers: NO_STORE });
+});
