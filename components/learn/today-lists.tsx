@@ -6,14 +6,15 @@ import { Card, CardTitle } from "@/components/ui/card";
 import type { TodayData } from "@/lib/teaching/today";
 
 export function AssignmentList({ items }: { items: TodayData["assignments"] }) {
-  if (items.length === 0) return <p className="text-bark">No open assignments. When your teacher gives you a tune, it appears here.</p>;
+  if (items.length === 0) return <p className="text-bark">No assignments. When your teacher gives you a tune, it appears here.</p>;
   return (
-    <ul className="flex flex-col gap-3" aria-label="Open assignments">
+    <ul className="flex flex-col gap-3" aria-label="Assignments">
       {items.map((a) => (
         <Card as="li" key={a.assignmentStudentId} className={a.overdue ? "border-l-4 border-l-berry" : undefined}>
           <p className="font-semibold">
             <Link href={`/learn/assignments/${a.assignmentStudentId}`}>{a.tuneTitle}</Link>
             {a.overdue ? <span className="ml-2 rounded-knot bg-berry-tint px-2 py-0.5 text-small font-semibold text-berry">Overdue</span> : null}
+            {a.stageCount > 0 && a.signedOff === a.stageCount ? <span className="ml-2 rounded-knot bg-spruce-tint px-2 py-0.5 text-small font-semibold text-spruce">Done</span> : null}
           </p>
           <p className="text-small text-bark">{`Due ${a.dueLocal} · from ${a.teacherName}`}</p>
           <p className="text-small">

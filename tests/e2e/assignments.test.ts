@@ -146,7 +146,7 @@ describe("assignments, check-in and sign-off in the browser", () => {
     await juno.goto(`${BASE_URL}/learn`);
     await juno.getByTestId("streak").waitFor();
     await expect(juno.getByTestId("streak").textContent()).resolves.toMatch(/in a row, today included/);
-    await juno.getByRole("list", { name: "Open assignments" }).getByRole("link", { name: TUNE }).first().waitFor();
+    await juno.getByRole("list", { name: "Assignments" }).getByRole("link", { name: TUNE }).first().waitFor();
     await juno.getByTestId("minutes-chart").locator("svg").first().waitFor();
     await screenshot(juno, "assignments-03c-today");
   });
