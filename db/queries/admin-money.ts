@@ -48,13 +48,34 @@ function paymentsWhere(q: PaymentsQuery): SQL | undefined {
 
 export type PaymentRow = Awaited<ReturnType<typeof listPayments>>["rows"][number];
 
+/**
+ * One page and the total in one pass: the page's ids are found first, with the total as a window
+ * count over the same rows (so the filters run once, mostly inside indexes), then only those rows
+ * are read in full. A page past the end has no row to carry the total, so it is counted apart.
+ */
 export async function listPayments(db: Db, q: PaymentsQuery) {
   const where = paymentsWhere(q);
-  const [rows, [{ n }]] = await Promise.all([
-    db.select(paymentCols).from(payments).innerJoin(users, eq(users.id, payments.userId)).leftJoin(plans, eq(plans.id, payments.planId)).where(where).orderBy(...ordering(PAYMENT_SORT[q.sort], payments.id, q.dir)).limit(q.pageSize).offset(offsetOf(q)),
-    db.select({ n: countOf }).from(payments).innerJoin(users, eq(users.id, payments.userId)).where(where),
-  ]);
-  return { rows, total: n };
+  const order = ordering(PAYMENT_SORT[q.sort], payments.id, q.dir);
+  const page = db
+    .select({ pid: sql<string>`${payments.id}`.as("pid"), total: sql<number>`(count(*) over ())::int`.as("total") })
+    .from(payments)
+    .innerJoin(users, eq(users.id, payments.userId))
+    .where(where)
+    .orderBy(...order)
+    .limit(q.pageSize)
+    .offset(offsetOf(q))
+    .as("page");
+  const rows = await db
+    .select({ ...paymentCols, total: page.total })
+    .from(page)
+    .innerJoin(payments, eq(payments.id, page.pid))
+    .innerJoin(users, eq(users.id, payments.userId))
+    .leftJoin(plans, eq(plans.id, payments.planId))
+    .orderBy(...order);
+  if (rows.length > 0) return { rows: rows.map(({ total: _t, ...r }) => r), total: rows[0].total };
+  if (q.page === 1) return { rows: [], total: 0 };
+  const [{ n }] = await db.select({ n: countOf }).from(payments).innerJoin(users, eq(users.id, payments.userId)).where(where);
+  return { rows: [], total: n };
 }
 
 /** One batch of the CSV export, in the table's order, after `cursor`. */

@@ -1,0 +1,118 @@
+// Benchmark of the admin payments table (issue 7, performance): 200,000 payments over 20,000
+// invented people in a database of its own, then a filtered, sorted page asked of the real route
+// handler (app/api/admin/payments/route.ts, with an admin's session: guard, validation, query and
+// JSON) by 20 callers at once. Prints p50/p95/p99 in ms. Target: p95 < 100 ms on loopback.
+//   npm run -s bench:payments          (TEST_PG_ADMIN_URL or DATABASE_URL names the cluster)
+import { randomBytes } from "node:crypto";
+import { performance } from "node:perf_hooks";
+import postgres from "postgres";
+
+const PAYMENTS = Number(process.env.BENCH_PAYMENTS ?? 200_000);
+const USERS = Number(process.env.BENCH_USERS ?? 20_000);
+const CONCURRENCY = 20;
+const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 400);
+const WARMUP = 40;
+
+const base = process.env.TEST_PG_ADMIN_URL ?? process.env.DATABASE_URL;
+if (!base) throw new Error("set TEST_PG_ADMIN_URL (or DATABASE_URL) to a PostgreSQL cluster the benchmark may create a database on");
+const name = `bench_payments_${randomBytes(4).toString("hex")}`;
+const url = base.replace(/\/[^/?]+(\?|$)/, `/${name}$1`);
+const admin = postgres(base.replace(/\/[^/?]+(\?|$)/, "/postgres$1"), { max: 1, onnotice: () => {} });
+
+const pct = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+
+async function fill(sql: postgres.Sql): Promise<{ monthly: string }> {
+  const [m] = await sql`insert into plans (name, amount, currency, interval) values ('Monthly membership', 1800, 'GBP', 'month') returning id`;
+  const [y] = await sql`insert into plans (name, amount, currency, interval) values ('Yearly membership', 18000, 'GBP', 'year') returning id`;
+  // Invented names from two short lists, numbered so every address is unique.
+  await sql`
+    insert into users (email, name, role)
+    select 'member' || i || '@bench.example',
+           (array['Alder','Bryony','Cathal','Delphine','Emrys','Fenella','Gideon','Hester','Ivo','Juno','Kester','Linnea','Morwen','Niall','Orla','Perrin','Quilla','Rhodri','Sabine','Tamsin'])[1 + i % 20]
+           || ' ' ||
+           (array['Thistlewood','Marrable','Quenby','Holloway','Dunsmore','Featherstane','Corrigall','Ashwell','Brackenbury','Tredinnick','Gallacher','Penrose','Whitlow','Strachan','Merriday','Oakhanger','Birchall','Fairweather','Cowdray','Lindqvist','Harrowby','Pellow','Rainsford','Sowerby','Tilney'])[1 + (i * 7) % 25]
+           || ' ' || i,
+           'student'
+    from generate_series(1, ${USERS}) as i`;
+  await sql`create temp table bench_people as select row_number() over (order by created_at, id) as n, id from users`;
+  await sql`create index on bench_people (n)`;
+  // Payments over the last year: mostly paid, some failed or refunded; one in five yearly.
+  await sql`
+    insert into payments (user_id, plan_id, stripe_invoice_id, kind, amount, refunded_amount, currency, status, created_at)
+    select u.id,
+           case when g % 5 = 0 then ${y.id}::uuid else ${m.id}::uuid end,
+           'in_bench_' || g,
+           (case when g % 12 = 0 then 'new' else 'renewal' end)::payment_kind,
+           case when g % 5 = 0 then 18000 else 1800 + (g % 4) * 50 end,
+           case when g % 23 = 0 then 500 else 0 end,
+           'GBP',
+           (case when g % 23 = 0 then 'partially_refunded' when g % 17 = 0 then 'failed' when g % 29 = 0 then 'refunded' else 'paid' end)::payment_status,
+           now() - ((g * 7919) % 525600) * interval '1 minute'
+    from generate_series(1, ${PAYMENTS}) as g
+    join bench_people u on u.n = 1 + (g * 31) % ${USERS}`;
+  await sql`update payments set refunded_amount = amount where status = 'refunded'`;
+  await sql`vacuum analyze`; // as autovacuum would after a bulk load: statistics and the visibility map (index-only scans)
+  return { monthly: m.id as string };
+}
+
+async function main() {
+  await admin.unsafe(`create database "${name}"`);
+  try {
+    const { migrateDatabase } = await import("@/db/migrate");
+    await migrateDatabase(url);
+    const sql = postgres(url, { max: 1, onnotice: () => {} });
+    const t0 = performance.now();
+    const { monthly } = await fill(sql);
+    console.log(`seeded ${PAYMENTS} payments over ${USERS} people in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+
+    process.env.DATABASE_URL = url;
+    process.env.APP_URL ??= "http://127.0.0.1:3000";
+    const [me] = await sql`insert into users (email, name, role) values ('bench-admin@bench.example', 'Bench Admin', 'admin') returning id`;
+    await sql.end();
+    const { lucia } = await import("@/lib/auth/lucia");
+    const session = await lucia().createSession(me.id as string, {});
+    const cookie = `${lucia().sessionCookieName}=${session.id}`;
+    const { GET } = await import("@/app/api/admin/payments/route");
+
+    const to = new Date();
+    const from = new Date(to.getTime() - 92 * 86_400_000);
+    const query = new URLSearchParams({ status: "paid", plan: monthly, from: from.toISOString().slice(0, 10), to: to.toISOString().slice(0, 10), q: "wood", sort: "amount", dir: "desc", page: "3", pageSize: "25" });
+    const ask = async () => {
+      const started = performance.now();
+      const res = await GET(new Request(`${process.env.APP_URL}/api/admin/payments?${query}`, { headers: { cookie } }), { params: Promise.resolve({}) });
+      const body = (await res.json()) as { rows: unknown[]; total: number };
+      if (res.status !== 200 || body.rows.length === 0) throw new Error(`unexpected answer ${res.status}: ${JSON.stringify(body).slice(0, 200)}`);
+      return { ms: performance.now() - started, total: body.total };
+    };
+
+    for (let i = 0; i < WARMUP; i++) await ask();
+    const times: number[] = [];
+    let total = 0;
+    let next = 0;
+    const wall = performance.now();
+    await Promise.all(
+      Array.from({ length: CONCURRENCY }, async () => {
+        while (next < REQUESTS) {
+          next++;
+          const r = await ask();
+          times.push(r.ms);
+          total = r.total;
+        }
+      }),
+    );
+    const elapsed = performance.now() - wall;
+    times.sort((a, b) => a - b);
+    console.log(`query: ${query.toString().replace(monthly, "<monthly plan>")} → ${total} matching rows`);
+    console.log(`${REQUESTS} requests, ${CONCURRENCY} at once, ${(REQUESTS / (elapsed / 1000)).toFixed(0)} req/s`);
+    console.log(`p50 ${pct(times, 50).toFixed(1)} ms  p95 ${pct(times, 95).toFixed(1)} ms  p99 ${pct(times, 99).toFixed(1)} ms  (target p95 < 100 ms)`);
+    const { closeDb } = await import("@/db/client");
+    await closeDb();
+  } finally {
+    // BENCH_KEEP=1 keeps the database for EXPLAIN ANALYZE.
+    if (process.env.BENCH_KEEP === "1") console.log(`kept database ${name}`);
+    else await admin.unsafe(`drop database if exists "${name}" with (force)`);
+    await admin.end({ timeout: 5 });
+  }
+}
+
+await main();
