@@ -51,7 +51,14 @@ export function RecordingPicker({ assignmentStudentId, stageIndex, onStored }: R
             Stop recording ({clock(rec.seconds)})
           </Button>
         ) : (
-          <Button variant="secondary" onClick={() => void start()} disabled={busy}>
+          <Button
+            variant="secondary"
+            onClick={() => {
+              setUpload({ phase: "idle" });
+              void start();
+            }}
+            disabled={busy}
+          >
             {rec.phase === "done" ? "Record again" : "Record now"}
           </Button>
         )}
@@ -77,7 +84,8 @@ export function RecordingPicker({ assignmentStudentId, stageIndex, onStored }: R
       {rec.phase === "done" && preview && rec.blob ? (
         <div className="flex flex-col gap-2">
           <audio controls src={preview} aria-label="Your new recording" className="w-full" />
-          <div className="flex flex-wrap gap-3">
+          {/* Once this take is stored, the choice is made; "Record again" starts over. */}
+          <div className={upload.phase === "stored" ? "hidden" : "flex flex-wrap gap-3"}>
             <Button onClick={() => rec.blob && void send(rec.blob, "Your recording")} disabled={busy}>
               Use this recording
             </Button>
