@@ -4,14 +4,14 @@
 // The server checks everything again and names the field it refuses.
 import Link from "next/link";
 import { useState, type FormEvent } from "react";
-import { PlanEditor } from "@/components/tune-editor/plan-editor";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Input, Select, Textarea } from "@/components/ui/input";
-import { DEFAULT_PLAN, validatePlan } from "@/lib/abc/stages";
+import { DEFAULT_PLAN } from "@/lib/abc/stages";
 import type { StagePlan } from "@/lib/abc/types";
 import { ApiError, fetchJson } from "@/lib/catalogue/fetch-json";
+import { PlanChoice, planReasons } from "./plan-choice";
 import { UnlockRuleFields } from "./unlock-rule-fields";
 
 export type AssignTune = {
@@ -49,8 +49,7 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
 
   const picked = students.filter((s) => chosen.includes(s.id));
   const zone = picked.length === 1 ? picked[0].timeZone : teacherZone;
-  const planCheck = changePlan ? validatePlan(plan) : null;
-  const reasons = planCheck && !planCheck.ok ? planCheck.reasons : [];
+  const reasons = planReasons(changePlan, plan);
 
   const pickTune = (id: string): void => {
     setTuneId(id);
@@ -150,31 +149,17 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
       >
         {(c) => <Input {...c} type="datetime-local" value={due} onChange={(e) => setDue(e.target.value)} />}
       </Field>
-      <fieldset className="flex flex-col gap-3">
-        <legend className="font-semibold text-ink">Stage plan</legend>
-        <label className="flex items-center gap-3">
-          <input
-            type="checkbox"
-            className="size-5 accent-cedar"
-            checked={changePlan}
-            onChange={(e) => {
-              setChangePlan(e.target.checked);
-              setPlan(tunePlan);
-            }}
-          />
-          <span>Change the stage plan for this assignment (otherwise the tune&apos;s own {tunePlan.stages.length} stages)</span>
-        </label>
-        {changePlan ? (
-          <PlanEditor
-            plan={plan}
-            onChange={setPlan}
-            onReset={() => setPlan(tunePlan)}
-            reasons={reasons}
-            isDefault={JSON.stringify(plan) === JSON.stringify(tunePlan)}
-          />
-        ) : null}
-        {errors.stagePlan ? <p className="text-small font-semibold text-berry">{errors.stagePlan}</p> : null}
-      </fieldset>
+      <PlanChoice
+        tunePlan={tunePlan}
+        changed={changePlan}
+        plan={plan}
+        onChanged={(on) => {
+          setChangePlan(on);
+          setPlan(tunePlan);
+        }}
+        onPlan={setPlan}
+        error={errors.stagePlan}
+      />
       <UnlockRuleFields idPrefix="assign" rule={rule} minutes={minutes} onRule={setRule} onMinutes={setMinutes} errors={errors} />
       <Field id="assign-note" label="Note to the students" error={errors.note}>
         {(c) => <Textarea {...c} rows={4} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}

@@ -96,6 +96,7 @@ export async function listAssignments(db: Tx, teacherId: string | null, onlyId?:
     .select({
       a: assignments,
       tuneTitle: tunes.title,
+      tunePlan: tunes.stagePlan,
       teacherName: users.name,
       teacherZone: users.timeZone,
     })

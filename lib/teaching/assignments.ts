@@ -65,6 +65,15 @@ function checkRule(rule: "teacher_sign_off" | "self_check_in", minutes: number |
   return minutes;
 }
 
+/** jsonb keeps its own key order, so plans are compared by their stages' names and kinds. */
+function samePlan(
+  a: { stages: { name: string; adds: readonly string[] }[] } | null,
+  b: { stages: { name: string; adds: readonly string[] }[] } | null,
+): boolean {
+  const text = (p: typeof a) => (p ? p.stages.map((s) => `${s.name}:${[...s.adds].sort().join(",")}`).join("|") : "");
+  return text(a) === text(b);
+}
+
 function fail(errors: Errors): void {
   const fields = Object.keys(errors);
   if (fields.length) throw unprocessable(errors[fields[0]], errors);
@@ -156,7 +165,7 @@ export async function editAssignment(db: Tx, me: Manager, input: AssignmentEditI
       set.unlockRule = rule;
       set.unlockMinutes = checkRule(rule, input.unlockMinutes === undefined ? a.unlockMinutes : input.unlockMinutes, errors);
     }
-    const planChanged = input.stagePlan !== undefined && JSON.stringify(input.stagePlan) !== JSON.stringify(a.stagePlan);
+    const planChanged = input.stagePlan !== undefined && !samePlan(input.stagePlan, a.stagePlan);
     if (planChanged) {
       const tune = (await findTune(tx, a.tuneId)) as TuneRow;
       checkPlan(tune, input.stagePlan ?? null, errors);

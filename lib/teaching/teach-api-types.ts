@@ -20,7 +20,10 @@ export type AssignmentView = {
   /** The due date on the wall clock of `dueZone`: the zone the edit form shows it in. */
   dueLocal: string;
   dueZone: string;
+  /** null: the tune's own stages. */
   stagePlan: StagePlanJson | null;
+  /** The tune's own plan (null: the engine's default), for the edit form's plan grid. */
+  tunePlan: StagePlanJson | null;
   unlockRule: "teacher_sign_off" | "self_check_in";
   unlockMinutes: number | null;
   note: string;

@@ -15,6 +15,7 @@ export function assignmentView(row: AssignmentListRow, now: Date): AssignmentVie
     dueLocal: instantToZonedLocal(a.dueAt, zone),
     dueZone: zone,
     stagePlan: a.stagePlan,
+    tunePlan: row.tunePlan,
     unlockRule: a.unlockRule,
     unlockMinutes: a.unlockMinutes,
     note: a.note,

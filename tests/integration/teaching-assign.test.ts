@@ -201,6 +201,21 @@ describe("editing and withdrawing", () => {
     expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/checked in already/);
   });
 
+  it("an unchanged plan sent back after check-ins is accepted and changes nothing", async () => {
+    const plan = {
+      stages: [
+        { name: "Bare tune", adds: [] },
+        { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
+      ],
+    };
+    const made = await create({ stagePlan: plan });
+    await w.checkIn(made.assignmentStudentIds[0]);
+    // jsonb stores its keys in its own order; the same plan must still read as the same.
+    const res = await w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan, note: "Same plan" } });
+    expect(res.status).toBe(200);
+    expect(await w.states(made.assignmentStudentIds[0])).toEqual(["checked_in", "locked"]);
+  });
+
   it("lists only the teacher's own; another teacher gets 404 on one of them", async () => {
     const made = await create();
     const list = (await (await w.call(LIST, "GET", { cookie })).json()) as {
