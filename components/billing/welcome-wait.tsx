@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { useQuery } from "@tanstack/react-query";
 import { Alert } from "@/components/ui/alert";
 import type { BillingSummary } from "@/lib/billing/account";
+import type { LadderJson } from "@/lib/catalogue/api-types";
 import { fetchJson } from "@/lib/catalogue/fetch-json";
 
 const PATIENCE_MS = 60_000;
@@ -18,7 +19,16 @@ export function WelcomeWait({ course }: { course: string | null }) {
     queryFn: () => fetchJson<BillingSummary>("/api/billing"),
     refetchInterval: (q) => (q.state.data?.membership?.good || Date.now() - started > PATIENCE_MS ? false : 1000),
   });
-  const good = summary.data?.membership?.good === true;
+  const member = summary.data?.membership?.good === true;
+  // The chosen course's enrolment comes with checkout.session.completed, which may follow the
+  // membership's own events: wait until the ladder itself is open, so the student lands on it walkable.
+  const ladder = useQuery({
+    queryKey: ["welcome-ladder", course],
+    enabled: member && course !== null,
+    queryFn: () => fetchJson<LadderJson>(`/api/courses/${encodeURIComponent(course ?? "")}/ladder`),
+    refetchInterval: (q) => (q.state.data && q.state.data.standing.pathway !== "taster") || Date.now() - started > PATIENCE_MS ? false : 1000,
+  });
+  const good = member && (course === null || (ladder.data !== undefined && ladder.data.standing.pathway !== "taster"));
   useEffect(() => {
     if (good) router.replace(course ? `/learn/courses/${encodeURIComponent(course)}` : "/learn/billing?welcome=1");
   }, [good, course, router]);
