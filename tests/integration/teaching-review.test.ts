@@ -247,5 +247,12 @@ describe("the roster table", () => {
         overdueAssignments: 1,
       },
     ]);
+    // An admin sees every student, with the same figures; another teacher sees none of them.
+    const admin = await w.cookieFor((await w.person("admin")).id);
+    const all = ((await (await w.call("teach/roster", "GET", { cookie: admin })).json()) as { students: RosterRow[] }).students;
+    expect(all.find((r) => r.studentId === s.id)).toMatchObject({ openAssignments: 2, overdueAssignments: 1 });
+    expect(all.length).toBeGreaterThan(1);
+    const other = await w.cookieFor((await w.person("teacher")).id);
+    expect(((await (await w.call("teach/roster", "GET", { cookie: other })).json()) as { students: RosterRow[] }).students).toEqual([]);
   });
 });
