@@ -121,7 +121,7 @@ export type RefundsApi = { refunds: { create: Stripe["refunds"]["create"] } };
  * The admin's refund: checks what remains, asks Stripe (through the SDK) to refund, then records it.
  * The charge.refunded webhook Stripe sends for the same refund finds it already recorded.
  */
-export async function refundPayment(db: Db, admin: { id: string }, req: RefundRequest, stripe: RefundsApi = appStripe()): Promise<RecordRefundResult> {
+export async function refundPayment(db: Db, admin: { id: string }, req: RefundRequest, stripe?: RefundsApi): Promise<RecordRefundResult> {
   const reason = req.reason.trim();
   if (!reason) throw new RefundError("bad_amount", "Say why the payment is refunded.", "amount");
   const [p] = await db
@@ -138,7 +138,8 @@ export async function refundPayment(db: Db, admin: { id: string }, req: RefundRe
   if (amount > remaining) throw new RefundError("over_refund", `At most ${remaining} (minor units of ${p.currency}) of this payment is left to refund; ${amount} was asked.`);
   // The key ties the request to the payment's refund state, so a double click makes one refund
   // (Stripe docs: "Idempotent requests").
-  const refund = await stripe.refunds.create(
+  // The client only now: a refusal above needs no Stripe (nor its settings).
+  const refund = await (stripe ?? appStripe()).refunds.create(
     { payment_intent: p.pi, amount, reason: "requested_by_customer", metadata: { reason, created_by: admin.id, payment_id: p.id } },
     { idempotencyKey: `refund:${p.id}:${p.refundedAmount}:${amount}` },
   );
