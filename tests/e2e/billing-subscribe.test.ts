@@ -100,7 +100,24 @@ describe("subscribing in a real browser", () => {
     await screenshot(page, "billing-member-rung");
     await page.goto(`${BASE_URL}/learn/billing`);
     expect(await page.getByTestId("membership-status").textContent()).toBe("Active");
-    await page.getByRole("link", { name: /^Receipt / }).first().waitFor();
-    await screenshot(page, "billing-page");
+    await page.getByRole("link", { name: /^Receipt / }).first().click();
+    await page.waitForURL(/\/learn\/billing\/receipts\//);
+    await page.getByRole("heading", { level: 1, name: /^Receipt / }).waitFor();
+    expect(await page.getByText("£18.00").count()).toBeGreaterThan(0);
+    await screenshot(page, "billing-receipt");
+  });
+
+  it("answers 404 for another person's receipt", async () => {
+    const { db, close } = connect(process.env.DATABASE_URL ?? "");
+    let other: string;
+    try {
+      const rows = await db.execute<{ id: string }>(sql`
+        select p.id from payments p join users u on u.id = p.user_id where lower(u.email) <> lower(${newcomer.email}) and p.status <> 'failed' limit 1`);
+      other = rows[0].id;
+    } finally {
+      await close();
+    }
+    const res = await page.goto(`${BASE_URL}/learn/billing/receipts/${other}`);
+    expect(res?.status()).toBe(404);
   });
 });
