@@ -5,7 +5,7 @@ import { Alert } from "@/components/ui/alert";
 
 export function PracticeCautions() {
   return (
-    <Alert tone="warning" title="Practise safely">
+    <Alert tone="warning" title="Practise safely" className="self-start">
       <ul className="ml-5 list-disc">
         <li>Warm up first: loosen your shoulders, arms and hands, and start with slow, easy bowing.</li>
         <li>Take a short break every 20–30 minutes (common practice): put the fiddle down, stretch, rest your eyes.</li>
