@@ -4,6 +4,21 @@ import { and, eq, gte, max, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
 import { assignments, assignmentStudents, checkIns, practiceLogs, stageStates, tuneProgress, tunes, uploads, users } from "../schema";
 
+/**
+ * The stage's assignment row held FOR SHARE before the stage row is locked: an edit that rebuilds
+ * the stages (or a withdrawal) holds it FOR UPDATE, so the two take turns, always in this order
+ * (assignment, then stage), which keeps them from deadlocking.
+ */
+export async function shareAssignmentOfStage(tx: Tx, stageStateId: string): Promise<void> {
+  await tx
+    .select({ id: assignments.id })
+    .from(assignments)
+    .innerJoin(assignmentStudents, eq(assignmentStudents.assignmentId, assignments.id))
+    .innerJoin(stageStates, eq(stageStates.assignmentStudentId, assignmentStudents.id))
+    .where(eq(stageStates.id, stageStateId))
+    .for("share", { of: assignments });
+}
+
 /** The stage row locked for the rest of the transaction, with what the state machine needs to decide. */
 export async function lockStage(tx: Tx, stageStateId: string) {
   const rows = await tx

@@ -14,6 +14,7 @@ import {
   practiceMinutesSince,
   raiseTuneProgress,
   setStageState,
+  shareAssignmentOfStage,
   waitingCheckIn,
   type LockedStage,
 } from "@/db/queries/teaching";
@@ -147,6 +148,7 @@ async function closeWaiting(tx: Tx, stage: LockedStage, input: ApplyInput, statu
 
 export async function applyTransition(db: Tx, input: ApplyInput): Promise<ApplyResult> {
   return db.transaction(async (tx) => {
+    await shareAssignmentOfStage(tx, input.stageStateId);
     const stage = await lockStage(tx, input.stageStateId);
     if (!stage) throw new HttpError(404, "Stage not found.");
     const actor = actorFor(stage, input.actor);

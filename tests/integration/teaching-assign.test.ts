@@ -201,6 +201,30 @@ describe("editing and withdrawing", () => {
     expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/checked in already/);
   });
 
+  it("a plan change racing a check-in leaves one consistent result, never a lost check-in", async () => {
+    const plan = {
+      stages: [
+        { name: "Bare tune", adds: [] },
+        { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
+      ],
+    };
+    const made = await create({ studentIds: [room.students[0].id] });
+    const asId = made.assignmentStudentIds[0];
+    const [edit, checkIn] = await Promise.allSettled([w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan } }), w.checkIn(asId)]);
+    const states = await w.states(asId);
+    if (checkIn.status === "fulfilled") {
+      // The check-in won: it stays, and the plan change was refused.
+      expect(edit.status === "fulfilled" && edit.value.status).toBe(422);
+      expect(states).toEqual(["checked_in", "locked", "locked", "locked"]);
+      expect((await w.checkInRow(checkIn.value)).status).toBe("waiting");
+    } else {
+      // The edit won: the old stage row is gone, so the check-in found nothing to check in on.
+      expect(edit.status === "fulfilled" && edit.value.status).toBe(200);
+      expect(checkIn.reason).toMatchObject({ status: 404 });
+      expect(states).toEqual(["open", "locked"]);
+    }
+  });
+
   it("an unchanged plan sent back after check-ins is accepted and changes nothing", async () => {
     const plan = {
       stages: [

@@ -5,6 +5,7 @@ import { readFileSync } from "node:fs";
 import { and, asc, eq } from "drizzle-orm";
 import { teachWorld } from "./teach-world";
 import { assignmentStudents, checkIns, stageStates, uploads } from "@/db/schema";
+import { notFound } from "@/lib/auth/errors";
 
 export const WICKER = readFileSync("tests/fixtures/teach/wicker-gate.abc", "utf8"); // an invented reel (this project's own), 4 stages
 
@@ -86,6 +87,7 @@ export async function teachingWorld() {
       .select({ id: stageStates.id })
       .from(stageStates)
       .where(and(eq(stageStates.assignmentStudentId, assignmentStudentId), eq(stageStates.stageIndex, index)));
+    if (!row) throw notFound(`No stage ${index} on this assignment.`);
     return row.id;
   }
 
