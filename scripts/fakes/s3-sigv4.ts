@@ -90,9 +90,13 @@ export function refuseUnsigned(req: IncomingMessage, res: ServerResponse, secret
   const problem = sigV4Problem(req, secrets);
   if (!problem) return false;
   const code = problem.startsWith("The request signature") ? "SignatureDoesNotMatch" : problem.startsWith("The AWS Access") ? "InvalidAccessKeyId" : "AccessDenied";
-  req.resume(); // drain an upload's body so the client sees the answer rather than a reset
-  // Access-Control-Allow-Origin so a browser's cross-origin request can read why it was refused.
-  res.writeHead(403, { "content-type": "application/xml", "access-control-allow-origin": "*" });
-  res.end(`<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>${code}</Code><Message>${problem}</Message></Error>`);
+  // Answer only after an upload's body is read: answering mid-upload lets the client see a reset
+  // connection instead of the 403.
+  req.on("end", () => {
+    // Access-Control-Allow-Origin so a browser's cross-origin request can read why it was refused.
+    res.writeHead(403, { "content-type": "application/xml", "access-control-allow-origin": "*" });
+    res.end(`<?xml version="1.0" encoding="UTF-8"?>\n<Error><Code>${code}</Code><Message>${problem}</Message></Error>`);
+  });
+  req.resume();
   return true;
 }
