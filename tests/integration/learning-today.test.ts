@@ -87,6 +87,18 @@ describe("assignments, next rung and feedback", () => {
     expect(t.assignments[1].current).toEqual({ index: 1, waiting: false });
   });
 
+  it("GET /api/learn/assignments lists only the caller's own, soonest due first", async () => {
+    const me = await student("Europe/London");
+    const someoneElse = await student("Europe/London");
+    const late = await makeAssignment(w.db, { teacherId, studentIds: [me.id, someoneElse.id], dueAt: new Date("2030-05-02T17:00:00Z") });
+    const soon = await makeAssignment(w.db, { teacherId, studentIds: [me.id], dueAt: new Date("2030-05-01T17:00:00Z") });
+    const res = await w.call("learn/assignments", "GET", { cookie: await w.cookieFor(me.id) });
+    expect(res.status).toBe(200);
+    const { assignments } = (await res.json()) as { assignments: { assignmentStudentId: string; dueLocal: string }[] };
+    expect(assignments.map((a) => a.assignmentStudentId)).toEqual([soon.students[me.id], late.students[me.id]]);
+    expect(assignments[0].dueLocal).toBe("Wednesday 1 May, 18:00"); // BST (UTC+1) in May; IANA tz database
+  });
+
   it("shows the next rung of an enrolled course and the teacher's latest words", async () => {
     const p = await student("Europe/London");
     const tune = await makeTune(w.db, teacherId, { title: "Today Taster" });
