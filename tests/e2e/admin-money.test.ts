@@ -1,0 +1,103 @@
+// In the browser (issue 7): the demo admin filters and sorts payments, exports the filtered rows as
+// CSV, refunds part of a payment with a reason, and the student's billing page shows that refund.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import type { Browser, Page } from "playwright-core";
+import { BASE_URL, launch, screenshot } from "./helpers/browser";
+import { ADMIN, DEMO_PASSWORD, STUDENTS } from "@/db/seed-data/people";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${BASE_URL}/sign-in`);
+  await page.getByLabel("E-mail address").fill(email);
+  await page.getByLabel("Password").fill(DEMO_PASSWORD);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((u) => u.pathname !== "/sign-in");
+}
+
+const totalOf = async (page: Page) => Number(((await page.getByTestId("table-total").textContent()) ?? "").match(/^(\d+)/)?.[1] ?? NaN);
+
+// STUDENTS[1] has a demo history of paid monthly renewals and no refunds (db/seed-data/billing-history.ts).
+const student = STUDENTS[1];
+const first = student.name.split(" ")[0];
+const reason = "Missed a lesson: browser test";
+
+describe("admin payments in a real browser", () => {
+  it("filters, sorts, exports, refunds — and the student sees the refund", async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, ADMIN.email);
+    await page.goto(`${BASE_URL}/admin/payments`);
+    await page.getByRole("cell").first().waitFor();
+    const everything = await totalOf(page);
+    expect(everything).toBeGreaterThan(100); // a year of demo payments
+
+    await page.getByLabel("Status").selectOption("paid");
+    await page.getByLabel("Name or e-mail").fill(first.toLowerCase());
+    await page.getByRole("button", { name: "Apply filters" }).click();
+    await page.waitForURL(/status=paid/);
+    await page.getByText(/^\d+ rows? match/).waitFor();
+    await expect.poll(() => totalOf(page)).toBeLessThan(everything);
+    const filtered = await totalOf(page);
+    expect(filtered).toBeGreaterThan(3);
+
+    await page.getByRole("button", { name: /^Amount/ }).click();
+    await page.waitForURL(/sort=amount/);
+    await page.getByRole("button", { name: /^Amount/ }).click();
+    await page.waitForURL(/dir=asc/);
+    // A reload keeps the filters (they live in the URL).
+    await page.reload();
+    await page.getByText(/^\d+ rows? match/).waitFor();
+    expect(await page.getByLabel("Name or e-mail").inputValue()).toBe(first.toLowerCase());
+    await expect.poll(() => totalOf(page)).toBe(filtered);
+    const members = await page.locator("tbody tr td:nth-child(2) span.font-semibold").allTextContents();
+    expect(new Set(members)).toEqual(new Set([student.name]));
+    await screenshot(page, "admin-payments-filtered");
+
+    // The export link carries the same filters; fetched with the admin's session, it has one line per row.
+    const href = await page.getByRole("link", { name: "Export CSV" }).getAttribute("href");
+    expect(href).toMatch(/status=paid/);
+    const csv = await context.request.get(`${BASE_URL}${href}`);
+    expect(csv.status()).toBe(200);
+    const lines = (await csv.text()).split("\r\n").filter((l) => l.length > 0);
+    expect(lines.length - 1).toBe(filtered); // minus the header line (RFC 4180 §2)
+
+    // Refund £5.00 of the first row.
+    await page.getByRole("button", { name: /^Refund / }).first().click();
+    const dialog = page.getByRole("dialog");
+    await dialog.waitFor();
+    expect(await dialog.getByTestId("refundable").textContent()).toMatch(/£18\.00/);
+    await dialog.getByLabel(/Amount to refund/).fill("25.00");
+    await dialog.getByLabel("Reason").fill(reason);
+    await dialog.getByRole("button", { name: "Refund" }).click();
+    await dialog.getByText(/At most £18\.00/).waitFor(); // more than the payment: refused in place
+    await dialog.getByLabel(/Amount to refund/).fill("5.00");
+    await dialog.getByRole("button", { name: "Refund" }).click();
+    await dialog.waitFor({ state: "hidden" });
+    // Now partly refunded, the payment leaves the "paid" view and shows under its new status.
+    await expect.poll(() => totalOf(page)).toBe(filtered - 1);
+    await page.getByLabel("Status").selectOption("partially_refunded");
+    await page.getByRole("button", { name: "Apply filters" }).click();
+    await page.waitForURL(/status=partially_refunded/);
+    await page.getByRole("cell", { name: "£5.00" }).first().waitFor();
+    expect(await page.getByRole("cell", { name: "partially refunded" }).count()).toBeGreaterThan(0);
+    await screenshot(page, "admin-payments-refunded");
+    await context.close();
+
+    const mine = await browser.newContext({ viewport: { width: 375, height: 800 } });
+    const sp = await mine.newPage();
+    await signIn(sp, student.email);
+    await sp.goto(`${BASE_URL}/learn/billing`);
+    await sp.getByText(reason, { exact: false }).waitFor();
+    expect(await sp.getByText(`£5.00 on`, { exact: false }).count()).toBeGreaterThan(0);
+    expect(await sp.getByText("Partly refunded").count()).toBeGreaterThan(0);
+    await screenshot(sp, "student-billing-refund");
+    await mine.close();
+  }, 120_000);
+});
