@@ -70,7 +70,8 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
           tuneId,
           studentIds: chosen,
           dueLocal: due,
-          stagePlan: changePlan ? plan : null,
+          // The tune's own plan ticked but left as it was is no change: the assignment follows the tune.
+          stagePlan: changePlan && JSON.stringify(plan) !== JSON.stringify(tunePlan) ? plan : null,
           unlockRule: rule,
           unlockMinutes: rule === "self_check_in" ? minutes : null,
           note,
@@ -124,7 +125,7 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
           </Select>
         )}
       </Field>
-      <fieldset className="flex flex-col gap-2" aria-describedby={errors.studentIds ? "assign-students-error" : undefined}>
+      <fieldset className="flex min-w-0 flex-col gap-2" aria-describedby={errors.studentIds ? "assign-students-error" : undefined}>
         <legend className="font-semibold text-ink">Students</legend>
         <div className="grid gap-2 sm:grid-cols-2">
           {students.map((s) => (

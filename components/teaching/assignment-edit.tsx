@@ -35,7 +35,7 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
           unlockRule: rule,
           unlockMinutes: rule === "self_check_in" ? minutes : null,
           note,
-          ...(planTouched ? { stagePlan: changed ? plan : null } : {}),
+          ...(planTouched ? { stagePlan: changed && JSON.stringify(plan) !== JSON.stringify(tunePlan) ? plan : null } : {}),
         },
       }),
     onSuccess: async () => {

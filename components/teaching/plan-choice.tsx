@@ -23,7 +23,7 @@ export function planReasons(changed: boolean, plan: StagePlan): string[] {
 
 export function PlanChoice({ tunePlan, changed, plan, onChanged, onPlan, error }: PlanChoiceProps) {
   return (
-    <fieldset className="flex flex-col gap-3">
+    <fieldset className="flex min-w-0 flex-col gap-3">
       <legend className="font-semibold text-ink">Stage plan</legend>
       <label className="flex items-center gap-3">
         <input type="checkbox" className="size-5 accent-cedar" checked={changed} onChange={(e) => onChanged(e.target.checked)} />
