@@ -4,6 +4,7 @@
 // JSON) by 20 callers at once. Prints p50/p95/p99 in ms. Target: p95 < 100 ms on loopback.
 //   npm run -s bench:payments          (TEST_PG_ADMIN_URL or DATABASE_URL names the cluster)
 import { randomBytes } from "node:crypto";
+import { cpus, loadavg } from "node:os";
 import { performance } from "node:perf_hooks";
 import postgres from "postgres";
 
@@ -85,7 +86,10 @@ async function main() {
       return { ms: performance.now() - started, total: body.total };
     };
 
-    for (let i = 0; i < WARMUP; i++) await ask();
+    // One at a time first (also the warm-up): the cost of one request without queueing behind others.
+    const alone: number[] = [];
+    for (let i = 0; i < WARMUP; i++) alone.push((await ask()).ms);
+    alone.sort((a, b) => a - b);
     const times: number[] = [];
     let total = 0;
     let next = 0;
@@ -103,7 +107,9 @@ async function main() {
     const elapsed = performance.now() - wall;
     times.sort((a, b) => a - b);
     console.log(`query: ${query.toString().replace(monthly, "<monthly plan>")} → ${total} matching rows`);
+    console.log(`one at a time (${WARMUP} requests): p50 ${pct(alone, 50).toFixed(1)} ms  p95 ${pct(alone, 95).toFixed(1)} ms`);
     console.log(`${REQUESTS} requests, ${CONCURRENCY} at once, ${(REQUESTS / (elapsed / 1000)).toFixed(0)} req/s`);
+    console.log(`machine: ${cpus().length} CPUs, load average ${loadavg().map((l) => l.toFixed(1)).join(" ")}`);
     console.log(`p50 ${pct(times, 50).toFixed(1)} ms  p95 ${pct(times, 95).toFixed(1)} ms  p99 ${pct(times, 99).toFixed(1)} ms  (target p95 < 100 ms)`);
     const { closeDb } = await import("@/db/client");
     await closeDb();
