@@ -141,6 +141,9 @@ describe("accounts in a real browser", () => {
     const admin = await (await browser.newContext()).newPage();
     await admin.goto(`${BASE_URL}/admin`);
     await signIn(admin, "admin@larchmoor.example", DEMO_PASSWORD);
+    // Back to the address asked for: the admin's landing page, which links each admin table.
+    await admin.waitForURL(/\/admin$/);
+    await admin.getByRole("main").getByRole("link", { name: "People" }).click();
     await admin.waitForURL(/\/admin\/people/);
     await admin.getByLabel("Search by name or e-mail").fill("penhallow");
     await admin.getByRole("button", { name: "Search" }).click();
