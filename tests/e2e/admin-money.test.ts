@@ -100,4 +100,21 @@ describe("admin payments in a real browser", () => {
     await screenshot(sp, "student-billing-refund");
     await mine.close();
   }, 120_000);
+
+  it("shows memberships, enrolments and the revenue chart", async () => {
+    const context = await browser.newContext({ viewport: { width: 375, height: 800 } });
+    const page = await context.newPage();
+    await signIn(page, ADMIN.email);
+    await page.goto(`${BASE_URL}/admin/memberships?status=past_due`);
+    await page.getByText(/grace until/).first().waitFor(); // the demo member in grace
+    await page.goto(`${BASE_URL}/admin/enrolments?sort=course&dir=asc`);
+    await page.getByRole("cell", { name: /Alder/ }).first().waitFor();
+    expect(await totalOf(page)).toBeGreaterThan(10);
+    await page.goto(`${BASE_URL}/admin/revenue`);
+    await page.getByRole("table", { name: "Revenue by month in GBP" }).waitFor();
+    expect(await page.locator("table[aria-label], table").last().locator("tbody tr").count()).toBe(12);
+    await page.locator(".recharts-bar-rectangle").first().waitFor(); // the bars are drawn
+    await screenshot(page, "admin-revenue");
+    await context.close();
+  }, 60_000);
 });
