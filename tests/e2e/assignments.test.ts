@@ -200,6 +200,21 @@ describe("assignments, check-in and sign-off in the browser", () => {
     expect(body.stages.find((s) => s.index === 1)?.state).toBe("open");
     // And the first student's assignment is not hers to read.
     expect((await morwen.request.get(`${BASE_URL}/api/learn/assignments/${junoId}`)).status()).toBe(404);
+  });
+
+  it("the student's pages fit a 375 px phone without sideways scrolling", async () => {
+    await morwen.setViewportSize({ width: 375, height: 800 });
+    for (const [path, ready, name] of [
+      [`/learn/assignments/${morwenId}`, "form[aria-label='Check in stage 1'] button[type=submit]", "assignments-07-phone-assignment"],
+      ["/learn/practice", "form[aria-label='Log practice'] button[type=submit]", "assignments-08-phone-practice"],
+      ["/learn", "[data-testid=streak]", "assignments-09-phone-today"],
+    ] as const) {
+      await open(morwen, path, ready);
+      await morwen.waitForTimeout(300); // the chart and the notation size themselves after mount
+      const wide = await morwen.evaluate(() => document.documentElement.scrollWidth);
+      expect(wide, path).toBeLessThanOrEqual(375);
+      await screenshot(morwen, name);
+    }
     expect(errors).toEqual([]);
   });
 });
