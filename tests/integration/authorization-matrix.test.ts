@@ -44,6 +44,18 @@ const fresh = (c: Call, what: string) => `${what}.${c.who}.${c.n}@matrix.example
 const ROWS: Row[] = [
   // Public health check.
   { covers: ["GET /api/health"], call: (c) => route("health", "GET", c), expect: all(200) },
+  {
+    // The payment stand-in's clock (npm start / npm test only): admins; 0 days runs what is due without moving time.
+    covers: ["POST /api/dev/stripe-clock"],
+    call: async (c) => {
+      const mod = (await import("@/app/api/dev/stripe-clock/route")) as { POST: (r: Request, a: unknown) => Promise<Response> };
+      const headers = new Headers({ origin: TEST_APP_URL, "content-type": "application/x-www-form-urlencoded" });
+      if (c.cookie) headers.set("cookie", c.cookie);
+      const req = new Request(`${TEST_APP_URL}/api/dev/stripe-clock`, { method: "POST", headers, body: "days=0" });
+      return (await mod.POST(req, { params: Promise.resolve({}) })).status;
+    },
+    expect: only(process.env.STRIPE_FAKE_URL ? 303 : 404, ["admin"]),
+  },
   // Accounts (issue 4).
   { covers: ["POST /api/auth/sign-out"], call: (c) => route("auth/sign-out", "POST", c), expect: all(303) },
   { covers: ["GET /api/auth/to-sign-in"], call: (c) => route("auth/to-sign-in", "GET", c, { query: "?next=%2Flearn" }), expect: all(307) },
