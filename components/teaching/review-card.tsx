@@ -11,7 +11,7 @@ import { Textarea } from "@/components/ui/input";
 import { ApiError, errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import type { ReviewItem } from "@/lib/teaching/teach-api-types";
 import { REVIEW_KEY, ROSTER_KEY } from "./query-keys";
-import { RecordingPlayer } from "./recording-player";
+import { RecordingPlayer } from "@/components/recording/recording-player";
 
 type Outcome = "signed_off" | "needs_more_time";
 type Result = { openedStage: number | null };
@@ -54,7 +54,11 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
           {item.stage.name} · checked in {when} · self-rating {item.selfRating} of 5 · {item.fromMemory ? "played from memory" : "played from the music"}
         </p>
       </div>
-      <RecordingPlayer uploadId={item.uploadId} label={`Recording by ${item.student.name}`} />
+      {item.uploadId ? (
+        <RecordingPlayer uploadId={item.uploadId} label={`Recording by ${item.student.name}`} />
+      ) : (
+        <p className="text-small text-bark">No recording with this check-in.</p>
+      )}
       {item.stage.abc ? (
         <Notation abc={item.stage.abc} label={`${item.tune.title}, ${item.stage.name}`} className="rounded-knot border border-line p-2" />
       ) : null}
