@@ -36,6 +36,10 @@ export default async function TodayPage() {
       <div className="grid gap-6 lg:grid-cols-2">
         <CardSection title="Your assignments">
           <AssignmentList items={data.assignments} />
+          <div className="flex flex-wrap gap-2">
+            <LinkButton href="/learn/assignments" variant="secondary" size="sm">All assignments</LinkButton>
+            <LinkButton href="/learn/calendar" variant="secondary" size="sm">Due dates in your calendar</LinkButton>
+          </div>
         </CardSection>
         <CardSection title="Next on your courses">
           <NextRungs items={data.nextRungs} />

@@ -20,6 +20,9 @@ export default async function AssignmentsPage() {
           <LinkButton href="/teach/review" variant="secondary">
             Review queue
           </LinkButton>
+          <LinkButton href="/teach/calendar" variant="secondary">
+            Due dates in your calendar
+          </LinkButton>
           <LinkButton href="/teach/assign">Assign a tune</LinkButton>
         </div>
       </header>
