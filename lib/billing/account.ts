@@ -88,7 +88,8 @@ async function liveSubscription(db: Db, userId: string): Promise<Sub> {
 
 export async function setCancelAtPeriodEnd(db: Db, stripe: Stripe, userId: string, cancel: boolean): Promise<{ cancelAtPeriodEnd: boolean }> {
   const sub = await liveSubscription(db, userId);
-  if (sub.cancelAtPeriodEnd === cancel) return { cancelAtPeriodEnd: cancel };
+  // Always ask Stripe, never skip on our row: the row follows webhooks and may not have heard of a change made a
+  // moment ago (cancel then resume at once would otherwise leave the cancellation standing). The update is idempotent.
   const s = await stripe.subscriptions.update(sub.stripeSubscriptionId, { cancel_at_period_end: cancel });
   return { cancelAtPeriodEnd: s.cancel_at_period_end };
 }
@@ -108,14 +109,16 @@ async function changeTarget(db: Db, stripe: Stripe, userId: string, planId: stri
 /** What Stripe would charge or credit now for the change (Stripe docs: "Preview proration"). */
 export async function previewPlanChange(db: Db, stripe: Stripe, userId: string, planId: string) {
   const t = await changeTarget(db, stripe, userId, planId);
-  const prorationDate = Math.floor(Date.now() / 1000);
   const customer = await customerOf(db, userId);
   if (!customer) throw notFound("No billing account found.");
+  // No proration_date of our own: Stripe's clock decides "now" and says which instant it priced in the preview
+  // (Stripe docs: "Preview proration" — subscription_proration_date), which changePlan then passes back.
   const preview = await stripe.invoices.createPreview({
     customer,
     subscription: t.sub.stripeSubscriptionId,
-    subscription_details: { items: [{ id: t.itemId, price: t.priceId }], proration_behavior: "always_invoice", proration_date: prorationDate },
+    subscription_details: { items: [{ id: t.itemId, price: t.priceId }], proration_behavior: "always_invoice" },
   });
+  const prorationDate = preview.parent?.subscription_details?.subscription_proration_date ?? Math.floor(Date.now() / 1000);
   return {
     planId: t.plan.id,
     planName: t.plan.name,
