@@ -68,6 +68,8 @@ cat <<MSG
 $(node_modules/.bin/tsx scripts/demo-sign-ins.ts)
 
   Captured e-mail (sign-up, reset and invitation links): $APP_URL/dev/mail
+  Payments go to a local Stripe stand-in: on its card page use 4242 4242 4242 4242 (any future
+  expiry, any CVC); 4000 0000 0000 0002 is declined. Move its clock (as the admin): $APP_URL/dev/stripe
 
   Logs: .data/app.log, .data/worker.log, .data/postgres.log, .data/*-fake.log. Press Ctrl-C to stop.
 
