@@ -23,8 +23,9 @@ export function FilterBar({ filters, values, onApply }: Props) {
       role="search"
       aria-label="Filter the table"
       className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-4"
-      // Remounted when the URL changes (Clear, back button) so the fields show what is applied.
-      key={values.toString()}
+      // Remounted when the applied filters change (Clear, back button) so the fields show what is applied; a new
+      // sort or page does not remount it, so a filter being chosen at that moment is not lost.
+      key={names.map((n) => `${n}=${values.get(n) ?? ""}`).join("&")}
       onSubmit={(e) => {
         e.preventDefault();
         const form = new FormData(e.currentTarget);
