@@ -21,6 +21,18 @@ async function signIn(page: Page, email: string) {
   await page.waitForURL((u) => u.pathname !== "/sign-in");
 }
 
+/**
+ * Does something that should change the address (the table writes its filters and sort there), again if a
+ * re-render swallowed it: the table re-renders as answers land, and a click on a control being replaced is lost.
+ */
+async function untilAddress(page: Page, act: () => Promise<void>, address: RegExp) {
+  for (let attempt = 1; ; attempt++) {
+    await act();
+    if (await page.waitForURL(address, { timeout: 10_000 }).then(() => true, () => false)) return;
+    if (attempt === 3) throw new Error(`the address did not become ${address}: ${page.url()}`);
+  }
+}
+
 const totalOf = async (page: Page) => Number(((await page.getByTestId("table-total").textContent()) ?? "").match(/^(\d+)/)?.[1] ?? NaN);
 
 // STUDENTS[1] has a demo history of paid monthly renewals and no refunds (db/seed-data/billing-history.ts).
@@ -38,19 +50,22 @@ describe("admin payments in a real browser", () => {
     const everything = await totalOf(page);
     expect(everything).toBeGreaterThan(100); // a year of demo payments
 
-    await page.getByLabel("Status").selectOption("paid");
-    await page.getByLabel("Name or e-mail").fill(first.toLowerCase());
-    await page.getByRole("button", { name: "Apply filters" }).click();
-    await page.waitForURL(/status=paid/);
+    await untilAddress(
+      page,
+      async () => {
+        await page.getByLabel("Status").selectOption("paid");
+        await page.getByLabel("Name or e-mail").fill(first.toLowerCase());
+        await page.getByRole("button", { name: "Apply filters" }).click();
+      },
+      /status=paid/,
+    );
     await page.getByText(/^\d+ rows? match/).waitFor();
     await expect.poll(() => totalOf(page)).toBeLessThan(everything);
     const filtered = await totalOf(page);
     expect(filtered).toBeGreaterThan(3);
 
-    await page.getByRole("button", { name: /^Amount/ }).click();
-    await page.waitForURL(/sort=amount/);
-    await page.getByRole("button", { name: /^Amount/ }).click();
-    await page.waitForURL(/dir=asc/);
+    await untilAddress(page, () => page.getByRole("button", { name: /^Amount/ }).click(), /sort=amount/);
+    await untilAddress(page, () => page.getByRole("button", { name: /^Amount/ }).click(), /dir=asc/);
     // A reload keeps the filters (they live in the URL).
     await page.reload();
     await page.getByText(/^\d+ rows? match/).waitFor();
@@ -82,14 +97,14 @@ describe("admin payments in a real browser", () => {
     await dialog.waitFor({ state: "hidden" });
     // Now partly refunded, the payment leaves the "paid" view and shows under its new status.
     await expect.poll(() => totalOf(page)).toBe(filtered - 1);
-    // The table re-renders as the refund's answer lands; choose and apply again if that reset the choice.
-    for (let attempt = 1; ; attempt++) {
-      await page.getByLabel("Status").selectOption("partially_refunded");
-      await page.getByRole("button", { name: "Apply filters" }).click();
-      const moved = await page.waitForURL(/status=partially_refunded/, { timeout: 10_000 }).then(() => true, () => false);
-      if (moved) break;
-      if (attempt === 3) throw new Error(`the status filter was not applied: ${page.url()}`);
-    }
+    await untilAddress(
+      page,
+      async () => {
+        await page.getByLabel("Status").selectOption("partially_refunded");
+        await page.getByRole("button", { name: "Apply filters" }).click();
+      },
+      /status=partially_refunded/,
+    );
     await page.getByRole("cell", { name: "£5.00" }).first().waitFor();
     expect(await page.getByRole("cell", { name: "partially refunded" }).count()).toBeGreaterThan(0);
     await screenshot(page, "admin-payments-refunded");
