@@ -17,6 +17,24 @@ export function db(): Db {
   return instance;
 }
 
+// A second, small pool for the admin tables' reads (db/queries/admin-money.ts). Their filters are
+// all optional and their selectivity differs by orders of magnitude (a name matching eight hundred
+// people, a status matching nine payments in ten), so a prepared statement's generic plan — which
+// PostgreSQL adopts after five executions when it looks cheaper (docs: PREPARE, "plan_cache_mode") —
+// was measured ten times slower than the plan made for the actual values. force_custom_plan plans
+// each execution with its values (about half a millisecond). Three connections: more than the
+// machine's cores only queue inside PostgreSQL, where they are served unfairly (bench-payments).
+let reportsClient: postgres.Sql | undefined;
+let reports: Db | undefined;
+
+export function reportsDb(): Db {
+  if (!reports) {
+    reportsClient = postgres(env().DATABASE_URL, { max: 3, onnotice: () => {}, connection: { plan_cache_mode: "force_custom_plan" } });
+    reports = drizzle(reportsClient, { schema });
+  }
+  return reports;
+}
+
 /** For scripts and tests: a client on a given address, closed by the caller. */
 export function connect(url: string): { db: Db; close: () => Promise<void> } {
   const sql = postgres(url, { max: 5, onnotice: () => {} });
@@ -24,7 +42,9 @@ export function connect(url: string): { db: Db; close: () => Promise<void> } {
 }
 
 export async function closeDb(): Promise<void> {
-  await client?.end({ timeout: 5 });
+  await Promise.all([client?.end({ timeout: 5 }), reportsClient?.end({ timeout: 5 })]);
   client = undefined;
   instance = undefined;
+  reportsClient = undefined;
+  reports = undefined;
 }

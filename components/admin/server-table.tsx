@@ -1,7 +1,9 @@
 "use client";
 // The admin money tables' one table (issue 7 item 6): TanStack Table in manual mode — the route
 // handler sorts, filters and pages; this draws what it answers. Filters, sort and page live in the
-// URL query, so a reload, a shared link and "Export CSV" all carry the same view.
+// URL query, so a reload, a shared link and "Export CSV" all carry the same view. The page and the
+// number of matching rows are two requests: the count is asked once per set of filters (its query key
+// leaves out page, size and order), so paging and re-sorting never wait for a recount.
 import { useQuery } from "@tanstack/react-query";
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
 import { usePathname, useRouter, useSearchParams } from "next/navigation";
@@ -12,7 +14,15 @@ import { TableShell, TBody, Td, Th, THead } from "@/components/ui/table";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import { FilterBar, type FilterDef } from "./filter-bar";
 
-export type Page<R> = { rows: R[]; total: number; page: number; pageSize: number };
+export type Page<R> = { rows: R[]; hasMore: boolean; page: number; pageSize: number };
+
+/** What the count depends on: the filters, not the page, its size or the order. */
+function filtersOf(params: URLSearchParams): string {
+  const f = new URLSearchParams(params);
+  for (const k of ["page", "pageSize", "sort", "dir"]) f.delete(k);
+  f.sort();
+  return f.toString();
+}
 
 export type ServerTableProps<R> = {
   caption: string;
@@ -39,6 +49,11 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
     queryFn: () => fetchJson<Page<R>>(`${endpoint}?${query}`),
     placeholderData: (previous) => previous,
   });
+  const filterKey = filtersOf(params);
+  const count = useQuery({
+    queryKey: ["admin-table", endpoint, "count", filterKey],
+    queryFn: () => fetchJson<{ total: number }>(`${endpoint}/count?${filterKey}`),
+  });
 
   /** Changes the URL (and so the query); any change but the page itself starts again at page 1. */
   function go(change: Record<string, string | null>) {
@@ -51,8 +66,10 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
     router.replace(`${pathname}?${next.toString()}`, { scroll: false });
   }
 
-  const total = data.data?.total ?? 0;
-  const pageCount = Math.max(1, Math.ceil(total / pageSize));
+  const total = count.data?.total;
+  const hasMore = data.data?.hasMore ?? false;
+  // Until the count arrives, the pager knows only whether a next page exists.
+  const pageCount = total === undefined ? page + (hasMore ? 1 : 0) : Math.max(1, Math.ceil(total / pageSize));
   const sorting: SortingState = useMemo(() => [{ id: sort, desc: dir === "desc" }], [sort, dir]);
   const table = useReactTable({
     data: data.data?.rows ?? [],
@@ -81,13 +98,13 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
       <FilterBar filters={filters} values={params} onApply={go} />
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-small text-bark" aria-live="polite" data-testid="table-total">
-          {data.isFetching && !data.data ? "Loading…" : `${total} ${total === 1 ? "row" : "rows"} match`}
+          {total === undefined ? (count.error ? "" : "Counting…") : `${total} ${total === 1 ? "row" : "rows"} match`}
         </p>
         <a className="text-small font-semibold text-cedar underline" href={`${endpoint}/export?${exportQuery.toString()}`} download>
           Export CSV
         </a>
       </div>
-      {data.error ? <Alert tone="error">{errorWords(data.error)}</Alert> : null}
+      {data.error || count.error ? <Alert tone="error">{errorWords(data.error ?? count.error)}</Alert> : null}
       <TableShell caption={caption}>
         <THead>
           {table.getHeaderGroups().map((hg) => (
@@ -133,9 +150,9 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
           Previous
         </Button>
         <span>
-          Page {page} of {pageCount}
+          {total === undefined ? `Page ${page}` : `Page ${page} of ${pageCount}`}
         </span>
-        <Button variant="secondary" size="sm" disabled={page >= pageCount} onClick={() => go({ page: String(page + 1) })}>
+        <Button variant="secondary" size="sm" disabled={!hasMore} onClick={() => go({ page: String(page + 1) })}>
           Next
         </Button>
       </nav>

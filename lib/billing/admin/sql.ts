@@ -39,6 +39,11 @@ export function after(key: SortKey, id: AnyPgColumn, dir: Dir, c: Cursor | null)
   return sql`(${key.expr}, ${id}) ${cmp} (${c.key}::${sql.raw(key.cast)}, ${c.id}::uuid)`;
 }
 
+/** A page asked with one extra row: the rows to show, and whether another page follows. */
+export function pageOf<R>(rows: R[], pageSize: number): { rows: R[]; hasMore: boolean } {
+  return { rows: rows.slice(0, pageSize), hasMore: rows.length > pageSize };
+}
+
 export const offsetOf = (q: { page: number; pageSize: number }) => (q.page - 1) * q.pageSize;
 export const countOf = sql<number>`count(*)::int`;
 export const textOf = (key: SortKey) => sql<string>`(${key.expr})::text`;

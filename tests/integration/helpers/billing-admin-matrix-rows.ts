@@ -33,6 +33,8 @@ export function billingAdminRows(): RowLike[] {
   return [
     { covers: ["GET /api/admin/payments"], call: (c) => status(c, "payments", "GET", { query: "?status=paid&sort=amount&dir=desc&page=1&pageSize=10" }), expect: adminOnly(200) },
     { covers: ["GET /api/admin/payments"], call: (c) => status(c, "payments", "GET", { query: "?sort=colour" }), expect: adminOnly(422) },
+    { covers: ["GET /api/admin/payments/count"], call: (c) => status(c, "payments/count", "GET", { query: "?status=paid&q=matrix" }), expect: adminOnly(200) },
+    { covers: ["GET /api/admin/payments/count"], call: (c) => status(c, "payments/count", "GET", { query: "?status=lost" }), expect: adminOnly(422) },
     { covers: ["GET /api/admin/payments/export"], call: (c) => status(c, "payments/export", "GET", { query: "?status=paid" }), expect: adminOnly(200) },
     {
       covers: ["POST /api/admin/payments/[id]/refunds"],
@@ -40,8 +42,10 @@ export function billingAdminRows(): RowLike[] {
       expect: adminOnly(422),
     },
     { covers: ["GET /api/admin/memberships"], call: (c) => status(c, "memberships", "GET", { query: "?status=active&sort=renews" }), expect: adminOnly(200) },
+    { covers: ["GET /api/admin/memberships/count"], call: (c) => status(c, "memberships/count", "GET", { query: "?status=active" }), expect: adminOnly(200) },
     { covers: ["GET /api/admin/memberships/export"], call: (c) => status(c, "memberships/export", "GET"), expect: adminOnly(200) },
     { covers: ["GET /api/admin/enrolments"], call: (c) => status(c, "enrolments", "GET", { query: "?sort=course&dir=asc" }), expect: adminOnly(200) },
+    { covers: ["GET /api/admin/enrolments/count"], call: (c) => status(c, "enrolments/count", "GET", { query: "?status=active" }), expect: adminOnly(200) },
     { covers: ["GET /api/admin/enrolments/export"], call: (c) => status(c, "enrolments/export", "GET"), expect: adminOnly(200) },
     { covers: ["GET /api/admin/revenue"], call: (c) => status(c, "revenue", "GET"), expect: adminOnly(200) },
   ];

@@ -1,13 +1,8 @@
-import { db } from "@/db/client";
 import { listEnrolments } from "@/db/queries/admin-money";
-import { guardRoute } from "@/lib/auth/guard";
-import { enrolmentsQuery, parseQuery, rawQuery } from "@/lib/billing/admin/params";
+import { enrolmentsQuery } from "@/lib/billing/admin/params";
+import { pageRoute } from "@/lib/billing/admin/table-routes";
 
 export const dynamic = "force-dynamic";
 
-/** One page of the admin's enrolments table, sorted and filtered on the server. */
-export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => {
-  const q = parseQuery(enrolmentsQuery, raw);
-  const { rows, total } = await listEnrolments(db(), q);
-  return Response.json({ rows, total, page: q.page, pageSize: q.pageSize }, { headers: { "cache-control": "no-store" } });
-});
+/** One page of the admin's enrolments table, sorted and filtered on the server (its total: ./count). */
+export const GET = pageRoute(enrolmentsQuery, listEnrolments);

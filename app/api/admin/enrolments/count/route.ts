@@ -1,0 +1,8 @@
+import { countEnrolments } from "@/db/queries/admin-money";
+import { enrolmentsQuery } from "@/lib/billing/admin/params";
+import { countRoute } from "@/lib/billing/admin/table-routes";
+
+export const dynamic = "force-dynamic";
+
+/** How many rows of the admin's enrolments table the filters match. */
+export const GET = countRoute(enrolmentsQuery, countEnrolments);

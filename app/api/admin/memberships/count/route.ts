@@ -1,0 +1,8 @@
+import { countMemberships } from "@/db/queries/admin-money";
+import { membershipsQuery } from "@/lib/billing/admin/params";
+import { countRoute } from "@/lib/billing/admin/table-routes";
+
+export const dynamic = "force-dynamic";
+
+/** How many rows of the admin's memberships table the filters match. */
+export const GET = countRoute(membershipsQuery, countMemberships);

@@ -1,0 +1,8 @@
+import { countPayments } from "@/db/queries/admin-money";
+import { paymentsQuery } from "@/lib/billing/admin/params";
+import { countRoute } from "@/lib/billing/admin/table-routes";
+
+export const dynamic = "force-dynamic";
+
+/** How many rows of the admin's payments table the filters match. */
+export const GET = countRoute(paymentsQuery, countPayments);
