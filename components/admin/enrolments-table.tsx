@@ -1,6 +1,7 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
 import { day, words } from "./format";
+import { statusAndPlanFilters } from "./filter-bar";
 import { ServerTable } from "./server-table";
 import type { Choice, EnrolmentJson } from "./types";
 
@@ -36,9 +37,8 @@ export function EnrolmentsTable({ plans, courses }: { plans: Choice[]; courses: 
       defaultSort="date"
       getRowId={(r) => r.id}
       filters={[
-        { name: "status", label: "Enrolment", options: ["active", "paused", "ended"].map((s) => ({ value: s, label: s })) },
+        ...statusAndPlanFilters(["active", "paused", "ended"], plans, { status: "Enrolment", plan: "Member's plan" }),
         { name: "course", label: "Course", options: courses.map((c) => ({ value: c.id, label: c.name })) },
-        { name: "plan", label: "Member's plan", options: plans.map((p) => ({ value: p.id, label: p.name })) },
       ]}
     />
   );

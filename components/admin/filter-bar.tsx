@@ -4,6 +4,7 @@
 import { useId } from "react";
 import { Button } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/input";
+import { words } from "./format";
 
 export type FilterDef = { name: string; label: string; options: { value: string; label: string }[] };
 
@@ -14,6 +15,14 @@ type Props = {
 };
 
 const FIXED = ["from", "to", "q"];
+
+/** A status menu (values shown in words) and a plan menu: the filters every money table starts with. */
+export function statusAndPlanFilters(statuses: readonly string[], plans: { id: string; name: string }[], labels = { status: "Status", plan: "Plan" }): FilterDef[] {
+  return [
+    { name: "status", label: labels.status, options: statuses.map((s) => ({ value: s, label: words(s) })) },
+    { name: "plan", label: labels.plan, options: plans.map((p) => ({ value: p.id, label: p.name })) },
+  ];
+}
 
 export function FilterBar({ filters, values, onApply }: Props) {
   const id = useId();

@@ -1,6 +1,7 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
 import { day, money, words } from "./format";
+import { statusAndPlanFilters } from "./filter-bar";
 import { ServerTable } from "./server-table";
 import type { Choice, MembershipJson } from "./types";
 
@@ -44,10 +45,7 @@ export function MembershipsTable({ plans }: { plans: Choice[] }) {
       columns={columns}
       defaultSort="date"
       getRowId={(r) => r.id}
-      filters={[
-        { name: "status", label: "Status", options: STATUSES.map((s) => ({ value: s, label: words(s) })) },
-        { name: "plan", label: "Plan", options: plans.map((p) => ({ value: p.id, label: p.name })) },
-      ]}
+      filters={statusAndPlanFilters(STATUSES, plans)}
     />
   );
 }

@@ -4,6 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { day, money, words } from "./format";
 import { RefundDialog } from "./refund-dialog";
+import { statusAndPlanFilters } from "./filter-bar";
 import { ServerTable } from "./server-table";
 import type { Choice, PaymentJson } from "./types";
 
@@ -68,10 +69,7 @@ export function PaymentsTable({ plans }: { plans: Choice[] }) {
         columns={columns}
         defaultSort="date"
         getRowId={(r) => r.id}
-        filters={[
-          { name: "status", label: "Status", options: STATUSES.map((s) => ({ value: s, label: words(s) })) },
-          { name: "plan", label: "Plan", options: plans.map((p) => ({ value: p.id, label: p.name })) },
-        ]}
+        filters={statusAndPlanFilters(STATUSES, plans)}
       />
       {refunding ? <RefundDialog payment={refunding} onClose={() => setRefunding(null)} /> : null}
     </>

@@ -64,56 +64,32 @@ const STATE_WORDS: Record<StageState, string> = {
   signed_off: "already signed off",
 };
 
+/** Signed off (by the reviewer, or by the student's own check-in): the next stage opens unless this is the last. */
+const signedOff = (ctx: DecideContext): Decision => ({ ok: true, next: "signed_off", checkInStatus: "signed_off", opensNext: !ctx.isLastStage });
+/** A stage that stays where it is, or returns to open: nothing else opens. */
+const moved = (next: StageState, checkInStatus: CheckInStatus): Decision => ({ ok: true, next, checkInStatus, opensNext: false });
+
 function checkIn(ctx: DecideContext): Decision {
   if (!ctx.actor.isStudentOwner) return refuse(403, "Only the student of this assignment can check in.");
   if (ctx.state === "checked_in") return refuse(409, "This stage is already checked in and waiting for review.");
   if (ctx.state !== "open") return refuse(409, `You can't check in: this stage is ${STATE_WORDS[ctx.state]}.`);
   const needed = ctx.unlockMinutes ?? 0;
   const selfUnlock = ctx.unlockRule === "self_check_in" && (ctx.minutesSinceOpened ?? 0) >= needed;
-  if (selfUnlock)
-    return {
-      ok: true,
-      next: "signed_off",
-      checkInStatus: "signed_off",
-      opensNext: !ctx.isLastStage,
-    };
-  return {
-    ok: true,
-    next: "checked_in",
-    checkInStatus: "waiting",
-    opensNext: false,
-  };
+  return selfUnlock ? signedOff(ctx) : moved("checked_in", "waiting");
 }
 
 function withdraw(ctx: DecideContext): Decision {
   if (!ctx.actor.isStudentOwner) return refuse(403, "Only the student who checked in can withdraw the check-in.");
   if (ctx.state === "signed_off") return refuse(409, "This check-in has already been reviewed and signed off.");
   if (ctx.state !== "checked_in") return refuse(409, "There is no check-in waiting for review on this stage to withdraw.");
-  return {
-    ok: true,
-    next: "open",
-    checkInStatus: "withdrawn",
-    opensNext: false,
-  };
+  return moved("open", "withdrawn");
 }
 
 function review(transition: "signOff" | "needsMoreTime", ctx: DecideContext): Decision {
   if (!reviewer(ctx.actor)) return refuse(403, "Only the assignment's teacher or an admin can review a check-in.");
   if (ctx.state === "signed_off") return refuse(409, "This stage has already been signed off.");
   if (ctx.state !== "checked_in") return refuse(409, `There is no check-in to review: this stage is ${STATE_WORDS[ctx.state]}.`);
-  if (transition === "signOff")
-    return {
-      ok: true,
-      next: "signed_off",
-      checkInStatus: "signed_off",
-      opensNext: !ctx.isLastStage,
-    };
-  return {
-    ok: true,
-    next: "open",
-    checkInStatus: "needs_more_time",
-    opensNext: false,
-  };
+  return transition === "signOff" ? signedOff(ctx) : moved("open", "needs_more_time");
 }
 
 export function decide(transition: Transition, ctx: DecideContext): Decision {

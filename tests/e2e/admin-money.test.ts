@@ -33,7 +33,12 @@ async function untilAddress(page: Page, act: () => Promise<void>, address: RegEx
   }
 }
 
+/** The table's total: its own request, so "Counting…" (NaN here) until it lands. */
 const totalOf = async (page: Page) => Number(((await page.getByTestId("table-total").textContent()) ?? "").match(/^(\d+)/)?.[1] ?? NaN);
+const countedTotal = async (page: Page) => {
+  await expect.poll(() => totalOf(page)).not.toBeNaN();
+  return totalOf(page);
+};
 
 // STUDENTS[1] has a demo history of paid monthly renewals and no refunds (db/seed-data/billing-history.ts).
 const student = STUDENTS[1];
@@ -47,8 +52,19 @@ describe("admin payments in a real browser", () => {
     await signIn(page, ADMIN.email);
     await page.goto(`${BASE_URL}/admin/payments`);
     await page.getByRole("cell").first().waitFor();
-    const everything = await totalOf(page);
+    const everything = await countedTotal(page);
     expect(everything).toBeGreaterThan(100); // a year of demo payments
+    // The pager follows the total (25 to a page) and stops at the last page.
+    const pages = Math.ceil(everything / 25);
+    await page.getByText(`Page 1 of ${pages}`).waitFor();
+    await untilAddress(page, () => page.getByRole("button", { name: "Next" }).click(), /page=2/);
+    await page.getByText(`Page 2 of ${pages}`).waitFor();
+    await page.goto(`${BASE_URL}/admin/payments?page=${pages}`);
+    await page.getByText(`Page ${pages} of ${pages}`).waitFor();
+    expect(await page.getByRole("button", { name: "Next" }).isDisabled()).toBe(true);
+    expect(await page.locator("tbody tr").count()).toBe(everything - (pages - 1) * 25);
+    await page.goto(`${BASE_URL}/admin/payments`);
+    await page.getByRole("cell").first().waitFor();
 
     await untilAddress(
       page,
@@ -129,7 +145,7 @@ describe("admin payments in a real browser", () => {
     await page.getByText(/grace until/).first().waitFor(); // the demo member in grace
     await page.goto(`${BASE_URL}/admin/enrolments?sort=course&dir=asc`);
     await page.getByRole("cell", { name: /Alder/ }).first().waitFor();
-    expect(await totalOf(page)).toBeGreaterThan(10);
+    expect(await countedTotal(page)).toBeGreaterThan(10);
     await page.goto(`${BASE_URL}/admin/revenue`);
     await page.getByRole("table", { name: "Revenue by month in GBP" }).waitFor();
     expect(await page.locator("table[aria-label], table").last().locator("tbody tr").count()).toBe(12);
