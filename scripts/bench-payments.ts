@@ -2,10 +2,14 @@
 // invented people in a database of its own, then a filtered, sorted page asked of the real route
 // handler (app/api/admin/payments/route.ts, with an admin's session: guard, validation, query and
 // JSON) by 20 callers at once, in this process; the database is on loopback. Prints p50/p95/p99 in ms
-// for two filtered pages (with and without a name search) and for their totals (./count).
+// for two filtered pages (with and without a name search) and for their totals (./count);
+// BENCH_HTTP=1 also asks them over HTTP of `next start` (after a build), beside /api/health.
 // Target: the page's p95 < 100 ms.
 //   npm run -s bench:payments          (TEST_PG_ADMIN_URL or DATABASE_URL names the cluster)
+import { spawn } from "node:child_process";
 import { randomBytes } from "node:crypto";
+import { existsSync } from "node:fs";
+import { createServer } from "node:net";
 import { cpus, loadavg } from "node:os";
 import { performance } from "node:perf_hooks";
 import postgres from "postgres";
@@ -58,6 +62,68 @@ async function fill(sql: postgres.Sql): Promise<{ monthly: string }> {
   return { monthly: m.id as string };
 }
 
+type Case = { label: string; path: string; query: Record<string, string>; target?: true };
+
+/** One at a time (also the warm-up), then REQUESTS with CONCURRENCY in flight; prints the percentiles. */
+async function measure(c: Case, call: () => Promise<Response>) {
+  let answer = "";
+  const ask = async () => {
+    const started = performance.now();
+    const res = await call();
+    const body = (await res.json()) as { rows?: unknown[]; hasMore?: boolean; total?: number; app?: string };
+    if (res.status !== 200 || (body.rows && body.rows.length === 0)) throw new Error(`unexpected answer ${res.status}: ${JSON.stringify(body).slice(0, 200)}`);
+    answer = body.rows ? `${body.rows.length} rows, more: ${body.hasMore}` : body.total !== undefined ? `total ${body.total}` : "ok";
+    return performance.now() - started;
+  };
+  const alone: number[] = [];
+  for (let i = 0; i < WARMUP; i++) alone.push(await ask());
+  alone.sort((a, b) => a - b);
+  const times: number[] = [];
+  let next = 0;
+  const wall = performance.now();
+  await Promise.all(
+    Array.from({ length: CONCURRENCY }, async () => {
+      while (next < REQUESTS) {
+        next++;
+        times.push(await ask());
+      }
+    }),
+  );
+  const elapsed = performance.now() - wall;
+  times.sort((a, b) => a - b);
+  console.log(`\n${c.label} → ${answer}`);
+  console.log(`  one at a time (${WARMUP}): p50 ${pct(alone, 50).toFixed(1)} ms  p95 ${pct(alone, 95).toFixed(1)} ms`);
+  console.log(`  ${REQUESTS} requests, ${CONCURRENCY} at once, ${(REQUESTS / (elapsed / 1000)).toFixed(0)} req/s: p50 ${pct(times, 50).toFixed(1)} ms  p95 ${pct(times, 95).toFixed(1)} ms  p99 ${pct(times, 99).toFixed(1)} ms${c.target ? "  (target p95 < 100 ms)" : ""}`);
+}
+
+async function overHttp(cases: Case[], cookie: string) {
+  if (!existsSync(".next/BUILD_ID")) throw new Error("BENCH_HTTP=1 needs a production build: run `npx next build` (npm start and npm test make one)");
+  const port = await new Promise<number>((resolve) => {
+    const s = createServer().listen(0, "127.0.0.1", () => {
+      const { port: p } = s.address() as { port: number };
+      s.close(() => resolve(p));
+    });
+  });
+  const base = `http://127.0.0.1:${port}`;
+  const server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], {
+    env: { ...process.env, NODE_ENV: "production", APP_URL: base, INSECURE_COOKIES: "true" },
+    stdio: "ignore",
+    detached: true,
+  });
+  try {
+    for (let i = 0; ; i++) {
+      if ((await fetch(`${base}/api/health`).then((r) => r.status, () => 0)) === 200) break;
+      if (i > 150) throw new Error("next start did not answer /api/health");
+      await new Promise((r) => setTimeout(r, 200));
+    }
+    console.log(`\n== over HTTP on loopback: next start (one process) and this process as the client, on the same ${cpus().length} CPUs`);
+    await measure({ label: "GET /api/health (one trivial query): the floor of HTTP through Next.js here", path: "health", query: {} }, () => fetch(`${base}/api/health`));
+    for (const c of cases) await measure(c, () => fetch(`${base}/api/${c.path}?${new URLSearchParams(c.query)}`, { headers: { cookie } }));
+  } finally {
+    if (server.pid) process.kill(-server.pid, "SIGTERM");
+  }
+}
+
 async function main() {
   await admin.unsafe(`create database "${name}"`);
   try {
@@ -76,55 +142,33 @@ async function main() {
     const session = await lucia().createSession(me.id as string, {});
     const cookie = `${lucia().sessionCookieName}=${session.id}`;
 
-    const { GET: page } = await import("@/app/api/admin/payments/route");
-    const { GET: count } = await import("@/app/api/admin/payments/count/route");
-    type Handler = typeof page;
-
     const to = new Date();
     const from = new Date(to.getTime() - 92 * 86_400_000);
     const filtered = { status: "paid", plan: monthly, from: from.toISOString().slice(0, 10), to: to.toISOString().slice(0, 10) };
     const ordered = { sort: "amount", dir: "desc", page: "3", pageSize: "25" };
     // The target is the page; its total is a request of its own, asked once per set of filters
     // (components/admin/server-table.tsx), measured here the same way and reported beside it.
-    const cases: { label: string; route: Handler; path: string; query: Record<string, string> }[] = [
-      { label: "page: paid, monthly, 92 days, name or e-mail contains \"wood\", by amount, page 3", route: page, path: "payments", query: { ...filtered, q: "wood", ...ordered } },
-      { label: "page: paid, monthly, 92 days, by amount, page 3", route: page, path: "payments", query: { ...filtered, ...ordered } },
-      { label: "count: paid, monthly, 92 days, name or e-mail contains \"wood\"", route: count, path: "payments/count", query: { ...filtered, q: "wood" } },
-      { label: "count: paid, monthly, 92 days", route: count, path: "payments/count", query: filtered },
+    const cases: { label: string; path: string; query: Record<string, string>; target?: true }[] = [
+      { label: "page: paid, monthly, 92 days, name or e-mail contains \"wood\", by amount, page 3", path: "admin/payments", query: { ...filtered, q: "wood", ...ordered }, target: true },
+      { label: "page: paid, monthly, 92 days, by amount, page 3", path: "admin/payments", query: { ...filtered, ...ordered }, target: true },
+      { label: "count: paid, monthly, 92 days, name or e-mail contains \"wood\"", path: "admin/payments/count", query: { ...filtered, q: "wood" } },
+      { label: "count: paid, monthly, 92 days", path: "admin/payments/count", query: filtered },
     ];
     console.log(`machine: ${cpus().length} CPUs, load average ${loadavg().map((l) => l.toFixed(1)).join(" ")}`);
+
+    // In this process: the route handlers called directly (guard, validation, queries, JSON).
+    const { GET: page } = await import("@/app/api/admin/payments/route");
+    const { GET: count } = await import("@/app/api/admin/payments/count/route");
+    console.log("\n== the route handlers in this process (database on loopback)");
     for (const c of cases) {
-      const address = `${process.env.APP_URL}/api/admin/${c.path}?${new URLSearchParams(c.query)}`;
-      let answer = "";
-      const ask = async () => {
-        const started = performance.now();
-        const res = await c.route(new Request(address, { headers: { cookie } }), { params: Promise.resolve({}) });
-        const body = (await res.json()) as { rows?: unknown[]; hasMore?: boolean; total?: number };
-        if (res.status !== 200 || (body.rows && body.rows.length === 0)) throw new Error(`unexpected answer ${res.status}: ${JSON.stringify(body).slice(0, 200)}`);
-        answer = body.rows ? `${body.rows.length} rows, more: ${body.hasMore}` : `total ${body.total}`;
-        return performance.now() - started;
-      };
-      // One at a time first (also the warm-up): the cost of one request without queueing behind others.
-      const alone: number[] = [];
-      for (let i = 0; i < WARMUP; i++) alone.push(await ask());
-      alone.sort((a, b) => a - b);
-      const times: number[] = [];
-      let next = 0;
-      const wall = performance.now();
-      await Promise.all(
-        Array.from({ length: CONCURRENCY }, async () => {
-          while (next < REQUESTS) {
-            next++;
-            times.push(await ask());
-          }
-        }),
-      );
-      const elapsed = performance.now() - wall;
-      times.sort((a, b) => a - b);
-      console.log(`\n${c.label} → ${answer}`);
-      console.log(`  one at a time (${WARMUP}): p50 ${pct(alone, 50).toFixed(1)} ms  p95 ${pct(alone, 95).toFixed(1)} ms`);
-      console.log(`  ${REQUESTS} requests, ${CONCURRENCY} at once, ${(REQUESTS / (elapsed / 1000)).toFixed(0)} req/s: p50 ${pct(times, 50).toFixed(1)} ms  p95 ${pct(times, 95).toFixed(1)} ms  p99 ${pct(times, 99).toFixed(1)} ms${c.route === page ? "  (target p95 < 100 ms)" : ""}`);
+      const route = c.path.endsWith("count") ? count : page;
+      const address = `${process.env.APP_URL}/api/${c.path}?${new URLSearchParams(c.query)}`;
+      await measure(c, () => route(new Request(address, { headers: { cookie } }), { params: Promise.resolve({}) }));
     }
+
+    // BENCH_HTTP=1: the same requests over HTTP on loopback to `next start` (the last `next build`),
+    // and /api/health (one trivial query) as the floor of HTTP through Next.js on this machine.
+    if (process.env.BENCH_HTTP === "1") await overHttp(cases, cookie);
     const { closeDb } = await import("@/db/client");
     await closeDb();
   } finally {

@@ -6,7 +6,7 @@
 // leaves out page, size and order), so paging and re-sorting never wait for a recount.
 import { useQuery } from "@tanstack/react-query";
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { usePathname, useSearchParams } from "next/navigation";
 import { useMemo } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
@@ -35,7 +35,6 @@ export type ServerTableProps<R> = {
 };
 
 export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSort, getRowId }: ServerTableProps<R>) {
-  const router = useRouter();
   const pathname = usePathname();
   const params = useSearchParams();
   const query = params.toString();
@@ -63,7 +62,12 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
       else next.set(k, v);
     }
     if (!("page" in change)) next.delete("page");
-    router.replace(`${pathname}?${next.toString()}`, { scroll: false });
+    // The browser's own history, not router.replace: the server part of the page does not read the
+    // query (the rows come from the route handlers), so a router navigation only cost a server round
+    // trip per sort, page or filter, with useSearchParams holding the old query until it landed.
+    // Next.js keeps useSearchParams in step with replaceState (Next.js docs, "Linking and
+    // Navigating": using the native History API, 14.1+).
+    window.history.replaceState(null, "", `${pathname}?${next.toString()}`);
   }
 
   const total = count.data?.total;

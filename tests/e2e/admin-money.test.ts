@@ -80,7 +80,11 @@ describe("admin payments in a real browser", () => {
     const filtered = await totalOf(page);
     expect(filtered).toBeGreaterThan(3);
 
+    // A new order changes the address without rebuilding the table: the same elements stay in the page.
+    const form = await page.getByRole("search", { name: "Filter the table" }).elementHandle();
     await untilAddress(page, () => page.getByRole("button", { name: /^Amount/ }).click(), /sort=amount/);
+    await page.getByText(/^\d+ rows? match/).waitFor();
+    expect(await form?.evaluate((el) => el.isConnected)).toBe(true);
     await untilAddress(page, () => page.getByRole("button", { name: /^Amount/ }).click(), /dir=asc/);
     // A reload keeps the filters (they live in the URL).
     await page.reload();

@@ -15,7 +15,7 @@ beforeAll(async () => {
   browser = await launch();
   page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
   page.on("request", (r) => requests.push(r.url()));
-  page.on("pageerror", (e) => errors.push(e.message));
+  page.on("pageerror", (e) => errors.push(`${page.url()}: ${e.message}`)); // the address says which page failed
 });
 afterAll(async () => {
   await browser?.close();
