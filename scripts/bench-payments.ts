@@ -9,6 +9,7 @@
 import { spawn } from "node:child_process";
 import { randomBytes } from "node:crypto";
 import { existsSync } from "node:fs";
+import { Agent, request } from "node:http";
 import { createServer } from "node:net";
 import { cpus, loadavg } from "node:os";
 import { performance } from "node:perf_hooks";
@@ -64,14 +65,16 @@ async function fill(sql: postgres.Sql): Promise<{ monthly: string }> {
 
 type Case = { label: string; path: string; query: Record<string, string>; target?: true };
 
+type Answer = { status: number; body: { rows?: unknown[]; hasMore?: boolean; total?: number } };
+const answerOf = async (res: Response): Promise<Answer> => ({ status: res.status, body: (await res.json()) as Answer["body"] });
+
 /** One at a time (also the warm-up), then REQUESTS with CONCURRENCY in flight; prints the percentiles. */
-async function measure(c: Case, call: () => Promise<Response>) {
+async function measure(c: Case, call: () => Promise<Answer>) {
   let answer = "";
   const ask = async () => {
     const started = performance.now();
-    const res = await call();
-    const body = (await res.json()) as { rows?: unknown[]; hasMore?: boolean; total?: number; app?: string };
-    if (res.status !== 200 || (body.rows && body.rows.length === 0)) throw new Error(`unexpected answer ${res.status}: ${JSON.stringify(body).slice(0, 200)}`);
+    const { status, body } = await call();
+    if (status !== 200 || (body.rows && body.rows.length === 0)) throw new Error(`unexpected answer ${status}: ${JSON.stringify(body).slice(0, 200)}`);
     answer = body.rows ? `${body.rows.length} rows, more: ${body.hasMore}` : body.total !== undefined ? `total ${body.total}` : "ok";
     return performance.now() - started;
   };
@@ -116,9 +119,27 @@ async function overHttp(cases: Case[], cookie: string) {
       if (i > 150) throw new Error("next start did not answer /api/health");
       await new Promise((r) => setTimeout(r, 200));
     }
+    // node:http with keep-alive connections: a lighter client than fetch, so less of the machine goes to it.
+    const agent = new Agent({ keepAlive: true, maxSockets: CONCURRENCY });
+    const get = (path: string, headers: Record<string, string>) =>
+      new Promise<Answer>((resolve, reject) => {
+        request(`${base}${path}`, { agent, headers }, (res) => {
+          const chunks: Buffer[] = [];
+          res.on("data", (c: Buffer) => chunks.push(c));
+          res.on("end", () => resolve({ status: res.statusCode ?? 0, body: JSON.parse(Buffer.concat(chunks).toString("utf8")) as Answer["body"] }));
+        })
+          .on("error", reject)
+          .end();
+      });
+    const all: { case: Case; path: string; headers: Record<string, string> }[] = [
+      { case: { label: "GET /api/health (one trivial query): HTTP through Next.js on this machine", path: "health", query: {} }, path: "/api/health", headers: {} },
+      ...cases.map((c) => ({ case: c, path: `/api/${c.path}?${new URLSearchParams(c.query)}`, headers: { cookie } })),
+    ];
+    // The server's code is compiled as it runs: warm every route at full concurrency before measuring.
+    for (const a of all) await Promise.all(Array.from({ length: CONCURRENCY }, async () => { for (let i = 0; i < 20; i++) await get(a.path, a.headers); }));
     console.log(`\n== over HTTP on loopback: next start (one process) and this process as the client, on the same ${cpus().length} CPUs`);
-    await measure({ label: "GET /api/health (one trivial query): the floor of HTTP through Next.js here", path: "health", query: {} }, () => fetch(`${base}/api/health`));
-    for (const c of cases) await measure(c, () => fetch(`${base}/api/${c.path}?${new URLSearchParams(c.query)}`, { headers: { cookie } }));
+    for (const a of all) await measure(a.case, () => get(a.path, a.headers));
+    agent.destroy();
   } finally {
     if (server.pid) process.kill(-server.pid, "SIGTERM");
   }
@@ -163,7 +184,7 @@ async function main() {
     for (const c of cases) {
       const route = c.path.endsWith("count") ? count : page;
       const address = `${process.env.APP_URL}/api/${c.path}?${new URLSearchParams(c.query)}`;
-      await measure(c, () => route(new Request(address, { headers: { cookie } }), { params: Promise.resolve({}) }));
+      await measure(c, async () => answerOf(await route(new Request(address, { headers: { cookie } }), { params: Promise.resolve({}) })));
     }
 
     // BENCH_HTTP=1: the same requests over HTTP on loopback to `next start` (the last `next build`),
