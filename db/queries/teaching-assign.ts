@@ -83,6 +83,21 @@ export async function countCheckIns(db: Tx, assignmentId: string): Promise<numbe
   return row?.n ?? 0;
 }
 
+/** Marks the check-ins still waiting for review on an assignment as withdrawn (the assignment was). */
+export async function withdrawWaitingCheckIns(db: Tx, assignmentId: string): Promise<number> {
+  const stages = db
+    .select({ id: stageStates.id })
+    .from(stageStates)
+    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
+    .where(eq(assignmentStudents.assignmentId, assignmentId));
+  const done = await db
+    .update(checkIns)
+    .set({ status: "withdrawn" })
+    .where(and(eq(checkIns.status, "waiting"), inArray(checkIns.stageStateId, stages)))
+    .returning({ id: checkIns.id });
+  return done.length;
+}
+
 /** Drops the stage rows of every student of the assignment (only before anyone checked in). */
 export async function deleteStageStates(db: Tx, assignmentId: string): Promise<void> {
   const ids = db.select({ id: assignmentStudents.id }).from(assignmentStudents).where(eq(assignmentStudents.assignmentId, assignmentId));

@@ -1,6 +1,7 @@
 // Due-date reminders: two days before, on the day (in the student's own time zone) and once when
 // overdue. Each is an outbox row whose dedupe key is unique, so running this every minute, from two
-// workers at once or again after a restart sends each reminder at most once per assignment and student.
+// workers at once or again after a restart sends each reminder at most once per assignment, student and
+// due date: when the teacher moves the due date, the reminders for the new date go out in their turn.
 import { and, eq, inArray, lte, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
 import { assignments, assignmentStudents, emailOutbox, stageStates, tunes, users } from "@/db/schema";
@@ -13,7 +14,7 @@ export type ReminderWhen = TeachingMail["due-reminder"]["when"];
 
 const TWO_DAYS_MS = 2 * 24 * 60 * 60 * 1000;
 
-export const reminderKey = (when: ReminderWhen, assignmentStudentId: string) => `due-reminder:${when}:${assignmentStudentId}`;
+export const reminderKey = (when: ReminderWhen, assignmentStudentId: string, dueAt: Date) => `due-reminder:${when}:${assignmentStudentId}:${dueAt.toISOString()}`;
 
 /**
  * Which reminder is due now, if any; only the most pressing one, so a worker that was down for days
@@ -69,13 +70,13 @@ export async function sendDueReminders(db: Db, now: Date): Promise<string[]> {
   }
   if (!due.length) return [];
   // Skip the ones already in the outbox without a write; the unique key still decides any race.
-  const keys = due.map((d) => reminderKey(d.when, d.c.id));
+  const keys = due.map((d) => reminderKey(d.when, d.c.id, d.c.dueAt));
   const done = new Set(
     (await db.select({ key: emailOutbox.dedupeKey }).from(emailOutbox).where(inArray(emailOutbox.dedupeKey, keys))).map((r) => r.key),
   );
   const queued: string[] = [];
   for (const { c, when, zone } of due) {
-    const key = reminderKey(when, c.id);
+    const key = reminderKey(when, c.id, c.dueAt);
     if (done.has(key)) continue;
     const row = await enqueueEmail(db, {
       to: c.email,

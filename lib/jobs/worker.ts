@@ -5,6 +5,8 @@ import { mailerFromEnv, sendOutboxEmail, type Mailer } from "@/lib/mail/send";
 import { SEND_EMAIL_QUEUE, type SendEmailJob } from "./queue";
 import { sweepOutbox } from "./sweeper";
 import { sendDueReminders } from "./reminders";
+import { cleanAbandonedUploads } from "@/lib/storage/cleanup";
+import { storageConfigured } from "@/lib/storage/s3";
 
 export interface RetryPolicy {
   /** Retries after the first attempt. */
@@ -25,6 +27,8 @@ export interface WorkerOptions {
   log?: (line: string) => void;
   /** Due-date reminders (lib/jobs/reminders.ts): how often to look; they are checked once at start too. */
   reminders?: { intervalSeconds: number };
+  /** Abandoned uploads (lib/storage/cleanup.ts): how often to look; once at start too. */
+  uploads?: { intervalSeconds: number };
   /** The time reminders are judged at; tests pass a clock they can move. */
   clock?: () => Date;
 }
@@ -33,6 +37,8 @@ export interface RunningWorker {
   stop: () => Promise<void>;
   /** One sweep now, whatever the rows' age; returns how many rows were queued again. */
   sweepNow: () => Promise<number>;
+  /** One clean-up of abandoned uploads now, at the worker's clock; returns how many were deleted. */
+  cleanUploadsNow: () => Promise<number>;
   /** One reminder pass now, at the worker's clock; returns the dedupe keys it queued. */
   remindNow: () => Promise<string[]>;
 }
@@ -103,14 +109,29 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
   });
   if (reminded.length) log(`${reminded.length} due-date reminder(s) queued`);
 
+  // Abandoned uploads (lib/storage/cleanup.ts): hourly, and once at start; only where storage is set up.
+  const tidy = async () => {
+    if (!storageConfigured()) return 0;
+    const n = await cleanAbandonedUploads(db, clock());
+    if (n) log(`${n} abandoned upload(s) deleted`);
+    return n;
+  };
+  const tidyTimer = setInterval(() => {
+    tidy().catch((error: unknown) => log(`upload clean-up failed: ${String(error)}`));
+  }, (options.uploads?.intervalSeconds ?? 3600) * 1000);
+  tidyTimer.unref();
+  await tidy().catch((error: unknown) => log(`upload clean-up failed: ${String(error)}`));
+
   let stopping: Promise<void> | undefined;
   const running: RunningWorker = {
     sweepNow: () => sweepWith(0),
     remindNow: remind,
+    cleanUploadsNow: tidy,
     stop: () => {
       stopping ??= (async () => {
         clearInterval(timer);
         clearInterval(reminderTimer);
+        clearInterval(tidyTimer);
         // Graceful: jobs in hand finish (or time out and are retried later), no new ones are fetched.
         await boss.stop({ graceful: true, wait: true, timeout: 20_000 });
         await close();

@@ -47,6 +47,17 @@ export function storage(): StorageConfig {
   return cached;
 }
 
+/** Whether the S3 settings are present (the worker skips its storage chores without them). */
+export function storageConfigured(): boolean {
+  try {
+    storage();
+    return true;
+  } catch (e) {
+    if (e instanceof StorageConfigError) return false;
+    throw e;
+  }
+}
+
 /**
  * A presigned PUT for one object. Content-Type and Content-Length are signed headers, so the
  * upload must declare exactly what was asked for (AWS Signature Version 4: signed headers).

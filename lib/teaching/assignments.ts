@@ -14,6 +14,7 @@ import {
   lockAssignment,
   studentsOfAssignment,
   updateAssignment,
+  withdrawWaitingCheckIns,
   type AssignmentRow,
 } from "@/db/queries/teaching-assign";
 import { findUserById } from "@/db/queries/auth";
@@ -183,12 +184,16 @@ export async function editAssignment(db: Tx, me: Manager, input: AssignmentEditI
   });
 }
 
-/** Withdrawn assignments stay for the record; their stages no longer change (state-machine.ts refuses). */
+/**
+ * Withdrawn assignments stay for the record; their stages no longer change (state-machine.ts refuses),
+ * and a check-in still waiting for review is withdrawn with them: no one will review it now.
+ */
 export async function withdrawAssignment(db: Tx, me: Manager, id: string, now: Date): Promise<void> {
   await db.transaction(async (tx) => {
     const found = await managedAssignment(tx, me, id);
     const a = (await lockAssignment(tx, found.id)) as AssignmentRow;
     if (a.status === "withdrawn") throw conflict("This assignment is already withdrawn.");
     await updateAssignment(tx, a.id, { status: "withdrawn", updatedAt: now });
+    await withdrawWaitingCheckIns(tx, a.id);
   });
 }

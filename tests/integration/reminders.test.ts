@@ -1,9 +1,9 @@
 // Due-date reminders through the real worker with a clock the test moves: two days before, on the due
 // day in the student's own time zone, once when overdue — each at most once per assignment and student,
 // across repeated passes and a worker restart; none for a withdrawn or fully signed-off assignment.
-import { like } from "drizzle-orm";
+import { eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { emailOutbox } from "@/db/schema";
+import { assignments, emailOutbox } from "@/db/schema";
 import type { RunningWorker } from "@/lib/jobs/worker";
 import type { ResendFake } from "@/scripts/fakes/resend";
 import { authWorld, type AuthWorld } from "./helpers/auth-world";
@@ -15,6 +15,7 @@ let fake: ResendFake;
 let worker: RunningWorker | undefined;
 let now = new Date("2031-03-01T12:00:00Z");
 const ids: Record<string, string> = {}; // label → assignmentStudentId
+const LONDON_DUE = "2031-03-14T18:00:00.000Z";
 const emails: Record<string, string> = {};
 
 async function startTheWorker(): Promise<RunningWorker> {
@@ -45,7 +46,7 @@ beforeAll(async () => {
   const london = await person("london", "Europe/London");
   const done = await person("done", "Europe/London");
   const gone = await person("gone", "Europe/London");
-  const dueAt = new Date("2031-03-14T18:00:00Z");
+  const dueAt = new Date(LONDON_DUE);
   ids.london = (await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [london], dueAt })).students[london];
   ids.done = (await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [done], dueAt })).students[done];
   await signOffAll(w.db, ids.done);
@@ -67,7 +68,7 @@ afterAll(async () => {
 
 /** The reminder kinds queued so far for one student's copy, in order. */
 async function sent(label: string): Promise<string[]> {
-  const rows = await w.db.select().from(emailOutbox).where(like(emailOutbox.dedupeKey, `due-reminder:%:${ids[label]}`));
+  const rows = await w.db.select().from(emailOutbox).where(like(emailOutbox.dedupeKey, `due-reminder:%:${ids[label]}:%`));
   return rows.sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime()).map((r) => String(r.payload.when));
 }
 
@@ -84,16 +85,16 @@ describe("due-date reminders", () => {
   });
 
   it("sends one 'two days' reminder, however many passes run", async () => {
-    expect(await passAt("2031-03-12T19:00:00Z")).toEqual([`due-reminder:two_days:${ids.london}`]);
+    expect(await passAt("2031-03-12T19:00:00Z")).toEqual([`due-reminder:two_days:${ids.london}:${LONDON_DUE}`]);
     expect(await passAt("2031-03-12T19:01:00Z")).toEqual([]);
     expect(await passAt("2031-03-13T09:00:00Z")).toEqual([]);
     expect(await sent("london")).toEqual(["two_days"]);
   });
 
   it("sends 'due today' on the due day and 'overdue' once after it", async () => {
-    expect(await passAt("2031-03-14T07:00:00Z")).toEqual([`due-reminder:due_today:${ids.london}`]);
+    expect(await passAt("2031-03-14T07:00:00Z")).toEqual([`due-reminder:due_today:${ids.london}:${LONDON_DUE}`]);
     expect(await passAt("2031-03-14T17:59:00Z")).toEqual([]);
-    expect(await passAt("2031-03-14T18:00:00Z")).toEqual([`due-reminder:overdue:${ids.london}`]);
+    expect(await passAt("2031-03-14T18:00:00Z")).toEqual([`due-reminder:overdue:${ids.london}:${LONDON_DUE}`]);
     expect(await passAt("2031-03-20T18:00:00Z")).toEqual([]);
     expect(await sent("london")).toEqual(["two_days", "due_today", "overdue"]);
     const [mail] = (await w.mailsTo(emails.london)).filter((m) => m.payload.when === "due_today");
@@ -123,8 +124,24 @@ describe("due-date reminders", () => {
     const { sendDueReminders } = await import("@/lib/jobs/reminders");
     const runs = await Promise.all([sendDueReminders(w.db, now), sendDueReminders(w.db, now), sendDueReminders(w.db, now)]);
     // The outbox's unique dedupe_key decides the race: exactly one pass queued it.
-    expect(runs.flat()).toEqual([`due-reminder:overdue:${ids.race}`]);
+    expect(runs.flat()).toEqual([`due-reminder:overdue:${ids.race}:2031-06-10T12:00:00.000Z`]);
     expect(await sent("race")).toEqual(["overdue"]);
+  });
+
+  it("reminds again for the new date when the teacher moves the due date, once", async () => {
+    const teacher = await w.person("teacher");
+    const mover = await w.person("student");
+    emails.moved = mover.email;
+    const made = await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [mover.id], dueAt: new Date("2031-07-10T12:00:00Z") });
+    ids.moved = made.students[mover.id];
+    expect(await passAt("2031-07-08T13:00:00Z")).toEqual([`due-reminder:two_days:${ids.moved}:2031-07-10T12:00:00.000Z`]);
+    await w.db.update(assignments).set({ dueAt: new Date("2031-07-20T12:00:00Z") }).where(eq(assignments.id, made.assignmentId));
+    expect(await passAt("2031-07-09T13:00:00Z")).toEqual([]); // the new date is eleven days away
+    expect(await passAt("2031-07-18T13:00:00Z")).toEqual([`due-reminder:two_days:${ids.moved}:2031-07-20T12:00:00.000Z`]);
+    expect(await passAt("2031-07-18T14:00:00Z")).toEqual([]);
+    const dues = (await w.mailsTo(emails.moved)).map((m) => m.payload.dueLocal);
+    expect(dues).toHaveLength(2);
+    expect(dues[1]).not.toBe(dues[0]);
   });
 
   it("says 'due today' on each student's own day: Los Angeles first, Auckland later", async () => {

@@ -2,7 +2,7 @@
 // field, each student gets one "assignment-new" e-mail, stage 1 opens and the rest stay locked.
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { emailOutbox } from "@/db/schema";
+import { checkIns, emailOutbox } from "@/db/schema";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
 import { dueIn, teachingWorld, type TeachingWorld } from "./helpers/teaching-world";
 
@@ -178,6 +178,18 @@ describe("editing and withdrawing", () => {
     expect(((await gone.json()) as AssignmentView).status).toBe("withdrawn");
     expect((await w.call(ONE, "DELETE", { cookie, params: { id: made.id } })).status).toBe(409);
     expect((await patch({ note: "too late" })).status).toBe(409);
+  });
+
+  it("withdrawing an assignment withdraws the check-ins still waiting for review, and only those", async () => {
+    const made = await create({ studentIds: [room.students[0].id] });
+    const other = await create({ studentIds: [room.students[0].id] });
+    const waiting = await w.checkIn(made.assignmentStudentIds[0]);
+    const elsewhere = await w.checkIn(other.assignmentStudentIds[0]);
+    const gone = await w.call(ONE, "DELETE", { cookie, params: { id: made.id } });
+    expect(gone.status).toBe(200);
+    const statusOf = async (id: string) => (await w.db.select({ status: checkIns.status }).from(checkIns).where(eq(checkIns.id, id)))[0]?.status;
+    expect(await statusOf(waiting)).toBe("withdrawn");
+    expect(await statusOf(elsewhere)).toBe("waiting"); // another assignment's check-in is untouched
   });
 
   it("refuses a new stage plan once someone has checked in", async () => {
