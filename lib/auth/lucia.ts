@@ -1,13 +1,32 @@
-import { Lucia, TimeSpan } from "lucia";
+import { Lucia, TimeSpan, type DatabaseSession, type DatabaseUser } from "lucia";
 import { DrizzlePostgreSQLAdapter } from "@lucia-auth/adapter-drizzle";
+import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { env } from "@/lib/env";
 
 type Role = "student" | "teacher" | "admin";
 
+/**
+ * lucia's drizzle adapter, except that the lookup made on every request reads only what a request
+ * uses — the session and the person's name, address, role and "disabled" — instead of both whole rows
+ * (the password hash among them).
+ */
+class SessionAdapter extends DrizzlePostgreSQLAdapter {
+  override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+    const [row] = await db()
+      .select({ id: sessions.id, userId: sessions.userId, expiresAt: sessions.expiresAt, name: users.name, email: users.email, role: users.role, disabled: users.disabled })
+      .from(sessions)
+      .innerJoin(users, eq(users.id, sessions.userId))
+      .where(eq(sessions.id, sessionId));
+    if (!row) return [null, null];
+    const { id, userId, expiresAt, ...attributes } = row;
+    return [{ id, userId, expiresAt, attributes: {} }, { id: userId, attributes }];
+  }
+}
+
 function create() {
-  const adapter = new DrizzlePostgreSQLAdapter(db(), sessions, users);
+  const adapter = new SessionAdapter(db(), sessions, users);
   return new Lucia(adapter, {
     // Sliding expiry: lucia extends a session used in the second half of its 30-day life.
     sessionExpiresIn: new TimeSpan(30, "d"),
