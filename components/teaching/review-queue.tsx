@@ -13,7 +13,7 @@ export function ReviewQueue() {
   const [last, setLast] = useState<string | null>(null);
   const q = useQuery({
     queryKey: REVIEW_KEY,
-    queryFn: () => fetchJson<{ checkIns: ReviewItem[] }>("/api/teach/review"),
+    queryFn: () => fetchJson<{ checkIns: ReviewItem[]; waiting: number }>("/api/teach/review"),
     staleTime: 0,
   });
   return (
@@ -29,6 +29,11 @@ export function ReviewQueue() {
         <Card tone="warm" className="max-w-prose">
           <p>Nothing waiting: every check-in has been reviewed.</p>
         </Card>
+      ) : null}
+      {q.data && q.data.waiting > q.data.checkIns.length ? (
+        <p className="text-small text-bark" data-testid="review-waiting">
+          {`The ${q.data.checkIns.length} oldest of ${q.data.waiting} check-ins waiting; each one you review brings the next.`}
+        </p>
       ) : null}
       {q.data?.checkIns.length ? (
         <ul className="flex flex-col gap-4" aria-label="Check-ins waiting">

@@ -5,7 +5,11 @@ import type { Tx } from "./auth";
 import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
 
 /** Check-ins waiting for review on active assignments, oldest first. */
-export async function waitingForReview(db: Tx, teacherId: string | null) {
+const waitingOn = (teacherId: string | null) =>
+  and(eq(checkIns.status, "waiting"), eq(assignments.status, "active"), teacherId === null ? undefined : eq(assignments.teacherId, teacherId));
+
+/** The `limit` oldest check-ins waiting on a teacher's assignments (every teacher's: null). */
+export async function waitingForReview(db: Tx, teacherId: string | null, limit: number) {
   return db
     .select({
       checkInId: checkIns.id,
@@ -27,8 +31,21 @@ export async function waitingForReview(db: Tx, teacherId: string | null) {
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, checkIns.studentId))
-    .where(and(eq(checkIns.status, "waiting"), eq(assignments.status, "active"), teacherId === null ? undefined : eq(assignments.teacherId, teacherId)))
-    .orderBy(asc(checkIns.createdAt), asc(checkIns.id));
+    .where(waitingOn(teacherId))
+    .orderBy(asc(checkIns.createdAt), asc(checkIns.id))
+    .limit(limit);
+}
+
+/** How many check-ins wait on a teacher's assignments (every teacher's: null). */
+export async function countWaiting(db: Tx, teacherId: string | null): Promise<number> {
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(checkIns)
+    .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
+    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
+    .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
+    .where(waitingOn(teacherId));
+  return row?.n ?? 0;
 }
 
 export async function findCheckIn(db: Tx, id: string) {

@@ -1,7 +1,7 @@
 // The teacher's review queue (issue 6 item 4): check-ins waiting on the teacher's own assignments,
 // oldest first, and the review itself through the state machine (transitions.ts).
 import type { Tx } from "@/db/queries/auth";
-import { findCheckIn, waitingForReview } from "@/db/queries/teaching-review";
+import { countWaiting, findCheckIn, waitingForReview } from "@/db/queries/teaching-review";
 import type { StagePlanJson } from "@/db/schema";
 import { notFound } from "@/lib/auth/errors";
 import type { Manager } from "./assignments";
@@ -9,8 +9,13 @@ import type { ReviewItem } from "./teach-api-types";
 import { assignmentStages, type AssignmentStage } from "./teach-stages";
 import { applyTransition, type ApplyResult } from "./transitions";
 
-export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
-  const rows = await waitingForReview(db, me.role === "admin" ? null : me.id);
+/** How many check-ins the queue shows at once: it is worked oldest first, and each review brings the next. */
+export const REVIEW_BATCH = 20;
+
+/** The oldest REVIEW_BATCH check-ins waiting, and how many wait in all. */
+export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: ReviewItem[]; waiting: number }> {
+  const teacherId = me.role === "admin" ? null : me.id;
+  const [rows, waiting] = await Promise.all([waitingForReview(db, teacherId, REVIEW_BATCH), countWaiting(db, teacherId)]);
   // Stages are worked out once per assignment: several students' check-ins often share one.
   const stagesOf = new Map<string, Promise<AssignmentStage[]>>();
   const stages = (assignmentId: string, tuneId: string, plan: StagePlanJson | null) => {
@@ -38,7 +43,7 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<ReviewItem[]> {
       uploadId: r.uploadId,
     });
   }
-  return out;
+  return { checkIns: out, waiting };
 }
 
 export async function reviewCheckIn(

@@ -4,6 +4,7 @@
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { practiceLogs, tuneProgress } from "@/db/schema";
+import { REVIEW_BATCH } from "@/lib/teaching/review";
 import type { ReviewItem, RosterRow } from "@/lib/teaching/teach-api-types";
 import { teachingWorld, type TeachingWorld } from "./helpers/teaching-world";
 
@@ -60,6 +61,24 @@ describe("the review queue", () => {
       ).checkIns,
     ).toEqual([]);
   });
+});
+
+describe("a long review queue", () => {
+  it("shows the oldest REVIEW_BATCH and says how many wait in all", async () => {
+    const big = await w.classroom(REVIEW_BATCH + 3);
+    const teacherCookie = await w.cookieFor(big.teacher.id);
+    const made = await w.assign(big.teacher, { tuneId: big.tuneId, studentIds: big.students.map((s) => s.id) });
+    const order: string[] = [];
+    for (const id of made.assignmentStudentIds) order.push(await w.checkIn(id));
+    const body = (await (await w.call(QUEUE, "GET", { cookie: teacherCookie })).json()) as { checkIns: ReviewItem[]; waiting: number };
+    expect(body.waiting).toBe(REVIEW_BATCH + 3);
+    expect(body.checkIns.map((i) => i.checkInId)).toEqual(order.slice(0, REVIEW_BATCH));
+    // Reviewing the oldest brings the next one into the batch.
+    expect((await review(order[0], "signed_off", "Good.", teacherCookie)).status).toBe(200);
+    const after = (await (await w.call(QUEUE, "GET", { cookie: teacherCookie })).json()) as { checkIns: ReviewItem[]; waiting: number };
+    expect(after.waiting).toBe(REVIEW_BATCH + 2);
+    expect(after.checkIns.map((i) => i.checkInId)).toEqual(order.slice(1, REVIEW_BATCH + 1));
+  }, 60_000);
 });
 
 describe("signing off", () => {

@@ -7,7 +7,7 @@ import { NO_STORE } from "@/lib/tunes/respond";
 
 export const dynamic = "force-dynamic";
 
-/** Check-ins waiting on the signed-in teacher's assignments (an admin: everyone's), oldest first. */
+/** The oldest check-ins waiting on the signed-in teacher's assignments (an admin: everyone's), and how many wait. */
 export const GET = guardRoute({ action: "checkin:review", input: z.object({}) }, async (ctx) => {
-  return Response.json({ checkIns: await reviewQueue(db(), editorOf(ctx.user)) }, { headers: NO_STORE });
+  return Response.json(await reviewQueue(db(), editorOf(ctx.user)), { headers: NO_STORE });
 });
