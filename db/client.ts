@@ -17,7 +17,7 @@ export function db(): Db {
   return instance;
 }
 
-// A second, small pool for the admin tables' reads (db/queries/admin-money.ts). Their filters are
+// A second, small pool for the admin tables' reads (db/queries/admin-payments.ts, admin-members.ts). Their filters are
 // all optional and their selectivity differs by orders of magnitude (a name matching eight hundred
 // people, a status matching nine payments in ten), so a prepared statement's generic plan — which
 // PostgreSQL adopts after five executions when it looks cheaper (docs: PREPARE, "plan_cache_mode") —

@@ -1,5 +1,6 @@
 // The admin tables' rows as JSON carries them (dates as ISO strings).
-import type { EnrolmentAdminRow, MembershipAdminRow, PaymentRow } from "@/db/queries/admin-money";
+import type { EnrolmentAdminRow, MembershipAdminRow } from "@/db/queries/admin-members";
+import type { PaymentRow } from "@/db/queries/admin-payments";
 
 type Jsonish<T> = { [K in keyof T]: T[K] extends Date ? string : T[K] extends Date | null ? string | null : T[K] };
 

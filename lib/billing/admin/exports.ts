@@ -1,7 +1,8 @@
 // The CSV files behind each admin table's "Export CSV": the same filters and order as the table,
 // every matching row (no paging), money as decimals beside its currency.
 import type { Tx as Db } from "@/db/queries/auth";
-import { enrolmentsBatch, membershipsBatch, paymentsBatch } from "@/db/queries/admin-money";
+import { enrolmentsBatch, membershipsBatch } from "@/db/queries/admin-members";
+import { paymentsBatch } from "@/db/queries/admin-payments";
 import { csvResponse, decimalOf, keysetRows, safeText, stamp, type CsvColumn } from "./csv";
 import type { EnrolmentsQuery, MembershipsQuery, PaymentsQuery } from "./params";
 

@@ -1,4 +1,4 @@
-// SQL pieces the admin money tables share (db/queries/admin-money.ts): name-or-address search,
+// SQL pieces the admin money tables share (db/queries/admin-payments.ts, admin-members.ts): name-or-address search,
 // whole-day ranges, ordering with the id as tie-breaker, and keyset conditions for the CSV batches.
 import { asc, desc, gte, lt, sql, type SQL } from "drizzle-orm";
 import type { AnyPgColumn } from "drizzle-orm/pg-core";

@@ -1,4 +1,4 @@
-import { listEnrolments } from "@/db/queries/admin-money";
+import { listEnrolments } from "@/db/queries/admin-members";
 import { enrolmentsQuery } from "@/lib/billing/admin/params";
 import { pageRoute } from "@/lib/billing/admin/table-routes";
 

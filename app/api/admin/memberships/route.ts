@@ -1,4 +1,4 @@
-import { listMemberships } from "@/db/queries/admin-money";
+import { listMemberships } from "@/db/queries/admin-members";
 import { membershipsQuery } from "@/lib/billing/admin/params";
 import { pageRoute } from "@/lib/billing/admin/table-routes";
 

@@ -1,4 +1,4 @@
-import { listPayments } from "@/db/queries/admin-money";
+import { listPayments } from "@/db/queries/admin-payments";
 import { paymentsQuery } from "@/lib/billing/admin/params";
 import { pageRoute } from "@/lib/billing/admin/table-routes";
 

@@ -1,4 +1,4 @@
-import { countEnrolments } from "@/db/queries/admin-money";
+import { countEnrolments } from "@/db/queries/admin-members";
 import { enrolmentsQuery } from "@/lib/billing/admin/params";
 import { countRoute } from "@/lib/billing/admin/table-routes";
 

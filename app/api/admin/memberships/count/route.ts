@@ -1,4 +1,4 @@
-import { countMemberships } from "@/db/queries/admin-money";
+import { countMemberships } from "@/db/queries/admin-members";
 import { membershipsQuery } from "@/lib/billing/admin/params";
 import { countRoute } from "@/lib/billing/admin/table-routes";
 

@@ -1,4 +1,4 @@
-import { countPayments } from "@/db/queries/admin-money";
+import { countPayments } from "@/db/queries/admin-payments";
 import { paymentsQuery } from "@/lib/billing/admin/params";
 import { countRoute } from "@/lib/billing/admin/table-routes";
 
