@@ -6,6 +6,7 @@ import {
   flexRender,
   getCoreRowModel,
   getFilteredRowModel,
+  getPaginationRowModel,
   getSortedRowModel,
   useReactTable,
   type ColumnFiltersState,
@@ -13,6 +14,7 @@ import {
 } from "@tanstack/react-table";
 import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
 import { TableShell, TBody, Td, Th, THead } from "@/components/ui/table";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
@@ -39,11 +41,15 @@ export function RosterTable() {
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
+    // 25 to a page: an admin's roster is every student of the school.
+    getPaginationRowModel: getPaginationRowModel(),
+    initialState: { pagination: { pageIndex: 0, pageSize: 25 } },
   });
   if (q.isPending) return <p className="text-bark">Loading your students…</p>;
   if (q.isError) return <Alert tone="error">{errorWords(q.error)}</Alert>;
   const total = q.data.students.length;
   const shown = table.getRowModel().rows;
+  const matching = table.getFilteredRowModel().rows.length;
   const name = table.getColumn("name");
   const overdue = table.getColumn("overdueAssignments");
   return (
@@ -68,7 +74,7 @@ export function RosterTable() {
           Only students with overdue assignments
         </label>
       </div>
-      <TableShell caption={`${shown.length} of ${total} student${total === 1 ? "" : "s"}`}>
+      <TableShell caption={`${matching} of ${total} student${total === 1 ? "" : "s"}`}>
         <THead>
           {table.getHeaderGroups().map((g) => (
             <tr key={g.id}>
@@ -103,6 +109,17 @@ export function RosterTable() {
           ) : null}
         </TBody>
       </TableShell>
+      {table.getPageCount() > 1 ? (
+        <nav aria-label="Roster pages" className="flex flex-wrap items-center gap-3 text-small">
+          <Button variant="secondary" size="sm" disabled={!table.getCanPreviousPage()} onClick={() => table.previousPage()}>
+            Previous
+          </Button>
+          <span>{`Page ${table.getState().pagination.pageIndex + 1} of ${table.getPageCount()}`}</span>
+          <Button variant="secondary" size="sm" disabled={!table.getCanNextPage()} onClick={() => table.nextPage()}>
+            Next
+          </Button>
+        </nav>
+      ) : null}
     </div>
   );
 }

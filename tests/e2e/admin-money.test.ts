@@ -150,6 +150,17 @@ describe("admin payments in a real browser", () => {
     await page.goto(`${BASE_URL}/admin/enrolments?sort=course&dir=asc`);
     await page.getByRole("cell", { name: /Alder/ }).first().waitFor();
     expect(await countedTotal(page)).toBeGreaterThan(10);
+    // The roster (an admin's is every student) shows 25 to a page.
+    await page.goto(`${BASE_URL}/teach`);
+    const caption = await page.locator("caption").filter({ hasText: /students?$/ }).first().textContent();
+    const students = Number(caption?.match(/of (\d+) student/)?.[1] ?? NaN);
+    expect(students).toBeGreaterThan(25); // 28 demo students, and any the other browser tests added
+    const pages = Math.ceil(students / 25);
+    await page.getByText(`Page 1 of ${pages}`).waitFor();
+    expect(await page.locator("tbody tr").count()).toBe(25);
+    await page.getByRole("navigation", { name: "Roster pages" }).getByRole("button", { name: "Next" }).click();
+    await page.getByText(`Page 2 of ${pages}`).waitFor();
+    expect(await page.locator("tbody tr").count()).toBe(Math.min(25, students - 25));
     await page.goto(`${BASE_URL}/admin/revenue`);
     await page.getByRole("table", { name: "Revenue by month in GBP" }).waitFor();
     expect(await page.locator("table[aria-label], table").last().locator("tbody tr").count()).toBe(12);
