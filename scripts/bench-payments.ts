@@ -170,7 +170,8 @@ async function main() {
     // The target is the page; its total is a request of its own, asked once per set of filters
     // (components/admin/server-table.tsx), measured here the same way and reported beside it.
     const cases: { label: string; path: string; query: Record<string, string>; target?: true }[] = [
-      { label: "page: paid, monthly, 92 days, name or e-mail contains \"wood\", by amount, page 3", path: "admin/payments", query: { ...filtered, q: "wood", ...ordered }, target: true },
+      { label: "page: paid, monthly, 92 days, name or e-mail contains \"wood\" (800 of 20,000 people), by amount, page 3", path: "admin/payments", query: { ...filtered, q: "wood", ...ordered }, target: true },
+      { label: "page: paid, monthly, 92 days, name contains \"Ivo Penrose\" (200 of 20,000 people), by amount, page 3", path: "admin/payments", query: { ...filtered, q: "Ivo Penrose", ...ordered }, target: true },
       { label: "page: paid, monthly, 92 days, by amount, page 3", path: "admin/payments", query: { ...filtered, ...ordered }, target: true },
       { label: "count: paid, monthly, 92 days, name or e-mail contains \"wood\"", path: "admin/payments/count", query: { ...filtered, q: "wood" } },
       { label: "count: paid, monthly, 92 days", path: "admin/payments/count", query: filtered },

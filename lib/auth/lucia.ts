@@ -4,16 +4,20 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { env } from "@/lib/env";
+import { cachedSession, forgetSession, forgetUser, rememberSession, sessionExtended } from "./session-cache";
 
 type Role = "student" | "teacher" | "admin";
 
 /**
  * lucia's drizzle adapter, except that the lookup made on every request reads only what a request
  * uses — the session and the person's name, address, role and "disabled" — instead of both whole rows
- * (the password hash among them).
+ * (the password hash among them), and keeps each answer for a few seconds (./session-cache.ts, which
+ * says what that costs). Deleting or extending a session here updates the cache too.
  */
 class SessionAdapter extends DrizzlePostgreSQLAdapter {
   override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+    const hit = cachedSession(sessionId);
+    if (hit) return hit;
     const [row] = await db()
       .select({ id: sessions.id, userId: sessions.userId, expiresAt: sessions.expiresAt, name: users.name, email: users.email, role: users.role, disabled: users.disabled })
       .from(sessions)
@@ -21,7 +25,24 @@ class SessionAdapter extends DrizzlePostgreSQLAdapter {
       .where(eq(sessions.id, sessionId));
     if (!row) return [null, null];
     const { id, userId, expiresAt, ...attributes } = row;
-    return [{ id, userId, expiresAt, attributes: {} }, { id: userId, attributes }];
+    const found: [DatabaseSession, DatabaseUser] = [{ id, userId, expiresAt, attributes: {} }, { id: userId, attributes }];
+    rememberSession(found);
+    return found;
+  }
+
+  override async deleteSession(sessionId: string): Promise<void> {
+    await super.deleteSession(sessionId);
+    forgetSession(sessionId);
+  }
+
+  override async deleteUserSessions(userId: string): Promise<void> {
+    await super.deleteUserSessions(userId);
+    forgetUser(userId);
+  }
+
+  override async updateSessionExpiration(sessionId: string, expiresAt: Date): Promise<void> {
+    await super.updateSessionExpiration(sessionId, expiresAt);
+    sessionExtended(sessionId, expiresAt);
   }
 }
 

@@ -120,3 +120,66 @@ describe("rate limits", () => {
     expect(status).toBe(429);
   });
 });
+
+describe("the session cache (lib/auth/session-cache.ts)", () => {
+  let clock = 1_000_000; // not 0: lru-cache reads a start time of 0 as "no time to live"
+  const later = (ms: number) => (clock += ms);
+  let C: typeof import("@/lib/auth/session-cache");
+  beforeAll(async () => {
+    C = await import("@/lib/auth/session-cache");
+  });
+  afterAll(() => C.resetSessionCache());
+
+  it("answers a repeated lookup without the database, and sees another process's change after SESSION_CACHE_MS", async () => {
+    C.resetSessionCache({ now: () => clock });
+    const p = await w.person("teacher");
+    const cookie = await w.cookieFor(p.id);
+    expect((await w.context(cookie)).ctx.user?.role).toBe("teacher");
+    // Another app process deletes the session (this process's adapter is not told).
+    await w.db.delete(sessions).where(eq(sessions.userId, p.id));
+    later(C.SESSION_CACHE_MS - 1);
+    expect((await w.context(cookie)).ctx.user?.id).toBe(p.id);
+    later(2);
+    const { ctx, set } = await w.context(cookie);
+    expect(ctx.user).toBeNull();
+    expect(set[0]?.value).toBe("");
+  });
+
+  it("forgets at once what this process changes: a role change, a password reset's sign-out everywhere", async () => {
+    C.resetSessionCache({ now: () => clock });
+    const admin = await w.person("admin");
+    const p = await w.person("student");
+    const cookie = await w.cookieFor(p.id);
+    const other = await w.cookieFor(p.id);
+    expect((await w.context(cookie)).ctx.user?.role).toBe("student");
+    expect((await w.context(other)).ctx.user?.role).toBe("student");
+
+    const { changeRole } = await import("@/lib/auth/people");
+    const res = await changeRole((await w.context(await w.cookieFor(admin.id))).ctx, { userId: p.id, role: "teacher" });
+    expect(res.status).toBe(200);
+    expect((await w.context(cookie)).ctx.user?.role).toBe("teacher");
+
+    await w.lucia().invalidateUserSessions(p.id);
+    expect((await w.context(cookie)).ctx.user).toBeNull();
+    expect((await w.context(other)).ctx.user).toBeNull();
+  });
+
+  it("keeps a slid expiry with the cached session, and a caller cannot change the cached answer", async () => {
+    C.resetSessionCache({ now: () => clock });
+    const p = await w.person("student");
+    const cookie = await w.cookieFor(p.id);
+    await w.db.update(sessions).set({ expiresAt: new Date(Date.now() + 10 * DAY) }).where(eq(sessions.userId, p.id));
+    expect((await w.context(cookie)).set[0]?.name).toBe("rosinwood_session"); // extended and re-sent
+    const second = await w.context(cookie);
+    expect(second.ctx.user?.id).toBe(p.id);
+    expect(second.set).toHaveLength(0); // the cached copy carries the new expiry: not extended again
+
+    const sessionId = cookie.split("=")[1];
+    const cached = C.cachedSession(sessionId);
+    expect(cached?.[1].attributes.role).toBe("student");
+    const [session, user] = cached!;
+    user.attributes.role = "admin";
+    session.expiresAt = new Date(0);
+    expect((await w.context(cookie)).ctx.user?.role).toBe("student");
+  });
+});
