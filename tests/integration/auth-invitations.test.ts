@@ -95,6 +95,18 @@ describe("an admin invites teachers and changes roles", () => {
     expect((await w.userByEmail("fiddler@new.example"))?.role).toBe("teacher");
   });
 
+  it("a signed-in student who takes a teacher invitation is a teacher on the next request", async () => {
+    const admin = await w.person("admin");
+    const student = await w.person("student", { email: "promoted@people.example" });
+    const cookie = await w.cookieFor(student.id);
+    const before = (await w.context(cookie)).ctx; // the session is now looked up (and kept a few seconds)
+    expect(before.user?.role).toBe("student");
+    expect((await A.inviteTeacherAction(await as(admin), { email: student.email })).status).toBe(200);
+    const token = await w.tokenMailed(student.email, "invitation");
+    expect(await A.acceptInvitationAction(before, { token })).toMatchObject({ status: 200, redirectTo: "/teach" });
+    expect((await w.context(cookie)).ctx.user?.role).toBe("teacher");
+  });
+
   it("changes another person's role, but never the admin's own", async () => {
     const admin = await w.person("admin");
     const student = await w.person("student");
