@@ -1,7 +1,10 @@
 "use client";
-// The teacher's assignments (issue 6 item 1): due dates, each student's progress, edit and withdraw.
-import { useQuery } from "@tanstack/react-query";
+// The teacher's assignments (issue 6 item 1): due dates, each student's progress, edit and withdraw,
+// a page of them at a time (the server pages: an admin sees every teacher's).
+import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
+import { Button } from "@/components/ui/button";
 import { Card } from "@/components/ui/card";
 import { LinkButton } from "@/components/ui/link-button";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
@@ -9,14 +12,24 @@ import type { AssignmentView } from "@/lib/teaching/teach-api-types";
 import { AssignmentCard } from "./assignment-card";
 import { ASSIGNMENTS_KEY } from "./query-keys";
 
+type Page = { assignments: AssignmentView[]; total: number; page: number; pageSize: number };
+
 export function AssignmentList() {
+  const [page, setPage] = useState(1);
   const q = useQuery({
-    queryKey: ASSIGNMENTS_KEY,
-    queryFn: () => fetchJson<{ assignments: AssignmentView[] }>("/api/teach/assignments"),
+    queryKey: [...ASSIGNMENTS_KEY, page],
+    queryFn: () => fetchJson<Page>(`/api/teach/assignments?page=${page}`),
+    placeholderData: keepPreviousData,
   });
   if (q.isPending) return <p className="text-bark">Loading your assignments…</p>;
   if (q.isError) return <Alert tone="error">{errorWords(q.error)}</Alert>;
-  const list = q.data.assignments;
+  const { assignments: list, total, pageSize } = q.data;
+  const pages = Math.max(1, Math.ceil(total / pageSize));
+  // A withdrawal elsewhere can leave this page past the end: show the last one.
+  if (!list.length && page > pages) {
+    setPage(pages);
+    return null;
+  }
   if (!list.length) {
     return (
       <Card tone="warm" className="max-w-prose">
@@ -26,10 +39,23 @@ export function AssignmentList() {
     );
   }
   return (
-    <ul className="flex flex-col gap-4" aria-label="Assignments">
-      {list.map((a) => (
-        <AssignmentCard key={a.id} a={a} />
-      ))}
-    </ul>
+    <div className="flex flex-col gap-4">
+      <ul className="flex flex-col gap-4" aria-label="Assignments" aria-busy={q.isPlaceholderData}>
+        {list.map((a) => (
+          <AssignmentCard key={a.id} a={a} />
+        ))}
+      </ul>
+      {pages > 1 ? (
+        <nav aria-label="Assignment pages" className="flex flex-wrap items-center gap-3 text-small">
+          <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => setPage(page - 1)}>
+            Previous
+          </Button>
+          <span>{`Page ${page} of ${pages} · ${total.toLocaleString("en-GB")} assignments`}</span>
+          <Button variant="secondary" size="sm" disabled={page >= pages || q.isPlaceholderData} onClick={() => setPage(page + 1)}>
+            Next
+          </Button>
+        </nav>
+      ) : null}
+    </div>
   );
 }

@@ -104,9 +104,22 @@ export async function deleteStageStates(db: Tx, assignmentId: string): Promise<v
   await db.delete(stageStates).where(inArray(stageStates.assignmentStudentId, ids));
 }
 
-/** A teacher's assignments (every one for an admin: teacherId null), newest due first, with each student's progress. */
-export async function listAssignments(db: Tx, teacherId: string | null, onlyId?: string) {
-  const where = and(teacherId === null ? undefined : eq(assignments.teacherId, teacherId), onlyId ? eq(assignments.id, onlyId) : undefined);
+function assignmentsOf(teacherId: string | null, onlyId?: string) {
+  return and(teacherId === null ? undefined : eq(assignments.teacherId, teacherId), onlyId ? eq(assignments.id, onlyId) : undefined);
+}
+
+/** How many assignments a teacher has (every teacher's for an admin: teacherId null). */
+export async function countAssignments(db: Tx, teacherId: string | null): Promise<number> {
+  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(assignments).where(assignmentsOf(teacherId));
+  return n;
+}
+
+/**
+ * A teacher's assignments (every one for an admin: teacherId null), open ones first, newest due
+ * first, with each student's progress: one page of them (`page` from 1), or the one `onlyId`.
+ */
+export async function listAssignments(db: Tx, teacherId: string | null, opts: { onlyId?: string; page?: number; pageSize?: number } = {}) {
+  const { onlyId, page = 1, pageSize = 1000 } = opts;
   const heads = await db
     .select({
       a: assignments,
@@ -118,8 +131,10 @@ export async function listAssignments(db: Tx, teacherId: string | null, onlyId?:
     .from(assignments)
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, assignments.teacherId))
-    .where(where)
-    .orderBy(asc(assignments.status), desc(assignments.dueAt));
+    .where(assignmentsOf(teacherId, onlyId))
+    .orderBy(asc(assignments.status), desc(assignments.dueAt), desc(assignments.id))
+    .limit(pageSize)
+    .offset((page - 1) * pageSize);
   if (!heads.length) return [];
   const progress = await db
     .select({

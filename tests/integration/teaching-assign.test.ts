@@ -252,6 +252,34 @@ describe("editing and withdrawing", () => {
     expect(await w.states(made.assignmentStudentIds[0])).toEqual(["checked_in", "locked"]);
   });
 
+  it("pages the list: 20 to a page, open before withdrawn, the latest due first, and the total", async () => {
+    const teacher = await w.person("teacher");
+    const student = await w.person("student");
+    const { addToRoster } = await import("@/db/queries/auth");
+    await addToRoster(w.db, teacher.id, student.id);
+    const tune = await w.tuneOf(teacher.id);
+    const mine = await w.cookieFor(teacher.id);
+    const made: string[] = [];
+    for (let i = 1; i <= 23; i++) {
+      const res = await w.call(LIST, "POST", { cookie: mine, body: { tuneId: tune, studentIds: [student.id], dueLocal: dueIn(i) } });
+      expect(res.status).toBe(201);
+      made.push(((await res.json()) as { id: string }).id);
+    }
+    // The one due last is withdrawn: it goes to the end, after every open one.
+    expect((await w.call(ONE, "DELETE", { cookie: mine, params: { id: made[22] } })).status).toBe(200);
+    type Page = { assignments: AssignmentView[]; total: number; page: number; pageSize: number };
+    const first = (await (await w.call(LIST, "GET", { cookie: mine })).json()) as Page;
+    expect(first).toMatchObject({ total: 23, page: 1, pageSize: 20 });
+    expect(first.assignments.map((a) => a.id)).toEqual(made.slice(2, 22).reverse());
+    const second = (await (await w.call(LIST, "GET", { cookie: mine, query: "?page=2" })).json()) as Page;
+    expect(second.assignments.map((a) => a.id)).toEqual([made[1], made[0], made[22]]);
+    const past = (await (await w.call(LIST, "GET", { cookie: mine, query: "?page=3" })).json()) as Page;
+    expect(past).toMatchObject({ assignments: [], total: 23 });
+    const bad = await w.call(LIST, "GET", { cookie: mine, query: "?page=0" });
+    expect(bad.status).toBe(400);
+    expect(((await bad.json()) as Refusal).fieldErrors?.page).toBe("Pages start at 1.");
+  });
+
   it("lists only the teacher's own; another teacher gets 404 on one of them", async () => {
     const made = await create();
     const list = (await (await w.call(LIST, "GET", { cookie })).json()) as {

@@ -12,7 +12,7 @@ export const dynamic = "force-dynamic";
 
 async function view(me: ReturnType<typeof editorOf>, id: string) {
   const a = await managedAssignment(db(), me, id);
-  const [row] = await listAssignments(db(), null, a.id);
+  const [row] = await listAssignments(db(), null, { onlyId: a.id });
   if (!row) throw notFound("We couldn't find that assignment among yours.");
   return assignmentView(row, new Date());
 }
