@@ -1,6 +1,6 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import type { Browser, Locator, Page } from "playwright-core";
-import { BASE_URL, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, launch, screenshot } from "./helpers/browser";
 import { DEMO_PASSWORD, STUDENTS } from "@/db/seed-data/people";
 
 // Issue 5's student journey in Debian's Chromium, on the demo seed: the first demo student opens a
@@ -10,15 +10,29 @@ let browser: Browser;
 let page: Page;
 const requests: string[] = [];
 const errors: string[] = [];
+const pending = new Map<unknown, string>();
 
 beforeAll(async () => {
   browser = await launch();
   page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
   page.on("request", (r) => requests.push(r.url()));
   page.on("pageerror", (e) => errors.push(`${page.url()}: ${e.message}`)); // the address says which page failed
+  page.on("request", (r) => pending.set(r, `${Date.now()} ${r.method()} ${r.url().slice(0, 160)} ${r.headers()["next-router-prefetch"] ? "prefetch" : ""}`));
+  page.on("requestfinished", (r) => pending.delete(r));
+  page.on("requestfailed", (r) => pending.delete(r));
 });
 afterAll(async () => {
   await browser?.close();
+});
+// When a step fails, keep where the page was, what it showed, the requests still unanswered and a
+// screenshot, so the failure says why (this is how the stalled link clicks, see follow(), were read).
+beforeEach(({ task, onTestFailed }) => {
+  onTestFailed(async () => {
+    const shown = await page.locator("body").innerText().catch((e: Error) => `(no text: ${e.message})`);
+    console.error(`unfinished requests at ${Date.now()}: ${JSON.stringify([...pending.values()])}`);
+    console.error(`"${task.name}" failed at ${page.url()}; page errors: ${JSON.stringify(errors)}; the page showed: ${shown.slice(0, 600)}`);
+    await screenshot(page, `student-tune-failed-${task.name.slice(0, 30).replace(/\W+/g, "-")}`).catch(() => undefined);
+  });
 });
 
 const player = (): Locator => page.locator("section[data-player-status]");
@@ -39,7 +53,7 @@ describe("a student's ladder and tune page in a real browser", () => {
     await page.getByRole("button", { name: "Sign in" }).click();
     await page.waitForURL(`${BASE_URL}/learn`);
     await page.goto(`${BASE_URL}/learn/courses`);
-    await page.getByRole("link", { name: "Open the ladder of First Steps on the Fiddle" }).click();
+    await follow(page, page.getByRole("link", { name: "Open the ladder of First Steps on the Fiddle" }), /\/learn\/courses\/[0-9a-f-]{36}$/);
     await page.getByRole("heading", { level: 1, name: "First Steps on the Fiddle" }).waitFor();
   });
 
@@ -53,7 +67,7 @@ describe("a student's ladder and tune page in a real browser", () => {
   });
 
   it("opens the first rung: its stages, locked ones closed with why, and the music with its phrases", async () => {
-    await page.getByRole("link", { name: "Practise Little Biscuit Polka" }).click();
+    await follow(page, page.getByRole("link", { name: "Practise Little Biscuit Polka" }), /\/learn\/tunes\/[0-9a-f-]{36}/);
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     expect(await page.getByRole("radio", { name: /2\. Bowing/ }).isChecked()).toBe(true); // the furthest open stage
     const locked = page.getByRole("radio", { name: /3\. Ornaments/ });
@@ -120,12 +134,7 @@ describe("a student's ladder and tune page in a real browser", () => {
 
   it("opens the print view of an open stage: music only on paper", async () => {
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
-    await page.getByRole("link", { name: /^Print view of stage 2/ }).click();
-    // Seen once in a full run: the address did not change within 30 s. Keep the page's state for the next look.
-    await page.waitForURL(/\/print\?stage=2$/).catch(async (e: unknown) => {
-      await screenshot(page, "student-print-stuck");
-      throw new Error(`still at ${page.url()} after clicking the print link; page errors: ${JSON.stringify(errors)}`, { cause: e });
-    });
+    await follow(page, page.getByRole("link", { name: /^Print view of stage 2/ }), /\/print\?stage=2$/);
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     expect(await page.getByText("Stage: 2. Bowing").isVisible()).toBe(true);
     await page.emulateMedia({ media: "print" });
@@ -156,7 +165,7 @@ describe("a student's ladder and tune page in a real browser", () => {
     expect(await visitor.getByText("Evening at Thornsby Weir").isVisible()).toBe(true); // tune titles of locked rungs are listed
     expect(await abcjsLoaded()).toBe(false);
     await screenshot(visitor, "catalogue");
-    await visitor.getByRole("link", { name: /Little Biscuit Polka/ }).click();
+    await follow(visitor, visitor.getByRole("link", { name: /Little Biscuit Polka/ }), /\/catalogue\/tunes\/[0-9a-f-]{36}/);
     await visitor.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     expect(await visitor.getByRole("radio", { name: /1\. Skeleton/ }).isChecked()).toBe(true);
     expect(await visitor.getByRole("radio", { name: /2\. Bowing/ }).isDisabled()).toBe(true);
