@@ -217,4 +217,28 @@ describe("assignments, check-in and sign-off in the browser", () => {
     }
     expect(errors).toEqual([]);
   });
+
+  it("the teacher's list shows 20 assignments a page, with the others on the next", async () => {
+    // Enough assignments for two pages, made through the same route the assign form uses.
+    const made = await teacher.evaluate(async () => {
+      type List = { assignments: { tune: { id: string }; students: { studentId: string }[] }[]; total: number };
+      const list = (await (await fetch("/api/teach/assignments")).json()) as List;
+      const first = list.assignments[0];
+      for (let i = 0; i < 21; i++) {
+        const due = new Date(Date.now() + (30 + i) * 86_400_000).toISOString().slice(0, 10);
+        const body = { tuneId: first.tune.id, studentIds: [first.students[0].studentId], dueLocal: `${due}T18:00` };
+        const res = await fetch("/api/teach/assignments", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+        if (res.status !== 201) throw new Error(`POST answered ${res.status}: ${await res.text()}`);
+      }
+      return list.total + 21;
+    });
+    await open(teacher, "/teach/assignments", "nav[aria-label='Assignment pages'] button");
+    const pages = Math.ceil(made / 20);
+    await teacher.getByText(`Page 1 of ${pages} · ${made} assignments`).waitFor();
+    expect(await teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count()).toBe(20);
+    await teacher.getByRole("button", { name: "Next" }).click();
+    await teacher.getByText(`Page 2 of ${pages} · ${made} assignments`).waitFor();
+    await expect.poll(() => teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count()).toBe(pages === 2 ? made - 20 : 20);
+    await screenshot(teacher, "assignments-10-list-page-2");
+  });
 });
