@@ -32,7 +32,7 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 /**
  * Clicks a link and waits until the address matches. Next.js 15.5's client router now and then
  * fetches the next page (its answer arrives whole, 200; no request left pending; no page error) and
- * still leaves the old page on screen: seen in student-tune about one isolated run in three on the
+ * still leaves the old page on screen: seen in student-tune in four of seven isolated runs on the
  * two-CPU test machine, with the session cache on and off, cause not found (the answer's payload was
  * checked and is the right page). A person would click again, and so does this — up to twice more,
  * saying so on stderr — so the steps after it test the page they are about.
