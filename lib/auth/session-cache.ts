@@ -16,11 +16,17 @@ export const SESSION_CACHE_MS = 5_000;
 
 type Entry = [DatabaseSession, DatabaseUser];
 
-let cache = make();
-
 function make(perf?: { now(): number }) {
   return new LRUCache<string, Entry>({ max: 10_000, ttl: SESSION_CACHE_MS, ...(perf ? { perf, ttlResolution: 0 } : {}) });
 }
+
+// One cache for the whole process. `next build` copies this module into several server bundles
+// (route handlers, pages and server actions each get one: `.next/server/chunks` held ten copies),
+// and a module-level variable would give each its own cache — a role change made by a server action
+// would then not be forgotten by the pages' copy. A key on globalThis is shared by every copy.
+const KEY = Symbol.for("rosinwood.session-cache");
+const shared = globalThis as typeof globalThis & { [KEY]?: LRUCache<string, Entry> };
+const store = () => (shared[KEY] ??= make());
 
 /** A copy, so that a caller changing what it was given cannot change the cached answer. */
 function copy([session, user]: Entry): Entry {
@@ -28,30 +34,31 @@ function copy([session, user]: Entry): Entry {
 }
 
 export function cachedSession(sessionId: string): Entry | undefined {
-  const hit = cache.get(sessionId);
+  const hit = store().get(sessionId);
   return hit && copy(hit);
 }
 
 export function rememberSession(entry: Entry): void {
-  cache.set(entry[0].id, copy(entry));
+  store().set(entry[0].id, copy(entry));
 }
 
-/** A session whose expiry moved: the cached copy follows (or goes, when not cached). */
+/** A session whose expiry moved: a cached copy follows (keeping its age). */
 export function sessionExtended(sessionId: string, expiresAt: Date): void {
-  const hit = cache.get(sessionId);
-  if (hit) cache.set(sessionId, [{ ...hit[0], expiresAt }, hit[1]], { noUpdateTTL: true });
+  const hit = store().get(sessionId);
+  if (hit) store().set(sessionId, [{ ...hit[0], expiresAt }, hit[1]], { noUpdateTTL: true });
 }
 
 export function forgetSession(sessionId: string): void {
-  cache.delete(sessionId);
+  store().delete(sessionId);
 }
 
 /** Every cached session of one person (after their sessions were deleted, or their role changed). */
 export function forgetUser(userId: string): void {
+  const cache = store();
   for (const [id, [session]] of cache.entries()) if (session.userId === userId) cache.delete(id);
 }
 
 /** Tests: start empty, optionally on a clock of their own. */
 export function resetSessionCache(perf?: { now(): number }): void {
-  cache = make(perf);
+  shared[KEY] = make(perf);
 }

@@ -154,4 +154,26 @@ describe("accounts in a real browser", () => {
     await screenshot(admin, "accounts-admin-people");
     await admin.context().close();
   });
+
+  it("a role the admin changes holds on the person's very next page, though their session was just looked up", async () => {
+    const person = await (await browser.newContext()).newPage();
+    await person.goto(`${BASE_URL}/sign-in`);
+    await signIn(person, newcomer.email, "hazel-new-bow-hair"); // the password the reset test set
+    await person.waitForURL(`${BASE_URL}/learn`);
+
+    const admin = await (await browser.newContext()).newPage();
+    await admin.goto(`${BASE_URL}/admin/people?q=${encodeURIComponent(newcomer.email)}`);
+    await signIn(admin, "admin@larchmoor.example", DEMO_PASSWORD);
+    await admin.waitForURL(/\/admin\/people/);
+    await person.reload(); // the person's session, looked up again moments before the change
+    await admin.getByLabel(`Role of ${newcomer.name}`).selectOption("teacher");
+    await admin.getByRole("button", { name: "Save" }).click();
+    await admin.getByText(`${newcomer.name} is now a teacher.`).waitFor();
+
+    // A server action made the change; the person's pages are rendered by other server code of the
+    // same process, which must not answer from the session as it was (lib/auth/session-cache.ts).
+    await person.goto(`${BASE_URL}/teach`);
+    expect(await person.getByRole("heading", { level: 1 }).first().textContent()).toBe("Your students");
+    await Promise.all([person.context().close(), admin.context().close()]);
+  });
 });
