@@ -118,8 +118,9 @@ export async function countAssignments(db: Tx, teacherId: string | null): Promis
  * A teacher's assignments (every one for an admin: teacherId null), open ones first, newest due
  * first, with each student's progress: one page of them (`page` from 1), or the one `onlyId`.
  */
-export async function listAssignments(db: Tx, teacherId: string | null, opts: { onlyId?: string; page?: number; pageSize?: number } = {}) {
-  const { onlyId, page = 1, pageSize = 1000 } = opts;
+export async function listAssignments(db: Tx, teacherId: string | null, which: { onlyId: string } | { page: number; pageSize: number }) {
+  const onlyId = "onlyId" in which ? which.onlyId : undefined;
+  const [limit, offset] = "onlyId" in which ? [1, 0] : [which.pageSize, (which.page - 1) * which.pageSize];
   const heads = await db
     .select({
       a: assignments,
@@ -133,8 +134,8 @@ export async function listAssignments(db: Tx, teacherId: string | null, opts: { 
     .innerJoin(users, eq(users.id, assignments.teacherId))
     .where(assignmentsOf(teacherId, onlyId))
     .orderBy(asc(assignments.status), desc(assignments.dueAt), desc(assignments.id))
-    .limit(pageSize)
-    .offset((page - 1) * pageSize);
+    .limit(limit)
+    .offset(offset);
   if (!heads.length) return [];
   const progress = await db
     .select({
