@@ -4,15 +4,17 @@
 // JSON) by 20 callers at once, in this process; the database is on loopback. Prints p50/p95/p99 in ms
 // for three filtered pages (without a name search, with one matching 200 people, with one matching
 // 800) and for two totals (./count), in rounds (BENCH_ROUNDS, BENCH_REQUESTS per case each round);
-// BENCH_HTTP=1 also asks them over HTTP of `next start` (after a build), beside /api/health.
+// BENCH_HTTP=1 also asks them over HTTP of `next start` (after a build), beside /api/health, with wrk
+// (Debian's package, installed if missing) as the load generator, BENCH_SECONDS per case each round.
 // Target: the page's p95 < 100 ms.
 //   npm run -s bench:payments          (TEST_PG_ADMIN_URL or DATABASE_URL names the cluster)
-import { spawn } from "node:child_process";
+import { spawn, spawnSync } from "node:child_process";
 import { randomBytes } from "node:crypto";
-import { existsSync } from "node:fs";
+import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { Agent, request } from "node:http";
 import { createServer } from "node:net";
-import { cpus, loadavg } from "node:os";
+import { cpus, loadavg, tmpdir } from "node:os";
+import { join } from "node:path";
 import { performance } from "node:perf_hooks";
 import postgres from "postgres";
 
@@ -22,6 +24,7 @@ const CONCURRENCY = 20;
 const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 1000);
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 3);
 const WARMUP = 40;
+const SECONDS = Number(process.env.BENCH_SECONDS ?? 8); // each wrk run over HTTP
 
 const base = process.env.TEST_PG_ADMIN_URL ?? process.env.DATABASE_URL;
 if (!base) throw new Error("set TEST_PG_ADMIN_URL (or DATABASE_URL) to a PostgreSQL cluster the benchmark may create a database on");
@@ -122,8 +125,49 @@ async function measure(list: Measured[]) {
   }
 }
 
+// wrk's Lua hook: after a run, its totals and every latency it recorded (microseconds, with counts).
+const WRK_REPORT = `done = function(summary, latency, requests)
+  io.write(string.format("requests %d\\nseconds %f\\nbad %d\\n", summary.requests, summary.duration / 1e6,
+    summary.errors.status + summary.errors.connect + summary.errors.read + summary.errors.write + summary.errors.timeout))
+  for i = 1, #latency do local v, c = latency(i); if c > 0 then io.write(string.format("%d %d\\n", v, c)) end end
+end
+`;
+
+/** wrk (C, Debian's package `wrk`), installed the way npm test installs PostgreSQL when it is missing. */
+function ensureWrk() {
+  if (spawnSync("wrk", ["--version"]).error === undefined) return;
+  const r = spawnSync("bash", ["-c", "source scripts/lib.sh && apt_install wrk"], { stdio: "inherit" });
+  if (r.status !== 0) throw new Error("BENCH_HTTP=1 needs wrk (Debian's package wrk), and installing it failed");
+}
+
+/** One wrk run: CONCURRENCY connections for `seconds`; every latency in ms and the run's length. */
+function wrk(url: string, headers: Record<string, string>, seconds: number, script: string): { times: number[]; seconds: number } {
+  const args = ["-t1", `-c${CONCURRENCY}`, `-d${seconds}s`, "--timeout", "10s", "-s", script];
+  for (const [k, v] of Object.entries(headers)) args.push("-H", `${k}: ${v}`);
+  const r = spawnSync("wrk", [...args, url], { encoding: "utf8", maxBuffer: 64 << 20 });
+  if (r.status !== 0) throw new Error(`wrk failed: ${r.stderr}`);
+  const report = r.stdout.slice(r.stdout.indexOf("requests "));
+  const field = (name: string) => Number(new RegExp(`^${name} (\\S+)$`, "m").exec(report)?.[1]);
+  if (field("bad") > 0) throw new Error(`wrk: ${field("bad")} of ${field("requests")} requests to ${url} failed or did not answer 2xx`);
+  const times: number[] = [];
+  for (const line of report.split("\n")) {
+    const m = /^(\d+) (\d+)$/.exec(line);
+    if (m) for (let i = 0; i < Number(m[2]); i++) times.push(Number(m[1]) / 1000);
+  }
+  return { times: times.sort((a, b) => a - b), seconds: field("seconds") };
+}
+
+/**
+ * Over HTTP: `next start` from the last build, asked by wrk, a load generator in C. The benchmark's
+ * own node:http client cost ~0.8 ms of CPU a request (measured in the fourth session, /proc CPU
+ * ticks), a fifth of this two-CPU machine taken from the server it measures; wrk's cost is a small
+ * fraction of that. Each case one at a time first (node:http, also the warm-up and the check of
+ * every answer), then ROUNDS interleaved rounds of BENCH_SECONDS per case with CONCURRENCY
+ * connections each keeping one request in flight.
+ */
 async function overHttp(cases: Case[], cookie: string) {
   if (!existsSync(".next/BUILD_ID")) throw new Error("BENCH_HTTP=1 needs a production build: run `npx next build` (npm start and npm test make one)");
+  ensureWrk();
   const port = await new Promise<number>((resolve) => {
     const s = createServer().listen(0, "127.0.0.1", () => {
       const { port: p } = s.address() as { port: number };
@@ -136,13 +180,15 @@ async function overHttp(cases: Case[], cookie: string) {
     stdio: "ignore",
     detached: true,
   });
+  const dir = mkdtempSync(join(tmpdir(), "bench-wrk-"));
   try {
+    const script = join(dir, "report.lua");
+    writeFileSync(script, WRK_REPORT);
     for (let i = 0; ; i++) {
       if ((await fetch(`${base}/api/health`).then((r) => r.status, () => 0)) === 200) break;
       if (i > 150) throw new Error("next start did not answer /api/health");
       await new Promise((r) => setTimeout(r, 200));
     }
-    // node:http with keep-alive connections: a lighter client than fetch, so less of the machine goes to it.
     const agent = new Agent({ keepAlive: true, maxSockets: CONCURRENCY });
     const get = (path: string, headers: Record<string, string>) =>
       new Promise<Answer>((resolve, reject) => {
@@ -154,17 +200,42 @@ async function overHttp(cases: Case[], cookie: string) {
           .on("error", reject)
           .end();
       });
-    const all: { case: Case; path: string; headers: Record<string, string> }[] = [
-      { case: { label: "GET /api/health (one trivial query): HTTP through Next.js on this machine", path: "health", query: {} }, path: "/api/health", headers: {} },
-      ...cases.map((c) => ({ case: c, path: `/api/${c.path}?${new URLSearchParams(c.query)}`, headers: { cookie } })),
+    const all: { c: Case; path: string; headers: Record<string, string> }[] = [
+      { c: { label: "GET /api/health (one trivial query): HTTP through Next.js on this machine", path: "health", query: {} }, path: "/api/health", headers: {} },
+      ...cases.map((c) => ({ c, path: `/api/${c.path}?${new URLSearchParams(c.query)}`, headers: { cookie } })),
     ];
     // The server's code is compiled as it runs: warm every route at full concurrency before measuring.
     for (const a of all) await Promise.all(Array.from({ length: CONCURRENCY }, async () => { for (let i = 0; i < 20; i++) await get(a.path, a.headers); }));
-    console.log(`\n== over HTTP on loopback: next start (one process) and this process as the client, on the same ${cpus().length} CPUs`);
-    await measure(all.map((a) => ({ c: a.case, call: () => get(a.path, a.headers) })));
+    console.log(`\n== over HTTP on loopback: next start (one process), asked by wrk (${CONCURRENCY} connections), on the same ${cpus().length} CPUs`);
+    const alone = new Map<Case, { xs: number[]; answer: string }>();
+    for (const a of all) {
+      const xs: number[] = [];
+      let answer = "";
+      for (let i = 0; i < WARMUP; i++) {
+        const t = performance.now();
+        const { status, body } = await get(a.path, a.headers);
+        xs.push(performance.now() - t);
+        if (status !== 200 || (body.rows && body.rows.length === 0)) throw new Error(`unexpected answer ${status}: ${JSON.stringify(body).slice(0, 200)}`);
+        answer = body.rows ? `${body.rows.length} rows, more: ${body.hasMore}` : body.total !== undefined ? `total ${body.total}` : "ok";
+      }
+      alone.set(a.c, { xs: xs.sort((x, y) => x - y), answer });
+    }
     agent.destroy();
+    const rounds = new Map<Case, { times: number[]; seconds: number }[]>(all.map((a) => [a.c, []]));
+    for (let r = 0; r < ROUNDS; r++) for (const a of all) rounds.get(a.c)!.push(wrk(`${base}${a.path}`, a.headers, SECONDS, script));
+    for (const { c } of all) {
+      const mine = rounds.get(c)!;
+      const times = mine.flatMap((r) => r.times).sort((x, y) => x - y);
+      const rate = times.length / mine.reduce((t, r) => t + r.seconds, 0);
+      const { xs, answer } = alone.get(c)!;
+      console.log(`\n${c.label} → ${answer}`);
+      console.log(`  one at a time (${WARMUP}): p50 ${pct(xs, 50).toFixed(1)} ms  p95 ${pct(xs, 95).toFixed(1)} ms`);
+      console.log(`  ${ROUNDS} rounds of ${SECONDS} s, ${CONCURRENCY} at once: p95 by round ${mine.map((r) => pct(r.times, 95).toFixed(1)).join(" / ")} ms`);
+      console.log(`  all ${times.length}, ${rate.toFixed(0)} req/s: p50 ${pct(times, 50).toFixed(1)} ms  p95 ${pct(times, 95).toFixed(1)} ms  p99 ${pct(times, 99).toFixed(1)} ms${c.target ? "  (target p95 < 100 ms)" : ""}`);
+    }
   } finally {
     if (server.pid) process.kill(-server.pid, "SIGTERM");
+    rmSync(dir, { recursive: true, force: true });
   }
 }
 
