@@ -2,7 +2,7 @@
 // invented people in a database of its own, then filtered, sorted pages asked of the real route
 // handler (app/api/admin/payments/route.ts, with an admin's session: guard, validation, query and
 // JSON) by 20 callers at once, in this process; the database is on loopback. Prints p50/p95/p99 in ms
-// for three filtered pages (without a name search, with one matching 200 people, with one matching
+// for four filtered pages (without a name search, and with one matching one person, 200 people and
 // 800) and for two totals (./count), in rounds (BENCH_ROUNDS, BENCH_REQUESTS per case each round);
 // BENCH_HTTP=1 also asks them over HTTP of `next start` (after a build), beside /api/health, with wrk
 // (Debian's package, installed if missing) as the load generator, BENCH_SECONDS per case each round.
@@ -252,13 +252,19 @@ async function main() {
     process.env.DATABASE_URL = url;
     process.env.APP_URL ??= "http://127.0.0.1:3000";
     const [me] = await sql`insert into users (email, name, role) values ('bench-admin@bench.example', 'Bench Admin', 'admin') returning id`;
+    const to = new Date();
+    const from = new Date(to.getTime() - 92 * 86_400_000);
+    // One person, as an admin looks up a member: the one with the most paid monthly payments in the range,
+    // among those numbered 10,000 and up (a five-digit number in the name, so no other name contains it).
+    const [one] = await sql`
+      select u.name from payments p join users u on u.id = p.user_id
+      where p.status = 'paid' and p.plan_id = ${monthly} and p.created_at >= ${from} and u.email ~ '^member1[0-9]{4}@'
+      group by u.name order by count(*) desc, u.name limit 1`;
     await sql.end();
     const { lucia } = await import("@/lib/auth/lucia");
     const session = await lucia().createSession(me.id as string, {});
     const cookie = `${lucia().sessionCookieName}=${session.id}`;
 
-    const to = new Date();
-    const from = new Date(to.getTime() - 92 * 86_400_000);
     const filtered = { status: "paid", plan: monthly, from: from.toISOString().slice(0, 10), to: to.toISOString().slice(0, 10) };
     const ordered = { sort: "amount", dir: "desc", page: "3", pageSize: "25" };
     // The target is the page; its total is a request of its own, asked once per set of filters
@@ -266,6 +272,7 @@ async function main() {
     const cases: { label: string; path: string; query: Record<string, string>; target?: true }[] = [
       { label: "page: paid, monthly, 92 days, name or e-mail contains \"wood\" (800 of 20,000 people), by amount, page 3", path: "admin/payments", query: { ...filtered, q: "wood", ...ordered }, target: true },
       { label: "page: paid, monthly, 92 days, name contains \"Ivo Penrose\" (200 of 20,000 people), by amount, page 3", path: "admin/payments", query: { ...filtered, q: "Ivo Penrose", ...ordered }, target: true },
+      { label: `page: paid, monthly, 92 days, name contains "${one.name}" (one person), by amount, page 1`, path: "admin/payments", query: { ...filtered, q: one.name as string, ...ordered, page: "1" }, target: true },
       { label: "page: paid, monthly, 92 days, by amount, page 3", path: "admin/payments", query: { ...filtered, ...ordered }, target: true },
       { label: "count: paid, monthly, 92 days, name or e-mail contains \"wood\"", path: "admin/payments/count", query: { ...filtered, q: "wood" } },
       { label: "count: paid, monthly, 92 days", path: "admin/payments/count", query: filtered },
