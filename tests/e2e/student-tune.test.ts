@@ -152,7 +152,7 @@ describe("a student's ladder and tune page in a real browser", () => {
   it("lets a visitor browse the catalogue and play a taster's core melody, the rest closed with why", async () => {
     const visitor = await browser.newPage({ viewport: { width: 1280, height: 1000 } }); // a fresh context: no session
     visitor.on("request", (r) => requests.push(r.url()));
-    visitor.on("pageerror", (e) => errors.push(e.message));
+    visitor.on("pageerror", (e) => errors.push(`visitor at ${visitor.url()}: ${e.message}`)); // whose page, and which
     // Which scripts each page loads: abcjs (its "abcjs-" class names) only where music is drawn.
     const scripts: Promise<string>[] = [];
     visitor.on("response", (r) => void (r.url().endsWith(".js") && scripts.push(r.text())));
