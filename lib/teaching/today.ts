@@ -38,10 +38,15 @@ export type TodayData = {
 /** Active assignments, soonest due first; `open` leaves out those whose stages are all signed off. */
 export async function assignmentList(db: Db, person: Person, zone: string, now: Date, o: { open: boolean }): Promise<TodayAssignment[]> {
   const rows = await assignmentsOfStudent(db, person.id);
-  const states = await stageStatesOf(db, rows.map((r) => r.assignmentStudentId));
+  const statesOf = new Map<string, Awaited<ReturnType<typeof stageStatesOf>>>();
+  for (const s of await stageStatesOf(db, rows.map((r) => r.assignmentStudentId))) {
+    const list = statesOf.get(s.assignmentStudentId);
+    if (list) list.push(s);
+    else statesOf.set(s.assignmentStudentId, [s]);
+  }
   const out: TodayAssignment[] = [];
   for (const r of rows) {
-    const mine = states.filter((s) => s.assignmentStudentId === r.assignmentStudentId);
+    const mine = statesOf.get(r.assignmentStudentId) ?? [];
     const signedOff = mine.filter((s) => s.state === "signed_off").length;
     const done = mine.length > 0 && signedOff === mine.length;
     if (done && o.open) continue;
@@ -59,6 +64,25 @@ export async function assignmentList(db: Db, person: Person, zone: string, now: 
     });
   }
   return out;
+}
+
+export const ASSIGNMENTS_PAGE_SIZE = 20;
+
+export type AssignmentPage = { items: TodayAssignment[]; total: number; page: number; pages: number; pageSize: number };
+
+/**
+ * The Assignments page, a page at a time: the ones still to do first, soonest due first, then the
+ * finished ones, latest due first — so a year of finished tunes never pushes this week's work down.
+ * A page past the last shows the last. Read whole and paged here, not in SQL: "finished" comes from
+ * each assignment's stage states, and one student's active assignments number in the dozens.
+ */
+export async function assignmentPage(db: Db, person: Person, zone: string, now: Date, page: number, pageSize = ASSIGNMENTS_PAGE_SIZE): Promise<AssignmentPage> {
+  const all = await assignmentList(db, person, zone, now, { open: false });
+  const finished = (a: TodayAssignment) => a.stageCount > 0 && a.signedOff === a.stageCount;
+  const ordered = [...all.filter((a) => !finished(a)), ...all.filter(finished).reverse()];
+  const pages = Math.max(1, Math.ceil(ordered.length / pageSize));
+  const at = Math.min(Math.max(1, page), pages);
+  return { items: ordered.slice((at - 1) * pageSize, at * pageSize), total: ordered.length, page: at, pages, pageSize };
 }
 
 /** On each course the student is actively enrolled in: the first rung that is open but not done. */

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { DEMO_PASSWORD, STUDENTS, TEACHERS } from "@/db/seed-data/people";
-import { BASE_URL, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, launch, screenshot } from "./helpers/browser";
 
 // Issue 6's browser journey in Debian's Chromium: a teacher assigns a tune to two students with a
 // due date; both get e-mail; one checks in with an uploaded recording; the teacher listens, writes
@@ -219,19 +219,25 @@ describe("assignments, check-in and sign-off in the browser", () => {
   });
 
   it("the teacher's list shows 20 assignments a page, with the others on the next", async () => {
-    // Enough assignments for two pages, made through the same route the assign form uses.
-    const made = await teacher.evaluate(async () => {
-      type List = { assignments: { tune: { id: string }; students: { studentId: string }[] }[]; total: number };
+    // Enough assignments for two pages, all for Juno, made through the same route the assign form uses.
+    const made = await teacher.evaluate(async (junoAssignment) => {
+      type List = { assignments: { tune: { id: string }; students: { studentId: string; assignmentStudentId: string }[] }[]; total: number };
       const list = (await (await fetch("/api/teach/assignments")).json()) as List;
-      const first = list.assignments[0];
+      let juno: { tuneId: string; studentId: string } | undefined;
+      for (let page = 1; !juno && (page - 1) * 20 < list.total; page++) {
+        const some = page === 1 ? list : ((await (await fetch(`/api/teach/assignments?page=${page}`)).json()) as List);
+        const a = some.assignments.find((x) => x.students.some((s) => s.assignmentStudentId === junoAssignment));
+        if (a) juno = { tuneId: a.tune.id, studentId: a.students.find((s) => s.assignmentStudentId === junoAssignment)!.studentId };
+      }
+      if (!juno) throw new Error("Juno's assignment is not in the teacher's list");
       for (let i = 0; i < 21; i++) {
         const due = new Date(Date.now() + (30 + i) * 86_400_000).toISOString().slice(0, 10);
-        const body = { tuneId: first.tune.id, studentIds: [first.students[0].studentId], dueLocal: `${due}T18:00` };
+        const body = { tuneId: juno.tuneId, studentIds: [juno.studentId], dueLocal: `${due}T18:00` };
         const res = await fetch("/api/teach/assignments", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
         if (res.status !== 201) throw new Error(`POST answered ${res.status}: ${await res.text()}`);
       }
       return list.total + 21;
-    });
+    }, junoId);
     await open(teacher, "/teach/assignments", "nav[aria-label='Assignment pages'] button");
     const pages = Math.ceil(made / 20);
     await teacher.getByText(`Page 1 of ${pages} · ${made} assignments`).waitFor();
@@ -240,5 +246,22 @@ describe("assignments, check-in and sign-off in the browser", () => {
     await teacher.getByText(`Page 2 of ${pages} · ${made} assignments`).waitFor();
     await expect.poll(() => teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count()).toBe(pages === 2 ? made - 20 : 20);
     await screenshot(teacher, "assignments-10-list-page-2");
+  });
+
+  it("the student's list pages too: this week's work first, the rest after Next", async () => {
+    const mine = await juno.evaluate(async () => ((await (await fetch("/api/learn/assignments")).json()) as { assignments: unknown[] }).assignments.length);
+    expect(mine).toBeGreaterThan(20); // the 21 just made and the one from the first step
+    const pages = Math.ceil(mine / 20);
+    await open(juno, "/learn/assignments", "nav[aria-label='Assignment pages'] a");
+    await juno.getByText(`Page 1 of ${pages} · ${mine} assignments`).waitFor();
+    const cards = () => juno.getByRole("list", { name: "Assignments" }).locator(":scope > li");
+    expect(await cards().count()).toBe(20);
+    // The first step's assignment is due in ten days, before all 21 new ones (30 days and later).
+    expect(await cards().first().getByRole("link").getAttribute("href")).toBe(`/learn/assignments/${junoId}`);
+    await follow(juno, juno.getByRole("navigation", { name: "Assignment pages" }).getByRole("link", { name: "Next" }), /\/learn\/assignments\?page=2$/);
+    await juno.getByText(`Page 2 of ${pages} · ${mine} assignments`).waitFor();
+    expect(await cards().count()).toBe(pages === 2 ? mine - 20 : 20);
+    expect(await juno.getByRole("navigation", { name: "Assignment pages" }).getByRole("link", { name: "Previous" }).isVisible()).toBe(true);
+    await screenshot(juno, "assignments-11-student-list-page-2");
   });
 });

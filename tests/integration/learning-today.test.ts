@@ -3,9 +3,9 @@
 // the next rung of a course; the teacher's latest words.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { courses, enrolments, grades, rungs } from "@/db/schema";
+import { courses, enrolments, grades, rungs, stageStates } from "@/db/schema";
 import { streakOf } from "@/lib/teaching/learn-dates";
-import { CHART_DAYS, todayFor } from "@/lib/teaching/today";
+import { ASSIGNMENTS_PAGE_SIZE, CHART_DAYS, assignmentPage, todayFor } from "@/lib/teaching/today";
 import { makeAssignment, makePractice, makeTune, makeUpload } from "./helpers/learning-matrix-rows";
 import { teachWorld } from "./helpers/teach-world";
 
@@ -115,5 +115,36 @@ describe("assignments, next rung and feedback", () => {
     const t = await todayFor(w.db, p, new Date());
     expect(t.nextRungs).toEqual([expect.objectContaining({ courseId: course.id, tuneId: tune.tuneId, tuneTitle: "Today Taster", position: 1 })]);
     expect(t.feedback).toEqual([expect.objectContaining({ checkInId: made.checkInId, feedback: "Keep the bow straighter.", outcome: "needs_more_time", tuneTitle: "Today Taster" })]);
+  });
+
+  it("the Assignments page: still-to-do ones first by due date, finished ones after (latest first), 20 a page", async () => {
+    const me = await student("Europe/London");
+    const tune = await makeTune(w.db, teacherId, { title: "Paging Reel" });
+    const day = (n: number) => new Date(Date.UTC(2030, 0, 1 + n, 17));
+    // 24 assignments due on days 0..23; those due on days 1, 5 and 9 have every stage signed off.
+    const ids: string[] = [];
+    for (let n = 0; n < 24; n++) {
+      const f = await makeAssignment(w.db, { teacherId, studentIds: [me.id], tuneId: tune.tuneId, dueAt: day(n) });
+      ids.push(f.students[me.id]);
+    }
+    const finished = [1, 5, 9];
+    for (const n of finished) await w.db.update(stageStates).set({ state: "signed_off" }).where(eq(stageStates.assignmentStudentId, ids[n]));
+    const open = ids.filter((_, n) => !finished.includes(n));
+    const expected = [...open, ids[9], ids[5], ids[1]];
+
+    const first = await assignmentPage(w.db, me, "Europe/London", NOW, 1);
+    expect(ASSIGNMENTS_PAGE_SIZE).toBe(20);
+    expect([first.total, first.page, first.pages]).toEqual([24, 1, 2]);
+    expect(first.items.map((a) => a.assignmentStudentId)).toEqual(expected.slice(0, 20));
+    expect(first.items.every((a) => a.signedOff < a.stageCount)).toBe(true);
+    const second = await assignmentPage(w.db, me, "Europe/London", NOW, 2);
+    expect(second.items.map((a) => a.assignmentStudentId)).toEqual(expected.slice(20)); // the last open one, then 9, 5, 1
+    expect(second.items.slice(1).every((a) => a.signedOff === a.stageCount)).toBe(true);
+    // A page past the last shows the last; page 0 or below shows the first.
+    expect((await assignmentPage(w.db, me, "Europe/London", NOW, 7)).page).toBe(2);
+    expect((await assignmentPage(w.db, me, "Europe/London", NOW, 0)).items[0].assignmentStudentId).toBe(ids[0]);
+    // Today still lists only the open ones, soonest due first.
+    const today = await todayFor(w.db, me, NOW);
+    expect(today.assignments.map((a) => a.assignmentStudentId)).toEqual(open);
   });
 });

@@ -1,26 +1,37 @@
 import type { Metadata } from "next";
 import { PageContainer } from "@/components/layout/page-container";
 import { AssignmentList } from "@/components/learn/today-lists";
+import { LinkButton } from "@/components/ui/link-button";
 import { db } from "@/db/client";
 import { userZone } from "@/db/queries/learning";
 import { requireArea } from "@/lib/auth/next-context";
-import { assignmentList } from "@/lib/teaching/today";
+import { assignmentPage } from "@/lib/teaching/today";
 
 export const metadata: Metadata = { title: "Assignments" };
 
-/** Every active assignment, finished ones included (Today shows only the open ones). */
-export default async function LearnAssignmentsPage() {
+/** Every active assignment, finished ones included (Today shows only the open ones), 20 to a page. */
+export default async function LearnAssignmentsPage(props: { searchParams: Promise<{ page?: string | string[] }> }) {
   const user = await requireArea("area:learn"); // layouts are not re-run on client navigation
+  const asked = (await props.searchParams).page;
+  // Anything but a whole number from 1 up shows the first page; a page past the last shows the last.
+  const wanted = typeof asked === "string" && /^[1-9]\d{0,5}$/.test(asked) ? Number(asked) : 1;
   const zone = await userZone(db(), user.id);
-  const items = await assignmentList(db(), { id: user.id, role: user.role }, zone, new Date(), { open: false });
+  const { items, total, page, pages } = await assignmentPage(db(), { id: user.id, role: user.role }, zone, new Date(), wanted);
   return (
     <PageContainer className="flex flex-col gap-6">
       <header className="flex flex-col gap-1">
         <p className="text-small font-semibold tracking-widest text-cedar uppercase">Assignments</p>
         <h1 className="text-h2 font-semibold">Your assignments</h1>
-        <p className="text-small text-bark">{`Soonest due first; dates and times in your time zone (${zone}).`}</p>
+        <p className="text-small text-bark">{`Still to do first, soonest due; finished ones after, latest first. Dates and times in your time zone (${zone}).`}</p>
       </header>
       <AssignmentList items={items} />
+      {pages > 1 ? (
+        <nav aria-label="Assignment pages" className="flex flex-wrap items-center gap-3 text-small">
+          {page > 1 ? <LinkButton href={`/learn/assignments?page=${page - 1}`} variant="secondary" size="sm">Previous</LinkButton> : null}
+          <span>{`Page ${page} of ${pages} · ${total.toLocaleString("en-GB")} assignments`}</span>
+          {page < pages ? <LinkButton href={`/learn/assignments?page=${page + 1}`} variant="secondary" size="sm">Next</LinkButton> : null}
+        </nav>
+      ) : null}
     </PageContainer>
   );
 }
