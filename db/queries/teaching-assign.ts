@@ -34,14 +34,16 @@ export async function insertAssignmentStudent(db: Tx, assignmentId: string, stud
   return (await db.insert(assignmentStudents).values({ assignmentId, studentId }).returning({ id: assignmentStudents.id }))[0].id;
 }
 
-/** Stage 1 open from now, the rest locked (shared design). */
-export async function insertStageStates(db: Tx, assignmentStudentId: string, count: number, now: Date): Promise<void> {
-  const rows = Array.from({ length: count }, (_, i) => ({
-    assignmentStudentId,
-    stageIndex: i + 1,
-    state: i === 0 ? ("open" as const) : ("locked" as const),
-    openedAt: i === 0 ? now : null,
-  }));
+/** For each of the students' assignments, stage 1 open from now and the rest locked (shared design), in one statement. */
+export async function insertStageStates(db: Tx, assignmentStudentIds: string[], count: number, now: Date): Promise<void> {
+  const rows = assignmentStudentIds.flatMap((assignmentStudentId) =>
+    Array.from({ length: count }, (_, i) => ({
+      assignmentStudentId,
+      stageIndex: i + 1,
+      state: i === 0 ? ("open" as const) : ("locked" as const),
+      openedAt: i === 0 ? now : null,
+    })),
+  );
   if (rows.length) await db.insert(stageStates).values(rows);
 }
 

@@ -135,7 +135,7 @@ export async function createAssignment(db: Tx, me: Manager, input: AssignmentCre
     const assignmentStudentIds: string[] = [];
     for (const s of students) {
       const asId = await insertAssignmentStudent(tx, id, s.id);
-      await insertStageStates(tx, asId, stages.length, now);
+      await insertStageStates(tx, [asId], stages.length, now);
       await mailNew(tx, s, asId, {
         teacherName: teacher?.name ?? "Your teacher",
         tuneTitle: tune.title,
@@ -179,7 +179,8 @@ export async function editAssignment(db: Tx, me: Manager, input: AssignmentEditI
     if (planChanged) {
       const stages = await assignmentStages(tx, a.tuneId, input.stagePlan ?? null);
       await deleteStageStates(tx, a.id);
-      for (const s of await studentsOfAssignment(tx, a.id)) await insertStageStates(tx, s.assignmentStudentId, stages.length, now);
+      const students = await studentsOfAssignment(tx, a.id);
+      await insertStageStates(tx, students.map((s) => s.assignmentStudentId), stages.length, now);
     }
   });
 }

@@ -192,6 +192,20 @@ describe("editing and withdrawing", () => {
     expect(await statusOf(elsewhere)).toBe("waiting"); // another assignment's check-in is untouched
   });
 
+  it("a new stage plan before any check-in remakes every student's stages: stage 1 open, the rest locked", async () => {
+    const made = await create();
+    expect(made.assignmentStudentIds).toHaveLength(2);
+    const plan = {
+      stages: [
+        { name: "Bare tune", adds: [] },
+        { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
+      ],
+    };
+    const res = await w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan } });
+    expect(res.status).toBe(200);
+    for (const asId of made.assignmentStudentIds) expect(await w.states(asId)).toEqual(["open", "locked"]);
+  });
+
   it("refuses a new stage plan once someone has checked in", async () => {
     const made = await create();
     await w.checkIn(made.assignmentStudentIds[0]);
