@@ -10,6 +10,7 @@ import { LinkButton } from "@/components/ui/link-button";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
 import { AssignmentCard } from "./assignment-card";
+import { AssignmentPageNav } from "./assignment-page-nav";
 import { ASSIGNMENTS_KEY } from "./query-keys";
 
 type Page = { assignments: AssignmentView[]; total: number; page: number; pageSize: number };
@@ -46,15 +47,21 @@ export function AssignmentList() {
         ))}
       </ul>
       {pages > 1 ? (
-        <nav aria-label="Assignment pages" className="flex flex-wrap items-center gap-3 text-small">
-          <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => setPage(page - 1)}>
-            Previous
-          </Button>
-          <span>{`Page ${page} of ${pages} · ${total.toLocaleString("en-GB")} assignments`}</span>
-          <Button variant="secondary" size="sm" disabled={page >= pages || q.isPlaceholderData} onClick={() => setPage(page + 1)}>
-            Next
-          </Button>
-        </nav>
+        <AssignmentPageNav
+          page={page}
+          pages={pages}
+          total={total}
+          previous={
+            <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => setPage(page - 1)}>
+              Previous
+            </Button>
+          }
+          next={
+            <Button variant="secondary" size="sm" disabled={page >= pages || q.isPlaceholderData} onClick={() => setPage(page + 1)}>
+              Next
+            </Button>
+          }
+        />
       ) : null}
     </div>
   );

@@ -37,7 +37,7 @@ export type AssignmentCreateInput = z.output<typeof assignmentCreateInput>;
 
 export const assignmentId = z.object({ id: z.uuid("Unknown assignment.") });
 
-/** The teacher's assignments list, a page at a time (GET /api/teach/assignments?page=N). */
+/** The assignment lists, a page at a time: the teacher's (GET /api/teach/assignments?page=N) and the student's (/learn/assignments?page=N). */
 export const ASSIGNMENTS_PAGE_SIZE = 20;
 export const assignmentsPage = z.object({
   page: z.coerce.number("The page must be a number.").int("The page must be a whole number.").min(1, "Pages start at 1.").max(100_000, "There are not that many pages.").default(1),

@@ -7,6 +7,7 @@ import { assignmentsOfStudent, minutesByDay, practiceDaysUpTo, recentFeedback, s
 import { buildLadder } from "@/lib/catalogue/access";
 import { addDays, dayIn, daysBetween, dueWords, streakOf } from "./learn-dates";
 import type { Person } from "./learn-assignment";
+import { ASSIGNMENTS_PAGE_SIZE } from "./teach-schemas";
 
 export const CHART_DAYS = 28;
 const FEEDBACK_COUNT = 5;
@@ -65,8 +66,6 @@ export async function assignmentList(db: Db, person: Person, zone: string, now: 
   }
   return out;
 }
-
-export const ASSIGNMENTS_PAGE_SIZE = 20;
 
 export type AssignmentPage = { items: TodayAssignment[]; total: number; page: number; pages: number; pageSize: number };
 

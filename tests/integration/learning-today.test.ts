@@ -5,7 +5,8 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { courses, enrolments, grades, rungs, stageStates } from "@/db/schema";
 import { streakOf } from "@/lib/teaching/learn-dates";
-import { ASSIGNMENTS_PAGE_SIZE, CHART_DAYS, assignmentPage, todayFor } from "@/lib/teaching/today";
+import { ASSIGNMENTS_PAGE_SIZE } from "@/lib/teaching/teach-schemas";
+import { CHART_DAYS, assignmentPage, todayFor } from "@/lib/teaching/today";
 import { makeAssignment, makePractice, makeTune, makeUpload } from "./helpers/learning-matrix-rows";
 import { teachWorld } from "./helpers/teach-world";
 

@@ -1,38 +1,22 @@
 // Assign, edit and withdraw through the teacher's routes (issue 6 item 1): each refusal names its
 // field, each student gets one "assignment-new" e-mail, stage 1 opens and the rest stay locked.
+// Stage plans, at creation and changed later: teaching-assign-plan.test.ts.
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { checkIns, emailOutbox } from "@/db/schema";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
-import { dueIn, teachingWorld, type TeachingWorld } from "./helpers/teaching-world";
+import { assignBody, createAssignment, LIST, ONE, type Classroom, type Refusal, openClassroom } from "./helpers/assign-calls";
+import { dueIn, type TeachingWorld } from "./helpers/teaching-world";
 
 let w: TeachingWorld;
-let room: Awaited<ReturnType<TeachingWorld["classroom"]>>;
+let room: Classroom;
 let cookie: string;
-const LIST = "teach/assignments";
-const ONE = "teach/assignments/[id]";
 
-beforeAll(async () => {
-  w = await teachingWorld();
-  room = await w.classroom(2);
-  cookie = await w.cookieFor(room.teacher.id);
-});
+beforeAll(async () => ({ w, room, cookie } = await openClassroom()));
 afterAll(async () => w?.close());
 
-const body = (o: Record<string, unknown> = {}) => ({
-  tuneId: room.tuneId,
-  studentIds: room.students.map((s) => s.id),
-  dueLocal: dueIn(7),
-  note: "Mind the rolls.",
-  ...o,
-});
-type Refusal = { error: string; fieldErrors?: Record<string, string> };
-
-async function create(o: Record<string, unknown> = {}) {
-  const res = await w.call(LIST, "POST", { cookie, body: body(o) });
-  expect(res.status).toBe(201);
-  return (await res.json()) as { id: string; assignmentStudentIds: string[] };
-}
+const body = (o: Record<string, unknown> = {}) => assignBody(room, o);
+const create = (o: Record<string, unknown> = {}) => createAssignment(w, cookie, room, o);
 
 describe("creating an assignment", () => {
   it("opens stage 1 for each student, locks the rest, and e-mails each student once", async () => {
@@ -128,25 +112,6 @@ describe("creating an assignment", () => {
     expect(res2.status).toBe(422);
     expect(((await res2.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/never added back/);
   });
-
-  it("builds the stages from a changed plan", async () => {
-    const plan = {
-      stages: [
-        { name: "Bare tune", adds: [] },
-        {
-          name: "Everything",
-          adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"],
-        },
-      ],
-    };
-    const res = await w.call(LIST, "POST", {
-      cookie,
-      body: body({ stagePlan: plan }),
-    });
-    if (res.status !== 201) throw new Error(JSON.stringify(await res.json()));
-    const made = (await res.json()) as { assignmentStudentIds: string[] };
-    expect(await w.states(made.assignmentStudentIds[0])).toEqual(["open", "locked"]);
-  });
 });
 
 describe("editing and withdrawing", () => {
@@ -190,80 +155,6 @@ describe("editing and withdrawing", () => {
     const statusOf = async (id: string) => (await w.db.select({ status: checkIns.status }).from(checkIns).where(eq(checkIns.id, id)))[0]?.status;
     expect(await statusOf(waiting)).toBe("withdrawn");
     expect(await statusOf(elsewhere)).toBe("waiting"); // another assignment's check-in is untouched
-  });
-
-  it("a new stage plan before any check-in remakes every student's stages: stage 1 open, the rest locked", async () => {
-    const made = await create();
-    expect(made.assignmentStudentIds).toHaveLength(2);
-    const plan = {
-      stages: [
-        { name: "Bare tune", adds: [] },
-        { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
-      ],
-    };
-    const res = await w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan } });
-    expect(res.status).toBe(200);
-    for (const asId of made.assignmentStudentIds) expect(await w.states(asId)).toEqual(["open", "locked"]);
-  });
-
-  it("refuses a new stage plan once someone has checked in", async () => {
-    const made = await create();
-    await w.checkIn(made.assignmentStudentIds[0]);
-    const plan = {
-      stages: [
-        { name: "Bare tune", adds: [] },
-        {
-          name: "All",
-          adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"],
-        },
-      ],
-    };
-    const res = await w.call(ONE, "PATCH", {
-      cookie,
-      params: { id: made.id },
-      body: { stagePlan: plan },
-    });
-    expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.stagePlan).toMatch(/checked in already/);
-  });
-
-  it("a plan change racing a check-in leaves one consistent result, never a lost check-in", async () => {
-    const plan = {
-      stages: [
-        { name: "Bare tune", adds: [] },
-        { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
-      ],
-    };
-    const made = await create({ studentIds: [room.students[0].id] });
-    const asId = made.assignmentStudentIds[0];
-    const [edit, checkIn] = await Promise.allSettled([w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan } }), w.checkIn(asId)]);
-    const states = await w.states(asId);
-    if (checkIn.status === "fulfilled") {
-      // The check-in won: it stays, and the plan change was refused.
-      expect(edit.status === "fulfilled" && edit.value.status).toBe(422);
-      expect(states).toEqual(["checked_in", "locked", "locked", "locked"]);
-      expect((await w.checkInRow(checkIn.value)).status).toBe("waiting");
-    } else {
-      // The edit won: the old stage row is gone, so the check-in found nothing to check in on.
-      expect(edit.status === "fulfilled" && edit.value.status).toBe(200);
-      expect(checkIn.reason).toMatchObject({ status: 404 });
-      expect(states).toEqual(["open", "locked"]);
-    }
-  });
-
-  it("an unchanged plan sent back after check-ins is accepted and changes nothing", async () => {
-    const plan = {
-      stages: [
-        { name: "Bare tune", adds: [] },
-        { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
-      ],
-    };
-    const made = await create({ stagePlan: plan });
-    await w.checkIn(made.assignmentStudentIds[0]);
-    // jsonb stores its keys in its own order; the same plan must still read as the same.
-    const res = await w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: plan, note: "Same plan" } });
-    expect(res.status).toBe(200);
-    expect(await w.states(made.assignmentStudentIds[0])).toEqual(["checked_in", "locked"]);
   });
 
   it("pages the list: 20 to a page, open before withdrawn, the latest due first, and the total", async () => {

@@ -1,10 +1,12 @@
 import type { Metadata } from "next";
 import { PageContainer } from "@/components/layout/page-container";
 import { AssignmentList } from "@/components/learn/today-lists";
+import { AssignmentPageNav } from "@/components/teaching/assignment-page-nav";
 import { LinkButton } from "@/components/ui/link-button";
 import { db } from "@/db/client";
 import { userZone } from "@/db/queries/learning";
 import { requireArea } from "@/lib/auth/next-context";
+import { assignmentsPage } from "@/lib/teaching/teach-schemas";
 import { assignmentPage } from "@/lib/teaching/today";
 
 export const metadata: Metadata = { title: "Assignments" };
@@ -12,9 +14,10 @@ export const metadata: Metadata = { title: "Assignments" };
 /** Every active assignment, finished ones included (Today shows only the open ones), 20 to a page. */
 export default async function LearnAssignmentsPage(props: { searchParams: Promise<{ page?: string | string[] }> }) {
   const user = await requireArea("area:learn"); // layouts are not re-run on client navigation
-  const asked = (await props.searchParams).page;
-  // Anything but a whole number from 1 up shows the first page; a page past the last shows the last.
-  const wanted = typeof asked === "string" && /^[1-9]\d{0,5}$/.test(asked) ? Number(asked) : 1;
+  // The teacher's list's rule for `page`; where it refuses (page=0, page=x), this page shows the first,
+  // and a page past the last shows the last (assignmentPage).
+  const asked = assignmentsPage.safeParse({ page: (await props.searchParams).page });
+  const wanted = asked.success ? asked.data.page : 1;
   const zone = await userZone(db(), user.id);
   const { items, total, page, pages } = await assignmentPage(db(), { id: user.id, role: user.role }, zone, new Date(), wanted);
   return (
@@ -26,11 +29,13 @@ export default async function LearnAssignmentsPage(props: { searchParams: Promis
       </header>
       <AssignmentList items={items} />
       {pages > 1 ? (
-        <nav aria-label="Assignment pages" className="flex flex-wrap items-center gap-3 text-small">
-          {page > 1 ? <LinkButton href={`/learn/assignments?page=${page - 1}`} variant="secondary" size="sm">Previous</LinkButton> : null}
-          <span>{`Page ${page} of ${pages} · ${total.toLocaleString("en-GB")} assignments`}</span>
-          {page < pages ? <LinkButton href={`/learn/assignments?page=${page + 1}`} variant="secondary" size="sm">Next</LinkButton> : null}
-        </nav>
+        <AssignmentPageNav
+          page={page}
+          pages={pages}
+          total={total}
+          previous={page > 1 ? <LinkButton href={`/learn/assignments?page=${page - 1}`} variant="secondary" size="sm">Previous</LinkButton> : null}
+          next={page < pages ? <LinkButton href={`/learn/assignments?page=${page + 1}`} variant="secondary" size="sm">Next</LinkButton> : null}
+        />
       ) : null}
     </PageContainer>
   );
