@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
-import { BASE_URL, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, hydrated, launch, screenshot } from "./helpers/browser";
 import { mailedLink } from "./helpers/mail-link";
 import { DEMO_PASSWORD, STUDENTS, TEACHERS } from "@/db/seed-data/people";
 
@@ -166,6 +166,7 @@ describe("accounts in a real browser", () => {
     await signIn(admin, "admin@larchmoor.example", DEMO_PASSWORD);
     await admin.waitForURL(/\/admin\/people/);
     await person.reload(); // the person's session, looked up again moments before the change
+    await hydrated(admin.getByRole("button", { name: "Save" })); // a click while the page hydrates can be lost
     await admin.getByLabel(`Role of ${newcomer.name}`).selectOption("teacher");
     await admin.getByRole("button", { name: "Save" }).click();
     await admin.getByText(`${newcomer.name} is now a teacher.`).waitFor();

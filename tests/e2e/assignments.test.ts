@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { DEMO_PASSWORD, STUDENTS, TEACHERS } from "@/db/seed-data/people";
-import { BASE_URL, follow, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, hydrated, launch, screenshot } from "./helpers/browser";
 
 // Issue 6's browser journey in Debian's Chromium: a teacher assigns a tune to two students with a
 // due date; both get e-mail; one checks in with an uploaded recording; the teacher listens, writes
@@ -76,10 +76,7 @@ async function signedIn(email: string, home: RegExp): Promise<Page> {
 /** Opens a page and waits until React has taken over `selector`'s element, so clicks never race hydration. */
 async function open(page: Page, path: string, selector: string): Promise<void> {
   await page.goto(`${BASE_URL}${path}`);
-  await page.waitForFunction((sel) => {
-    const el = document.querySelector(sel);
-    return el !== null && Object.keys(el).some((k) => k.startsWith("__reactFiber"));
-  }, selector);
+  await hydrated(page.locator(selector).first());
 }
 
 beforeAll(async () => {

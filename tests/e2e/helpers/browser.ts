@@ -30,6 +30,16 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 }
 
 /**
+ * Waits until React has hydrated the element (its fiber is attached to it). A click that lands while
+ * the page is still hydrating can be lost on Next.js 15.5 (see follow()), so a test that acts on a
+ * page just loaded waits for the control it is about to use.
+ */
+export async function hydrated(locator: Locator): Promise<void> {
+  await locator.waitFor();
+  await locator.page().waitForFunction((el) => el !== null && Object.keys(el).some((k) => k.startsWith("__reactFiber")), await locator.elementHandle());
+}
+
+/**
  * Clicks a link and waits until the address matches. Next.js 15.5's client router now and then
  * fetches the next page (its answer arrives whole, 200; no request left pending; no page error) and
  * still leaves the old page on screen: seen in student-tune in four of seven isolated runs on the
