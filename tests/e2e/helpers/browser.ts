@@ -30,13 +30,16 @@ export async function screenshot(page: Page, name: string): Promise<string> {
 }
 
 /**
- * Waits until React has hydrated the element (its fiber is attached to it). A click that lands while
- * the page is still hydrating can be lost on Next.js 15.5 (see follow()), so a test that acts on a
- * page just loaded waits for the control it is about to use.
+ * Waits until React has hydrated the element (its fiber is attached to it) and the page has gone quiet
+ * (no request for half a second: Next.js prefetches the page's links once it has hydrated). On
+ * Next.js 15.5 a click in the first moments after hydration can start a transition that never
+ * finishes (see follow()) — a server action's answer that never shows, a link that does not move — so a
+ * test that acts on a page just loaded waits here for the control it is about to use.
  */
 export async function hydrated(locator: Locator): Promise<void> {
   await locator.waitFor();
   await locator.page().waitForFunction((el) => el !== null && Object.keys(el).some((k) => k.startsWith("__reactFiber")), await locator.elementHandle());
+  await locator.page().waitForLoadState("networkidle");
 }
 
 /**
