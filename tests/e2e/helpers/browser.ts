@@ -54,6 +54,7 @@ export async function hydrated(locator: Locator): Promise<void> {
  * more, saying so on stderr — so the steps after it test the page they are about.
  */
 export async function follow(page: Page, link: Locator, address: RegExp, timeout = 10_000): Promise<void> {
+  await hydrated(link);
   for (let attempt = 1; ; attempt++) {
     await link.click();
     if (await page.waitForURL(address, { timeout }).then(() => true, () => false)) return;
