@@ -1,9 +1,9 @@
-// bench-payments over HTTP (BENCH_HTTP=1): `next start` from the last build, asked by wrk.
+// bench-payments over HTTP (BENCH_HTTP=1): the last build served as `npm start` serves it, asked by wrk.
 import { spawn, spawnSync } from "node:child_process";
 import { existsSync, mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { Agent, request } from "node:http";
 import { createServer } from "node:net";
-import { cpus, tmpdir } from "node:os";
+import { availableParallelism, cpus, tmpdir } from "node:os";
 import { join } from "node:path";
 import { CONCURRENCY, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
 
@@ -42,7 +42,7 @@ function wrk(url: string, headers: Record<string, string>, seconds: number, scri
 }
 
 /**
- * Over HTTP: `next start` from the last build, asked by wrk, a load generator in C. The benchmark's
+ * Over HTTP: the last build served as `npm start` serves it (scripts/serve.mjs), asked by wrk, a load generator in C. The benchmark's
  * own node:http client cost ~0.8 ms of CPU a request (measured in the fourth session, /proc CPU
  * ticks), a fifth of this two-CPU machine taken from the server it measures; wrk's cost is a small
  * fraction of that. Each case one at a time first (node:http, also the warm-up and the check of
@@ -59,7 +59,9 @@ export async function overHttp(cases: Case[], cookie: string) {
     });
   });
   const base = `http://127.0.0.1:${port}`;
-  const server = spawn("node_modules/.bin/next", ["start", "-H", "127.0.0.1", "-p", String(port)], {
+  // The app as `npm start` runs it (scripts/serve.mjs: `next start` in one process per CPU, unless
+  // WEB_CONCURRENCY says otherwise).
+  const server = spawn("node", ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(port)], {
     env: { ...process.env, NODE_ENV: "production", APP_URL: base, INSECURE_COOKIES: "true" },
     stdio: "ignore",
     detached: true,
@@ -90,7 +92,8 @@ export async function overHttp(cases: Case[], cookie: string) {
     ];
     // The server's code is compiled as it runs: warm every route at full concurrency before measuring.
     for (const a of all) await Promise.all(Array.from({ length: CONCURRENCY }, async () => { for (let i = 0; i < 20; i++) await get(a.path, a.headers); }));
-    console.log(`\n== over HTTP on loopback: next start (one process), asked by wrk (${CONCURRENCY} connections), on the same ${cpus().length} CPUs`);
+    const web = process.env.WEB_CONCURRENCY?.trim() || String(availableParallelism());
+    console.log(`\n== over HTTP on loopback: scripts/serve.mjs (next start, ${web} web processes), asked by wrk (${CONCURRENCY} connections), on the same ${cpus().length} CPUs`);
     const alone = new Map<Case, { xs: number[]; answer: string }>();
     for (const a of all) alone.set(a.c, await oneAtATime(() => get(a.path, a.headers)));
     agent.destroy();

@@ -57,7 +57,7 @@ export RESEND_BASE_URL="http://127.0.0.1:$MAIL_PORT" RESEND_FAKE_URL="http://127
 start_mail_fake "$MAIL_PORT" "$DATA" "$DATA/mail.jsonl"
 start_worker "$DATA"
 
-node_modules/.bin/next start -p "$PORT" -H 127.0.0.1 >"$DATA/app.log" 2>&1 &
+node scripts/serve.mjs -p "$PORT" -H 127.0.0.1 >"$DATA/app.log" 2>&1 &
 PIDS+=("$!")
 wait_http "http://127.0.0.1:$PORT/api/health" 60 || { tail -n 30 "$DATA/app.log" >&2; die "the app did not start (log: $DATA/app.log)"; }
 

@@ -84,6 +84,9 @@ export const payments = pgTable(
     periodStart: timestamp("period_start", { withTimezone: true }),
     periodEnd: timestamp("period_end", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
+    // The payer's name and address, lower-cased, for the admin table's search; filled and kept in step
+    // by triggers from users (migration 0005), never written by the app.
+    payerSearch: text("payer_search").notNull().default(""),
   },
   (t) => [
     index("payments_created_idx").on(t.createdAt),

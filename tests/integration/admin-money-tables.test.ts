@@ -154,6 +154,31 @@ describe("admin payments table", () => {
     });
   }
 
+  it("gives the same rows and total whichever way a name search reaches the payments", async () => {
+    const { countPayments, listPayments, payerFilter } = await import("@/db/queries/admin-payments");
+    const { paymentsQuery } = await import("@/lib/billing/admin/params");
+    for (const search of ["OAKES", "a", "TABLES.example", "ow", "n M", "zz"]) {
+      const f = { status: "paid", from: "2026-02-01", to: "2026-10-31", q: search, sort: "amount" as const, dir: "desc" as const };
+      const want = expected(f);
+      const q = paymentsQuery.parse({ ...f, page: "2", pageSize: "9" });
+      const people = await payerFilter(w.db, search, Number.MAX_SAFE_INTEGER);
+      const walk = await payerFilter(w.db, search, 0);
+      expect([people.kind, walk.kind], search).toEqual(["people", "walk"]);
+      for (const form of [people, walk, await payerFilter(w.db, search)]) {
+        const page = await listPayments(w.db, q, form);
+        expect(page.rows.map((r) => r.id), `${search} (${form.kind})`).toEqual(want.slice(9, 18).map((p) => p.id));
+        expect(page.hasMore, `${search} (${form.kind})`).toBe(want.length > 18);
+      }
+      expect(await countPayments(w.db, q), search).toBe(want.length);
+    }
+  });
+
+  it("refuses a search with a line break, naming the field", async () => {
+    const res = await get("payments", "?q=Hilda%0APym");
+    expect(res.status).toBe(422);
+    expect(((await res.json()) as { fieldErrors: Record<string, string> }).fieldErrors.q).toMatch(/line breaks/);
+  });
+
   it("treats LIKE wildcards in the search as plain characters", async () => {
     const body = (await (await get("payments", "?q=%25")).json()) as PageJson;
     expect(body.rows).toEqual([]);

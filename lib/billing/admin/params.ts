@@ -14,7 +14,9 @@ const common = {
   plan: z.uuid({ error: "must be a plan id" }).optional(),
   from: day.optional(),
   to: day.optional(),
-  q: z.string().trim().max(100, "must be at most 100 characters").optional(),
+  // A name or address fragment. Line breaks and other control characters never occur in either, and
+  // the payments' search column joins name and address with a line break (migration 0005).
+  q: z.string().trim().max(100, "must be at most 100 characters").regex(/^\P{Cc}*$/u, "must not contain line breaks or other control characters").optional(),
   dir: z.enum(["asc", "desc"], { error: "must be asc or desc" }).default("desc"),
   page: z.coerce.number({ error: "must be a whole number from 1" }).int("must be a whole number from 1").min(1, "must be a whole number from 1").default(1),
   pageSize: z.coerce

@@ -11,7 +11,7 @@ export type SortKey = { expr: SQL | AnyPgColumn; cast: "timestamptz" | "integer"
 export type Cursor = { key: string; id: string };
 
 // `q` is a fragment of a name or address typed by an admin: LIKE's wildcards in it are literal.
-const contains = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+export const contains = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 export function nameOrEmail(q: string | undefined): SQL | undefined {
   if (!q) return undefined;
