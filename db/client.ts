@@ -9,8 +9,13 @@ export type Db = PostgresJsDatabase<typeof schema>;
 let client: postgres.Sql | undefined;
 let instance: Db | undefined;
 
+let generation = 0;
+/** Which main pool this is: a new one after closeDb() (a listener on the old one is gone with it). */
+export const poolGeneration = () => generation;
+
 export function db(): Db {
   if (!instance) {
+    generation++;
     client = postgres(env().DATABASE_URL, { max: 10, onnotice: () => {} });
     instance = drizzle(client, { schema });
   }
@@ -33,6 +38,15 @@ export function reportsDb(): Db {
     reports = drizzle(reportsClient, { schema });
   }
   return reports;
+}
+
+/**
+ * LISTEN on a channel through the main pool's client (postgres.js keeps one connection for it and
+ * listens again after a reconnect, calling `onListen` each time: notices sent meanwhile are lost).
+ */
+export async function listen(channel: string, onNotice: (payload: string) => void, onListen: () => void): Promise<void> {
+  db();
+  await client!.listen(channel, onNotice, onListen);
 }
 
 /** For scripts and tests: a client on a given address, closed by the caller. */

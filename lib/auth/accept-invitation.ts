@@ -7,7 +7,7 @@ import { badRequest, conflict, forbidden, notFound } from "./errors";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { HOME, type Role } from "./permissions";
-import { forgetUser } from "./session-cache";
+import { forgetUserEverywhere } from "./session-notices";
 import { hashToken } from "./tokens";
 
 export const INVITATION_DEAD = "This invitation has expired or has already been used. Ask whoever invited you for a new one.";
@@ -60,7 +60,7 @@ export async function acceptInvitation(ctx: RequestContext, input: { token: stri
     if (inv.role === "student" && inv.inviterRole === "teacher") await addToRoster(tx, inv.invitedBy, person.id);
     return updated ?? person;
   });
-  forgetUser(user.id); // a signed-in person's cached session carries the role before this invitation
+  await forgetUserEverywhere(user.id); // a signed-in person's cached session carries the role before this invitation
   if (!ctx.user) await startSession(ctx, user.id);
   return { status: 200, redirectTo: HOME[user.role] };
 }

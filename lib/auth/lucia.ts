@@ -4,7 +4,8 @@ import { eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sessions, users } from "@/db/schema";
 import { env } from "@/lib/env";
-import { cachedSession, forgetSession, forgetUser, rememberSession, sessionExtended } from "./session-cache";
+import { cachedSession, rememberSession, sessionExtended } from "./session-cache";
+import { forgetSessionEverywhere, forgetUserEverywhere, listenForSessionNotices } from "./session-notices";
 
 type Role = "student" | "teacher" | "admin";
 
@@ -12,10 +13,12 @@ type Role = "student" | "teacher" | "admin";
  * lucia's drizzle adapter, except that the lookup made on every request reads only what a request
  * uses — the session and the person's name, address, role and "disabled" — instead of both whole rows
  * (the password hash among them), and keeps each answer for a few seconds (./session-cache.ts, which
- * says what that costs). Deleting or extending a session here updates the cache too.
+ * says what that costs). Deleting or extending a session here updates the cache too, and a deletion is
+ * announced to the other app processes (./session-notices.ts).
  */
 class SessionAdapter extends DrizzlePostgreSQLAdapter {
   override async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
+    listenForSessionNotices();
     const hit = cachedSession(sessionId);
     if (hit) return hit;
     const [row] = await db()
@@ -32,12 +35,12 @@ class SessionAdapter extends DrizzlePostgreSQLAdapter {
 
   override async deleteSession(sessionId: string): Promise<void> {
     await super.deleteSession(sessionId);
-    forgetSession(sessionId);
+    await forgetSessionEverywhere(sessionId);
   }
 
   override async deleteUserSessions(userId: string): Promise<void> {
     await super.deleteUserSessions(userId);
-    forgetUser(userId);
+    await forgetUserEverywhere(userId);
   }
 
   override async updateSessionExpiration(sessionId: string, expiresAt: Date): Promise<void> {

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { request } from "node:http";
 import type { Browser, Page } from "playwright-core";
-import { BASE_URL, hydrated, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, hydrated, launch, screenshot } from "./helpers/browser";
 import { mailedLink } from "./helpers/mail-link";
 import { DEMO_PASSWORD, STUDENTS, TEACHERS } from "@/db/seed-data/people";
 
@@ -65,8 +66,7 @@ describe("accounts in a real browser", () => {
     const page = await browser.newPage();
     const asked = Date.now() - 1000;
     await page.goto(`${BASE_URL}/sign-in`);
-    await page.getByRole("link", { name: "Forgotten your password?" }).click();
-    await page.waitForURL(`${BASE_URL}/forgot-password`);
+    await follow(page, page.getByRole("link", { name: "Forgotten your password?" }), /\/forgot-password$/);
     await page.getByLabel("E-mail address").fill(newcomer.email);
     await page.getByRole("button", { name: "Send me a reset link" }).click();
     await page.getByText(`If an account exists for ${newcomer.email}`).waitFor();
@@ -143,8 +143,7 @@ describe("accounts in a real browser", () => {
     await signIn(admin, "admin@larchmoor.example", DEMO_PASSWORD);
     // Back to the address asked for: the admin's landing page, which links each admin table.
     await admin.waitForURL(/\/admin$/);
-    await admin.getByRole("main").getByRole("link", { name: "People" }).click();
-    await admin.waitForURL(/\/admin\/people/);
+    await follow(admin, admin.getByRole("main").getByRole("link", { name: "People" }), /\/admin\/people/);
     await admin.getByLabel("Search by name or e-mail").fill("penhallow");
     await admin.getByRole("button", { name: "Search" }).click();
     await admin.waitForURL(/q=penhallow/);
@@ -172,9 +171,41 @@ describe("accounts in a real browser", () => {
     await admin.getByText(`${newcomer.name} is now a teacher.`).waitFor();
 
     // A server action made the change; the person's pages are rendered by other server code of the
-    // same process, which must not answer from the session as it was (lib/auth/session-cache.ts).
+    // same process, which must not answer from the session as it was (lib/auth/session-cache.ts), nor
+    // may another web process (lib/auth/session-notices.ts).
     await person.goto(`${BASE_URL}/teach`);
     expect(await person.getByRole("heading", { level: 1 }).first().textContent()).toBe("Your students");
     await Promise.all([person.context().close(), admin.context().close()]);
+  });
+
+  it("signs out in every web process at once (npm start runs one per CPU)", async () => {
+    const context = await browser.newContext();
+    const page = await context.newPage();
+    await page.goto(`${BASE_URL}/sign-in`);
+    await signIn(page, STUDENTS[5].email, DEMO_PASSWORD);
+    await page.waitForURL(`${BASE_URL}/learn`);
+    const session = (await context.cookies()).find((c) => c.name === "rosinwood_session")?.value;
+    expect(session).toBeTruthy();
+    // Each request on a connection of its own: node:cluster hands new connections to the processes
+    // in turn, so every process looks the session up and keeps it (lib/auth/session-cache.ts).
+    const ask = (path: string, method = "GET") =>
+      new Promise<number>((resolve, reject) => {
+        request(`${BASE_URL}${path}`, { method, agent: false, headers: { cookie: `rosinwood_session=${session}` } }, (res) => {
+          res.resume();
+          resolve(res.statusCode ?? 0);
+        })
+          .on("error", reject)
+          .end();
+      });
+    const eight = async () => {
+      const out: number[] = [];
+      for (let i = 0; i < 8; i++) out.push(await ask("/api/courses/mine"));
+      return out;
+    };
+    expect(await eight()).toEqual(Array(8).fill(200));
+    expect(await ask("/api/auth/sign-out", "POST")).toBe(303);
+    // The old cookie, sent again: no process may still answer from the session it kept.
+    expect(await eight()).toEqual(Array(8).fill(401));
+    await context.close();
   });
 });

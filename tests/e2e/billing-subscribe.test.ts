@@ -2,7 +2,7 @@ import { sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Page } from "playwright-core";
 import { connect } from "@/db/client";
-import { BASE_URL, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, launch, screenshot } from "./helpers/browser";
 import { mailedLink } from "./helpers/mail-link";
 
 // Issue 7's subscription in Debian's Chromium, against the app and the Stripe stand-in that
@@ -38,8 +38,7 @@ describe("subscribing in a real browser", () => {
   it("signs up and confirms the address from the e-mail", async () => {
     const started = Date.now() - 1000;
     await page.goto(`${BASE_URL}/plans`);
-    await page.getByRole("link", { name: "Choose Monthly membership" }).click();
-    await page.waitForURL(`${BASE_URL}/sign-up`);
+    await follow(page, page.getByRole("link", { name: "Choose Monthly membership" }), /\/sign-up$/);
     await page.getByLabel("Your name").fill(newcomer.name);
     await page.getByLabel("E-mail address").fill(newcomer.email);
     await page.getByLabel("Password").fill(newcomer.password);
@@ -72,8 +71,7 @@ describe("subscribing in a real browser", () => {
     await locked.waitFor();
     expect(await locked.locator("[data-locked-reason]").textContent()).toMatch(/membership plan/);
     await screenshot(page, "billing-ladder-before");
-    await page.getByRole("link", { name: "Choose a membership plan" }).click();
-    await page.waitForURL(/\/plans/);
+    await follow(page, page.getByRole("link", { name: "Choose a membership plan" }), /\/plans/);
   });
 
   it("shows a clear message for a declined card and opens nothing", async () => {
@@ -94,14 +92,12 @@ describe("subscribing in a real browser", () => {
     // The welcome page waits for Stripe's webhook to write the membership, then goes to the course.
     await page.waitForURL(`${BASE_URL}/learn/courses/first-steps`, { timeout: 60_000 });
     await page.getByRole("heading", { level: 1, name: "First Steps on the Fiddle" }).waitFor();
-    await page.getByRole("link", { name: `Practise ${MEMBER_RUNG}` }).click();
-    await page.waitForURL(/\/learn\/tunes\//);
+    await follow(page, page.getByRole("link", { name: `Practise ${MEMBER_RUNG}` }), /\/learn\/tunes\//);
     await page.getByRole("heading", { level: 1, name: new RegExp(MEMBER_RUNG) }).waitFor();
     await screenshot(page, "billing-member-rung");
     await page.goto(`${BASE_URL}/learn/billing`);
     expect(await page.getByTestId("membership-status").textContent()).toBe("Active");
-    await page.getByRole("link", { name: /^Receipt / }).first().click();
-    await page.waitForURL(/\/learn\/billing\/receipts\//);
+    await follow(page, page.getByRole("link", { name: /^Receipt / }).first(), /\/learn\/billing\/receipts\//);
     await page.getByRole("heading", { level: 1, name: /^Receipt / }).waitFor();
     expect(await page.getByText("£18.00").count()).toBeGreaterThan(0);
     await screenshot(page, "billing-receipt");

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { eq } from "drizzle-orm";
+import { eq, sql } from "drizzle-orm";
+import postgres from "postgres";
 import { authWorld, TEST_APP_URL, type AuthWorld } from "./helpers/auth-world";
 import { rateLimits, sessions } from "@/db/schema";
 import { connect } from "@/db/client";
@@ -181,5 +182,51 @@ describe("the session cache (lib/auth/session-cache.ts)", () => {
     user.attributes.role = "admin";
     session.expiresAt = new Date(0);
     expect((await w.context(cookie)).ctx.user?.role).toBe("student");
+  });
+});
+
+describe("session notices between app processes (lib/auth/session-notices.ts)", () => {
+  const within = async (ms: number, done: () => boolean) => {
+    for (const end = Date.now() + ms; !done(); ) {
+      if (Date.now() > end) return false;
+      await new Promise((r) => setTimeout(r, 10));
+    }
+    return true;
+  };
+
+  it("forgets at once a person or a session another process announces", async () => {
+    const C = await import("@/lib/auth/session-cache");
+    const N = await import("@/lib/auth/session-notices");
+    C.resetSessionCache();
+    const p = await w.person("student");
+    const cookie = await w.cookieFor(p.id);
+    const sessionId = cookie.split("=")[1];
+    expect((await w.context(cookie)).ctx.user?.id).toBe(p.id);
+    await N.sessionNoticesReady();
+    expect(C.cachedSession(sessionId)).toBeDefined();
+    // Another process (another connection) announces a change to this person.
+    await w.db.execute(sql`select pg_notify('rosinwood_session_cache', ${JSON.stringify({ user: p.id })})`);
+    expect(await within(2000, () => C.cachedSession(sessionId) === undefined)).toBe(true);
+    expect((await w.context(cookie)).ctx.user?.id).toBe(p.id); // looked up again, cached again
+    await w.db.execute(sql`select pg_notify('rosinwood_session_cache', ${JSON.stringify({ session: sessionId })})`);
+    expect(await within(2000, () => C.cachedSession(sessionId) === undefined)).toBe(true);
+  });
+
+  it("announces what this process changes: a sign-out and a role change", async () => {
+    const heard: string[] = [];
+    const raw = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+    await raw.listen("rosinwood_session_cache", (payload) => heard.push(payload));
+    try {
+      const admin = await w.person("admin");
+      const p = await w.person("student");
+      const cookie = await w.cookieFor(p.id);
+      await w.lucia().invalidateSession(cookie.split("=")[1]);
+      const { changeRole } = await import("@/lib/auth/people");
+      expect((await changeRole((await w.context(await w.cookieFor(admin.id))).ctx, { userId: p.id, role: "teacher" })).status).toBe(200);
+      const want = [JSON.stringify({ session: cookie.split("=")[1] }), JSON.stringify({ user: p.id })];
+      expect(await within(2000, () => want.every((x) => heard.includes(x)))).toBe(true);
+    } finally {
+      await raw.end({ timeout: 5 });
+    }
   });
 });
