@@ -5,7 +5,8 @@ import { and, eq, sql, type SQL } from "drizzle-orm";
 import type { Tx as Db } from "./auth";
 import { payments, plans, users } from "../schema";
 import type { PaymentsQuery } from "@/lib/billing/admin/params";
-import { after, contains, countOf, dayRange, nameOrEmail, offsetOf, ordering, pageOf, textOf, type Cursor, type SortKey } from "@/lib/billing/admin/sql";
+import { nobody, payerCondition, payerFilter, type PayerFilter } from "./payer-search";
+import { after, countOf, dayRange, nameOrEmail, offsetOf, ordering, pageOf, textOf, type Cursor, type SortKey } from "@/lib/billing/admin/sql";
 
 export type { Cursor };
 
@@ -42,53 +43,6 @@ function paymentsWhere(q: PaymentsQuery, payer: SQL | undefined): SQL | undefine
     payer,
   );
 }
-
-/**
- * How a name-or-address search reaches the payments. Measured on bench-payments' 200,000 payments and
- * 20,000 people (the page statement alone, one at a time, this machine):
- * - **people**: few match, so their ids are read first (users' trigram indexes) and their payments
- *   found by person (payments_user_created_idx): one person 1.1 ms, 200 people 1.8 ms;
- * - **walk**: many match, so the walk in the table's order tests the payment's own copy of the payer's
- *   name and address inside the index (payer_search, migration 0005): 800 people 0.8 ms, 11,000
- *   people 0.3 ms, where testing each payer in users took 4–9 ms. The walk slows as matches thin out
- *   (200 people 3.4 ms, none 6 ms) and reading people slows as they grow (800: 5 ms), hence the choice.
- * Both give the same rows: triggers keep payer_search in step with users, and ILIKE compares the
- * lower-cased text in a multibyte encoding (from memory of PostgreSQL's like.c), as lower() … LIKE does.
- */
-export type PayerFilter = { kind: "everyone" } | { kind: "people"; ids: string[] } | { kind: "walk"; pattern: string };
-
-/** The walk pays from this share of everyone matching (the crossover measured between 1 % and 4 %). */
-const WALK_SHARE = 0.02;
-const WALK_MIN = 100;
-
-let people = { n: 0, at: -Infinity };
-/** PostgreSQL's estimate of how many people there are (pg_class.reltuples, kept by autovacuum; −1 before the first ANALYZE), read at most every five minutes: it only steers the choice. */
-async function peopleEstimate(db: Db): Promise<number> {
-  if (performance.now() - people.at > 300_000) {
-    const [row] = await db.execute<{ n: number }>(sql`select greatest(reltuples, 0)::int as n from pg_class where oid = 'users'::regclass`);
-    people = { n: Number(row?.n ?? 0), at: performance.now() };
-  }
-  return people.n;
-}
-
-/** The search's form (see PayerFilter). `walkFrom` (tests) overrides how many matching people make it a walk. */
-export async function payerFilter(db: Db, q: string | undefined, walkFrom?: number): Promise<PayerFilter> {
-  const search = nameOrEmail(q);
-  if (!search || !q) return { kind: "everyone" };
-  const enough = walkFrom ?? Math.max(WALK_MIN, Math.ceil(WALK_SHARE * (await peopleEstimate(db))));
-  const found = enough > 0 ? await db.select({ id: users.id }).from(users).where(search).limit(enough) : [];
-  if (found.length < enough) return { kind: "people", ids: found.map((r) => r.id) };
-  return { kind: "walk", pattern: contains(q) };
-}
-
-function payerCondition(f: PayerFilter): SQL | undefined {
-  // One array parameter rather than a parameter per person; the ids are uuids from the database.
-  if (f.kind === "people") return sql`${payments.userId} = any(${`{${f.ids.join(",")}}`}::uuid[])`;
-  if (f.kind === "walk") return sql`${payments.payerSearch} like lower(${f.pattern})`;
-  return undefined;
-}
-
-const nobody = (f: PayerFilter) => f.kind === "people" && f.ids.length === 0;
 
 export type PaymentRow = Awaited<ReturnType<typeof listPayments>>["rows"][number];
 

@@ -4,7 +4,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq, sql } from "drizzle-orm";
 import { payments, users } from "@/db/schema";
-import { countPayments, listPayments, payerFilter } from "@/db/queries/admin-payments";
+import { countPayments, listPayments } from "@/db/queries/admin-payments";
+import { payerFilter } from "@/db/queries/payer-search";
 import { paymentsQuery } from "@/lib/billing/admin/params";
 import { createTestDatabase } from "./helpers/db";
 
@@ -47,5 +48,17 @@ describe("the payments' search copy of the payer", () => {
     await t.db.execute(sql`update payments set user_id = ${other.id} where stripe_invoice_id = 'in_search_1'`);
     expect(await walkFinds("yelland")).toEqual({ rows: 1, total: 1 });
     expect(await walkFinds("brisk")).toEqual({ rows: 2, total: 2 });
+  });
+
+  it("keeps only the choice of form: a person added after it is found on the next page", async () => {
+    const q = paymentsQuery.parse({ q: "tremayne" });
+    expect((await listPayments(t.db, q)).rows).toHaveLength(0); // counts nobody, keeps "people"
+    const kept = await payerFilter(t.db, "TREMAYNE");
+    expect(kept.kind).toBe("people");
+    expect("ids" in kept).toBe(false);
+    const [p] = await t.db.insert(users).values({ name: "Morwenna Tremayne", email: "morwenna@search.example", role: "student" }).returning();
+    await t.db.insert(payments).values({ userId: p.id, stripeInvoiceId: "in_search_fresh", kind: "new", amount: 1800, currency: "GBP", status: "paid", createdAt: new Date() });
+    expect((await listPayments(t.db, q)).rows.map((r) => r.name)).toEqual(["Morwenna Tremayne"]);
+    expect(await countPayments(t.db, q)).toBe(1);
   });
 });
