@@ -1,5 +1,6 @@
 // What bench-payments.ts (in-process) and bench-payments-http.ts (over HTTP) share: the load's shape,
 // the cases, the check of each answer and the report of each case.
+import { createHash } from "node:crypto";
 import { performance } from "node:perf_hooks";
 
 export const CONCURRENCY = 20;
@@ -40,4 +41,17 @@ export function report(c: Case, alone: { xs: number[]; answer: string }, rounds:
   console.log(`  one at a time (${WARMUP}): p50 ${pct(xs, 50).toFixed(1)} ms  p95 ${pct(xs, 95).toFixed(1)} ms`);
   console.log(`  ${rounds.length} rounds of ${roundWords}, ${CONCURRENCY} at once: p95 by round ${rounds.map((r) => pct(r.times, 95).toFixed(1)).join(" / ")} ms`);
   console.log(`  all ${all.length}, ${rate.toFixed(0)} req/s: p50 ${pct(all, 50).toFixed(1)} ms  p95 ${pct(all, 95).toFixed(1)} ms  p99 ${pct(all, 99).toFixed(1)} ms${c.target ? "  (target p95 < 100 ms)" : ""}`);
+}
+
+/**
+ * The machine's speed at this moment: a fixed piece of work on one CPU (200,000 chained SHA-256
+ * digests), timed. The benchmark's machine is shared, and its speed was seen to move by half from one
+ * quarter of an hour to the next; this number, printed before and after the measurements, says how
+ * fast the machine was while they ran, so runs can be compared.
+ */
+export function cpuCheck(): string {
+  const t0 = performance.now();
+  let h = "rosinwood";
+  for (let i = 0; i < 200_000; i++) h = createHash("sha256").update(h).digest("hex");
+  return `CPU check (200,000 SHA-256 digests on one CPU): ${(performance.now() - t0).toFixed(0)} ms`;
 }

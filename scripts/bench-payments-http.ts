@@ -5,7 +5,7 @@ import { Agent, request } from "node:http";
 import { createServer } from "node:net";
 import { availableParallelism, cpus, tmpdir } from "node:os";
 import { join } from "node:path";
-import { CONCURRENCY, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
+import { CONCURRENCY, cpuCheck, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 8); // each wrk run
 
@@ -100,6 +100,7 @@ export async function overHttp(cases: Case[], cookie: string) {
     const rounds = new Map<Case, Round[]>(all.map((a) => [a.c, []]));
     for (let r = 0; r < ROUNDS; r++) for (const a of all) rounds.get(a.c)!.push(wrk(`${base}${a.path}`, a.headers, SECONDS, script));
     for (const { c } of all) report(c, alone.get(c)!, rounds.get(c)!, `${SECONDS} s`);
+    console.log(`\nafter the rounds: ${cpuCheck()}`);
   } finally {
     if (server.pid) process.kill(-server.pid, "SIGTERM");
     rmSync(dir, { recursive: true, force: true });

@@ -12,7 +12,7 @@ import { randomBytes } from "node:crypto";
 import { cpus, loadavg } from "node:os";
 import { performance } from "node:perf_hooks";
 import postgres from "postgres";
-import { answerWords, CONCURRENCY, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
+import { answerWords, CONCURRENCY, cpuCheck, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
 import { overHttp } from "./bench-payments-http";
 
 const PAYMENTS = Number(process.env.BENCH_PAYMENTS ?? 200_000);
@@ -132,7 +132,7 @@ async function main() {
       { label: "count: paid, monthly, 92 days, name or e-mail contains \"wood\"", path: "admin/payments/count", query: { ...filtered, q: "wood" } },
       { label: "count: paid, monthly, 92 days", path: "admin/payments/count", query: filtered },
     ];
-    console.log(`machine: ${cpus().length} CPUs, load average ${loadavg().map((l) => l.toFixed(1)).join(" ")}`);
+    console.log(`machine: ${cpus().length} CPUs, load average ${loadavg().map((l) => l.toFixed(1)).join(" ")}; ${cpuCheck()}`);
 
     // In this process: the route handlers called directly (guard, validation, queries, JSON).
     const { GET: page } = await import("@/app/api/admin/payments/route");
