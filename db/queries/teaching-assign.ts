@@ -30,8 +30,16 @@ export async function insertAssignment(db: Tx, v: typeof assignments.$inferInser
   return (await db.insert(assignments).values(v).returning({ id: assignments.id }))[0].id;
 }
 
-export async function insertAssignmentStudent(db: Tx, assignmentId: string, studentId: string): Promise<string> {
-  return (await db.insert(assignmentStudents).values({ assignmentId, studentId }).returning({ id: assignmentStudents.id }))[0].id;
+/** One assignment's rows for its students, in one statement; each student's new row id, in the order given. */
+export async function insertAssignmentStudents(db: Tx, assignmentId: string, studentIds: string[]): Promise<string[]> {
+  if (!studentIds.length) return [];
+  const rows = await db
+    .insert(assignmentStudents)
+    .values(studentIds.map((studentId) => ({ assignmentId, studentId })))
+    .returning({ id: assignmentStudents.id, studentId: assignmentStudents.studentId });
+  // RETURNING's order is not promised to follow VALUES' (PostgreSQL docs: INSERT), so match by student.
+  const byStudent = new Map(rows.map((r) => [r.studentId, r.id]));
+  return studentIds.map((s) => byStudent.get(s)!);
 }
 
 /** For each of the students' assignments, stage 1 open from now and the rest locked (shared design), in one statement. */

@@ -9,7 +9,7 @@ import {
   deleteStageStates,
   findAssignment,
   insertAssignment,
-  insertAssignmentStudent,
+  insertAssignmentStudents,
   insertStageStates,
   lockAssignment,
   studentsOfAssignment,
@@ -132,17 +132,16 @@ export async function createAssignment(db: Tx, me: Manager, input: AssignmentCre
       createdAt: now,
       updatedAt: now,
     });
-    const assignmentStudentIds: string[] = [];
-    for (const s of students) {
-      const asId = await insertAssignmentStudent(tx, id, s.id);
-      await insertStageStates(tx, [asId], stages.length, now);
-      await mailNew(tx, s, asId, {
+    // Every student's row, then every stage row, each in one statement; then one e-mail each.
+    const assignmentStudentIds = await insertAssignmentStudents(tx, id, students.map((s) => s.id));
+    await insertStageStates(tx, assignmentStudentIds, stages.length, now);
+    for (const [i, s] of students.entries()) {
+      await mailNew(tx, s, assignmentStudentIds[i], {
         teacherName: teacher?.name ?? "Your teacher",
         tuneTitle: tune.title,
         dueAt: due,
         note: input.note,
       });
-      assignmentStudentIds.push(asId);
     }
     return { id, assignmentStudentIds };
   });

@@ -3,7 +3,7 @@
 // Stage plans, at creation and changed later: teaching-assign-plan.test.ts.
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { checkIns, emailOutbox } from "@/db/schema";
+import { assignmentStudents, checkIns, emailOutbox } from "@/db/schema";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
 import { assignBody, createAssignment, LIST, ONE, type Classroom, type Refusal, openClassroom } from "./helpers/assign-calls";
 import { dueIn, type TeachingWorld } from "./helpers/teaching-world";
@@ -27,6 +27,9 @@ describe("creating an assignment", () => {
       const mails = (await w.mailsTo(s.email)).filter((m) => m.template === "assignment-new");
       const forThis = mails.filter((m) => made.assignmentStudentIds.some((id) => m.dedupeKey === `assignment-new:${id}`));
       expect(forThis).toHaveLength(1);
+      // The e-mail names this student's own assignment row (the rows are inserted together).
+      const asId = forThis[0].dedupeKey?.slice("assignment-new:".length) ?? "";
+      expect((await w.db.select({ s: assignmentStudents.studentId }).from(assignmentStudents).where(eq(assignmentStudents.id, asId)))[0]?.s).toBe(s.id);
       expect(forThis[0].payload).toMatchObject({
         studentName: s.name,
         note: "Mind the rolls.",
