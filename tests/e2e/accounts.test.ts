@@ -22,6 +22,15 @@ async function signIn(page: Page, email: string, password: string) {
   await page.getByRole("button", { name: "Sign in" }).click();
 }
 
+/** A page of its own (a fresh context) signed in through the form, once it has reached `home`. */
+async function signedIn(email: string, password: string, home: string): Promise<Page> {
+  const page = await (await browser.newContext()).newPage();
+  await page.goto(`${BASE_URL}/sign-in`);
+  await signIn(page, email, password);
+  await page.waitForURL(`${BASE_URL}${home}`);
+  return page;
+}
+
 describe("accounts in a real browser", () => {
   it("signs up, confirms the address from the e-mail, signs in, signs out and signs back in", async () => {
     const page = await browser.newPage();
@@ -85,11 +94,7 @@ describe("accounts in a real browser", () => {
   });
 
   it("a teacher invites a student by e-mail; the student accepts and joins the roster", async () => {
-    const teacherContext = await browser.newContext();
-    const teacher = await teacherContext.newPage();
-    await teacher.goto(`${BASE_URL}/sign-in`);
-    await signIn(teacher, TEACHERS[0].email, DEMO_PASSWORD);
-    await teacher.waitForURL(`${BASE_URL}/teach`);
+    const teacher = await signedIn(TEACHERS[0].email, DEMO_PASSWORD, "/teach");
     await teacher.getByRole("link", { name: "Invite students" }).click();
     const invited = `rook.${stamp}@newcomers.example`;
     const sent = Date.now() - 1000;
@@ -119,15 +124,11 @@ describe("accounts in a real browser", () => {
     await again.goto(await mailedLink(invited, "/accept-invitation", { after: sent }));
     await again.locator("main", { hasText: /expired or has already been used/ }).waitFor();
     expect(await again.locator("main").textContent()).toMatch(/expired or has already been used/);
-    await Promise.all([teacherContext.close(), studentContext.close(), again.context().close()]);
+    await Promise.all([teacher.context().close(), studentContext.close(), again.context().close()]);
   });
 
   it("each role sees only its own area", async () => {
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await page.goto(`${BASE_URL}/sign-in`);
-    await signIn(page, STUDENTS[0].email, DEMO_PASSWORD);
-    await page.waitForURL(`${BASE_URL}/learn`);
+    const page = await signedIn(STUDENTS[0].email, DEMO_PASSWORD, "/learn");
     // Another role's area answers with the not-found page and none of its content.
     for (const [area, content] of [["/teach", "Your students"], ["/admin/people", "Invite a teacher"]]) {
       await page.goto(`${BASE_URL}${area}`);
@@ -136,7 +137,7 @@ describe("accounts in a real browser", () => {
       expect(main).toMatch(/could not find that page/);
       expect(main).not.toContain(content);
     }
-    await context.close();
+    await page.context().close();
 
     const admin = await (await browser.newContext()).newPage();
     await admin.goto(`${BASE_URL}/admin`);
@@ -155,10 +156,7 @@ describe("accounts in a real browser", () => {
   });
 
   it("a role the admin changes holds on the person's very next page, though their session was just looked up", async () => {
-    const person = await (await browser.newContext()).newPage();
-    await person.goto(`${BASE_URL}/sign-in`);
-    await signIn(person, newcomer.email, "hazel-new-bow-hair"); // the password the reset test set
-    await person.waitForURL(`${BASE_URL}/learn`);
+    const person = await signedIn(newcomer.email, "hazel-new-bow-hair", "/learn"); // the password the reset test set
 
     const admin = await (await browser.newContext()).newPage();
     await admin.goto(`${BASE_URL}/admin/people?q=${encodeURIComponent(newcomer.email)}`);
@@ -179,12 +177,8 @@ describe("accounts in a real browser", () => {
   });
 
   it("signs out in every web process at once (npm start runs one per CPU)", async () => {
-    const context = await browser.newContext();
-    const page = await context.newPage();
-    await page.goto(`${BASE_URL}/sign-in`);
-    await signIn(page, STUDENTS[5].email, DEMO_PASSWORD);
-    await page.waitForURL(`${BASE_URL}/learn`);
-    const session = (await context.cookies()).find((c) => c.name === "rosinwood_session")?.value;
+    const page = await signedIn(STUDENTS[5].email, DEMO_PASSWORD, "/learn");
+    const session = (await page.context().cookies()).find((c) => c.name === "rosinwood_session")?.value;
     expect(session).toBeTruthy();
     // Each request on a connection of its own: node:cluster hands new connections to the processes
     // in turn, so every process looks the session up and keeps it (lib/auth/session-cache.ts).
@@ -206,6 +200,6 @@ describe("accounts in a real browser", () => {
     expect(await ask("/api/auth/sign-out", "POST")).toBe(303);
     // The old cookie, sent again: no process may still answer from the session it kept.
     expect(await eight()).toEqual(Array(8).fill(401));
-    await context.close();
+    await page.context().close();
   });
 });
