@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { request } from "node:http";
 import type { Browser, Page } from "playwright-core";
-import { BASE_URL, follow, hydrated, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, hydrated, launch, press, screenshot } from "./helpers/browser";
 import { mailedLink } from "./helpers/mail-link";
 import { DEMO_PASSWORD, STUDENTS, TEACHERS } from "@/db/seed-data/people";
 
@@ -165,8 +165,10 @@ describe("accounts in a real browser", () => {
     await person.reload(); // the person's session, looked up again moments before the change
     await hydrated(admin.getByRole("button", { name: "Save" })); // a click while the page hydrates can be lost
     await admin.getByLabel(`Role of ${newcomer.name}`).selectOption("teacher");
-    await admin.getByRole("button", { name: "Save" }).click();
-    await admin.getByText(`${newcomer.name} is now a teacher.`).waitFor();
+    // A change of role is safe to repeat: a second press, if the first answer never showed, says "already".
+    const answer = admin.getByText(new RegExp(`${newcomer.name} is (now|already) a teacher\\.`));
+    const tries = await press(admin.getByRole("button", { name: "Save" }), answer);
+    if (tries === 1) expect(await answer.textContent()).toBe(`${newcomer.name} is now a teacher.`);
 
     // A server action made the change; the person's pages are rendered by other server code of the
     // same process, which must not answer from the session as it was (lib/auth/session-cache.ts), nor

@@ -62,3 +62,21 @@ export async function follow(page: Page, link: Locator, address: RegExp, timeout
     console.error(`a click on a link to ${address} did not navigate within ${timeout} ms (at ${page.url()}); clicking again`);
   }
 }
+
+/**
+ * Clicks a form's button and waits for its answer on the page; follow()'s counterpart for a server
+ * action. The same Next.js 15.5 stall can leave a submitted action's answer unshown (the admin's
+ * role change, twice in the fifth session's full runs and once in the sixth; no server error). A
+ * person would press again, and so does this, up to twice more, saying so on stderr. The action must
+ * be safe to repeat; the answer locator should accept what a repeat says. Returns the attempt that
+ * showed the answer.
+ */
+export async function press(button: Locator, answer: Locator, timeout = 10_000): Promise<number> {
+  await hydrated(button);
+  for (let attempt = 1; ; attempt++) {
+    await button.click();
+    if (await answer.waitFor({ timeout }).then(() => true, () => false)) return attempt;
+    if (attempt === 3) throw new Error(`no answer after pressing the button three times (at ${button.page().url()})`);
+    console.error(`a press of a button showed no answer within ${timeout} ms (at ${button.page().url()}); pressing again`);
+  }
+}
