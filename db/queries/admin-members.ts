@@ -63,12 +63,14 @@ export async function listMemberships(db: Db, q: MembershipsQuery) {
     .where(membershipsWhere(q))
     .orderBy(...ordering(MEMBERSHIP_SORT[q.sort], subscriptions.id, q.dir))
     .limit(q.pageSize + 1)
-    .offset(offsetOf(q));
+    .offset(offsetOf(q))
+    .prepare("admin_table_page")
+    .execute();
   return pageOf(found.map(withoutCursor), q.pageSize);
 }
 
 export async function countMemberships(db: Db, q: MembershipsQuery): Promise<number> {
-  const [{ n }] = await db.select({ n: countOf }).from(subscriptions).innerJoin(users, eq(users.id, subscriptions.userId)).where(membershipsWhere(q));
+  const [{ n }] = await db.select({ n: countOf }).from(subscriptions).innerJoin(users, eq(users.id, subscriptions.userId)).where(membershipsWhere(q)).prepare("admin_table_count").execute();
   return n;
 }
 
@@ -133,12 +135,14 @@ export async function listEnrolments(db: Db, q: EnrolmentsQuery) {
     .where(enrolmentsWhere(q))
     .orderBy(...ordering(ENROLMENT_SORT[q.sort], enrolments.id, q.dir))
     .limit(q.pageSize + 1)
-    .offset(offsetOf(q));
+    .offset(offsetOf(q))
+    .prepare("admin_table_page")
+    .execute();
   return pageOf(found.map(withoutCursor), q.pageSize);
 }
 
 export async function countEnrolments(db: Db, q: EnrolmentsQuery): Promise<number> {
-  const [{ n }] = await db.select({ n: countOf }).from(enrolments).innerJoin(users, eq(users.id, enrolments.userId)).where(enrolmentsWhere(q));
+  const [{ n }] = await db.select({ n: countOf }).from(enrolments).innerJoin(users, eq(users.id, enrolments.userId)).where(enrolmentsWhere(q)).prepare("admin_table_count").execute();
   return n;
 }
 

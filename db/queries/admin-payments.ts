@@ -65,7 +65,9 @@ async function pageQuery(db: Db, q: PaymentsQuery, payer: SQL | undefined) {
     .innerJoin(users, eq(users.id, payments.userId))
     .leftJoin(plans, eq(plans.id, payments.planId))
     .where(sql`${payments.id} = any(array(${ids}))`)
-    .orderBy(...order);
+    .orderBy(...order)
+    .prepare("admin_table_page")
+    .execute();
 }
 
 /**
@@ -87,7 +89,7 @@ export async function listPayments(db: Db, q: PaymentsQuery, filter?: PayerFilte
 export async function countPayments(db: Db, q: PaymentsQuery): Promise<number> {
   const search = nameOrEmail(q.q);
   const payer = search && sql`${payments.userId} in (select ${users.id} from ${users} where ${search})`;
-  const [{ n }] = await db.select({ n: countOf }).from(payments).where(paymentsWhere(q, payer));
+  const [{ n }] = await db.select({ n: countOf }).from(payments).where(paymentsWhere(q, payer)).prepare("admin_table_count").execute();
   return n;
 }
 

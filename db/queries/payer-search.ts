@@ -52,7 +52,7 @@ export async function payerFilter(db: Db, q: string | undefined, walkFrom?: numb
   if (kept === "walk") return { kind: "walk", pattern: contains(q) };
   if (kept === "people") return { kind: "people", search };
   const enough = walkFrom ?? Math.max(WALK_MIN, Math.ceil(WALK_SHARE * (await peopleEstimate(db))));
-  const found = enough > 0 ? await db.select({ id: users.id }).from(users).where(search).limit(enough) : [];
+  const found = enough > 0 ? await db.select({ id: users.id }).from(users).where(search).limit(enough).prepare("payer_people").execute() : [];
   const kind = found.length < enough ? "people" : "walk";
   if (walkFrom === undefined) chosen.set(key, kind);
   return kind === "people" ? { kind, ids: found.map((r) => r.id) } : { kind, pattern: contains(q) };

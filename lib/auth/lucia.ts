@@ -25,7 +25,9 @@ class SessionAdapter extends DrizzlePostgreSQLAdapter {
       .select({ id: sessions.id, userId: sessions.userId, expiresAt: sessions.expiresAt, name: users.name, email: users.email, role: users.role, disabled: users.disabled })
       .from(sessions)
       .innerJoin(users, eq(users.id, sessions.userId))
-      .where(eq(sessions.id, sessionId));
+      .where(eq(sessions.id, sessionId))
+      .prepare("session_and_user")
+      .execute();
     if (!row) return [null, null];
     const { id, userId, expiresAt, ...attributes } = row;
     const found: [DatabaseSession, DatabaseUser] = [{ id, userId, expiresAt, attributes: {} }, { id: userId, attributes }];
