@@ -8,6 +8,7 @@ import { teachingRows } from "./helpers/teaching-matrix-rows";
 import { learningRows } from "./helpers/learning-matrix-rows";
 import { recordingsRows } from "./helpers/recordings-matrix-rows";
 import { billingRows } from "./helpers/billing-matrix-rows";
+import { routeModule } from "./helpers/route-module";
 import type { RequestContext } from "@/lib/auth/context";
 import type { GuardedAction } from "@/lib/auth/guard";
 
@@ -31,11 +32,12 @@ const act = (name: keyof typeof import("@/lib/auth/actions")) => (c: Call, input
   (A[name] as GuardedAction)(c.ctx, input).then((s) => s.status);
 
 async function route(file: string, method: string, c: Call, o: { query?: string; params?: Record<string, string> } = {}) {
-  const mod = (await import(/* @vite-ignore */ path.resolve("app/api", file, "route.ts"))) as Record<string, (r: Request, a: unknown) => Promise<Response>>;
+  const handler = (await routeModule(file))[method];
+  if (!handler) throw new Error(`${method} ${file} does not exist`);
   const headers = new Headers({ origin: TEST_APP_URL, "x-forwarded-for": `192.0.2.${c.n % 250}` });
   if (c.cookie) headers.set("cookie", c.cookie);
   const req = new Request(`${TEST_APP_URL}/api/${file}${o.query ?? ""}`, { method, headers });
-  return (await mod[method](req, { params: Promise.resolve(o.params ?? {}) })).status;
+  return (await handler(req, { params: Promise.resolve(o.params ?? {}) })).status;
 }
 
 /** A fresh address for calls that create or use up something. */
@@ -166,12 +168,18 @@ describe("authorization matrix", () => {
     }
   }
 
-  it("has a row for every route handler method and every server action in app/", async () => {
-    const files = (function walk(dir: string): string[] {
-      return readdirSync(dir).flatMap((f) => (statSync(path.join(dir, f)).isDirectory() ? walk(path.join(dir, f)) : [path.join(dir, f)]));
-    })("app");
+  it("has a row for every route handler method, API route method and server action", async () => {
+    const walk = (dir: string): string[] =>
+      readdirSync(dir).flatMap((f) => (statSync(path.join(dir, f)).isDirectory() ? walk(path.join(dir, f)) : [path.join(dir, f)]));
     const exist: string[] = [];
-    for (const file of files) {
+    // Pages Router API routes (lib/http/pages-api.ts): the default export serves the named methods.
+    for (const file of walk("pages/api")) {
+      const text = readFileSync(file, "utf8");
+      const url = "/" + file.split(path.sep).slice(1).join("/").replace(/\.ts$/, "").replace(/\/index$/, "");
+      expect(text, `${file} serves its methods through pagesApi`).toMatch(/export default pagesApi\(\{/);
+      for (const m of text.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)) exist.push(`${m[1]} ${url}`);
+    }
+    for (const file of walk("app")) {
       const text = readFileSync(file, "utf8");
       if (/\/route\.ts$/.test(file)) {
         const url = "/" + path.dirname(file).split(path.sep).slice(1).join("/");

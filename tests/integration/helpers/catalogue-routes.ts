@@ -1,26 +1,25 @@
 // Calling the catalogue's route handlers as a browser would (same origin, JSON body), and the
 // rows they add to the authorization matrix (tests/integration/authorization-matrix.test.ts).
-import path from "node:path";
 import type { Db } from "@/db/client";
 import { marginNotes } from "@/db/schema";
 import { TEST_APP_URL } from "./auth-world";
 import { makeCatalogueFixture, type CatalogueFixture } from "./catalogue-fixture";
+import { routeModule } from "./route-module";
 
-type Handler = (r: Request, a: { params: Promise<Record<string, string>> }) => Promise<Response>;
-
-/** Calls app/api/<file>/route.ts's method handler; `file` keeps its [brackets], params fill them. */
+/** Calls the method handler serving /api/<file> (helpers/route-module.ts); `file` keeps its [brackets], params fill them. */
 export async function callRoute(
   file: string,
   method: "GET" | "POST" | "PATCH" | "DELETE",
   o: { cookie?: string; params?: Record<string, string>; body?: unknown; ip?: string } = {},
 ): Promise<Response> {
-  const mod = (await import(/* @vite-ignore */ path.resolve("app/api", file, "route.ts"))) as Record<string, Handler>;
+  const handler = (await routeModule(file))[method];
+  if (!handler) throw new Error(`${method} ${file} does not exist`);
   const headers = new Headers({ origin: TEST_APP_URL, "x-forwarded-for": o.ip ?? "192.0.2.77" });
   if (o.cookie) headers.set("cookie", o.cookie);
   if (o.body !== undefined) headers.set("content-type", "application/json");
   const url = `${TEST_APP_URL}/api/${file.replace(/\[(\w+)\]/g, (_, k: string) => o.params?.[k] ?? k)}`;
   const req = new Request(url, { method, headers, body: o.body === undefined ? undefined : JSON.stringify(o.body) });
-  return mod[method](req, { params: Promise.resolve(o.params ?? {}) });
+  return handler(req, { params: Promise.resolve(o.params ?? {}) });
 }
 
 type Who = "visitor" | "student" | "teacher" | "otherTeacher" | "admin";

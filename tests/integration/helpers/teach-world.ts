@@ -1,6 +1,6 @@
 // Calls the teacher routes (app/api/teach/**) through their real guard, as a given person.
-import path from "node:path";
 import { authWorld, TEST_APP_URL, type AuthWorld } from "./auth-world";
+import { routeModule } from "./route-module";
 
 export interface TeachCall {
   cookie?: string;
@@ -11,12 +11,9 @@ export interface TeachCall {
   raw?: BodyInit;
 }
 
-type Handler = (r: Request, a: { params: Promise<Record<string, string>> }) => Promise<Response>;
-
-/** `file` is the folder under app/api, e.g. "teach/tunes/[tuneId]". */
+/** `file` is the path under /api, e.g. "teach/tunes/[tuneId]" (tests/integration/helpers/route-module.ts finds its module). */
 export async function callRoute(file: string, method: string, c: TeachCall = {}): Promise<Response> {
-  const mod = (await import(/* @vite-ignore */ path.resolve("app/api", file, "route.ts"))) as Record<string, Handler>;
-  const handler = mod[method];
+  const handler = (await routeModule(file))[method];
   if (!handler) throw new Error(`${method} ${file} does not exist`);
   const headers = new Headers({ origin: TEST_APP_URL });
   if (c.cookie) headers.set("cookie", c.cookie);
