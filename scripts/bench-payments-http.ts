@@ -87,7 +87,7 @@ export async function overHttp(cases: Case[], cookie: string) {
           .end();
       });
     const all: { c: Case; path: string; headers: Record<string, string> }[] = [
-      { c: { label: "GET /api/health (one trivial query): HTTP through Next.js on this machine", path: "health", query: {} }, path: "/api/health", headers: {} },
+      { c: { label: "GET /api/health (one trivial query; an App Router route handler): HTTP through Next.js on this machine", path: "health", query: {} }, path: "/api/health", headers: {} },
       ...cases.map((c) => ({ c, path: `/api/${c.path}?${new URLSearchParams(c.query)}`, headers: { cookie } })),
     ];
     // The server's code is compiled as it runs: warm every route at full concurrency before measuring.
