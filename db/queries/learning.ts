@@ -3,6 +3,7 @@
 import { and, asc, desc, eq, gte, inArray, isNotNull, lte, sql } from "drizzle-orm";
 import type { Tx as Db } from "./auth";
 import { isUuid } from "./catalogue";
+import { toAssignment } from "./check-in-place";
 import { assignments, assignmentStudents, checkIns, courses, grades, practiceLogs, rungs, stageStates, tunes, uploads, users } from "../schema";
 
 export async function userZone(db: Db, userId: string): Promise<string> {
@@ -122,21 +123,17 @@ export async function tuneIsTaster(db: Db, tuneId: string): Promise<boolean> {
 
 /** The latest reviewed check-ins of a student with the teacher's words. */
 export async function recentFeedback(db: Db, studentId: string, limit: number) {
-  return db
-    .select({
-      checkInId: checkIns.id,
-      status: checkIns.status,
-      feedback: checkIns.feedback,
-      reviewedAt: checkIns.reviewedAt,
-      stageIndex: stageStates.stageIndex,
-      assignmentStudentId: stageStates.assignmentStudentId,
-      tuneTitle: tunes.title,
-      reviewerName: users.name,
-    })
-    .from(checkIns)
-    .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
-    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
-    .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
+  const fields = {
+    checkInId: checkIns.id,
+    status: checkIns.status,
+    feedback: checkIns.feedback,
+    reviewedAt: checkIns.reviewedAt,
+    stageIndex: stageStates.stageIndex,
+    assignmentStudentId: stageStates.assignmentStudentId,
+    tuneTitle: tunes.title,
+    reviewerName: users.name,
+  };
+  return toAssignment(db.select(fields).from(checkIns).$dynamic())
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, checkIns.reviewedBy))
     .where(and(eq(checkIns.studentId, studentId), isNotNull(checkIns.reviewedAt), sql`coalesce(${checkIns.feedback}, '') <> ''`))

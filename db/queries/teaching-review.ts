@@ -3,6 +3,7 @@
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
 import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
+import { toAssignment } from "./check-in-place";
 
 /** Check-ins waiting for review on active assignments, oldest first. */
 const waitingOn = (teacherId: string | null) =>
@@ -10,25 +11,21 @@ const waitingOn = (teacherId: string | null) =>
 
 /** The `limit` oldest check-ins waiting on a teacher's assignments (every teacher's: null). */
 export async function waitingForReview(db: Tx, teacherId: string | null, limit: number) {
-  return db
-    .select({
-      checkInId: checkIns.id,
-      createdAt: checkIns.createdAt,
-      selfRating: checkIns.selfRating,
-      fromMemory: checkIns.fromMemory,
-      uploadId: checkIns.uploadId,
-      stageIndex: stageStates.stageIndex,
-      studentId: users.id,
-      studentName: users.name,
-      assignmentId: assignments.id,
-      stagePlan: assignments.stagePlan,
-      tuneId: tunes.id,
-      tuneTitle: tunes.title,
-    })
-    .from(checkIns)
-    .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
-    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
-    .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
+  const fields = {
+    checkInId: checkIns.id,
+    createdAt: checkIns.createdAt,
+    selfRating: checkIns.selfRating,
+    fromMemory: checkIns.fromMemory,
+    uploadId: checkIns.uploadId,
+    stageIndex: stageStates.stageIndex,
+    studentId: users.id,
+    studentName: users.name,
+    assignmentId: assignments.id,
+    stagePlan: assignments.stagePlan,
+    tuneId: tunes.id,
+    tuneTitle: tunes.title,
+  };
+  return toAssignment(db.select(fields).from(checkIns).$dynamic())
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, checkIns.studentId))
     .where(waitingOn(teacherId))
@@ -38,13 +35,7 @@ export async function waitingForReview(db: Tx, teacherId: string | null, limit: 
 
 /** How many check-ins wait on a teacher's assignments (every teacher's: null). */
 export async function countWaiting(db: Tx, teacherId: string | null): Promise<number> {
-  const [row] = await db
-    .select({ n: sql<number>`count(*)::int` })
-    .from(checkIns)
-    .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
-    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
-    .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
-    .where(waitingOn(teacherId));
+  const [row] = await toAssignment(db.select({ n: sql<number>`count(*)::int` }).from(checkIns).$dynamic()).where(waitingOn(teacherId));
   return row?.n ?? 0;
 }
 
