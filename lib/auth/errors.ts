@@ -9,6 +9,9 @@ export class HttpError extends Error {
   }
 }
 
+/** What a person is told when the server failed in a way nobody planned for (the details go to the log). */
+export const UNEXPECTED_FAILURE = "Something went wrong on our side. Please try again.";
+
 export const badRequest = (message: string, fieldErrors?: Record<string, string>) => new HttpError(400, message, fieldErrors);
 export const unauthorized = (message = "Please sign in first.") => new HttpError(401, message);
 export const forbidden = (message = "Your account can't do that.") => new HttpError(403, message);

@@ -3,7 +3,7 @@ import type { Cookie } from "lucia";
 import { env } from "@/lib/env";
 import type { ActionState } from "./action-state";
 import { loadContext, type RequestContext } from "./context";
-import { HttpError, RateLimitedError } from "./errors";
+import { HttpError, RateLimitedError, UNEXPECTED_FAILURE } from "./errors";
 import { can, type Action } from "./permissions";
 
 // The one server-side check (ENGINEERING.md): every server action and route handler is wrapped
@@ -47,7 +47,7 @@ function permissionFailure(ctx: RequestContext): HttpError {
 
 function unexpected(error: unknown): HttpError {
   console.error(error);
-  return new HttpError(500, "Something went wrong on our side. Please try again.");
+  return new HttpError(500, UNEXPECTED_FAILURE);
 }
 
 export function guardAction<S extends z.ZodType>(action: Action, schema: S, run: Run<S, ActionState | void>): GuardedAction {

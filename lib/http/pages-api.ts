@@ -11,6 +11,7 @@
 // Written here rather than taken from a package: this is the few lines of glue between Next.js's
 // two request shapes, and no package does just that.
 import type { IncomingHttpHeaders, IncomingMessage, ServerResponse } from "node:http";
+import { UNEXPECTED_FAILURE } from "@/lib/auth/errors";
 import type { GuardedRoute } from "@/lib/auth/guard";
 
 type Methods = { GET: GuardedRoute };
@@ -51,7 +52,7 @@ export function pagesApi(methods: Methods) {
     } catch (error) {
       // guardRoute answers its own failures; this is for one that escapes it (a bug), never a hung request.
       console.error(error);
-      if (!res.headersSent) answerJson(res, 500, { error: "Something went wrong on our side. Please try again." });
+      if (!res.headersSent) answerJson(res, 500, { error: UNEXPECTED_FAILURE });
       else res.destroy();
     }
   };

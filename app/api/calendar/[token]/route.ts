@@ -1,4 +1,5 @@
 import { db } from "@/db/client";
+import { UNEXPECTED_FAILURE } from "@/lib/auth/errors";
 import { calendarFeed } from "@/lib/calendar/feed";
 
 export const dynamic = "force-dynamic";
@@ -25,6 +26,6 @@ export async function GET(_req: Request, args: { params: Promise<{ token: string
     });
   } catch (error) {
     console.error(error);
-    return Response.json({ error: "Something went wrong on our side. Please try again." }, { status: 500, headers: { "cache-control": "no-store" } });
+    return Response.json({ error: UNEXPECTED_FAILURE }, { status: 500, headers: { "cache-control": "no-store" } });
   }
 }
