@@ -35,6 +35,21 @@ const paymentCols = {
   stripeInvoiceId: payments.stripeInvoiceId,
 };
 
+// The page's columns: the payer and the plan read by a scalar subquery per row rather than joined.
+// The page has at most a hundred and one rows, each a primary-key probe, and PostgreSQL then has no
+// join order to weigh: planning each execution with its values (db/client.ts) took 0.19–0.29 ms
+// instead of 0.42–0.49 ms for the page with a walk or without a search, and pgbench put the whole
+// statement 0.1–1.0 ms a request faster (bench-payments' four pages, this machine, EXPLAIN SUMMARY).
+const payerOf = (col: typeof users.name | typeof users.email) => sql<string>`(select ${col} from ${users} where ${users.id} = ${payments.userId})`;
+const pageCols = {
+  ...paymentCols,
+  userId: payments.userId,
+  name: payerOf(users.name),
+  email: payerOf(users.email),
+  plan: sql<string | null>`(select ${plans.name} from ${plans} where ${plans.id} = ${payments.planId})`,
+};
+const PAGE_ORDER: Record<PaymentsQuery["sort"], SortKey> = { ...PAYMENT_SORT, name: { expr: pageCols.name, cast: "text" } };
+
 function paymentsWhere(q: PaymentsQuery, payer: SQL | undefined): SQL | undefined {
   return and(
     q.status ? eq(payments.status, q.status) : undefined,
@@ -60,12 +75,10 @@ async function pageQuery(db: Db, q: PaymentsQuery, payer: SQL | undefined) {
   // `id = any(array(…))` rather than a join with the ids: the same plan, planned in 0.8 ms instead of
   // 1.1 (the planner weighs fewer join orders; bench-payments' page, this machine).
   return db
-    .select(paymentCols)
+    .select(pageCols)
     .from(payments)
-    .innerJoin(users, eq(users.id, payments.userId))
-    .leftJoin(plans, eq(plans.id, payments.planId))
     .where(sql`${payments.id} = any(array(${ids}))`)
-    .orderBy(...order)
+    .orderBy(...ordering(PAGE_ORDER[q.sort], payments.id, q.dir))
     .prepare("admin_table_page")
     .execute();
 }
