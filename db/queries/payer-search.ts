@@ -3,7 +3,7 @@ import { sql, type SQL } from "drizzle-orm";
 import { LRUCache } from "lru-cache";
 import type { Tx as Db } from "./auth";
 import { payments, users } from "../schema";
-import { contains, nameOrEmail } from "@/lib/billing/admin/sql";
+import { contains, nameOrEmail, nameOrEmailLike } from "@/lib/billing/admin/sql";
 import { processListener } from "../notices";
 
 /**
@@ -22,7 +22,7 @@ import { processListener } from "../notices";
 export type PayerFilter =
   | { kind: "everyone" }
   | { kind: "people"; ids: string[] }
-  | { kind: "people"; search: SQL }
+  | { kind: "people"; pattern: string } // read inside the page's statement
   | { kind: "walk"; pattern: string };
 
 /** The walk pays from this share of everyone matching (the crossover measured between 1 % and 4 %). */
@@ -86,7 +86,7 @@ export async function payerFilter(db: Db, q: string | undefined, walkFrom?: numb
   const kept = walkFrom === undefined ? cache.get(key) : undefined;
   if (kept?.kind === "walk") return { kind: "walk", pattern: contains(q) };
   if (kept?.kind === "people" && kept.ids) return { kind: "people", ids: kept.ids };
-  if (kept?.kind === "people" && !hearing()) return { kind: "people", search }; // hearing now: read the ids below
+  if (kept?.kind === "people" && !hearing()) return { kind: "people", pattern: contains(q) }; // hearing now: read the ids below
   // Kept only if no notice came while reading: a notice may be for a change the read did not see.
   const before = hearing() ? store().generation : undefined;
   const enough = walkFrom ?? Math.max(WALK_MIN, Math.ceil(WALK_SHARE * (await peopleEstimate(db))));
@@ -100,12 +100,24 @@ export async function payerFilter(db: Db, q: string | undefined, walkFrom?: numb
   return { kind: "people", ids };
 }
 
-export function payerCondition(f: PayerFilter): SQL | undefined {
-  if (f.kind === "walk") return sql`${payments.payerSearch} like lower(${f.pattern})`;
-  if (f.kind !== "people") return undefined;
+/** The form the page's statement takes for a filter: part of its shape, the values apart. */
+export type PayerShape = "everyone" | "ids" | "inside" | "walk";
+export const payerShape = (f: PayerFilter): PayerShape => (f.kind === "people" ? ("ids" in f ? "ids" : "inside") : f.kind);
+
+/** The payer condition of a shape, with placeholders (drizzle's sql.placeholder) that payerValues fills. */
+export function payerPlaceholder(shape: PayerShape): SQL | undefined {
+  const p = sql.placeholder;
+  if (shape === "walk") return sql`${payments.payerSearch} like lower(${p("pattern")})`;
   // One array parameter rather than a parameter per person; the ids are uuids from the database.
-  if ("ids" in f) return sql`${payments.userId} = any(${`{${f.ids.join(",")}}`}::uuid[])`;
-  return sql`${payments.userId} = any(array(select ${users.id} from ${users} where ${f.search}))`;
+  if (shape === "ids") return sql`${payments.userId} = any(${p("ids")}::uuid[])`;
+  if (shape === "inside") return sql`${payments.userId} = any(array(select ${users.id} from ${users} where ${nameOrEmailLike(p("pattern"))}))`;
+  return undefined;
+}
+
+export function payerValues(f: PayerFilter): Record<string, string> {
+  if (f.kind === "walk" || (f.kind === "people" && "pattern" in f)) return { pattern: f.pattern };
+  if (f.kind === "people") return { ids: `{${f.ids.join(",")}}` };
+  return {};
 }
 
 /** Nobody matches: no page to read. */

@@ -1,6 +1,6 @@
 // SQL pieces the admin money tables share (db/queries/admin-payments.ts, admin-members.ts): name-or-address search,
 // whole-day ranges, ordering with the id as tie-breaker, and keyset conditions for the CSV batches.
-import { asc, desc, gte, lt, sql, type SQL } from "drizzle-orm";
+import { asc, desc, gte, lt, sql, type Placeholder, type SQL } from "drizzle-orm";
 import type { AnyPgColumn } from "drizzle-orm/pg-core";
 import { users } from "@/db/schema";
 
@@ -13,18 +13,21 @@ export type Cursor = { key: string; id: string };
 // `q` is a fragment of a name or address typed by an admin: LIKE's wildcards in it are literal.
 export const contains = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
+/** A person whose name or address is like `pattern` (a value, or a placeholder filled on execution). */
+export const nameOrEmailLike = (pattern: string | Placeholder) => sql`(${users.name} ilike ${pattern} or ${users.email} ilike ${pattern})`;
+
 export function nameOrEmail(q: string | undefined): SQL | undefined {
-  if (!q) return undefined;
-  const p = contains(q);
-  return sql`(${users.name} ilike ${p} or ${users.email} ilike ${p})`;
+  return q ? nameOrEmailLike(contains(q)) : undefined;
 }
 
-/** [from, to] as whole UTC days, both inclusive. */
+/** [from, to] as whole UTC days, both inclusive: the first instant of `from`, the first after `to`. */
+export function dayBounds(from?: string, to?: string): { from?: Date; to?: Date } {
+  return { from: from ? new Date(`${from}T00:00:00Z`) : undefined, to: to ? new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000) : undefined };
+}
+
 export function dayRange(col: AnyPgColumn, from?: string, to?: string): SQL[] {
-  const out: SQL[] = [];
-  if (from) out.push(gte(col, new Date(`${from}T00:00:00Z`)));
-  if (to) out.push(lt(col, new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000)));
-  return out;
+  const b = dayBounds(from, to);
+  return [b.from && gte(col, b.from), b.to && lt(col, b.to)].filter((c): c is SQL => c !== undefined);
 }
 
 export function ordering(key: SortKey, id: AnyPgColumn, dir: Dir): SQL[] {
