@@ -108,8 +108,11 @@ export const payerShape = (f: PayerFilter): PayerShape => (f.kind === "people" ?
 export function payerPlaceholder(shape: PayerShape): SQL | undefined {
   const p = sql.placeholder;
   if (shape === "walk") return sql`${payments.payerSearch} like lower(${p("pattern")})`;
-  // One array parameter rather than a parameter per person; the ids are uuids from the database.
-  if (shape === "ids") return sql`${payments.userId} = any(${p("ids")}::uuid[])`;
+  // One array parameter rather than a parameter per person (the ids are uuids from the database),
+  // unnested in a subquery: given the array itself, the planner estimates each id against the
+  // column's statistics, and planning the 200-person page took 0.70–0.76 ms instead of 0.53–0.58 ms,
+  // with the same plan (EXPLAIN SUMMARY of the prepared statement, bench-payments' database).
+  if (shape === "ids") return sql`${payments.userId} = any(array(select unnest(${p("ids")}::uuid[])))`;
   if (shape === "inside") return sql`${payments.userId} = any(array(select ${users.id} from ${users} where ${nameOrEmailLike(p("pattern"))}))`;
   return undefined;
 }

@@ -91,8 +91,9 @@ export const payments = pgTable(
   (t) => [
     index("payments_created_idx").on(t.createdAt),
     index("payments_status_created_idx").on(t.status, t.createdAt),
-    index("payments_user_idx").on(t.userId),
     index("payments_plan_created_idx").on(t.planId, t.createdAt),
+    // No index on user_id alone: payments_user_created_idx (user_id, created_at, migration 0003) serves
+    // every lookup by person, and each index more costs the planner time on every admin-table page.
     check("payments_refund_within_amount", sql`${t.refundedAmount} between 0 and ${t.amount}`),
   ],
 );
