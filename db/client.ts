@@ -60,6 +60,9 @@ export function reportsDb(): Db {
   return reports;
 }
 
+/** Whether `d` is one of this process's own handles on DATABASE_URL (db() or reportsDb()), the database its listeners hear. */
+export const isAppDb = (d: unknown): boolean => d !== undefined && (d === instance || d === reports);
+
 /**
  * LISTEN on a channel through the main pool's client (postgres.js keeps one connection for it and
  * listens again after a reconnect, calling `onListen` each time: notices sent meanwhile are lost).

@@ -4,6 +4,7 @@ import { LRUCache } from "lru-cache";
 import type { Tx as Db } from "./auth";
 import { payments, users } from "../schema";
 import { contains, nameOrEmail, nameOrEmailLike } from "@/lib/billing/admin/sql";
+import { isAppDb } from "../client";
 import { processListener } from "../notices";
 
 /**
@@ -57,8 +58,12 @@ const people = processListener(PEOPLE_CHANNEL, forgetPeople, forgetPeople);
 /** Tests: settles once this process hears the people's changes. */
 export const peopleNoticesReady = (): Promise<void> => people.ready();
 
-/** Start hearing the notices if this process can (a script without DATABASE_URL cannot): false until it does. */
-function hearing(): boolean {
+/**
+ * Whether changes to the people `db` reads reach this process: only for its own handles on
+ * DATABASE_URL (a script or test passing a database of its own is not heard), once listening.
+ */
+function hearing(db: Db): boolean {
+  if (!isAppDb(db)) return false;
   try {
     people.start();
   } catch {
@@ -82,13 +87,14 @@ export async function payerFilter(db: Db, q: string | undefined, walkFrom?: numb
   const search = nameOrEmail(q);
   if (!search || !q) return { kind: "everyone" };
   const key = q.toLowerCase(); // ILIKE: the same people whatever the case
-  const { cache } = store();
-  const kept = walkFrom === undefined ? cache.get(key) : undefined;
+  const heard = hearing(db);
+  const kept = walkFrom === undefined ? store().cache.get(key) : undefined;
   if (kept?.kind === "walk") return { kind: "walk", pattern: contains(q) };
-  if (kept?.kind === "people" && kept.ids) return { kind: "people", ids: kept.ids };
-  if (kept?.kind === "people" && !hearing()) return { kind: "people", pattern: contains(q) }; // hearing now: read the ids below
-  // Kept only if no notice came while reading: a notice may be for a change the read did not see.
-  const before = hearing() ? store().generation : undefined;
+  if (kept?.kind === "people" && kept.ids && heard) return { kind: "people", ids: kept.ids };
+  if (kept?.kind === "people" && !heard) return { kind: "people", pattern: contains(q) };
+  // Heard: the ids are read below and kept, unless a notice came while reading (it may be for a
+  // change the read did not see).
+  const before = heard ? store().generation : undefined;
   const enough = walkFrom ?? Math.max(WALK_MIN, Math.ceil(WALK_SHARE * (await peopleEstimate(db))));
   const found = enough > 0 ? await db.select({ id: users.id }).from(users).where(search).limit(enough).prepare("payer_people").execute() : [];
   if (found.length >= enough) {
