@@ -1,12 +1,12 @@
 // The admin payments table (issue 7 item 6): one page in the table's order, its total apart, and
 // keyset batches for the streamed CSV export — sorted, filtered and paged here in SQL, never in the
 // browser. The table routes read through reportsDb() (db/client.ts).
-import { and, eq, gte, lt, sql, type SQL } from "drizzle-orm";
+import { and, eq, gte, lt, sql, type Placeholder, type SQL } from "drizzle-orm";
 import type { Tx as Db } from "./auth";
 import { payments, plans, users } from "../schema";
 import type { PaymentsQuery } from "@/lib/billing/admin/params";
 import { nobody, payerFilter, payerPlaceholder, payerShape, payerValues, type PayerFilter, type PayerShape } from "./payer-search";
-import { after, countOf, dayBounds, dayRange, nameOrEmail, offsetOf, ordering, pageOf, textOf, type Cursor, type SortKey } from "@/lib/billing/admin/sql";
+import { after, countOf, dayBounds, nameOrEmail, offsetOf, ordering, pageOf, textOf, type Cursor, type SortKey } from "@/lib/billing/admin/sql";
 
 export type { Cursor };
 
@@ -50,13 +50,30 @@ const pageCols = {
 };
 const PAGE_ORDER: Record<PaymentsQuery["sort"], SortKey> = { ...PAYMENT_SORT, name: { expr: pageCols.name, cast: "text" } };
 
-function paymentsWhere(q: PaymentsQuery, payer: SQL | undefined): SQL | undefined {
+type FilterName = "status" | "plan" | "from" | "to";
+type Arg = <T>(name: FilterName, value: T) => T | Placeholder;
+const byValue: Arg = (_name, value) => value;
+const byPlaceholder: Arg = (name) => sql.placeholder(name);
+
+/**
+ * The filters present in `q`, each compared with its value — or, for a statement built once per
+ * shape (the page's), with a placeholder of its name that filterValues fills on execution.
+ */
+function paymentsWhere(q: PaymentsQuery, payer: SQL | undefined, arg: Arg = byValue): SQL | undefined {
+  const days = dayBounds(q.from, q.to);
   return and(
-    q.status ? eq(payments.status, q.status) : undefined,
-    q.plan ? eq(payments.planId, q.plan) : undefined,
-    ...dayRange(payments.createdAt, q.from, q.to),
+    q.status ? eq(payments.status, arg("status", q.status)) : undefined,
+    q.plan ? eq(payments.planId, arg("plan", q.plan)) : undefined,
+    days.from ? gte(payments.createdAt, arg("from", days.from)) : undefined,
+    days.to ? lt(payments.createdAt, arg("to", days.to)) : undefined,
     payer,
   );
+}
+
+/** The placeholders' values: the instants as the column would write them (a placeholder's value goes to the driver as it is). */
+function filterValues(q: PaymentsQuery): Record<FilterName, string | undefined> {
+  const days = dayBounds(q.from, q.to);
+  return { status: q.status, plan: q.plan, from: days.from?.toISOString(), to: days.to?.toISOString() };
 }
 
 export type PaymentRow = Awaited<ReturnType<typeof listPayments>>["rows"][number];
@@ -72,15 +89,7 @@ function buildPage(db: Db, q: PaymentsQuery, payer: PayerShape) {
   // eight times slower.
   const base = db.select({ id: payments.id }).from(payments);
   const ids = (q.sort === "name" ? base.innerJoin(users, eq(users.id, payments.userId)) : base)
-    .where(
-      and(
-        q.status ? eq(payments.status, p("status")) : undefined,
-        q.plan ? eq(payments.planId, p("plan")) : undefined,
-        q.from ? gte(payments.createdAt, p("from")) : undefined,
-        q.to ? lt(payments.createdAt, p("to")) : undefined,
-        payerPlaceholder(payer),
-      ),
-    )
+    .where(paymentsWhere(q, payerPlaceholder(payer), byPlaceholder))
     .orderBy(...ordering(PAYMENT_SORT[q.sort], payments.id, q.dir))
     .limit(p("limit"))
     .offset(p("offset"));
@@ -102,21 +111,11 @@ const built = new WeakMap<Db, Map<string, ReturnType<typeof buildPage>>>();
 function pageQuery(db: Db, q: PaymentsQuery, payer: PayerFilter) {
   const shape = payerShape(payer);
   const key = [q.sort, q.dir, q.status ? "s" : "", q.plan ? "p" : "", q.from ? "f" : "", q.to ? "t" : "", shape].join(" ");
-  const statements = built.get(db) ?? new Map<string, ReturnType<typeof buildPage>>();
-  built.set(db, statements);
+  let statements = built.get(db);
+  if (!statements) built.set(db, (statements = new Map()));
   let statement = statements.get(key);
   if (!statement) statements.set(key, (statement = buildPage(db, q, shape)));
-  const days = dayBounds(q.from, q.to);
-  return statement.execute({
-    ...payerValues(payer),
-    status: q.status,
-    plan: q.plan,
-    // As the column would write them (an ISO instant): a placeholder's value goes to the driver as it is.
-    from: days.from?.toISOString(),
-    to: days.to?.toISOString(),
-    limit: q.pageSize + 1,
-    offset: offsetOf(q),
-  });
+  return statement.execute({ ...filterValues(q), ...payerValues(payer), limit: q.pageSize + 1, offset: offsetOf(q) });
 }
 
 /**

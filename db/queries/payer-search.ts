@@ -55,6 +55,9 @@ export function forgetPeople(): void {
 
 const people = processListener(PEOPLE_CHANNEL, forgetPeople, forgetPeople);
 
+/** Tests: what this process keeps for a search (lower-cased), if anything. */
+export const keptSearch = (key: string): Kept | undefined => store().cache.get(key);
+
 /** Tests: settles once this process hears the people's changes. */
 export const peopleNoticesReady = (): Promise<void> => people.ready();
 
