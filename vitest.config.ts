@@ -9,7 +9,11 @@ export default defineConfig({
   resolve: { alias },
   test: {
     projects: [
-      { resolve: { alias }, oxc, test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node", testTimeout: 60_000 } },
+      {
+        resolve: { alias },
+        oxc,
+        test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node", testTimeout: 60_000 },
+      },
       {
         resolve: { alias },
         oxc,

@@ -13,9 +13,7 @@ export default function ErrorPage({ error, reset }: { error: Error & { digest?: 
   return (
     <div className="mx-auto flex w-full max-w-prose flex-1 flex-col justify-center gap-5 px-4 py-20">
       <h1 className="text-h2 font-semibold">Something went wrong</h1>
-      <p className="text-lead text-bark">
-        This page could not be shown just now. Please try again in a moment.
-      </p>
+      <p className="text-lead text-bark">This page could not be shown just now. Please try again in a moment.</p>
       {error.digest ? <p className="text-small text-bark">Reference: {error.digest}</p> : null}
       <div className="flex flex-wrap gap-3">
         <Button onClick={() => reset()}>Try again</Button>

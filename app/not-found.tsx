@@ -8,8 +8,7 @@ export default function NotFound() {
       <p className="font-semibold tracking-widest text-cedar uppercase">404</p>
       <h1 className="text-h2 font-semibold">We could not find that page</h1>
       <p className="text-lead text-bark">
-        The address may be mistyped, or the page may have moved. The catalogue is a good place to pick up
-        the thread.
+        The address may be mistyped, or the page may have moved. The catalogue is a good place to pick up the thread.
       </p>
       <p className="flex flex-wrap gap-x-6 gap-y-2">
         <Link href="/">Back to the home page</Link>

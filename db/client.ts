@@ -54,7 +54,12 @@ let reports: Db | undefined;
 
 export function reportsDb(): Db {
   if (!reports) {
-    reportsClient = postgres(env().DATABASE_URL, { max: 3, onnotice: () => {}, connection: { plan_cache_mode: "force_custom_plan" }, ...oneAtATime });
+    reportsClient = postgres(env().DATABASE_URL, {
+      max: 3,
+      onnotice: () => {},
+      connection: { plan_cache_mode: "force_custom_plan" },
+      ...oneAtATime,
+    });
     reports = drizzle(reportsClient, { schema });
   }
   return reports;
@@ -67,7 +72,11 @@ export const isAppDb = (d: unknown): boolean => d !== undefined && (d === instan
  * LISTEN on a channel through the main pool's client (postgres.js keeps one connection for it and
  * listens again after a reconnect, calling `onListen` each time: notices sent meanwhile are lost).
  */
-export async function listen(channel: string, onNotice: (payload: string) => void, onListen: () => void): Promise<void> {
+export async function listen(
+  channel: string,
+  onNotice: (payload: string) => void,
+  onListen: () => void,
+): Promise<void> {
   db();
   await client!.listen(channel, onNotice, onListen);
 }

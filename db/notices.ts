@@ -21,7 +21,11 @@ export type ProcessListener = {
  * so the state lives on globalThis (as lib/auth/session-cache.ts explains) and the first copy's
  * `received` and `forgetAll` serve them all: both must act on globalThis-held caches.
  */
-export function processListener(channel: string, received: (payload: string) => void, forgetAll: () => void): ProcessListener {
+export function processListener(
+  channel: string,
+  received: (payload: string) => void,
+  forgetAll: () => void,
+): ProcessListener {
   const KEY = Symbol.for(`rosinwood.listener.${channel}`);
   const shared = globalThis as typeof globalThis & { [KEY]?: State };
   const current = () => (shared[KEY]?.pool === poolGeneration() ? shared[KEY] : undefined);

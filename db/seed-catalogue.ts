@@ -24,7 +24,12 @@ async function idsByEmail(db: Db, emails: string[]): Promise<Map<string, string>
   const rows = await db
     .select({ id: users.id, email: users.email })
     .from(users)
-    .where(inArray(sql`lower(${users.email})`, emails.map((e) => e.toLowerCase())));
+    .where(
+      inArray(
+        sql`lower(${users.email})`,
+        emails.map((e) => e.toLowerCase()),
+      ),
+    );
   return new Map(rows.map((r) => [r.email.toLowerCase(), r.id]));
 }
 
@@ -35,7 +40,10 @@ async function idsByEmail(db: Db, emails: string[]): Promise<Map<string, string>
 async function upsertTune(tx: Tx, teacherId: string, file: string): Promise<string> {
   const abc = demoTuneAbc(file);
   const result = analyze(abc);
-  if (!result.ok) throw new Error(`demo tune ${file}: ${result.problems.map((p) => `${p.line}:${p.column} ${p.message}`).join("; ")}`);
+  if (!result.ok)
+    throw new Error(
+      `demo tune ${file}: ${result.problems.map((p) => `${p.line}:${p.column} ${p.message}`).join("; ")}`,
+    );
   const a = result.value;
   const fields = { title: a.title, tuneType: tuneTypeOf(abc), key: a.key, meter: headerField(abc, "M"), abc };
   const found = await tx
@@ -44,8 +52,18 @@ async function upsertTune(tx: Tx, teacherId: string, file: string): Promise<stri
     .where(and(eq(tunes.teacherId, teacherId), eq(tunes.title, a.title)));
   let id = found[0]?.id;
   if (id && found[0]?.abc === abc) return id;
-  if (id) await tx.update(tunes).set({ ...fields, updatedAt: new Date() }).where(eq(tunes.id, id));
-  else id = (await tx.insert(tunes).values({ teacherId, ...fields }).returning({ id: tunes.id }))[0].id;
+  if (id)
+    await tx
+      .update(tunes)
+      .set({ ...fields, updatedAt: new Date() })
+      .where(eq(tunes.id, id));
+  else
+    id = (
+      await tx
+        .insert(tunes)
+        .values({ teacherId, ...fields })
+        .returning({ id: tunes.id })
+    )[0].id;
   await tx
     .update(tuneStages)
     .set({ sourceChanged: true })
@@ -64,7 +82,13 @@ async function upsertTune(tx: Tx, teacherId: string, file: string): Promise<stri
 }
 
 /** A course keyed by slug; its grades and rungs are made with it and left alone afterwards (a teacher may have changed them). */
-async function seedCourse(tx: Tx, c: DemoCourse, teacherId: string, tuneIds: Map<string, string>, studentIds: Map<string, string>): Promise<void> {
+async function seedCourse(
+  tx: Tx,
+  c: DemoCourse,
+  teacherId: string,
+  tuneIds: Map<string, string>,
+  studentIds: Map<string, string>,
+): Promise<void> {
   const made = await tx
     .insert(courses)
     .values({ teacherId, slug: c.slug, title: c.title, summary: c.summary, publishedAt: new Date() })
@@ -73,7 +97,10 @@ async function seedCourse(tx: Tx, c: DemoCourse, teacherId: string, tuneIds: Map
   let courseId = made[0]?.id;
   if (courseId) {
     for (const [g, grade] of c.grades.entries()) {
-      const [row] = await tx.insert(grades).values({ courseId, position: g + 1, title: grade.title }).returning({ id: grades.id });
+      const [row] = await tx
+        .insert(grades)
+        .values({ courseId, position: g + 1, title: grade.title })
+        .returning({ id: grades.id });
       await tx.insert(rungs).values(
         grade.rungs.map((r, i) => ({
           gradeId: row.id,
@@ -92,7 +119,12 @@ async function seedCourse(tx: Tx, c: DemoCourse, teacherId: string, tuneIds: Map
     if (!student) throw new Error(`course ${c.slug}: no demo student ${e.student}`);
     await tx
       .insert(enrolments)
-      .values({ userId: need(studentIds, student.email.toLowerCase(), "student"), courseId, status: e.status, endedAt: e.status === "ended" ? new Date() : null })
+      .values({
+        userId: need(studentIds, student.email.toLowerCase(), "student"),
+        courseId,
+        status: e.status,
+        endedAt: e.status === "ended" ? new Date() : null,
+      })
       .onConflictDoNothing();
   }
 }
@@ -105,9 +137,16 @@ function need(map: Map<string, string>, key: string, what: string): string {
 
 /** Idempotent: running it twice leaves one copy of every tune, stage, course, rung and enrolment. */
 export async function seedCatalogue(db: Db): Promise<{ courses: number; tunes: number }> {
-  const teacherIds = await idsByEmail(db, TEACHERS.map((t) => t.email));
-  const studentIds = await idsByEmail(db, STUDENTS.map((s) => s.email));
-  const teacherId = (i: number): string => need(teacherIds, TEACHERS[i]?.email.toLowerCase() ?? `teacher ${i}`, "teacher");
+  const teacherIds = await idsByEmail(
+    db,
+    TEACHERS.map((t) => t.email),
+  );
+  const studentIds = await idsByEmail(
+    db,
+    STUDENTS.map((s) => s.email),
+  );
+  const teacherId = (i: number): string =>
+    need(teacherIds, TEACHERS[i]?.email.toLowerCase() ?? `teacher ${i}`, "teacher");
 
   const tuneIds = new Map<string, string>();
   for (const t of DEMO_TUNES) {

@@ -22,7 +22,11 @@ export const DEMO_PROGRESS: readonly [number, number, string, number][] = [
 ];
 
 async function idOf(db: Db, email: string): Promise<string | undefined> {
-  const rows = await db.select({ id: users.id }).from(users).where(sql`lower(${users.email}) = lower(${email})`).limit(1);
+  const rows = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(sql`lower(${users.email}) = lower(${email})`)
+    .limit(1);
   return rows[0]?.id;
 }
 
@@ -33,10 +37,23 @@ export async function seedProgress(db: Db): Promise<number> {
     const userId = await idOf(db, STUDENTS[student].email);
     const teacherId = await idOf(db, TEACHERS[teacher].email);
     const tune = teacherId
-      ? (await db.select({ id: tunes.id }).from(tunes).where(and(eq(tunes.teacherId, teacherId), eq(tunes.title, title))).limit(1))[0]
+      ? (
+          await db
+            .select({ id: tunes.id })
+            .from(tunes)
+            .where(and(eq(tunes.teacherId, teacherId), eq(tunes.title, title)))
+            .limit(1)
+        )[0]
       : undefined;
-    if (!userId || !tune) throw new Error(`demo progress: no student ${STUDENTS[student].email} or tune "${title}" (seed the catalogue first)`);
-    const made = await db.insert(tuneProgress).values({ userId, tuneId: tune.id, reachedStage: reached }).onConflictDoNothing().returning({ u: tuneProgress.userId });
+    if (!userId || !tune)
+      throw new Error(
+        `demo progress: no student ${STUDENTS[student].email} or tune "${title}" (seed the catalogue first)`,
+      );
+    const made = await db
+      .insert(tuneProgress)
+      .values({ userId, tuneId: tune.id, reachedStage: reached })
+      .onConflictDoNothing()
+      .returning({ u: tuneProgress.userId });
     written += made.length;
   }
   return written;

@@ -10,12 +10,19 @@ export async function isEmpty(db: Db): Promise<boolean> {
   return rows[0].n === 0;
 }
 
-async function upsertPerson(db: Db, person: { name: string; email: string; role: "student" | "teacher" | "admin"; timeZone?: string }, passwordHash: string) {
+async function upsertPerson(
+  db: Db,
+  person: { name: string; email: string; role: "student" | "teacher" | "admin"; timeZone?: string },
+  passwordHash: string,
+) {
   await db
     .insert(users)
     .values({ ...person, passwordHash, emailVerifiedAt: new Date() })
     .onConflictDoNothing();
-  const rows = await db.select({ id: users.id }).from(users).where(sql`lower(${users.email}) = lower(${person.email})`);
+  const rows = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(sql`lower(${users.email}) = lower(${person.email})`);
   return rows[0].id;
 }
 
@@ -26,8 +33,15 @@ export async function seed(db: Db): Promise<{ people: number }> {
   const teacherIds: string[] = [];
   for (const t of TEACHERS) teacherIds.push(await upsertPerson(db, { ...t, role: "teacher" }, passwordHash));
   for (const s of STUDENTS) {
-    const id = await upsertPerson(db, { name: s.name, email: s.email, role: "student", timeZone: s.timeZone }, passwordHash);
-    await db.insert(rosterEntries).values({ teacherId: teacherIds[s.teacherIndex], studentId: id }).onConflictDoNothing();
+    const id = await upsertPerson(
+      db,
+      { name: s.name, email: s.email, role: "student", timeZone: s.timeZone },
+      passwordHash,
+    );
+    await db
+      .insert(rosterEntries)
+      .values({ teacherId: teacherIds[s.teacherIndex], studentId: id })
+      .onConflictDoNothing();
   }
   await (await import("./seed-catalogue")).seedCatalogue(db); // demo courses and tunes (issue 5, item 8)
   await (await import("./seed-progress")).seedProgress(db); // demo ladder progress (issue 5)

@@ -22,13 +22,13 @@ export default function InvitationEmail({ inviterName, role, acceptUrl, expiresI
         You are invited
       </Heading>
       <Text style={paragraph}>
-        {inviterName} invited you to Rosinwood {asRole[role]}. Accepting takes a minute: if you already have an
-        account, sign in; if not, you will choose a password.
+        {inviterName} invited you to Rosinwood {asRole[role]}. Accepting takes a minute: if you already have an account,
+        sign in; if not, you will choose a password.
       </Text>
       <MailAction href={absoluteUrl(acceptUrl, appUrl)} label="Accept the invitation" />
       <Text style={paragraph}>
-        The invitation is for this address only and stays open for {expiresInDays} {expiresInDays === 1 ? "day" : "days"}.
-        If you were not expecting it, you can let it go.
+        The invitation is for this address only and stays open for {expiresInDays}{" "}
+        {expiresInDays === 1 ? "day" : "days"}. If you were not expecting it, you can let it go.
       </Text>
     </MailLayout>
   );

@@ -13,8 +13,19 @@ export function absoluteUrl(url: string, appUrl: string): string {
 }
 
 // Inline styles only: many mail readers drop <style> blocks (common practice). Colours follow the site's palette.
-const page = { backgroundColor: "#F3EADB", fontFamily: "Georgia, Cambria, 'Times New Roman', serif", margin: 0, padding: "24px 0" };
-const card = { backgroundColor: "#FBF7F0", border: "1px solid #D9C8B0", borderRadius: "10px", maxWidth: "560px", padding: "32px" };
+const page = {
+  backgroundColor: "#F3EADB",
+  fontFamily: "Georgia, Cambria, 'Times New Roman', serif",
+  margin: 0,
+  padding: "24px 0",
+};
+const card = {
+  backgroundColor: "#FBF7F0",
+  border: "1px solid #D9C8B0",
+  borderRadius: "10px",
+  maxWidth: "560px",
+  padding: "32px",
+};
 const brand = { color: "#8A3B12", fontSize: "20px", fontWeight: 700, margin: "0 0 16px" };
 const footer = { color: "#5E4B3C", fontSize: "13px", lineHeight: "20px", margin: 0 };
 const button = {

@@ -17,8 +17,8 @@ export default function PasswordChangedEmail({ name, appUrl }: Data & MailFrame)
         Hello {name},
       </Heading>
       <Text style={paragraph}>
-        The password for your Rosinwood account was just changed, and every device that was signed in has been
-        signed out. If that was you, all is well and there is nothing more to do.
+        The password for your Rosinwood account was just changed, and every device that was signed in has been signed
+        out. If that was you, all is well and there is nothing more to do.
       </Text>
       <Text style={paragraph}>
         If it was not you, please{" "}

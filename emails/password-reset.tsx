@@ -20,9 +20,7 @@ export default function PasswordResetEmail({ name, resetUrl, expiresInMinutes, a
         next {expiresInMinutes} minutes.
       </Text>
       <MailAction href={absoluteUrl(resetUrl, appUrl)} label="Choose a new password" />
-      <Text style={paragraph}>
-        If you did not ask, you need not do anything: your password stays as it is.
-      </Text>
+      <Text style={paragraph}>If you did not ask, you need not do anything: your password stays as it is.</Text>
     </MailLayout>
   );
 }

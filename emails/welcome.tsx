@@ -16,8 +16,8 @@ export default function WelcomeEmail({ name, verifyUrl, appUrl }: Data & MailFra
         Welcome, {name}
       </Heading>
       <Text style={paragraph}>
-        We are glad you are here. Rosinwood takes a tune apart into small steps, starting from the bare melody, so
-        there is never too much on the page at once.
+        We are glad you are here. Rosinwood takes a tune apart into small steps, starting from the bare melody, so there
+        is never too much on the page at once.
       </Text>
       <Text style={paragraph}>Before your first tune, please confirm that this address is yours:</Text>
       <MailAction href={absoluteUrl(verifyUrl, appUrl)} label="Confirm my address" />

@@ -6,7 +6,9 @@ const schema = z.object({
   DATABASE_URL: z
     .string({ error: "is missing (a postgres:// address of the database)" })
     .regex(/^postgres(ql)?:\/\//, "must start with postgres:// or postgresql://"),
-  APP_URL: z.url({ error: "must be the app's public address, e.g. http://127.0.0.1:3000" }).default("http://127.0.0.1:3000"),
+  APP_URL: z
+    .url({ error: "must be the app's public address, e.g. http://127.0.0.1:3000" })
+    .default("http://127.0.0.1:3000"),
   // When true the session cookie is sent over plain http (local development and tests only).
   INSECURE_COOKIES: z.enum(["true", "false"]).default("false"),
   // E-mail. Only the worker sends, so the key may be absent for the web app; the worker checks it at start.
@@ -17,22 +19,38 @@ const schema = z.object({
     .regex(/^(?:[^<>]+<[^<>\s@]+@[^<>\s@]+>|[^<>\s@]+@[^<>\s@]+)$/, 'must be an address or "Name <address>"')
     .default("Rosinwood <hello@rosinwood.test>"),
   // Set only while the local Resend stand-in runs: turns on the /dev/mail page that reads its messages.
-  RESEND_FAKE_URL: z.url({ error: "must be the local Resend stand-in's address, e.g. http://127.0.0.1:4010" }).optional(),
+  RESEND_FAKE_URL: z
+    .url({ error: "must be the local Resend stand-in's address, e.g. http://127.0.0.1:4010" })
+    .optional(),
   // Recordings: S3-compatible object storage through @aws-sdk/client-s3. npm start / npm test point these at the
   // local stand-in (scripts/fakes/s3.ts); lib/storage says which one is missing when an upload is attempted.
   S3_ENDPOINT: z.url({ error: "must be the storage's address, e.g. https://s3.eu-west-2.amazonaws.com" }).optional(),
   S3_REGION: z.string().min(1).default("us-east-1"),
-  S3_BUCKET: z.string().regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, "must be a bucket name (3–63 lower-case letters, digits, dots, hyphens)").default("rosinwood-recordings"),
+  S3_BUCKET: z
+    .string()
+    .regex(
+      /^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/,
+      "must be a bucket name (3–63 lower-case letters, digits, dots, hyphens)",
+    )
+    .default("rosinwood-recordings"),
   S3_ACCESS_KEY_ID: z.string().min(1, "must not be empty").optional(),
   S3_SECRET_ACCESS_KEY: z.string().min(1, "must not be empty").optional(),
   // Path-style addresses (http://host/bucket/key): what most S3-compatible services, and the stand-in, expect.
   S3_FORCE_PATH_STYLE: z.enum(["true", "false"]).default("true"),
   // Memberships: Stripe through the official SDK. STRIPE_API_BASE is unset for the real service.
-  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_/, "must be a Stripe secret key (sk_test_… or sk_live_…)").optional(),
+  STRIPE_SECRET_KEY: z
+    .string()
+    .regex(/^(sk|rk)_(test|live)_/, "must be a Stripe secret key (sk_test_… or sk_live_…)")
+    .optional(),
   STRIPE_API_BASE: z.url({ error: "must be the Stripe API's address, e.g. https://api.stripe.com" }).optional(),
-  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_/, "must be a webhook signing secret (whsec_…)").optional(),
+  STRIPE_WEBHOOK_SECRET: z
+    .string()
+    .regex(/^whsec_/, "must be a webhook signing secret (whsec_…)")
+    .optional(),
   // Set only while the local Stripe stand-in runs: turns on the /dev/stripe page (its clock) for the demo.
-  STRIPE_FAKE_URL: z.url({ error: "must be the local Stripe stand-in's address, e.g. http://127.0.0.1:4020" }).optional(),
+  STRIPE_FAKE_URL: z
+    .url({ error: "must be the local Stripe stand-in's address, e.g. http://127.0.0.1:4020" })
+    .optional(),
 });
 
 export type Env = z.infer<typeof schema>;

@@ -7,7 +7,13 @@ export type CompareOutcome = { ok: true; value: unknown } | { ok: false; problem
 
 function firstTune(text: string): { abc: string; problems: Problem[] } {
   const t = splitTunes(text)[0];
-  if (!t) return { abc: "", problems: [{ line: 1, column: 1, message: "No tune found: a tune starts with an X: field and needs a K: field." }] };
+  if (!t)
+    return {
+      abc: "",
+      problems: [
+        { line: 1, column: 1, message: "No tune found: a tune starts with an X: field and needs a K: field." },
+      ],
+    };
   const r = prepareTune(t.abc, t.lineOffset);
   return { abc: t.abc, problems: r.ok ? [] : r.problems };
 }
@@ -15,7 +21,8 @@ function firstTune(text: string): { abc: string; problems: Problem[] } {
 export function runCompare(a: string, b: string): CompareOutcome {
   const first = firstTune(a);
   const second = firstTune(b);
-  if (first.problems.length || second.problems.length) return { ok: false, problems: { a: first.problems, b: second.problems } };
+  if (first.problems.length || second.problems.length)
+    return { ok: false, problems: { a: first.problems, b: second.problems } };
   const r = compareSettings(first.abc, second.abc);
   return r.ok ? { ok: true, value: r.value } : { ok: false, problems: { a: r.problems, b: [] } };
 }

@@ -7,7 +7,8 @@ import { readFileSync } from "node:fs";
 import { analyze, splitTunes, type Analysis, type Problem } from "../lib/abc/index";
 import { runCompare } from "./abc-cli-compare";
 
-const USAGE = "usage: npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--lowest] [--skeleton]\n" +
+const USAGE =
+  "usage: npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--lowest] [--skeleton]\n" +
   "       npm run -s abc -- compare <file> <file2>";
 
 function fail(lines: string[]): never {
@@ -23,7 +24,8 @@ function read(file: string): string {
   }
 }
 
-const report = (file: string, problems: Problem[]): string[] => problems.map((p) => `${file}:${p.line}:${p.column}: ${p.message}`);
+const report = (file: string, problems: Problem[]): string[] =>
+  problems.map((p) => `${file}:${p.line}:${p.column}: ${p.message}`);
 
 type Shape = (a: Analysis) => unknown;
 const JSON_SHAPES: Record<string, Shape> = {
@@ -44,7 +46,8 @@ function main(argv: string[]): void {
     return;
   }
   const text = read(file);
-  if (!(command in JSON_SHAPES) && command !== "skeleton" && command !== "swap") fail([`unknown command "${command}"`, USAGE]);
+  if (!(command in JSON_SHAPES) && command !== "skeleton" && command !== "swap")
+    fail([`unknown command "${command}"`, USAGE]);
   const tunes = splitTunes(text);
   if (tunes.length === 0) fail([`${file}:1:1: No tune found: a tune starts with an X: field and needs a K: field.`]);
   const problems: string[] = [];
@@ -56,13 +59,19 @@ function main(argv: string[]): void {
   });
   const shape = JSON_SHAPES[command];
   if (shape) {
-    const value = tunes.length === 1 && results[0]
-      ? shape(results[0].analysis)
-      : { tunes: results.map((r) => ({ index: r.index, title: r.title, ...Object(shape(r.analysis)) })) };
+    const value =
+      tunes.length === 1 && results[0]
+        ? shape(results[0].analysis)
+        : { tunes: results.map((r) => ({ index: r.index, title: r.title, ...Object(shape(r.analysis)) })) };
     if (results.length) process.stdout.write(JSON.stringify(value, null, 2) + "\n");
   } else {
     const abc = results.map((r) =>
-      command === "skeleton" ? r.analysis.skeleton.abc : flags.has("--skeleton") ? r.analysis.learningSkeleton : r.analysis.learning);
+      command === "skeleton"
+        ? r.analysis.skeleton.abc
+        : flags.has("--skeleton")
+          ? r.analysis.learningSkeleton
+          : r.analysis.learning,
+    );
     if (abc.length) process.stdout.write(abc.join("\n"));
   }
   if (problems.length) fail(problems);

@@ -29,8 +29,19 @@ const best = (f: () => void): number => {
   return t;
 };
 
-const tunes = readdirSync(ROOT).sort().flatMap((f) => splitTunes(readFileSync(`${ROOT}/${f}`, "utf8")).map((t) => t.abc));
-const steps: Record<string, number[]> = { parse: [], model: [], classify: [], stages: [], skeleton: [], phrases: [], swap: [], analysis: [] };
+const tunes = readdirSync(ROOT)
+  .sort()
+  .flatMap((f) => splitTunes(readFileSync(`${ROOT}/${f}`, "utf8")).map((t) => t.abc));
+const steps: Record<string, number[]> = {
+  parse: [],
+  model: [],
+  classify: [],
+  stages: [],
+  skeleton: [],
+  phrases: [],
+  swap: [],
+  analysis: [],
+};
 const ratios: number[] = [];
 const backToBack: number[] = []; // the earlier way: best of REPS parses, then best of REPS analyses
 let failed = 0;
@@ -48,9 +59,20 @@ function paired(abc: string): { parse: number; full: number } {
   let parse = Infinity;
   let full = Infinity;
   for (let r = 0; r < ROUNDS; r++) {
-    if (r % 2 === 0) parse = Math.min(parse, time(() => abcjs.parseOnly(abc)));
-    full = Math.min(full, time(() => analyze(abc)));
-    if (r % 2 === 1) parse = Math.min(parse, time(() => abcjs.parseOnly(abc)));
+    if (r % 2 === 0)
+      parse = Math.min(
+        parse,
+        time(() => abcjs.parseOnly(abc)),
+      );
+    full = Math.min(
+      full,
+      time(() => analyze(abc)),
+    );
+    if (r % 2 === 1)
+      parse = Math.min(
+        parse,
+        time(() => abcjs.parseOnly(abc)),
+      );
   }
   return { parse, full };
 }
@@ -72,10 +94,13 @@ for (const abc of tunes) {
   steps.skeleton.push(best(() => skeletonFrom(p.value)));
   steps.phrases.push(best(() => phraseMap(sk.bars, sk.meter, sk.unit)));
   const source = shapeOf(p.value, null, "highest");
-  steps.swap.push(best(() => { // the analysis swaps both the setting and its skeleton
-    twinSwap(source.abc, source.bars, map);
-    twinSwap(sk.abc, sk.bars, map);
-  }));
+  steps.swap.push(
+    best(() => {
+      // the analysis swaps both the setting and its skeleton
+      twinSwap(source.abc, source.bars, map);
+      twinSwap(sk.abc, sk.bars, map);
+    }),
+  );
   steps.analysis.push(full);
   ratios.push(full / parse);
   const parse3 = best(() => abcjs.parseOnly(abc));

@@ -12,12 +12,18 @@ export type Answer = { status: number; body: { rows?: unknown[]; hasMore?: boole
 /** One round of one case: every latency (ms, sorted) and how long the round took. */
 export type Round = { times: number[]; seconds: number };
 
-export const pct = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
+export const pct = (sorted: number[], p: number) =>
+  sorted[Math.min(sorted.length - 1, Math.ceil((p / 100) * sorted.length) - 1)];
 
 /** A case's answer in words for the report; anything but a 200 with rows (where it lists) stops the benchmark. */
 export function answerWords({ status, body }: Answer): string {
-  if (status !== 200 || (body.rows && body.rows.length === 0)) throw new Error(`unexpected answer ${status}: ${JSON.stringify(body).slice(0, 200)}`);
-  return body.rows ? `${body.rows.length} rows, more: ${body.hasMore}` : body.total !== undefined ? `total ${body.total}` : "ok";
+  if (status !== 200 || (body.rows && body.rows.length === 0))
+    throw new Error(`unexpected answer ${status}: ${JSON.stringify(body).slice(0, 200)}`);
+  return body.rows
+    ? `${body.rows.length} rows, more: ${body.hasMore}`
+    : body.total !== undefined
+      ? `total ${body.total}`
+      : "ok";
 }
 
 /** WARMUP requests one at a time (also the warm-up): their latencies, sorted, and the answer in words. */
@@ -39,8 +45,12 @@ export function report(c: Case, alone: { xs: number[]; answer: string }, rounds:
   const { xs, answer } = alone;
   console.log(`\n${c.label} → ${answer}`);
   console.log(`  one at a time (${WARMUP}): p50 ${pct(xs, 50).toFixed(1)} ms  p95 ${pct(xs, 95).toFixed(1)} ms`);
-  console.log(`  ${rounds.length} rounds of ${roundWords}, ${CONCURRENCY} at once: p95 by round ${rounds.map((r) => pct(r.times, 95).toFixed(1)).join(" / ")} ms`);
-  console.log(`  all ${all.length}, ${rate.toFixed(0)} req/s: p50 ${pct(all, 50).toFixed(1)} ms  p95 ${pct(all, 95).toFixed(1)} ms  p99 ${pct(all, 99).toFixed(1)} ms${c.target ? "  (target p95 < 100 ms)" : ""}`);
+  console.log(
+    `  ${rounds.length} rounds of ${roundWords}, ${CONCURRENCY} at once: p95 by round ${rounds.map((r) => pct(r.times, 95).toFixed(1)).join(" / ")} ms`,
+  );
+  console.log(
+    `  all ${all.length}, ${rate.toFixed(0)} req/s: p50 ${pct(all, 50).toFixed(1)} ms  p95 ${pct(all, 95).toFixed(1)} ms  p99 ${pct(all, 99).toFixed(1)} ms${c.target ? "  (target p95 < 100 ms)" : ""}`,
+  );
 }
 
 /**

@@ -5,7 +5,16 @@ import { Agent, request } from "node:http";
 import { createServer } from "node:net";
 import { availableParallelism, cpus, tmpdir } from "node:os";
 import { join } from "node:path";
-import { CONCURRENCY, cpuCheck, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
+import {
+  CONCURRENCY,
+  cpuCheck,
+  oneAtATime,
+  report,
+  ROUNDS,
+  type Answer,
+  type Case,
+  type Round,
+} from "./bench-payments-common";
 
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 8); // each wrk run
 
@@ -32,7 +41,8 @@ function wrk(url: string, headers: Record<string, string>, seconds: number, scri
   if (r.status !== 0) throw new Error(`wrk failed: ${r.stderr}`);
   const report = r.stdout.slice(r.stdout.indexOf("requests "));
   const field = (name: string) => Number(new RegExp(`^${name} (\\S+)$`, "m").exec(report)?.[1]);
-  if (field("bad") > 0) throw new Error(`wrk: ${field("bad")} of ${field("requests")} requests to ${url} failed or did not answer 2xx`);
+  if (field("bad") > 0)
+    throw new Error(`wrk: ${field("bad")} of ${field("requests")} requests to ${url} failed or did not answer 2xx`);
   const times: number[] = [];
   for (const line of report.split("\n")) {
     const m = /^(\d+) (\d+)$/.exec(line);
@@ -50,7 +60,8 @@ function wrk(url: string, headers: Record<string, string>, seconds: number, scri
  * connections each keeping one request in flight.
  */
 export async function overHttp(cases: Case[], cookie: string) {
-  if (!existsSync(".next/BUILD_ID")) throw new Error("BENCH_HTTP=1 needs a production build: run `npx next build` (npm start and npm test make one)");
+  if (!existsSync(".next/BUILD_ID"))
+    throw new Error("BENCH_HTTP=1 needs a production build: run `npx next build` (npm start and npm test make one)");
   ensureWrk();
   const port = await new Promise<number>((resolve) => {
     const s = createServer().listen(0, "127.0.0.1", () => {
@@ -71,7 +82,13 @@ export async function overHttp(cases: Case[], cookie: string) {
     const script = join(dir, "report.lua");
     writeFileSync(script, WRK_REPORT);
     for (let i = 0; ; i++) {
-      if ((await fetch(`${base}/api/health`).then((r) => r.status, () => 0)) === 200) break;
+      if (
+        (await fetch(`${base}/api/health`).then(
+          (r) => r.status,
+          () => 0,
+        )) === 200
+      )
+        break;
       if (i > 150) throw new Error("next start did not answer /api/health");
       await new Promise((r) => setTimeout(r, 200));
     }
@@ -81,24 +98,46 @@ export async function overHttp(cases: Case[], cookie: string) {
         request(`${base}${path}`, { agent, headers }, (res) => {
           const chunks: Buffer[] = [];
           res.on("data", (c: Buffer) => chunks.push(c));
-          res.on("end", () => resolve({ status: res.statusCode ?? 0, body: JSON.parse(Buffer.concat(chunks).toString("utf8")) as Answer["body"] }));
+          res.on("end", () =>
+            resolve({
+              status: res.statusCode ?? 0,
+              body: JSON.parse(Buffer.concat(chunks).toString("utf8")) as Answer["body"],
+            }),
+          );
         })
           .on("error", reject)
           .end();
       });
     const all: { c: Case; path: string; headers: Record<string, string> }[] = [
-      { c: { label: "GET /api/health (one trivial query; an App Router route handler): HTTP through Next.js on this machine", path: "health", query: {} }, path: "/api/health", headers: {} },
+      {
+        c: {
+          label:
+            "GET /api/health (one trivial query; an App Router route handler): HTTP through Next.js on this machine",
+          path: "health",
+          query: {},
+        },
+        path: "/api/health",
+        headers: {},
+      },
       ...cases.map((c) => ({ c, path: `/api/${c.path}?${new URLSearchParams(c.query)}`, headers: { cookie } })),
     ];
     // The server's code is compiled as it runs: warm every route at full concurrency before measuring.
-    for (const a of all) await Promise.all(Array.from({ length: CONCURRENCY }, async () => { for (let i = 0; i < 20; i++) await get(a.path, a.headers); }));
+    for (const a of all)
+      await Promise.all(
+        Array.from({ length: CONCURRENCY }, async () => {
+          for (let i = 0; i < 20; i++) await get(a.path, a.headers);
+        }),
+      );
     const web = process.env.WEB_CONCURRENCY?.trim() || String(availableParallelism());
-    console.log(`\n== over HTTP on loopback: scripts/serve.mjs (next start, ${web} web processes), asked by wrk (${CONCURRENCY} connections), on the same ${cpus().length} CPUs`);
+    console.log(
+      `\n== over HTTP on loopback: scripts/serve.mjs (next start, ${web} web processes), asked by wrk (${CONCURRENCY} connections), on the same ${cpus().length} CPUs`,
+    );
     const alone = new Map<Case, { xs: number[]; answer: string }>();
     for (const a of all) alone.set(a.c, await oneAtATime(() => get(a.path, a.headers)));
     agent.destroy();
     const rounds = new Map<Case, Round[]>(all.map((a) => [a.c, []]));
-    for (let r = 0; r < ROUNDS; r++) for (const a of all) rounds.get(a.c)!.push(wrk(`${base}${a.path}`, a.headers, SECONDS, script));
+    for (let r = 0; r < ROUNDS; r++)
+      for (const a of all) rounds.get(a.c)!.push(wrk(`${base}${a.path}`, a.headers, SECONDS, script));
     for (const { c } of all) report(c, alone.get(c)!, rounds.get(c)!, `${SECONDS} s`);
     console.log(`\nafter the rounds: ${cpuCheck()}`);
   } finally {

@@ -12,7 +12,17 @@ import { randomBytes } from "node:crypto";
 import { cpus, loadavg } from "node:os";
 import { performance } from "node:perf_hooks";
 import postgres from "postgres";
-import { answerWords, CONCURRENCY, cpuCheck, oneAtATime, report, ROUNDS, type Answer, type Case, type Round } from "./bench-payments-common";
+import {
+  answerWords,
+  CONCURRENCY,
+  cpuCheck,
+  oneAtATime,
+  report,
+  ROUNDS,
+  type Answer,
+  type Case,
+  type Round,
+} from "./bench-payments-common";
 import { overHttp } from "./bench-payments-http";
 
 const PAYMENTS = Number(process.env.BENCH_PAYMENTS ?? 200_000);
@@ -20,14 +30,19 @@ const USERS = Number(process.env.BENCH_USERS ?? 20_000);
 const REQUESTS = Number(process.env.BENCH_REQUESTS ?? 1000);
 
 const base = process.env.TEST_PG_ADMIN_URL ?? process.env.DATABASE_URL;
-if (!base) throw new Error("set TEST_PG_ADMIN_URL (or DATABASE_URL) to a PostgreSQL cluster the benchmark may create a database on");
+if (!base)
+  throw new Error(
+    "set TEST_PG_ADMIN_URL (or DATABASE_URL) to a PostgreSQL cluster the benchmark may create a database on",
+  );
 const name = `bench_payments_${randomBytes(4).toString("hex")}`;
 const url = base.replace(/\/[^/?]+(\?|$)/, `/${name}$1`);
 const admin = postgres(base.replace(/\/[^/?]+(\?|$)/, "/postgres$1"), { max: 1, onnotice: () => {} });
 
 async function fill(sql: postgres.Sql): Promise<{ monthly: string }> {
-  const [m] = await sql`insert into plans (name, amount, currency, interval) values ('Monthly membership', 1800, 'GBP', 'month') returning id`;
-  const [y] = await sql`insert into plans (name, amount, currency, interval) values ('Yearly membership', 18000, 'GBP', 'year') returning id`;
+  const [m] =
+    await sql`insert into plans (name, amount, currency, interval) values ('Monthly membership', 1800, 'GBP', 'month') returning id`;
+  const [y] =
+    await sql`insert into plans (name, amount, currency, interval) values ('Yearly membership', 18000, 'GBP', 'year') returning id`;
   // Invented names from two short lists, numbered so every address is unique.
   await sql`
     insert into users (email, name, role)
@@ -59,7 +74,10 @@ async function fill(sql: postgres.Sql): Promise<{ monthly: string }> {
   return { monthly: m.id as string };
 }
 
-const answerOf = async (res: Response): Promise<Answer> => ({ status: res.status, body: (await res.json()) as Answer["body"] });
+const answerOf = async (res: Response): Promise<Answer> => ({
+  status: res.status,
+  body: (await res.json()) as Answer["body"],
+});
 
 type Measured = { c: Case; call: () => Promise<Answer> };
 
@@ -102,11 +120,14 @@ async function main() {
     const sql = postgres(url, { max: 1, onnotice: () => {} });
     const t0 = performance.now();
     const { monthly } = await fill(sql);
-    console.log(`seeded ${PAYMENTS} payments over ${USERS} people in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    console.log(
+      `seeded ${PAYMENTS} payments over ${USERS} people in ${((performance.now() - t0) / 1000).toFixed(1)} s`,
+    );
 
     process.env.DATABASE_URL = url;
     process.env.APP_URL ??= "http://127.0.0.1:3000";
-    const [me] = await sql`insert into users (email, name, role) values ('bench-admin@bench.example', 'Bench Admin', 'admin') returning id`;
+    const [me] =
+      await sql`insert into users (email, name, role) values ('bench-admin@bench.example', 'Bench Admin', 'admin') returning id`;
     const to = new Date();
     const from = new Date(to.getTime() - 92 * 86_400_000);
     // One person, as an admin looks up a member: the one with the most paid monthly payments in the range,
@@ -120,19 +141,52 @@ async function main() {
     const session = await lucia().createSession(me.id as string, {});
     const cookie = `${lucia().sessionCookieName}=${session.id}`;
 
-    const filtered = { status: "paid", plan: monthly, from: from.toISOString().slice(0, 10), to: to.toISOString().slice(0, 10) };
+    const filtered = {
+      status: "paid",
+      plan: monthly,
+      from: from.toISOString().slice(0, 10),
+      to: to.toISOString().slice(0, 10),
+    };
     const ordered = { sort: "amount", dir: "desc", page: "3", pageSize: "25" };
     // The target is the page; its total is a request of its own, asked once per set of filters
     // (components/admin/server-table.tsx), measured here the same way and reported beside it.
     const cases: Case[] = [
-      { label: "page: paid, monthly, 92 days, name or e-mail contains \"wood\" (800 of 20,000 people), by amount, page 3", path: "admin/payments", query: { ...filtered, q: "wood", ...ordered }, target: true },
-      { label: "page: paid, monthly, 92 days, name contains \"Ivo Penrose\" (200 of 20,000 people), by amount, page 3", path: "admin/payments", query: { ...filtered, q: "Ivo Penrose", ...ordered }, target: true },
-      { label: `page: paid, monthly, 92 days, name contains "${one.name}" (one person), by amount, page 1`, path: "admin/payments", query: { ...filtered, q: one.name as string, ...ordered, page: "1" }, target: true },
-      { label: "page: paid, monthly, 92 days, by amount, page 3", path: "admin/payments", query: { ...filtered, ...ordered }, target: true },
-      { label: "count: paid, monthly, 92 days, name or e-mail contains \"wood\"", path: "admin/payments/count", query: { ...filtered, q: "wood" } },
+      {
+        label: 'page: paid, monthly, 92 days, name or e-mail contains "wood" (800 of 20,000 people), by amount, page 3',
+        path: "admin/payments",
+        query: { ...filtered, q: "wood", ...ordered },
+        target: true,
+      },
+      {
+        label: 'page: paid, monthly, 92 days, name contains "Ivo Penrose" (200 of 20,000 people), by amount, page 3',
+        path: "admin/payments",
+        query: { ...filtered, q: "Ivo Penrose", ...ordered },
+        target: true,
+      },
+      {
+        label: `page: paid, monthly, 92 days, name contains "${one.name}" (one person), by amount, page 1`,
+        path: "admin/payments",
+        query: { ...filtered, q: one.name as string, ...ordered, page: "1" },
+        target: true,
+      },
+      {
+        label: "page: paid, monthly, 92 days, by amount, page 3",
+        path: "admin/payments",
+        query: { ...filtered, ...ordered },
+        target: true,
+      },
+      {
+        label: 'count: paid, monthly, 92 days, name or e-mail contains "wood"',
+        path: "admin/payments/count",
+        query: { ...filtered, q: "wood" },
+      },
       { label: "count: paid, monthly, 92 days", path: "admin/payments/count", query: filtered },
     ];
-    console.log(`machine: ${cpus().length} CPUs, load average ${loadavg().map((l) => l.toFixed(1)).join(" ")}; ${cpuCheck()}`);
+    console.log(
+      `machine: ${cpus().length} CPUs, load average ${loadavg()
+        .map((l) => l.toFixed(1))
+        .join(" ")}; ${cpuCheck()}`,
+    );
 
     // In this process: the route handlers called directly (guard, validation, queries, JSON).
     const { GET: page } = await import("@/pages/api/admin/payments/index");
@@ -142,7 +196,11 @@ async function main() {
       cases.map((c) => {
         const route = c.path.endsWith("count") ? count : page;
         const address = `${process.env.APP_URL}/api/${c.path}?${new URLSearchParams(c.query)}`;
-        return { c, call: async () => answerOf(await route(new Request(address, { headers: { cookie } }), { params: Promise.resolve({}) })) };
+        return {
+          c,
+          call: async () =>
+            answerOf(await route(new Request(address, { headers: { cookie } }), { params: Promise.resolve({}) })),
+        };
       }),
     );
 

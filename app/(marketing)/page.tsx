@@ -43,8 +43,8 @@ export default function HomePage() {
               Learn fiddle tunes from the melody up
             </h1>
             <p className="max-w-prose text-lead text-bark">
-              Rosinwood teaches reels, jigs, hornpipes, polkas and waltzes to adult beginners and improvers,
-              step by step: the bare tune first, the decoration after, and a teacher listening along the way.
+              Rosinwood teaches reels, jigs, hornpipes, polkas and waltzes to adult beginners and improvers, step by
+              step: the bare tune first, the decoration after, and a teacher listening along the way.
             </p>
             <div className="flex flex-wrap gap-3">
               <LinkButton href="/sign-up" size="lg">
@@ -81,8 +81,8 @@ export default function HomePage() {
               Membership, monthly or yearly
             </h2>
             <p className="max-w-prose text-bark">
-              A membership opens every course in the catalogue, not just the taster tunes. Pay by the month or by
-              the year, and manage it from your billing page.
+              A membership opens every course in the catalogue, not just the taster tunes. Pay by the month or by the
+              year, and manage it from your billing page.
             </p>
             <p>
               <Link href="/catalogue">See what the catalogue holds</Link>
@@ -93,8 +93,8 @@ export default function HomePage() {
               Start with a free taster tune
             </CardTitle>
             <p className="text-bark">
-              Open a taster tune from the catalogue, learn its core melody and see how its phrases fit together,
-              then decide whether Rosinwood suits the way you like to learn.
+              Open a taster tune from the catalogue, learn its core melody and see how its phrases fit together, then
+              decide whether Rosinwood suits the way you like to learn.
             </p>
             <div className="flex flex-wrap gap-3">
               <LinkButton href="/sign-up">Join Rosinwood</LinkButton>

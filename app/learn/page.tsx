@@ -10,7 +10,8 @@ import { todayFor } from "@/lib/teaching/today";
 export const metadata: Metadata = { title: "Today" };
 
 function greeting(now: Date, zone: string): string {
-  const hour = Number(new Intl.DateTimeFormat("en-GB", { timeZone: zone, hour: "numeric", hour12: false }).format(now)) % 24;
+  const hour =
+    Number(new Intl.DateTimeFormat("en-GB", { timeZone: zone, hour: "numeric", hour12: false }).format(now)) % 24;
   return hour < 12 ? "Good morning" : hour < 18 ? "Good afternoon" : "Good evening";
 }
 
@@ -37,18 +38,26 @@ export default async function TodayPage() {
         <CardSection title="Your assignments">
           <AssignmentList items={data.assignments} />
           <div className="flex flex-wrap gap-2">
-            <LinkButton href="/learn/assignments" variant="secondary" size="sm">All assignments</LinkButton>
-            <LinkButton href="/learn/calendar" variant="secondary" size="sm">Due dates in your calendar</LinkButton>
+            <LinkButton href="/learn/assignments" variant="secondary" size="sm">
+              All assignments
+            </LinkButton>
+            <LinkButton href="/learn/calendar" variant="secondary" size="sm">
+              Due dates in your calendar
+            </LinkButton>
           </div>
         </CardSection>
         <CardSection title="Next on your courses">
           <NextRungs items={data.nextRungs} />
         </CardSection>
         <CardSection title="Practice">
-          <p className="font-semibold" data-testid="streak">{streakWords(data.streak, data.practisedToday)}</p>
+          <p className="font-semibold" data-testid="streak">
+            {streakWords(data.streak, data.practisedToday)}
+          </p>
           <MinutesChart days={data.minutes} />
           <div>
-            <LinkButton href="/learn/practice" variant="secondary" size="sm">Log practice</LinkButton>
+            <LinkButton href="/learn/practice" variant="secondary" size="sm">
+              Log practice
+            </LinkButton>
           </div>
         </CardSection>
         <CardSection title="Recent feedback">

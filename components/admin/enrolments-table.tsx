@@ -24,7 +24,10 @@ const columns: ColumnDef<EnrolmentJson, unknown>[] = [
     id: "membership",
     header: "Membership",
     enableSorting: false,
-    cell: ({ row }) => (row.original.membership ? `${words(row.original.membership)}${row.original.plan ? ` (${row.original.plan})` : ""}` : "none"),
+    cell: ({ row }) =>
+      row.original.membership
+        ? `${words(row.original.membership)}${row.original.plan ? ` (${row.original.plan})` : ""}`
+        : "none",
   },
 ];
 

@@ -17,7 +17,11 @@ type Props = {
 const FIXED = ["from", "to", "q"];
 
 /** A status menu (values shown in words) and a plan menu: the filters every money table starts with. */
-export function statusAndPlanFilters(statuses: readonly string[], plans: { id: string; name: string }[], labels = { status: "Status", plan: "Plan" }): FilterDef[] {
+export function statusAndPlanFilters(
+  statuses: readonly string[],
+  plans: { id: string; name: string }[],
+  labels = { status: "Status", plan: "Plan" },
+): FilterDef[] {
   return [
     { name: "status", label: labels.status, options: statuses.map((s) => ({ value: s, label: words(s) })) },
     { name: "plan", label: labels.plan, options: plans.map((p) => ({ value: p.id, label: p.name })) },

@@ -16,9 +16,14 @@ export function parseMajor(text: string, currency: string): number | null {
   return Number(m[1]) * 10 ** digits + Number((m[2] ?? "").padEnd(digits, "0") || 0);
 }
 
-export const toMajor = (minor: number, currency: string) => (minor / 10 ** minorDigits(currency)).toFixed(minorDigits(currency));
+export const toMajor = (minor: number, currency: string) =>
+  (minor / 10 ** minorDigits(currency)).toFixed(minorDigits(currency));
 
 export const day = (iso: string | null) =>
-  iso ? new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(new Date(iso)) : "—";
+  iso
+    ? new Intl.DateTimeFormat("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" }).format(
+        new Date(iso),
+      )
+    : "—";
 
 export const words = (s: string) => s.replaceAll("_", " ");

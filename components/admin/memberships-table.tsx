@@ -17,7 +17,13 @@ const member = (r: MembershipJson) => (
 const columns: ColumnDef<MembershipJson, unknown>[] = [
   { id: "date", accessorFn: (r) => r.startedAt, header: "Started", cell: ({ row }) => day(row.original.startedAt) },
   { id: "name", accessorFn: (r) => r.name, header: "Member", cell: ({ row }) => member(row.original) },
-  { id: "plan", header: "Plan", enableSorting: false, cell: ({ row }) => `${row.original.plan} (${money(row.original.amount, row.original.currency)} a ${row.original.interval})` },
+  {
+    id: "plan",
+    header: "Plan",
+    enableSorting: false,
+    cell: ({ row }) =>
+      `${row.original.plan} (${money(row.original.amount, row.original.currency)} a ${row.original.interval})`,
+  },
   {
     id: "status",
     accessorFn: (r) => r.status,
@@ -33,7 +39,8 @@ const columns: ColumnDef<MembershipJson, unknown>[] = [
     id: "renews",
     accessorFn: (r) => r.currentPeriodEnd,
     header: "Renews or ends",
-    cell: ({ row }) => (row.original.endedAt ? `ended ${day(row.original.endedAt)}` : day(row.original.currentPeriodEnd)),
+    cell: ({ row }) =>
+      row.original.endedAt ? `ended ${day(row.original.endedAt)}` : day(row.original.currentPeriodEnd),
   },
 ];
 

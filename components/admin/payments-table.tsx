@@ -27,12 +27,18 @@ export function PaymentsTable({ plans }: { plans: Choice[] }) {
     },
     { id: "plan", header: "Plan", enableSorting: false, cell: ({ row }) => row.original.plan ?? "—" },
     { id: "kind", header: "Kind", enableSorting: false, cell: ({ row }) => words(row.original.kind) },
-    { id: "amount", accessorFn: (r) => r.amount, header: "Amount", cell: ({ row }) => money(row.original.amount, row.original.currency) },
+    {
+      id: "amount",
+      accessorFn: (r) => r.amount,
+      header: "Amount",
+      cell: ({ row }) => money(row.original.amount, row.original.currency),
+    },
     {
       id: "refunded",
       header: "Refunded",
       enableSorting: false,
-      cell: ({ row }) => (row.original.refundedAmount > 0 ? money(row.original.refundedAmount, row.original.currency) : "—"),
+      cell: ({ row }) =>
+        row.original.refundedAmount > 0 ? money(row.original.refundedAmount, row.original.currency) : "—",
     },
     {
       id: "status",
@@ -54,7 +60,12 @@ export function PaymentsTable({ plans }: { plans: Choice[] }) {
         const p = row.original;
         if (p.status === "failed" || p.refundedAmount >= p.amount) return null;
         return (
-          <Button size="sm" variant="secondary" onClick={() => setRefunding(p)} aria-label={`Refund ${p.name}, ${day(p.createdAt)}`}>
+          <Button
+            size="sm"
+            variant="secondary"
+            onClick={() => setRefunding(p)}
+            aria-label={`Refund ${p.name}, ${day(p.createdAt)}`}
+          >
             Refund
           </Button>
         );

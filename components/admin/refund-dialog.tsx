@@ -25,7 +25,8 @@ export function RefundDialog({ payment, onClose }: { payment: PaymentJson; onClo
   }, []);
 
   const refund = useMutation({
-    mutationFn: (body: { amount: number; reason: string }) => fetchJson(`/api/admin/payments/${payment.id}/refunds`, { method: "POST", body }),
+    mutationFn: (body: { amount: number; reason: string }) =>
+      fetchJson(`/api/admin/payments/${payment.id}/refunds`, { method: "POST", body }),
     onSuccess: async () => {
       await queries.invalidateQueries({ queryKey: ["admin-table"] });
       onClose();
@@ -46,28 +47,58 @@ export function RefundDialog({ payment, onClose }: { payment: PaymentJson; onClo
   }
 
   return (
-    <dialog ref={ref} aria-labelledby={`${id}-title`} onClose={onClose} className="w-[min(28rem,calc(100vw-2rem))] rounded-knot border border-line bg-paper p-0 text-ink backdrop:bg-walnut/40">
+    <dialog
+      ref={ref}
+      aria-labelledby={`${id}-title`}
+      onClose={onClose}
+      className="w-[min(28rem,calc(100vw-2rem))] rounded-knot border border-line bg-paper p-0 text-ink backdrop:bg-walnut/40"
+    >
       <form onSubmit={submit} className="flex flex-col gap-4 p-5" noValidate>
         <h2 id={`${id}-title`} className="font-serif text-h4">
           Refund {payment.name}
         </h2>
         <p className="text-small text-bark">
           Paid {money(payment.amount, payment.currency)}
-          {payment.refundedAmount > 0 ? `, ${money(payment.refundedAmount, payment.currency)} refunded already` : ""}.{" "}
+          {payment.refundedAmount > 0
+            ? `, ${money(payment.refundedAmount, payment.currency)} refunded already`
+            : ""}.{" "}
           <strong className="text-ink" data-testid="refundable">
             Refundable: {money(remaining, payment.currency)}
           </strong>
         </p>
         <label htmlFor={`${id}-amount`} className="flex flex-col gap-1 font-semibold">
           Amount to refund ({payment.currency})
-          <Input id={`${id}-amount`} inputMode="decimal" value={amount} onChange={(e) => setAmount(e.target.value)} aria-invalid={errors.amount ? true : undefined} aria-describedby={errors.amount ? `${id}-amount-error` : undefined} />
+          <Input
+            id={`${id}-amount`}
+            inputMode="decimal"
+            value={amount}
+            onChange={(e) => setAmount(e.target.value)}
+            aria-invalid={errors.amount ? true : undefined}
+            aria-describedby={errors.amount ? `${id}-amount-error` : undefined}
+          />
         </label>
-        {errors.amount ? <p id={`${id}-amount-error`} className="text-small text-berry">{errors.amount}</p> : null}
+        {errors.amount ? (
+          <p id={`${id}-amount-error`} className="text-small text-berry">
+            {errors.amount}
+          </p>
+        ) : null}
         <label htmlFor={`${id}-reason`} className="flex flex-col gap-1 font-semibold">
           Reason
-          <Textarea id={`${id}-reason`} rows={3} maxLength={500} value={reason} onChange={(e) => setReason(e.target.value)} aria-invalid={errors.reason ? true : undefined} aria-describedby={errors.reason ? `${id}-reason-error` : undefined} />
+          <Textarea
+            id={`${id}-reason`}
+            rows={3}
+            maxLength={500}
+            value={reason}
+            onChange={(e) => setReason(e.target.value)}
+            aria-invalid={errors.reason ? true : undefined}
+            aria-describedby={errors.reason ? `${id}-reason-error` : undefined}
+          />
         </label>
-        {errors.reason ? <p id={`${id}-reason-error`} className="text-small text-berry">{errors.reason}</p> : null}
+        {errors.reason ? (
+          <p id={`${id}-reason-error`} className="text-small text-berry">
+            {errors.reason}
+          </p>
+        ) : null}
         {refund.error && !errors.amount && !errors.reason ? <Alert tone="error">{refund.error.message}</Alert> : null}
         <div className="flex flex-wrap justify-end gap-2">
           <Button variant="quiet" onClick={onClose}>

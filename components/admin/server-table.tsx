@@ -105,7 +105,11 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
         <p className="text-small text-bark" aria-live="polite" data-testid="table-total">
           {total === undefined ? (count.error ? "" : "Counting…") : `${total} ${total === 1 ? "row" : "rows"} match`}
         </p>
-        <a className="text-small font-semibold text-cedar underline" href={`${endpoint}/export?${exportQuery.toString()}`} download>
+        <a
+          className="text-small font-semibold text-cedar underline"
+          href={`${endpoint}/export?${exportQuery.toString()}`}
+          download
+        >
           Export CSV
         </a>
       </div>
@@ -118,9 +122,16 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
                 const sorted = h.column.getIsSorted();
                 const label = flexRender(h.column.columnDef.header, h.getContext());
                 return (
-                  <Th key={h.id} aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}>
+                  <Th
+                    key={h.id}
+                    aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
+                  >
                     {h.column.getCanSort() ? (
-                      <button type="button" className="inline-flex items-center gap-1 font-semibold underline-offset-2 hover:underline" onClick={h.column.getToggleSortingHandler()}>
+                      <button
+                        type="button"
+                        className="inline-flex items-center gap-1 font-semibold underline-offset-2 hover:underline"
+                        onClick={h.column.getToggleSortingHandler()}
+                      >
                         {label}
                         <span aria-hidden="true">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
                       </button>
@@ -154,9 +165,7 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
         <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => go({ page: String(page - 1) })}>
           Previous
         </Button>
-        <span>
-          {total === undefined ? `Page ${page}` : `Page ${page} of ${pageCount}`}
-        </span>
+        <span>{total === undefined ? `Page ${page}` : `Page ${page} of ${pageCount}`}</span>
         <Button variant="secondary" size="sm" disabled={!hasMore} onClick={() => go({ page: String(page + 1) })}>
           Next
         </Button>

@@ -15,7 +15,8 @@ import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import { ChangePlan } from "./change-plan";
 import { InvoiceList } from "./invoice-list";
 
-const day = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric" });
+const day = (iso: string) =>
+  new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "long", year: "numeric" });
 
 export function BillingView({ notice }: { notice: string | null }) {
   const client = useQueryClient();
@@ -49,14 +50,28 @@ export function BillingView({ notice }: { notice: string | null }) {
   const live = m && m.status !== "canceled" && m.status !== "incomplete_expired";
   return (
     <div className="flex flex-col gap-6">
-      {notice ? <Alert tone="success" live>{notice}</Alert> : null}
-      {error ? <Alert tone="error" live>{error}</Alert> : null}
+      {notice ? (
+        <Alert tone="success" live>
+          {notice}
+        </Alert>
+      ) : null}
+      {error ? (
+        <Alert tone="error" live>
+          {error}
+        </Alert>
+      ) : null}
       <Card as="section" aria-labelledby="membership" className="flex flex-col gap-3">
-        <h2 id="membership" className="font-serif text-h3 font-semibold">Membership</h2>
+        <h2 id="membership" className="font-serif text-h3 font-semibold">
+          Membership
+        </h2>
         {!m ? (
           <>
-            <p className="text-bark">You have no membership yet. Taster tunes are open; a membership opens every course.</p>
-            <div><LinkButton href="/plans">See the membership plans</LinkButton></div>
+            <p className="text-bark">
+              You have no membership yet. Taster tunes are open; a membership opens every course.
+            </p>
+            <div>
+              <LinkButton href="/plans">See the membership plans</LinkButton>
+            </div>
           </>
         ) : (
           <dl className="grid grid-cols-1 gap-x-6 gap-y-2 sm:grid-cols-[auto_1fr]">
@@ -65,7 +80,11 @@ export function BillingView({ notice }: { notice: string | null }) {
             <dt className="font-semibold">Status</dt>
             <dd data-testid="membership-status">{m.statusWords}</dd>
             <dt className="font-semibold">Next charge</dt>
-            <dd>{m.nextCharge ? `${formatMoney(m.nextCharge.amount, m.nextCharge.currency)} on ${day(m.nextCharge.date)}` : "None"}</dd>
+            <dd>
+              {m.nextCharge
+                ? `${formatMoney(m.nextCharge.amount, m.nextCharge.currency)} on ${day(m.nextCharge.date)}`
+                : "None"}
+            </dd>
           </dl>
         )}
         {live ? (
@@ -79,20 +98,25 @@ export function BillingView({ notice }: { notice: string | null }) {
                 {busy === "cancel" ? "Cancelling…" : "Cancel at the end of this period"}
               </Button>
             )}
-            <Button variant="secondary" onClick={() => act("card", "/api/billing/update-card", (b) => b.url && window.location.assign(b.url))} disabled={busy !== null}>
+            <Button
+              variant="secondary"
+              onClick={() => act("card", "/api/billing/update-card", (b) => b.url && window.location.assign(b.url))}
+              disabled={busy !== null}
+            >
               {busy === "card" ? "Opening…" : m.status === "past_due" ? "Update card and pay" : "Update card"}
             </Button>
           </div>
         ) : m ? (
-          <div><LinkButton href="/plans">Choose a plan to rejoin</LinkButton></div>
+          <div>
+            <LinkButton href="/plans">Choose a plan to rejoin</LinkButton>
+          </div>
         ) : null}
       </Card>
-      {live ? (
-        <ChangePlan current={m.planId} plans={plans} onChanged={() => setWatchUntil(Date.now() + 8000)} />
-      ) : null}
+      {live ? <ChangePlan current={m.planId} plans={plans} onChanged={() => setWatchUntil(Date.now() + 8000)} /> : null}
       <InvoiceList payments={payments} />
       <p className="text-small text-bark">
-        Payments are taken by Stripe; Rosinwood never sees your card number. Questions about a charge? <Link href="/learn">Ask your teacher</Link> or the school office.
+        Payments are taken by Stripe; Rosinwood never sees your card number. Questions about a charge?{" "}
+        <Link href="/learn">Ask your teacher</Link> or the school office.
       </p>
     </div>
   );

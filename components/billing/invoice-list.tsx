@@ -5,7 +5,8 @@ import { formatMoney } from "@/lib/billing/money";
 
 const KIND = { new: "First payment", renewal: "Renewal", plan_change: "Change of plan" } as const;
 const STATUS = { paid: "Paid", failed: "Failed", refunded: "Refunded", partially_refunded: "Partly refunded" } as const;
-const day = (iso: string) => new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
+const day = (iso: string) =>
+  new Date(iso).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" });
 
 /** Invoices with amounts, refunds (as the admin tables show them) and a receipt each. */
 export function InvoiceList({ payments }: { payments: BillingSummary["payments"] }) {
@@ -32,11 +33,20 @@ export function InvoiceList({ payments }: { payments: BillingSummary["payments"]
               {p.refunds.length === 0
                 ? "—"
                 : p.refunds.map((r) => (
-                    <span key={r.id} className="block">{`${formatMoney(r.amount, r.currency)} on ${day(r.createdAt)} (${r.reason})`}</span>
+                    <span
+                      key={r.id}
+                      className="block"
+                    >{`${formatMoney(r.amount, r.currency)} on ${day(r.createdAt)} (${r.reason})`}</span>
                   ))}
             </Td>
             <Td>{p.status === "failed" && p.failureMessage ? `Failed: ${p.failureMessage}` : STATUS[p.status]}</Td>
-            <Td>{p.status === "failed" ? "—" : <Link href={`/learn/billing/receipts/${p.id}`}>{`Receipt ${p.receiptNumber ?? ""}`.trim()}</Link>}</Td>
+            <Td>
+              {p.status === "failed" ? (
+                "—"
+              ) : (
+                <Link href={`/learn/billing/receipts/${p.id}`}>{`Receipt ${p.receiptNumber ?? ""}`.trim()}</Link>
+              )}
+            </Td>
           </tr>
         ))}
       </TBody>

@@ -11,7 +11,10 @@ import { PlanForm } from "./plan-form";
 
 export function PlansAdmin() {
   const client = useQueryClient();
-  const list = useQuery({ queryKey: ["admin-plans"], queryFn: () => fetchJson<{ plans: PlanJson[] }>("/api/admin/plans") });
+  const list = useQuery({
+    queryKey: ["admin-plans"],
+    queryFn: () => fetchJson<{ plans: PlanJson[] }>("/api/admin/plans"),
+  });
   const [editing, setEditing] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
   const refresh = () => client.invalidateQueries({ queryKey: ["admin-plans"] });
@@ -26,14 +29,25 @@ export function PlansAdmin() {
   }
   return (
     <div className="flex flex-col gap-6">
-      {error ? <Alert tone="error" live>{error}</Alert> : null}
-      {list.isPending ? <p role="status">Loading plans…</p> : list.isError ? <Alert tone="error">{errorWords(list.error)}</Alert> : null}
+      {error ? (
+        <Alert tone="error" live>
+          {error}
+        </Alert>
+      ) : null}
+      {list.isPending ? (
+        <p role="status">Loading plans…</p>
+      ) : list.isError ? (
+        <Alert tone="error">{errorWords(list.error)}</Alert>
+      ) : null}
       <ul className="flex flex-col gap-4">
         {list.data?.plans.map((p) => (
           <Card as="li" key={p.id} className="flex flex-col gap-3">
             <div className="flex flex-wrap items-baseline justify-between gap-2">
               <h2 className="font-serif text-h4 font-semibold">{p.name}</h2>
-              <p>{`${formatMoney(p.amount, p.currency)} per ${p.interval}`}{p.retiredAt ? " · retired" : ""}</p>
+              <p>
+                {`${formatMoney(p.amount, p.currency)} per ${p.interval}`}
+                {p.retiredAt ? " · retired" : ""}
+              </p>
             </div>
             <p className="text-small text-bark">{`Opens: ${p.opens} · Stripe ${p.stripeProductId ?? "—"} / ${p.stripePriceId ?? "—"}`}</p>
             {editing === p.id ? (
@@ -49,15 +63,29 @@ export function PlansAdmin() {
               />
             ) : null}
             <div className="flex flex-wrap gap-2">
-              <Button variant="secondary" size="sm" onClick={() => setEditing(editing === p.id ? null : p.id)}>{editing === p.id ? "Close" : `Edit ${p.name}`}</Button>
-              {!p.retiredAt ? <Button variant="secondary" size="sm" onClick={() => act(`/api/admin/plans/${p.id}`, "POST", { action: "retire" })}>{`Retire ${p.name}`}</Button> : null}
-              <Button variant="danger" size="sm" onClick={() => act(`/api/admin/plans/${p.id}`, "DELETE")}>{`Delete ${p.name}`}</Button>
+              <Button variant="secondary" size="sm" onClick={() => setEditing(editing === p.id ? null : p.id)}>
+                {editing === p.id ? "Close" : `Edit ${p.name}`}
+              </Button>
+              {!p.retiredAt ? (
+                <Button
+                  variant="secondary"
+                  size="sm"
+                  onClick={() => act(`/api/admin/plans/${p.id}`, "POST", { action: "retire" })}
+                >{`Retire ${p.name}`}</Button>
+              ) : null}
+              <Button
+                variant="danger"
+                size="sm"
+                onClick={() => act(`/api/admin/plans/${p.id}`, "DELETE")}
+              >{`Delete ${p.name}`}</Button>
             </div>
           </Card>
         ))}
       </ul>
       <Card as="section" aria-labelledby="new-plan" className="flex flex-col gap-3">
-        <h2 id="new-plan" className="font-serif text-h3 font-semibold">New plan</h2>
+        <h2 id="new-plan" className="font-serif text-h3 font-semibold">
+          New plan
+        </h2>
         <PlanForm submitLabel="Create plan" url="/api/admin/plans" method="POST" onDone={() => void refresh()} />
       </Card>
     </div>

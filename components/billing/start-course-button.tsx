@@ -31,7 +31,11 @@ export function StartCourseButton({ courseId, title }: { courseId: string; title
           {state === "busy" ? "Starting…" : "Start this course"}
         </Button>
       </div>
-      {error ? <Alert tone="error" live>{error}</Alert> : null}
+      {error ? (
+        <Alert tone="error" live>
+          {error}
+        </Alert>
+      ) : null}
     </div>
   );
 }

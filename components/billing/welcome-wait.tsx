@@ -26,7 +26,8 @@ export function WelcomeWait({ course }: { course: string | null }) {
     queryKey: ["welcome-ladder", course],
     enabled: member && course !== null,
     queryFn: () => fetchJson<LadderJson>(`/api/courses/${encodeURIComponent(course ?? "")}/ladder`),
-    refetchInterval: (q) => (q.state.data && q.state.data.standing.pathway !== "taster") || Date.now() - started > PATIENCE_MS ? false : 1000,
+    refetchInterval: (q) =>
+      (q.state.data && q.state.data.standing.pathway !== "taster") || Date.now() - started > PATIENCE_MS ? false : 1000,
   });
   const good = member && (course === null || (ladder.data !== undefined && ladder.data.standing.pathway !== "taster"));
   useEffect(() => {
@@ -36,7 +37,8 @@ export function WelcomeWait({ course }: { course: string | null }) {
   if (Date.now() - started > PATIENCE_MS && !summary.isFetching) {
     return (
       <Alert tone="warning" title="Still waiting for the payment confirmation">
-        Stripe has not confirmed the payment yet. This page will not charge you again; check the billing page in a few minutes.
+        Stripe has not confirmed the payment yet. This page will not charge you again; check the billing page in a few
+        minutes.
       </Alert>
     );
   }

@@ -10,7 +10,13 @@ import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 
 type Notice = { tone: "success" | "error"; text: string } | null;
 
-export function CalendarFeedCard({ initialUrl, audience }: { initialUrl: string | null; audience: "student" | "teacher" }) {
+export function CalendarFeedCard({
+  initialUrl,
+  audience,
+}: {
+  initialUrl: string | null;
+  audience: "student" | "teacher";
+}) {
   const inputId = useId();
   const [url, setUrl] = useState(initialUrl);
   const [busy, setBusy] = useState(false);
@@ -23,10 +29,18 @@ export function CalendarFeedCard({ initialUrl, audience }: { initialUrl: string 
       if (what === "off") {
         await fetchJson("/api/calendar", { method: "DELETE" });
         setUrl(null);
-        setNotice({ tone: "success", text: "The calendar feed is off. Calendars subscribed to it will stop updating." });
+        setNotice({
+          tone: "success",
+          text: "The calendar feed is off. Calendars subscribed to it will stop updating.",
+        });
       } else {
         const next = await fetchJson<{ url: string }>("/api/calendar", { method: "POST" });
-        setNotice({ tone: "success", text: url ? "New address made. The old one no longer works; subscribe again with this one." : "Your calendar address is ready." });
+        setNotice({
+          tone: "success",
+          text: url
+            ? "New address made. The old one no longer works; subscribe again with this one."
+            : "Your calendar address is ready.",
+        });
         setUrl(next.url);
       }
     } catch (e) {
@@ -62,7 +76,13 @@ export function CalendarFeedCard({ initialUrl, audience }: { initialUrl: string 
             Your calendar address
           </label>
           <div className="flex flex-col gap-2 sm:flex-row">
-            <Input id={inputId} readOnly value={url} onFocus={(e) => e.currentTarget.select()} className="font-mono text-small" />
+            <Input
+              id={inputId}
+              readOnly
+              value={url}
+              onFocus={(e) => e.currentTarget.select()}
+              className="font-mono text-small"
+            />
             <Button variant="secondary" onClick={() => void copy()}>
               Copy
             </Button>

@@ -18,7 +18,11 @@ export function CourseOutline({ course }: { course: CatalogueCourse }) {
       <p className="max-w-prose text-bark">{course.summary}</p>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
         {course.grades.map((g) => (
-          <section key={g.title} aria-label={`${course.title}, ${g.title}`} className="rounded-knot border border-line bg-sawdust p-4">
+          <section
+            key={g.title}
+            aria-label={`${course.title}, ${g.title}`}
+            className="rounded-knot border border-line bg-sawdust p-4"
+          >
             <h3 className="mb-2 font-semibold">{g.title}</h3>
             <ol className="flex flex-col gap-2">
               {g.rungs.map((r) => (

@@ -31,7 +31,10 @@ export function CourseBuilder({ courseId }: { courseId: string }) {
   const error = action.error ?? reorder.error;
   const addGrade = (e: FormEvent): void => {
     e.preventDefault();
-    action.mutate({ path: "/grades", method: "POST", body: { title: gradeTitle || `Grade ${course.grades.length + 1}` } }, { onSuccess: () => setGradeTitle("") });
+    action.mutate(
+      { path: "/grades", method: "POST", body: { title: gradeTitle || `Grade ${course.grades.length + 1}` } },
+      { onSuccess: () => setGradeTitle("") },
+    );
   };
   let number = 1;
 
@@ -53,8 +56,15 @@ export function CourseBuilder({ courseId }: { courseId: string }) {
         <h2 id="ladder-heading" className="font-serif text-h3 font-semibold">
           Ladder
         </h2>
-        <p className="text-small text-bark">Students climb from the top. Drag a rung or grade by its grip, or use Move up and Move down; a rung moves into the next grade at a grade&apos;s edge.</p>
-        <SortableList ids={course.grades.map((g) => g.id)} nameOf={(id) => course.grades.find((g) => g.id === id)?.title ?? "the grade"} onMove={(from, to) => send({ grades: moved(order.grades, from, to) })}>
+        <p className="text-small text-bark">
+          Students climb from the top. Drag a rung or grade by its grip, or use Move up and Move down; a rung moves into
+          the next grade at a grade&apos;s edge.
+        </p>
+        <SortableList
+          ids={course.grades.map((g) => g.id)}
+          nameOf={(id) => course.grades.find((g) => g.id === id)?.title ?? "the grade"}
+          onMove={(from, to) => send({ grades: moved(order.grades, from, to) })}
+        >
           <ol className="flex flex-col gap-4">
             {course.grades.map((g, gi) => {
               const first = number;
@@ -73,10 +83,17 @@ export function CourseBuilder({ courseId }: { courseId: string }) {
                   onMoveGrade={(step) => send(moveGrade(order, g.id, step))}
                   onRename={(title) => action.mutate({ path: `/grades/${g.id}`, method: "PATCH", body: { title } })}
                   onRemove={() => {
-                    if (g.rungs.length === 0 || window.confirm(`Remove ${g.title} and its ${g.rungs.length} rung(s)?`)) action.mutate({ path: `/grades/${g.id}`, method: "DELETE" });
+                    if (g.rungs.length === 0 || window.confirm(`Remove ${g.title} and its ${g.rungs.length} rung(s)?`))
+                      action.mutate({ path: `/grades/${g.id}`, method: "DELETE" });
                   }}
                   onMoveRung={(rungId, step) => send(moveRung(order, rungId, step))}
-                  onDropRung={(from, to) => send({ grades: order.grades.map((o) => (o.id === g.id ? { id: o.id, rungs: moved(o.rungs, from, to) } : o)) })}
+                  onDropRung={(from, to) =>
+                    send({
+                      grades: order.grades.map((o) =>
+                        o.id === g.id ? { id: o.id, rungs: moved(o.rungs, from, to) } : o,
+                      ),
+                    })
+                  }
                   onPatchRung={(rungId, set) => action.mutate({ path: `/rungs/${rungId}`, method: "PATCH", body: set })}
                   onRemoveRung={(rungId) => action.mutate({ path: `/rungs/${rungId}`, method: "DELETE" })}
                   onAddRung={(v) => action.mutate({ path: "/rungs", method: "POST", body: v })}
@@ -86,7 +103,13 @@ export function CourseBuilder({ courseId }: { courseId: string }) {
           </ol>
         </SortableList>
         <form onSubmit={addGrade} className="flex flex-wrap items-end gap-3">
-          <TextField name="gradeTitle" label="New grade" placeholder={`Grade ${course.grades.length + 1}`} value={gradeTitle} onChange={(e) => setGradeTitle(e.target.value)} />
+          <TextField
+            name="gradeTitle"
+            label="New grade"
+            placeholder={`Grade ${course.grades.length + 1}`}
+            value={gradeTitle}
+            onChange={(e) => setGradeTitle(e.target.value)}
+          />
           <Button type="submit" variant="secondary" disabled={busy}>
             Add a grade
           </Button>

@@ -22,7 +22,8 @@ export function CourseHeader({ course, busy, onSave, onPublish }: CourseHeaderPr
   const submit = (e: FormEvent): void => {
     e.preventDefault();
     const parsed = courseInput.safeParse({ title, summary });
-    if (!parsed.success) return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
+    if (!parsed.success)
+      return setErrors(Object.fromEntries(parsed.error.issues.map((i) => [String(i.path[0]), i.message])));
     setErrors({});
     onSave(parsed.data);
   };
@@ -30,13 +31,32 @@ export function CourseHeader({ course, busy, onSave, onPublish }: CourseHeaderPr
     <header className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center gap-3">
         <p className="text-small font-semibold tracking-widest text-cedar uppercase">Course builder</p>
-        <span className={course.published ? "rounded-sm bg-spruce-tint px-2 text-small font-semibold text-spruce" : "rounded-sm bg-sawdust px-2 text-small font-semibold text-bark"} data-testid="publish-state">
+        <span
+          className={
+            course.published
+              ? "rounded-sm bg-spruce-tint px-2 text-small font-semibold text-spruce"
+              : "rounded-sm bg-sawdust px-2 text-small font-semibold text-bark"
+          }
+          data-testid="publish-state"
+        >
           {course.published ? "Published" : "Not published"}
         </span>
       </div>
       <form onSubmit={submit} className="grid gap-3 md:grid-cols-[1fr_2fr_auto] md:items-end">
-        <TextField name="title" label="Course title" value={title} onChange={(e) => setTitle(e.target.value)} error={errors.title} />
-        <TextField name="summary" label="Summary" value={summary} onChange={(e) => setSummary(e.target.value)} error={errors.summary} />
+        <TextField
+          name="title"
+          label="Course title"
+          value={title}
+          onChange={(e) => setTitle(e.target.value)}
+          error={errors.title}
+        />
+        <TextField
+          name="summary"
+          label="Summary"
+          value={summary}
+          onChange={(e) => setSummary(e.target.value)}
+          error={errors.summary}
+        />
         <Button type="submit" variant="secondary" disabled={!changed || busy}>
           Save title and summary
         </Button>
@@ -51,7 +71,11 @@ export function CourseHeader({ course, busy, onSave, onPublish }: CourseHeaderPr
             Publish the course
           </Button>
         )}
-        <span className="text-small text-bark">{course.published ? "Students and visitors can see it in the catalogue." : "Only you can see it until it is published."}</span>
+        <span className="text-small text-bark">
+          {course.published
+            ? "Students and visitors can see it in the catalogue."
+            : "Only you can see it until it is published."}
+        </span>
       </div>
       {course.problems.length ? (
         <Alert tone="warning" title={course.published ? "Fix these" : "Before it can be published"}>

@@ -13,11 +13,15 @@ import { errorWords, teachFetch } from "@/lib/tunes/client-fetch";
 
 export function CourseList({ showTeacher }: { showTeacher: boolean }) {
   const router = useRouter();
-  const query = useQuery({ queryKey: ["teach-courses"], queryFn: () => teachFetch<{ courses: CourseSummary[] }>("/api/teach/courses") });
+  const query = useQuery({
+    queryKey: ["teach-courses"],
+    queryFn: () => teachFetch<{ courses: CourseSummary[] }>("/api/teach/courses"),
+  });
   const [title, setTitle] = useState("");
   const [fieldError, setFieldError] = useState<string | undefined>();
   const create = useMutation({
-    mutationFn: (v: { title: string; summary: string }) => teachFetch<{ id: string }>("/api/teach/courses", { method: "POST", body: v }),
+    mutationFn: (v: { title: string; summary: string }) =>
+      teachFetch<{ id: string }>("/api/teach/courses", { method: "POST", body: v }),
     onSuccess: ({ id }) => router.push(`/teach/courses/${id}`),
   });
   const submit = (e: FormEvent): void => {
@@ -29,12 +33,23 @@ export function CourseList({ showTeacher }: { showTeacher: boolean }) {
   return (
     <div className="flex flex-col gap-6">
       <form onSubmit={submit} className="flex flex-wrap items-end gap-3 rounded-knot border border-line bg-paper p-4">
-        <TextField name="title" label="New course" placeholder="e.g. First steps in jigs" value={title} onChange={(e) => setTitle(e.target.value)} error={fieldError} />
+        <TextField
+          name="title"
+          label="New course"
+          placeholder="e.g. First steps in jigs"
+          value={title}
+          onChange={(e) => setTitle(e.target.value)}
+          error={fieldError}
+        />
         <Button type="submit" disabled={create.isPending}>
           {create.isPending ? "Starting…" : "Start a course"}
         </Button>
       </form>
-      {create.error ? <Alert tone="error" live>{errorWords(create.error)}</Alert> : null}
+      {create.error ? (
+        <Alert tone="error" live>
+          {errorWords(create.error)}
+        </Alert>
+      ) : null}
       {query.isPending ? <p className="text-bark">Loading your courses…</p> : null}
       {query.isError ? <Alert tone="error">{errorWords(query.error)}</Alert> : null}
       {query.data ? (
@@ -46,7 +61,8 @@ export function CourseList({ showTeacher }: { showTeacher: boolean }) {
                   {c.title}
                 </Link>
                 <p className="text-small text-bark">
-                  {c.published ? "Published" : "Not published"} · {c.gradeCount} grade{c.gradeCount === 1 ? "" : "s"} · {c.rungCount} rung{c.rungCount === 1 ? "" : "s"}
+                  {c.published ? "Published" : "Not published"} · {c.gradeCount} grade{c.gradeCount === 1 ? "" : "s"} ·{" "}
+                  {c.rungCount} rung{c.rungCount === 1 ? "" : "s"}
                   {showTeacher ? ` · ${c.teacherName}` : ""}
                 </p>
                 {c.summary ? <p className="text-small">{c.summary}</p> : null}

@@ -3,7 +3,15 @@
 // lift, arrow keys to move, Space to drop, Escape to cancel.
 import type { DraggableAttributes, DraggableSyntheticListeners } from "@dnd-kit/core";
 
-export function DragHandle({ label, attributes, listeners }: { label: string; attributes: DraggableAttributes; listeners: DraggableSyntheticListeners }) {
+export function DragHandle({
+  label,
+  attributes,
+  listeners,
+}: {
+  label: string;
+  attributes: DraggableAttributes;
+  listeners: DraggableSyntheticListeners;
+}) {
   return (
     <button
       type="button"
@@ -13,7 +21,10 @@ export function DragHandle({ label, attributes, listeners }: { label: string; at
       {...listeners}
     >
       <svg aria-hidden="true" viewBox="0 0 10 16" className="h-4 w-3" fill="currentColor">
-        {[2, 8, 14].flatMap((y) => [<circle key={`a${y}`} cx="2.5" cy={y} r="1.5" />, <circle key={`b${y}`} cx="7.5" cy={y} r="1.5" />])}
+        {[2, 8, 14].flatMap((y) => [
+          <circle key={`a${y}`} cx="2.5" cy={y} r="1.5" />,
+          <circle key={`b${y}`} cx="7.5" cy={y} r="1.5" />,
+        ])}
       </svg>
     </button>
   );

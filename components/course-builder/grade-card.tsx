@@ -42,32 +42,67 @@ export function GradeCard(p: GradeCardProps) {
     if (title.trim() && title.trim() !== grade.title) p.onRename(title.trim());
   };
   return (
-    <li ref={setNodeRef} style={{ transform: CSS.Transform.toString(transform), transition }} className={cx("flex flex-col gap-3 rounded-knot border-2 border-line bg-sawdust p-4", isDragging && "z-10 shadow-lg")} aria-label={grade.title}>
+    <li
+      ref={setNodeRef}
+      style={{ transform: CSS.Transform.toString(transform), transition }}
+      className={cx(
+        "flex flex-col gap-3 rounded-knot border-2 border-line bg-sawdust p-4",
+        isDragging && "z-10 shadow-lg",
+      )}
+      aria-label={grade.title}
+    >
       <div className="flex flex-wrap items-center gap-2">
         <DragHandle label={`Drag ${grade.title}`} attributes={attributes} listeners={listeners} />
         <form onSubmit={rename} className="flex flex-1 flex-wrap items-center gap-2">
           <label htmlFor={`grade-title-${grade.id}`} className="sr-only">
             Title of {grade.title}
           </label>
-          <input id={`grade-title-${grade.id}`} value={title} onChange={(e) => setTitle(e.target.value)} className={cx(inlineControl, "min-w-48 flex-1 font-serif text-h4 font-semibold")} />
+          <input
+            id={`grade-title-${grade.id}`}
+            value={title}
+            onChange={(e) => setTitle(e.target.value)}
+            className={cx(inlineControl, "min-w-48 flex-1 font-serif text-h4 font-semibold")}
+          />
           {title.trim() !== grade.title ? (
             <Button type="submit" size="sm" variant="secondary" disabled={p.busy}>
               Rename
             </Button>
           ) : null}
         </form>
-        <Button size="sm" variant="quiet" disabled={p.isFirst || p.busy} onClick={() => p.onMoveGrade(-1)} aria-label={`Move ${grade.title} up`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={p.isFirst || p.busy}
+          onClick={() => p.onMoveGrade(-1)}
+          aria-label={`Move ${grade.title} up`}
+        >
           Move up
         </Button>
-        <Button size="sm" variant="quiet" disabled={p.isLast || p.busy} onClick={() => p.onMoveGrade(1)} aria-label={`Move ${grade.title} down`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={p.isLast || p.busy}
+          onClick={() => p.onMoveGrade(1)}
+          aria-label={`Move ${grade.title} down`}
+        >
           Move down
         </Button>
-        <Button size="sm" variant="quiet" disabled={p.busy} onClick={p.onRemove} aria-label={`Remove ${grade.title} and its rungs`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={p.busy}
+          onClick={p.onRemove}
+          aria-label={`Remove ${grade.title} and its rungs`}
+        >
           Remove grade
         </Button>
       </div>
       {grade.rungs.length ? (
-        <SortableList ids={grade.rungs.map((r) => r.id)} nameOf={(id) => grade.rungs.find((r) => r.id === id)?.tuneTitle ?? "the rung"} onMove={p.onDropRung}>
+        <SortableList
+          ids={grade.rungs.map((r) => r.id)}
+          nameOf={(id) => grade.rungs.find((r) => r.id === id)?.tuneTitle ?? "the rung"}
+          onMove={p.onDropRung}
+        >
           <ol className="flex flex-col gap-2" aria-label={`Rungs of ${grade.title}`}>
             {grade.rungs.map((r, i) => (
               <RungRow
@@ -87,7 +122,14 @@ export function GradeCard(p: GradeCardProps) {
       ) : (
         <p className="text-small text-bark">No rungs in this grade yet.</p>
       )}
-      <AddRungForm courseId={p.courseId} gradeId={grade.id} gradeTitle={grade.title} usedTunes={p.usedTunes} busy={p.busy} onAdd={p.onAddRung} />
+      <AddRungForm
+        courseId={p.courseId}
+        gradeId={grade.id}
+        gradeTitle={grade.title}
+        usedTunes={p.usedTunes}
+        busy={p.busy}
+        onAdd={p.onAddRung}
+      />
     </li>
   );
 }

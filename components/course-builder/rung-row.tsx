@@ -27,7 +27,10 @@ export function RungRow({ rung, position, canMoveUp, canMoveDown, busy, onMove, 
     <li
       ref={setNodeRef}
       style={{ transform: CSS.Transform.toString(transform), transition }}
-      className={cx("flex flex-wrap items-center gap-3 rounded-knot border border-line bg-paper p-2", isDragging && "z-10 shadow-lg")}
+      className={cx(
+        "flex flex-wrap items-center gap-3 rounded-knot border border-line bg-paper p-2",
+        isDragging && "z-10 shadow-lg",
+      )}
       data-rung={rung.tuneTitle}
     >
       <DragHandle label={`Drag rung ${position}, ${rung.tuneTitle}`} attributes={attributes} listeners={listeners} />
@@ -52,17 +55,41 @@ export function RungRow({ rung, position, canMoveUp, canMoveDown, busy, onMove, 
         ))}
       </select>
       <label className="flex items-center gap-1 text-small">
-        <input type="checkbox" className="size-5 accent-cedar" checked={rung.isTaster} disabled={busy} onChange={(e) => onPatch({ isTaster: e.target.checked })} />
+        <input
+          type="checkbox"
+          className="size-5 accent-cedar"
+          checked={rung.isTaster}
+          disabled={busy}
+          onChange={(e) => onPatch({ isTaster: e.target.checked })}
+        />
         Taster (open to everyone)
       </label>
       <div className="flex gap-1">
-        <Button size="sm" variant="quiet" disabled={!canMoveUp || busy} onClick={() => onMove(-1)} aria-label={`Move ${rung.tuneTitle} up`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={!canMoveUp || busy}
+          onClick={() => onMove(-1)}
+          aria-label={`Move ${rung.tuneTitle} up`}
+        >
           Move up
         </Button>
-        <Button size="sm" variant="quiet" disabled={!canMoveDown || busy} onClick={() => onMove(1)} aria-label={`Move ${rung.tuneTitle} down`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={!canMoveDown || busy}
+          onClick={() => onMove(1)}
+          aria-label={`Move ${rung.tuneTitle} down`}
+        >
           Move down
         </Button>
-        <Button size="sm" variant="quiet" disabled={busy} onClick={onRemove} aria-label={`Remove ${rung.tuneTitle} from the ladder`}>
+        <Button
+          size="sm"
+          variant="quiet"
+          disabled={busy}
+          onClick={onRemove}
+          aria-label={`Remove ${rung.tuneTitle} from the ladder`}
+        >
           Remove
         </Button>
       </div>

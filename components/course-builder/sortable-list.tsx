@@ -1,7 +1,16 @@
 "use client";
 // A vertical list reordered by dragging (pointer or keyboard, through dnd-kit), reporting the
 // move as indexes; the caller decides what a move means and sends it to the server.
-import { closestCenter, DndContext, KeyboardSensor, PointerSensor, useSensor, useSensors, type Announcements, type DragEndEvent } from "@dnd-kit/core";
+import {
+  closestCenter,
+  DndContext,
+  KeyboardSensor,
+  PointerSensor,
+  useSensor,
+  useSensors,
+  type Announcements,
+  type DragEndEvent,
+} from "@dnd-kit/core";
 import { SortableContext, sortableKeyboardCoordinates, verticalListSortingStrategy } from "@dnd-kit/sortable";
 import type { ReactNode } from "react";
 
@@ -14,12 +23,18 @@ export interface SortableListProps {
 }
 
 export function SortableList({ ids, nameOf, onMove, children }: SortableListProps) {
-  const sensors = useSensors(useSensor(PointerSensor, { activationConstraint: { distance: 4 } }), useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }));
-  const place = (id: string | number | undefined): string => (id === undefined ? "" : `place ${ids.indexOf(String(id)) + 1} of ${ids.length}`);
+  const sensors = useSensors(
+    useSensor(PointerSensor, { activationConstraint: { distance: 4 } }),
+    useSensor(KeyboardSensor, { coordinateGetter: sortableKeyboardCoordinates }),
+  );
+  const place = (id: string | number | undefined): string =>
+    id === undefined ? "" : `place ${ids.indexOf(String(id)) + 1} of ${ids.length}`;
   const announcements: Announcements = {
-    onDragStart: ({ active }) => `Picked up ${nameOf(String(active.id))}. Use the arrow keys to move it, Space to drop it, Escape to cancel.`,
+    onDragStart: ({ active }) =>
+      `Picked up ${nameOf(String(active.id))}. Use the arrow keys to move it, Space to drop it, Escape to cancel.`,
     onDragOver: ({ active, over }) => (over ? `${nameOf(String(active.id))} is over ${place(over.id)}.` : undefined),
-    onDragEnd: ({ active, over }) => (over ? `${nameOf(String(active.id))} dropped at ${place(over.id)}.` : `${nameOf(String(active.id))} dropped.`),
+    onDragEnd: ({ active, over }) =>
+      over ? `${nameOf(String(active.id))} dropped at ${place(over.id)}.` : `${nameOf(String(active.id))} dropped.`,
     onDragCancel: ({ active }) => `Moving ${nameOf(String(active.id))} was cancelled.`,
   };
   const end = ({ active, over }: DragEndEvent): void => {
@@ -35,7 +50,10 @@ export function SortableList({ ids, nameOf, onMove, children }: SortableListProp
       onDragEnd={end}
       accessibility={{
         announcements,
-        screenReaderInstructions: { draggable: "To move this, press Space, then the arrow keys, then Space again to drop it. The Move up and Move down buttons do the same one step at a time." },
+        screenReaderInstructions: {
+          draggable:
+            "To move this, press Space, then the arrow keys, then Space again to drop it. The Move up and Move down buttons do the same one step at a time.",
+        },
       }}
     >
       <SortableContext items={ids} strategy={verticalListSortingStrategy}>

@@ -9,7 +9,10 @@ import { teachFetch } from "@/lib/tunes/client-fetch";
 export const courseKey = (id: string) => ["teach-course", id] as const;
 
 export function useCourse(courseId: string) {
-  return useQuery({ queryKey: courseKey(courseId), queryFn: () => teachFetch<CourseView>(`/api/teach/courses/${courseId}`) });
+  return useQuery({
+    queryKey: courseKey(courseId),
+    queryFn: () => teachFetch<CourseView>(`/api/teach/courses/${courseId}`),
+  });
 }
 
 export interface CourseCall {
@@ -22,8 +25,13 @@ export interface CourseCall {
 export function useCourseAction(courseId: string) {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (c: CourseCall) => teachFetch<unknown>(`/api/teach/courses/${courseId}${c.path}`, { method: c.method, body: c.body }),
-    onSettled: () => Promise.all([client.invalidateQueries({ queryKey: courseKey(courseId) }), client.invalidateQueries({ queryKey: ["teach-courses"] })]),
+    mutationFn: (c: CourseCall) =>
+      teachFetch<unknown>(`/api/teach/courses/${courseId}${c.path}`, { method: c.method, body: c.body }),
+    onSettled: () =>
+      Promise.all([
+        client.invalidateQueries({ queryKey: courseKey(courseId) }),
+        client.invalidateQueries({ queryKey: ["teach-courses"] }),
+      ]),
   });
 }
 
@@ -43,7 +51,8 @@ function reordered(course: CourseView, order: LadderOrder): CourseView {
 export function useReorder(courseId: string) {
   const client = useQueryClient();
   return useMutation({
-    mutationFn: (order: LadderOrder) => teachFetch<unknown>(`/api/teach/courses/${courseId}/order`, { method: "PUT", body: order }),
+    mutationFn: (order: LadderOrder) =>
+      teachFetch<unknown>(`/api/teach/courses/${courseId}/order`, { method: "PUT", body: order }),
     onMutate: async (order) => {
       await client.cancelQueries({ queryKey: courseKey(courseId) });
       const before = client.getQueryData<CourseView>(courseKey(courseId));

@@ -14,10 +14,20 @@ import { ImportResults, type TuneResult } from "./import-results";
 // The same limits the route enforces, checked here first so a wrong file fails at once.
 const fileCheck = z.object({
   name: z.string().regex(/\.abc$/i, "Choose a file whose name ends in .abc."),
-  size: z.number().min(1, "The file is empty.").max(IMPORT_MAX_BYTES, `The most one import takes is ${IMPORT_MAX_BYTES / 1024 / 1024} MB. Split the file into smaller ones.`),
+  size: z
+    .number()
+    .min(1, "The file is empty.")
+    .max(
+      IMPORT_MAX_BYTES,
+      `The most one import takes is ${IMPORT_MAX_BYTES / 1024 / 1024} MB. Split the file into smaller ones.`,
+    ),
 });
 
-type Phase = { kind: "idle" } | { kind: "sending" } | { kind: "reading"; total: number } | { kind: "done"; saved: number; unchanged: number; failed: number };
+type Phase =
+  | { kind: "idle" }
+  | { kind: "sending" }
+  | { kind: "reading"; total: number }
+  | { kind: "done"; saved: number; unchanged: number; failed: number };
 
 export function ImportForm() {
   const client = useQueryClient();
@@ -43,7 +53,11 @@ export function ImportForm() {
     if (!checked.success) return setError(checked.error.issues[0]?.message ?? "This file cannot be imported.");
     setPhase({ kind: "sending" });
     try {
-      const res = await fetch(`/api/teach/import?name=${encodeURIComponent(file.name)}`, { method: "POST", body: file, headers: { "content-type": "text/plain; charset=utf-8" } });
+      const res = await fetch(`/api/teach/import?name=${encodeURIComponent(file.name)}`, {
+        method: "POST",
+        body: file,
+        headers: { "content-type": "text/plain; charset=utf-8" },
+      });
       if (!res.ok || !res.body) {
         const body = (await res.json().catch(() => null)) as { error?: string } | null;
         setPhase({ kind: "idle" });
@@ -53,7 +67,9 @@ export function ImportForm() {
       await client.invalidateQueries({ queryKey: ["teach-tunes"] });
     } catch {
       setPhase({ kind: "idle" });
-      setError("The connection broke during the import. Tunes reported as saved are kept; import the file again to finish (saved tunes are not stored twice).");
+      setError(
+        "The connection broke during the import. Tunes reported as saved are kept; import the file again to finish (saved tunes are not stored twice).",
+      );
     }
   };
 
@@ -65,9 +81,17 @@ export function ImportForm() {
           ABC file
         </label>
         <p id="abc-file-hint" className="text-small text-bark">
-          One .abc file of up to {IMPORT_MAX_BYTES / 1024 / 1024} MB and 300 tunes. Each tune starts with an X: line; a blank line ends it.
+          One .abc file of up to {IMPORT_MAX_BYTES / 1024 / 1024} MB and 300 tunes. Each tune starts with an X: line; a
+          blank line ends it.
         </p>
-        <input id="abc-file" type="file" accept=".abc,text/plain" aria-describedby="abc-file-hint" disabled={busy} onChange={(e) => setFile(e.target.files?.[0] ?? null)} />
+        <input
+          id="abc-file"
+          type="file"
+          accept=".abc,text/plain"
+          aria-describedby="abc-file-hint"
+          disabled={busy}
+          onChange={(e) => setFile(e.target.files?.[0] ?? null)}
+        />
         <div>
           <Button type="submit" disabled={busy}>
             {busy ? "Importing…" : "Import the tunes"}
@@ -82,9 +106,18 @@ export function ImportForm() {
       {phase.kind !== "idle" ? (
         <div className="flex flex-col gap-1">
           <label htmlFor="import-progress" className="font-semibold">
-            {phase.kind === "done" ? "Import finished" : phase.kind === "sending" ? "Sending the file…" : `Reading tune ${Math.min(results.length + 1, total)} of ${total}`}
+            {phase.kind === "done"
+              ? "Import finished"
+              : phase.kind === "sending"
+                ? "Sending the file…"
+                : `Reading tune ${Math.min(results.length + 1, total)} of ${total}`}
           </label>
-          <progress id="import-progress" className="h-3 w-full accent-cedar" max={Math.max(total, 1)} value={phase.kind === "sending" ? undefined : results.length} />
+          <progress
+            id="import-progress"
+            className="h-3 w-full accent-cedar"
+            max={Math.max(total, 1)}
+            value={phase.kind === "sending" ? undefined : results.length}
+          />
           {phase.kind === "done" ? (
             <p role="status" className="text-small" data-testid="import-summary">
               {phase.saved} saved, {phase.unchanged} already in your tunes, {phase.failed} with problems.

@@ -15,9 +15,20 @@ export function ImportResults({ results }: { results: readonly TuneResult[] }) {
             <span className="text-bark">
               {r.n}. (line {r.line})
             </span>{" "}
-            {r.status === "problems" ? <strong>{r.title}</strong> : <Link href={`/teach/tunes/${r.tuneId}`} className="font-semibold">{r.title}</Link>}{" "}
+            {r.status === "problems" ? (
+              <strong>{r.title}</strong>
+            ) : (
+              <Link href={`/teach/tunes/${r.tuneId}`} className="font-semibold">
+                {r.title}
+              </Link>
+            )}{" "}
             <span className={r.status === "problems" ? "font-semibold text-berry" : "text-spruce"}>
-              — {r.status === "saved" ? "saved" : r.status === "unchanged" ? "already in your tunes, not saved twice" : "not saved"}
+              —{" "}
+              {r.status === "saved"
+                ? "saved"
+                : r.status === "unchanged"
+                  ? "already in your tunes, not saved twice"
+                  : "not saved"}
             </span>
           </p>
           {r.status === "problems" ? (

@@ -12,12 +12,19 @@ export function LadderView({ courseId }: { courseId: string }) {
     queryKey: ["ladder", courseId],
     queryFn: () => fetchJson<LadderJson>(`/api/courses/${encodeURIComponent(courseId)}/ladder`),
   });
-  if (ladder.isPending) return <p role="status" className="text-bark">Loading the ladder…</p>;
+  if (ladder.isPending)
+    return (
+      <p role="status" className="text-bark">
+        Loading the ladder…
+      </p>
+    );
   if (ladder.isError) {
     return (
       <Alert tone="error" title="The ladder could not be shown">
         <p>{errorWords(ladder.error)}</p>
-        <p className="mt-2"><Link href="/learn/courses">Back to my courses</Link></p>
+        <p className="mt-2">
+          <Link href="/learn/courses">Back to my courses</Link>
+        </p>
       </Alert>
     );
   }
@@ -35,10 +42,14 @@ export function LadderView({ courseId }: { courseId: string }) {
       {standing.pathway === "taster" ? <Alert tone="warning">{standing.why}</Alert> : null}
       {grades.map((g) => (
         <section key={g.id} aria-labelledby={`grade-${g.id}`} className="flex flex-col gap-3">
-          <h2 id={`grade-${g.id}`} className="font-serif text-h3 font-semibold">{g.title}</h2>
+          <h2 id={`grade-${g.id}`} className="font-serif text-h3 font-semibold">
+            {g.title}
+          </h2>
           {g.rungs.length === 0 ? <p className="text-bark">No tunes in this grade yet.</p> : null}
           <ol className="flex flex-col gap-3">
-            {g.rungs.map((r) => <RungItem key={r.rungId} rung={r} last={r.rungId === all[all.length - 1]?.rungId} />)}
+            {g.rungs.map((r) => (
+              <RungItem key={r.rungId} rung={r} last={r.rungId === all[all.length - 1]?.rungId} />
+            ))}
           </ol>
         </section>
       ))}

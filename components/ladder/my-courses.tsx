@@ -8,18 +8,40 @@ import { LinkButton } from "@/components/ui/link-button";
 import type { MyCourse } from "@/lib/catalogue/api-types";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 
-const RELATION: Record<MyCourse["relation"], string> = { active: "Enrolled", paused: "Enrolment paused", ended: "Enrolment ended", teaching: "You teach this course" };
+const RELATION: Record<MyCourse["relation"], string> = {
+  active: "Enrolled",
+  paused: "Enrolment paused",
+  ended: "Enrolment ended",
+  teaching: "You teach this course",
+};
 
 export function MyCourses() {
-  const mine = useQuery({ queryKey: ["courses", "mine"], queryFn: async () => (await fetchJson<{ courses: MyCourse[] }>("/api/courses/mine")).courses });
-  if (mine.isPending) return <p role="status" className="text-bark">Loading your courses…</p>;
-  if (mine.isError) return <Alert tone="error" title="Your courses could not be loaded">{errorWords(mine.error)}</Alert>;
+  const mine = useQuery({
+    queryKey: ["courses", "mine"],
+    queryFn: async () => (await fetchJson<{ courses: MyCourse[] }>("/api/courses/mine")).courses,
+  });
+  if (mine.isPending)
+    return (
+      <p role="status" className="text-bark">
+        Loading your courses…
+      </p>
+    );
+  if (mine.isError)
+    return (
+      <Alert tone="error" title="Your courses could not be loaded">
+        {errorWords(mine.error)}
+      </Alert>
+    );
   if (mine.data.length === 0) {
     return (
       <Card tone="warm" className="flex max-w-prose flex-col gap-3">
         <CardTitle level={2}>You are not enrolled in a course yet</CardTitle>
         <p className="text-bark">Browse the catalogue and try a taster tune; your teacher can enrol you in a course.</p>
-        <div><LinkButton href="/catalogue" variant="secondary">Browse the catalogue</LinkButton></div>
+        <div>
+          <LinkButton href="/catalogue" variant="secondary">
+            Browse the catalogue
+          </LinkButton>
+        </div>
       </Card>
     );
   }
@@ -27,14 +49,32 @@ export function MyCourses() {
     <ul className="grid gap-4 md:grid-cols-2">
       {mine.data.map((c) => (
         <Card as="li" key={c.id} className="flex flex-col gap-3">
-          <CardTitle level={2}><Link href={`/learn/courses/${c.id}`}>{c.title}</Link></CardTitle>
+          <CardTitle level={2}>
+            <Link href={`/learn/courses/${c.id}`}>{c.title}</Link>
+          </CardTitle>
           <p className="text-small text-bark">{`${RELATION[c.relation]} · taught by ${c.teacherName}`}</p>
           <div className="flex flex-col gap-1">
             <p className="text-small font-semibold">{`${c.done} of ${c.rungs} rungs done`}</p>
-            <progress max={c.rungs} value={c.done} className="h-2 w-full accent-spruce" aria-label={`${c.title}: ${c.done} of ${c.rungs} rungs done`} />
+            <progress
+              max={c.rungs}
+              value={c.done}
+              className="h-2 w-full accent-spruce"
+              aria-label={`${c.title}: ${c.done} of ${c.rungs} rungs done`}
+            />
           </div>
-          {c.next ? <p>{"Next: "}<Link href={`/learn/tunes/${c.next.tuneId}`}>{c.next.tuneTitle}</Link></p> : null}
-          <div><LinkButton href={`/learn/courses/${c.id}`} variant="secondary" size="sm">{`Open the ladder of ${c.title}`}</LinkButton></div>
+          {c.next ? (
+            <p>
+              {"Next: "}
+              <Link href={`/learn/tunes/${c.next.tuneId}`}>{c.next.tuneTitle}</Link>
+            </p>
+          ) : null}
+          <div>
+            <LinkButton
+              href={`/learn/courses/${c.id}`}
+              variant="secondary"
+              size="sm"
+            >{`Open the ladder of ${c.title}`}</LinkButton>
+          </div>
         </Card>
       ))}
     </ul>

@@ -27,8 +27,19 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
   const locked = rung.state === "locked";
   const need = `stage ${rung.requiredStage}${rung.requiredStageName ? ` (${rung.requiredStageName})` : ""}`;
   return (
-    <li className={cx("flex flex-col gap-2 rounded-knot border p-4 sm:flex-row sm:items-start sm:gap-4", locked ? "border-dashed border-grain bg-sawdust" : "border-line bg-paper")} data-rung-state={rung.state}>
-      <span className={cx("inline-flex w-fit shrink-0 items-center gap-1.5 rounded-sm border px-2 py-0.5 text-small font-semibold", s.box)}>
+    <li
+      className={cx(
+        "flex flex-col gap-2 rounded-knot border p-4 sm:flex-row sm:items-start sm:gap-4",
+        locked ? "border-dashed border-grain bg-sawdust" : "border-line bg-paper",
+      )}
+      data-rung-state={rung.state}
+    >
+      <span
+        className={cx(
+          "inline-flex w-fit shrink-0 items-center gap-1.5 rounded-sm border px-2 py-0.5 text-small font-semibold",
+          s.box,
+        )}
+      >
         {locked ? <LockIcon /> : <span aria-hidden="true">{s.mark}</span>}
         {s.words}
       </span>
@@ -43,7 +54,10 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
           {!locked && rung.stageCount > 0 ? ` · reached stage ${rung.reached} of ${rung.stageCount}` : ""}
         </p>
         {locked ? (
-          <p className="text-small font-semibold text-ink" data-locked-reason>{`Why it is locked: ${rung.reason ?? "not open yet."}`}</p>
+          <p
+            className="text-small font-semibold text-ink"
+            data-locked-reason
+          >{`Why it is locked: ${rung.reason ?? "not open yet."}`}</p>
         ) : last ? null : rung.state === "done" ? (
           <p className="text-small text-bark">{`You reached ${need} here, so the next rung is open.`}</p>
         ) : (
@@ -51,7 +65,11 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
         )}
       </div>
       {!locked ? (
-        <Link href={`/learn/tunes/${rung.tuneId}`} className="shrink-0 self-start font-semibold" aria-label={`Practise ${rung.tuneTitle}`}>
+        <Link
+          href={`/learn/tunes/${rung.tuneId}`}
+          className="shrink-0 self-start font-semibold"
+          aria-label={`Practise ${rung.tuneTitle}`}
+        >
           {rung.state === "done" ? "Practise again" : "Practise"}
         </Link>
       ) : null}

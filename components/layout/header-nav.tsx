@@ -9,8 +9,7 @@ import { SignOutForm } from "./sign-out-form";
 
 export type HeaderUser = { name: string; role: Role };
 
-const linkBase =
-  "flex min-h-11 items-center rounded-knot px-3 font-semibold no-underline transition-colors";
+const linkBase = "flex min-h-11 items-center rounded-knot px-3 font-semibold no-underline transition-colors";
 const linkPlain = "text-cream hover:bg-cream/10 hover:text-rosin";
 // The current page gets an underline as well as colour, so it does not rely on colour alone.
 const linkCurrent = "text-rosin underline decoration-2 underline-offset-8";

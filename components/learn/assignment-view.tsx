@@ -33,8 +33,16 @@ function Withdraw({ checkInId, onDone }: { checkInId: string; onDone: () => void
   return (
     <div className="flex flex-col gap-3">
       <p>Your check-in is waiting for your teacher. Until it is reviewed you can take it back and check in again.</p>
-      {error ? <Alert tone="error" live>{error}</Alert> : null}
-      <div><Button variant="secondary" onClick={() => void withdraw()} disabled={busy}>{busy ? "Withdrawing…" : "Withdraw check-in"}</Button></div>
+      {error ? (
+        <Alert tone="error" live>
+          {error}
+        </Alert>
+      ) : null}
+      <div>
+        <Button variant="secondary" onClick={() => void withdraw()} disabled={busy}>
+          {busy ? "Withdrawing…" : "Withdraw check-in"}
+        </Button>
+      </div>
     </div>
   );
 }
@@ -42,11 +50,24 @@ function Withdraw({ checkInId, onDone }: { checkInId: string; onDone: () => void
 export function AssignmentView({ assignmentStudentId }: { assignmentStudentId: string }) {
   const key = ["learn", "assignment", assignmentStudentId];
   const client = useQueryClient();
-  const q = useQuery({ queryKey: key, queryFn: () => fetchJson<LearnAssignment>(`/api/learn/assignments/${assignmentStudentId}`) });
+  const q = useQuery({
+    queryKey: key,
+    queryFn: () => fetchJson<LearnAssignment>(`/api/learn/assignments/${assignmentStudentId}`),
+  });
   const refresh = () => void client.invalidateQueries({ queryKey: key });
 
-  if (q.isPending) return <p role="status" className="text-bark">Loading the assignment…</p>;
-  if (q.isError) return <Alert tone="error" title="This assignment could not be opened">{errorWords(q.error)} <Link href="/learn">Back to Today</Link></Alert>;
+  if (q.isPending)
+    return (
+      <p role="status" className="text-bark">
+        Loading the assignment…
+      </p>
+    );
+  if (q.isError)
+    return (
+      <Alert tone="error" title="This assignment could not be opened">
+        {errorWords(q.error)} <Link href="/learn">Back to Today</Link>
+      </Alert>
+    );
   const a = q.data;
   const current = a.stages.find((s) => s.index === a.current) ?? null;
   const active = a.status === "active";
@@ -57,43 +78,74 @@ export function AssignmentView({ assignmentStudentId }: { assignmentStudentId: s
         <h1 className="text-h2 font-semibold">{a.tune.title}</h1>
         <p data-testid="due">
           {`Due ${a.dueLocal} (${a.timeZone}) · from ${a.teacherName}`}
-          {a.overdue ? <span className="ml-2 rounded-knot bg-berry-tint px-2 py-0.5 text-small font-semibold text-berry">Overdue</span> : null}
+          {a.overdue ? (
+            <span className="ml-2 rounded-knot bg-berry-tint px-2 py-0.5 text-small font-semibold text-berry">
+              Overdue
+            </span>
+          ) : null}
         </p>
         {a.unlockRule === "self_check_in" ? (
           <p className="text-small text-bark">{`After ${a.unlockMinutes ?? 0} minutes of logged practice on this tune since a stage opened, your own check-in signs it off.`}</p>
         ) : null}
       </header>
-      {!active ? <Alert tone="info" title="Withdrawn">Your teacher withdrew this assignment; its stages can&apos;t change.</Alert> : null}
+      {!active ? (
+        <Alert tone="info" title="Withdrawn">
+          Your teacher withdrew this assignment; its stages can&apos;t change.
+        </Alert>
+      ) : null}
       {a.note ? (
         <Card tone="warm">
           <CardTitle level={2}>Note from your teacher</CardTitle>
           <p className="whitespace-pre-line">{a.note}</p>
         </Card>
       ) : null}
-      {!a.musicOpen ? <Alert tone="warning" title="The music is closed">{a.closedWhy}</Alert> : null}
+      {!a.musicOpen ? (
+        <Alert tone="warning" title="The music is closed">
+          {a.closedWhy}
+        </Alert>
+      ) : null}
       <section className="flex flex-col gap-3" aria-labelledby="stages-h">
-        <h2 id="stages-h" className="font-serif text-h3 font-semibold">Stages</h2>
+        <h2 id="stages-h" className="font-serif text-h3 font-semibold">
+          Stages
+        </h2>
         <StageList assignment={a} />
       </section>
       {a.music ? (
         <section className="flex flex-col gap-3" aria-labelledby="music-h">
           <h2 id="music-h" className="font-serif text-h3 font-semibold">{`Stage ${a.music.index}: ${a.music.name}`}</h2>
-          <Suspense fallback={<p role="status" className="text-bark">Getting the music ready…</p>}>
+          <Suspense
+            fallback={
+              <p role="status" className="text-bark">
+                Getting the music ready…
+              </p>
+            }
+          >
             <AssignmentMusic music={a.music} title={a.tune.title} />
           </Suspense>
         </section>
       ) : null}
       {active && a.musicOpen && current ? (
         <Card as="section" aria-labelledby="checkin-h" className="flex flex-col gap-3">
-          <CardTitle level={2}><span id="checkin-h">{`Check in stage ${current.index}`}</span></CardTitle>
+          <CardTitle level={2}>
+            <span id="checkin-h">{`Check in stage ${current.index}`}</span>
+          </CardTitle>
           {current.state === "open" ? (
-            <CheckInForm assignmentStudentId={a.assignmentStudentId} stageIndex={current.index} stageName={current.name} onDone={refresh} />
+            <CheckInForm
+              assignmentStudentId={a.assignmentStudentId}
+              stageIndex={current.index}
+              stageName={current.name}
+              onDone={refresh}
+            />
           ) : current.checkIn?.status === "waiting" ? (
             <Withdraw checkInId={current.checkIn.id} onDone={refresh} />
           ) : null}
         </Card>
       ) : null}
-      {active && a.current === null && a.stages.length > 0 ? <Alert tone="success" title="All stages signed off">Well done: every stage of this tune is signed off.</Alert> : null}
+      {active && a.current === null && a.stages.length > 0 ? (
+        <Alert tone="success" title="All stages signed off">
+          Well done: every stage of this tune is signed off.
+        </Alert>
+      ) : null}
     </div>
   );
 }

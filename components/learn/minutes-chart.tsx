@@ -29,11 +29,17 @@ export function MinutesChart({ days }: MinutesChartProps) {
       <table className="sr-only">
         <caption>Minutes practised per day</caption>
         <thead>
-          <tr><th scope="col">Day</th><th scope="col">Minutes</th></tr>
+          <tr>
+            <th scope="col">Day</th>
+            <th scope="col">Minutes</th>
+          </tr>
         </thead>
         <tbody>
           {days.map((d) => (
-            <tr key={d.day}><td>{d.day}</td><td>{d.minutes}</td></tr>
+            <tr key={d.day}>
+              <td>{d.day}</td>
+              <td>{d.minutes}</td>
+            </tr>
           ))}
         </tbody>
       </table>

@@ -10,7 +10,10 @@ export function PracticeCautions() {
         <li>Warm up first: loosen your shoulders, arms and hands, and start with slow, easy bowing.</li>
         <li>Take a short break every 20–30 minutes (common practice): put the fiddle down, stretch, rest your eyes.</li>
         <li>Stop if anything hurts — pain, numbness or tingling is a sign to stop, not to play through.</li>
-        <li>If pain comes back or lasts, see a qualified teacher about your set-up and a health professional about the pain.</li>
+        <li>
+          If pain comes back or lasts, see a qualified teacher about your set-up and a health professional about the
+          pain.
+        </li>
       </ul>
     </Alert>
   );

@@ -8,7 +8,14 @@ import { Field, TextField } from "@/components/ui/field";
 import { Select, Textarea } from "@/components/ui/input";
 import { ApiError, fetchJson } from "@/lib/catalogue/fetch-json";
 
-export type PracticeEntry = { id: string; tuneId: string | null; tuneTitle: string | null; practisedOn: string; minutes: number; note: string };
+export type PracticeEntry = {
+  id: string;
+  tuneId: string | null;
+  tuneTitle: string | null;
+  practisedOn: string;
+  minutes: number;
+  note: string;
+};
 
 export type PracticeFormProps = {
   today: string;
@@ -27,7 +34,12 @@ export function PracticeForm({ today, tunes, editing, onSaved, onCancel }: Pract
     e.preventDefault();
     const form = e.currentTarget;
     const data = new FormData(form);
-    const body = { minutes: String(data.get("minutes") ?? ""), practisedOn: String(data.get("practisedOn") ?? ""), tuneId: String(data.get("tuneId") ?? ""), note: String(data.get("note") ?? "") };
+    const body = {
+      minutes: String(data.get("minutes") ?? ""),
+      practisedOn: String(data.get("practisedOn") ?? ""),
+      tuneId: String(data.get("tuneId") ?? ""),
+      note: String(data.get("note") ?? ""),
+    };
     setBusy(true);
     setError(null);
     try {
@@ -36,7 +48,10 @@ export function PracticeForm({ today, tunes, editing, onSaved, onCancel }: Pract
       if (!editing) form.reset();
       onSaved();
     } catch (err) {
-      setError({ message: err instanceof Error ? err.message : "Something went wrong.", fields: err instanceof ApiError ? err.fieldErrors : {} });
+      setError({
+        message: err instanceof Error ? err.message : "Something went wrong.",
+        fields: err instanceof ApiError ? err.fieldErrors : {},
+      });
     } finally {
       setBusy(false);
     }
@@ -44,24 +59,65 @@ export function PracticeForm({ today, tunes, editing, onSaved, onCancel }: Pract
 
   const f = error?.fields ?? {};
   return (
-    <form key={editing?.id ?? "new"} onSubmit={(e) => void submit(e)} className="flex flex-col gap-4" aria-label={editing ? "Change practice entry" : "Log practice"} noValidate>
-      <TextField name="minutes" label="Minutes" type="number" inputMode="numeric" min={1} max={600} required defaultValue={editing?.minutes ?? ""} hint="1 to 600 minutes." error={f.minutes} />
-      <TextField name="practisedOn" label="Date" type="date" max={today} required defaultValue={editing?.practisedOn ?? today} error={f.practisedOn} />
+    <form
+      key={editing?.id ?? "new"}
+      onSubmit={(e) => void submit(e)}
+      className="flex flex-col gap-4"
+      aria-label={editing ? "Change practice entry" : "Log practice"}
+      noValidate
+    >
+      <TextField
+        name="minutes"
+        label="Minutes"
+        type="number"
+        inputMode="numeric"
+        min={1}
+        max={600}
+        required
+        defaultValue={editing?.minutes ?? ""}
+        hint="1 to 600 minutes."
+        error={f.minutes}
+      />
+      <TextField
+        name="practisedOn"
+        label="Date"
+        type="date"
+        max={today}
+        required
+        defaultValue={editing?.practisedOn ?? today}
+        error={f.practisedOn}
+      />
       <Field id="tuneId" label="Tune" hint="Optional: a tune you can open or have been given." error={f.tuneId}>
         {(control) => (
           <Select name="tuneId" defaultValue={editing?.tuneId ?? ""} {...control}>
             <option value="">No particular tune</option>
-            {tunes.map((t) => <option key={t.id} value={t.id}>{t.title}</option>)}
+            {tunes.map((t) => (
+              <option key={t.id} value={t.id}>
+                {t.title}
+              </option>
+            ))}
           </Select>
         )}
       </Field>
       <Field id="note" label="Note" hint="Optional: what you worked on." error={f.note}>
-        {(control) => <Textarea name="note" rows={3} maxLength={1000} defaultValue={editing?.note ?? ""} {...control} />}
+        {(control) => (
+          <Textarea name="note" rows={3} maxLength={1000} defaultValue={editing?.note ?? ""} {...control} />
+        )}
       </Field>
-      {error ? <Alert tone="error" live>{error.message}</Alert> : null}
+      {error ? (
+        <Alert tone="error" live>
+          {error.message}
+        </Alert>
+      ) : null}
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" disabled={busy}>{editing ? "Save changes" : "Log practice"}</Button>
-        {editing ? <Button variant="quiet" onClick={onCancel}>Cancel</Button> : null}
+        <Button type="submit" disabled={busy}>
+          {editing ? "Save changes" : "Log practice"}
+        </Button>
+        {editing ? (
+          <Button variant="quiet" onClick={onCancel}>
+            Cancel
+          </Button>
+        ) : null}
       </div>
     </form>
   );

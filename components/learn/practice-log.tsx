@@ -35,27 +35,61 @@ export function PracticeLog({ today }: { today: string }) {
       <Card as="section" className="flex flex-col gap-4">
         <CardTitle level={2}>{editing ? "Change an entry" : "Log practice"}</CardTitle>
         {q.data ? (
-          <PracticeForm today={today} tunes={q.data.tunes} editing={editing} onSaved={() => { setEditing(null); refresh(); }} onCancel={() => setEditing(null)} />
+          <PracticeForm
+            today={today}
+            tunes={q.data.tunes}
+            editing={editing}
+            onSaved={() => {
+              setEditing(null);
+              refresh();
+            }}
+            onCancel={() => setEditing(null)}
+          />
         ) : (
-          <p role="status" className="text-bark">Loading…</p>
+          <p role="status" className="text-bark">
+            Loading…
+          </p>
         )}
       </Card>
       <PracticeCautions />
       <section className="flex flex-col gap-3 lg:col-span-2" aria-labelledby="entries-h">
-        <h2 id="entries-h" className="font-serif text-h3 font-semibold">Your entries</h2>
-        {error ? <Alert tone="error" live>{error}</Alert> : null}
+        <h2 id="entries-h" className="font-serif text-h3 font-semibold">
+          Your entries
+        </h2>
+        {error ? (
+          <Alert tone="error" live>
+            {error}
+          </Alert>
+        ) : null}
         {q.isError ? <Alert tone="error">{errorWords(q.error)}</Alert> : null}
         {q.data && q.data.entries.length === 0 ? <p className="text-bark">Nothing logged yet.</p> : null}
         <ul className="flex flex-col gap-2" aria-label="Practice entries">
           {q.data?.entries.map((e) => (
-            <li key={e.id} className="flex flex-wrap items-center justify-between gap-3 rounded-knot border border-line bg-paper px-4 py-3">
+            <li
+              key={e.id}
+              className="flex flex-wrap items-center justify-between gap-3 rounded-knot border border-line bg-paper px-4 py-3"
+            >
               <div>
                 <p className="font-semibold">{`${e.practisedOn} · ${e.minutes} min${e.tuneTitle ? ` · ${e.tuneTitle}` : ""}`}</p>
                 {e.note ? <p className="text-small text-bark">{e.note}</p> : null}
               </div>
               <div className="flex gap-2">
-                <Button size="sm" variant="secondary" onClick={() => setEditing(e)} aria-label={`Edit the entry of ${e.practisedOn}, ${e.minutes} minutes`}>Edit</Button>
-                <Button size="sm" variant="quiet" onClick={() => void remove(e)} aria-label={`Delete the entry of ${e.practisedOn}, ${e.minutes} minutes`}>Delete</Button>
+                <Button
+                  size="sm"
+                  variant="secondary"
+                  onClick={() => setEditing(e)}
+                  aria-label={`Edit the entry of ${e.practisedOn}, ${e.minutes} minutes`}
+                >
+                  Edit
+                </Button>
+                <Button
+                  size="sm"
+                  variant="quiet"
+                  onClick={() => void remove(e)}
+                  aria-label={`Delete the entry of ${e.practisedOn}, ${e.minutes} minutes`}
+                >
+                  Delete
+                </Button>
               </div>
             </li>
           ))}

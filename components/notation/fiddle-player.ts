@@ -39,8 +39,13 @@ function withClicks(tracks: NoteMapTrack[], clicks: Click[]): NoteMapTrack[] {
   if (tracks[0]) {
     for (const c of clicks) {
       tracks[0].push({
-        pitch: c.accent ? ACCENT : BEAT, instrument: "percussion", start: c.start, end: c.start + 1 / 16,
-        volume: c.accent ? 120 : 90, startChar: 0, endChar: 0,
+        pitch: c.accent ? ACCENT : BEAT,
+        instrument: "percussion",
+        start: c.start,
+        end: c.start + 1 / 16,
+        volume: c.accent ? 120 : 90,
+        startChar: 0,
+        endChar: 0,
       });
     }
   }
@@ -100,7 +105,8 @@ export class FiddlePlayer {
     if (this.status !== "loading") {
       // Where the music was, in bars, so it can go on from there at any speed. A load that
       // replaces one still in progress keeps what the first one recorded.
-      const at = this.status === "playing" ? await this.position() : this.status === "paused" ? this.pausedAt : this.countInSec;
+      const at =
+        this.status === "playing" ? await this.position() : this.status === "paused" ? this.pausedAt : this.countInSec;
       const bars = this.msPerMeasure ? (Math.max(0, at - this.countInSec) * 1000) / this.msPerMeasure : 0;
       this.resume = { status: this.status, bars };
     }

@@ -27,7 +27,9 @@ export function MemoryMode({ phraseMap, hidden, onChange, className }: MemoryMod
         Show all
       </Button>
       <p role="status" className="text-small text-bark" data-hidden-count={count}>
-        {count === 0 ? "All the music is showing." : `${count} of ${order.length} phrases hidden: play them from memory.`}
+        {count === 0
+          ? "All the music is showing."
+          : `${count} of ${order.length} phrases hidden: play them from memory.`}
       </p>
     </section>
   );

@@ -43,7 +43,15 @@ function useNarrow(): boolean {
   return narrow;
 }
 
-export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBarClick, label, className }: NotationProps) {
+export function Notation({
+  abc,
+  phraseMap,
+  highlightPhrase,
+  hiddenPhrases,
+  onBarClick,
+  label,
+  className,
+}: NotationProps) {
   const paper = useRef<HTMLDivElement>(null);
   const clickRef = useRef(onBarClick);
   clickRef.current = onBarClick;
@@ -54,7 +62,11 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
   const narrow = useNarrow();
   const mapRef = useRef(phraseMap);
   mapRef.current = phraseMap;
-  const mapKey = phraseMap ? phraseList(phraseMap).map((p) => p.bars.join("-")).join(",") : "";
+  const mapKey = phraseMap
+    ? phraseList(phraseMap)
+        .map((p) => p.bars.join("-"))
+        .join(",")
+    : "";
 
   useEffect(() => {
     let live = true;
@@ -73,7 +85,12 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
             ? {
                 staffwidth: PHONE_STAFF_WIDTH,
                 // abcjs reads one list per section of music (src/parse/wrap_lines.js); its types say number[].
-                lineBreaks: phoneLineBreaks(abcjs, abc, spans, phoneLineEnds(spans, mapRef.current)) as unknown as number[],
+                lineBreaks: phoneLineBreaks(
+                  abcjs,
+                  abc,
+                  spans,
+                  phoneLineEnds(spans, mapRef.current),
+                ) as unknown as number[],
               }
             : {}),
           clickListener: (elem) => {
@@ -117,10 +134,17 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
   };
 
   return (
-    <figure className={cx("rounded-knot border border-line bg-paper p-3 sm:p-4", className)} data-notation-state={state}>
+    <figure
+      className={cx("rounded-knot border border-line bg-paper p-3 sm:p-4", className)}
+      data-notation-state={state}
+    >
       {state === "loading" ? <p className="text-small text-bark">Drawing the music…</p> : null}
       {state === "error" ? <p className="text-small font-semibold text-berry">This music could not be drawn.</p> : null}
-      <div ref={paper} onKeyDown={clickable ? onKeyDown : undefined} aria-describedby={phraseMap ? descId : undefined} />
+      <div
+        ref={paper}
+        onKeyDown={clickable ? onKeyDown : undefined}
+        aria-describedby={phraseMap ? descId : undefined}
+      />
       {phraseMap ? (
         <figcaption id={descId} className="sr-only">
           <span>Phrases:</span>
@@ -129,7 +153,9 @@ export function Notation({ abc, phraseMap, highlightPhrase, hiddenPhrases, onBar
               const words = twinWords(phraseMap, p.id);
               const hidden = hiddenPhrases?.includes(p.id) ? ", hidden: play from memory" : "";
               const lit = highlightPhrase === p.id ? ", highlighted" : "";
-              return <li key={p.id}>{`${phraseLabel(p)}, ${barsText(p)}${words ? `, ${words}` : ""}${hidden}${lit}`}</li>;
+              return (
+                <li key={p.id}>{`${phraseLabel(p)}, ${barsText(p)}${words ? `, ${words}` : ""}${hidden}${lit}`}</li>
+              );
             })}
           </ul>
         </figcaption>

@@ -21,7 +21,10 @@ export interface OverlayOptions {
   hidden?: readonly string[];
 }
 
-function el<K extends keyof SVGElementTagNameMap>(name: K, attrs: Record<string, string | number>): SVGElementTagNameMap[K] {
+function el<K extends keyof SVGElementTagNameMap>(
+  name: K,
+  attrs: Record<string, string | number>,
+): SVGElementTagNameMap[K] {
   const node = document.createElementNS(NS, name);
   for (const [k, v] of Object.entries(attrs)) node.setAttribute(k, String(v));
   return node;
@@ -46,13 +49,26 @@ function segmentsOf(boxes: BarBox[], lines: Map<number, LineBox>): Segment[] {
       seg.x1 = Math.max(seg.x1, b.x1);
       seg.y0 = Math.min(seg.y0, b.y0);
       seg.y1 = Math.max(seg.y1, b.y1);
-    } else byLine.set(b.line, { line, x0: b.x0, x1: b.x1, y0: Math.min(b.y0, line.staffTop), y1: Math.max(b.y1, line.staffBottom) });
+    } else
+      byLine.set(b.line, {
+        line,
+        x0: b.x0,
+        x1: b.x1,
+        y0: Math.min(b.y0, line.staffTop),
+        y1: Math.max(b.y1, line.staffBottom),
+      });
   }
   return [...byLine.values()].sort((a, b) => a.line.top - b.line.top);
 }
 
 /** Removes any earlier overlay and draws the phrase map for the current options. */
-export function drawOverlay(svg: SVGSVGElement, tune: TuneObject, spans: BarSpan[], map: PhraseMap, opts: OverlayOptions): void {
+export function drawOverlay(
+  svg: SVGSVGElement,
+  tune: TuneObject,
+  spans: BarSpan[],
+  map: PhraseMap,
+  opts: OverlayOptions,
+): void {
   svg.querySelectorAll("[data-rw-overlay]").forEach((n) => n.remove());
   const boxes = measureBars(tune, spans);
   const lines = measureLines(svg, new Set(boxes.map((b) => b.line)));
@@ -62,7 +78,10 @@ export function drawOverlay(svg: SVGSVGElement, tune: TuneObject, spans: BarSpan
   svg.append(front); // in the document before any text is measured
   const hidden = new Set(opts.hidden ?? []);
   for (const phrase of phraseList(map)) {
-    const segs = segmentsOf(boxes.filter((b) => b.bar >= phrase.bars[0] && b.bar <= phrase.bars[1]), lines);
+    const segs = segmentsOf(
+      boxes.filter((b) => b.bar >= phrase.bars[0] && b.bar <= phrase.bars[1]),
+      lines,
+    );
     if (segs.length === 0) continue;
     const group = el("g", { "data-phrase": phrase.id });
     segs.forEach((s, i) => {
@@ -72,16 +91,40 @@ export function drawOverlay(svg: SVGSVGElement, tune: TuneObject, spans: BarSpan
       const right = i === segs.length - 1 ? `L${s.x1 - 2},${y}L${s.x1 - 2},${y + 5}` : `L${s.x1 - 2},${y}`;
       group.append(el("path", { d: left + right, fill: "none", stroke: INK, "stroke-width": 1.2 }));
       if (opts.highlight === phrase.id) {
-        back.append(el("rect", { x: s.x0 - 2, y: y - 16, width: s.x1 - s.x0 + 4, height: s.line.bottom - y + 22, fill: ROSIN_TINT }));
-        front.append(el("rect", {
-          x: s.x0 - 2, y: y - 16, width: s.x1 - s.x0 + 4, height: s.line.bottom - y + 22, rx: 5,
-          fill: "none", stroke: CEDAR, "stroke-width": 2.5, "data-highlight": phrase.id,
-        }));
+        back.append(
+          el("rect", {
+            x: s.x0 - 2,
+            y: y - 16,
+            width: s.x1 - s.x0 + 4,
+            height: s.line.bottom - y + 22,
+            fill: ROSIN_TINT,
+          }),
+        );
+        front.append(
+          el("rect", {
+            x: s.x0 - 2,
+            y: y - 16,
+            width: s.x1 - s.x0 + 4,
+            height: s.line.bottom - y + 22,
+            rx: 5,
+            fill: "none",
+            stroke: CEDAR,
+            "stroke-width": 2.5,
+            "data-highlight": phrase.id,
+          }),
+        );
       }
       if (hidden.has(phrase.id)) group.append(cover(s, phrase.id));
     });
     const first = segs[0];
-    const label = el("text", { x: first.x0 + 4, y: first.line.top - 9, "font-family": FONT, "font-size": 11, fill: INK, class: "rw-phrase-label" });
+    const label = el("text", {
+      x: first.x0 + 4,
+      y: first.line.top - 9,
+      "font-family": FONT,
+      "font-size": 11,
+      fill: INK,
+      class: "rw-phrase-label",
+    });
     const name = el("tspan", { "font-weight": 700 });
     name.textContent = phraseLabel(phrase);
     label.append(name);
@@ -103,9 +146,25 @@ function cover(s: Segment, id: string): SVGGElement {
   // Only the phrase's own notes, chord symbols and marks: the line's part and tempo marks stay in view.
   const top = s.y0 - 3;
   const height = s.y1 - top + 3;
-  g.append(el("rect", { x: s.x0, y: top, width: s.x1 - s.x0, height, rx: 4, fill: SAWDUST, stroke: GRAIN, "stroke-dasharray": "4 3" }));
+  g.append(
+    el("rect", {
+      x: s.x0,
+      y: top,
+      width: s.x1 - s.x0,
+      height,
+      rx: 4,
+      fill: SAWDUST,
+      stroke: GRAIN,
+      "stroke-dasharray": "4 3",
+    }),
+  );
   const text = el("text", {
-    x: (s.x0 + s.x1) / 2, y: (s.line.staffTop + s.line.staffBottom) / 2 + 4, "text-anchor": "middle", "font-family": FONT, "font-size": 12, fill: INK,
+    x: (s.x0 + s.x1) / 2,
+    y: (s.line.staffTop + s.line.staffBottom) / 2 + 4,
+    "text-anchor": "middle",
+    "font-family": FONT,
+    "font-size": 12,
+    fill: INK,
   });
   text.textContent = "play from memory";
   g.append(text);

@@ -23,7 +23,11 @@ export function twinWords(map: PhraseMap, id: string): string | null {
   const order = new Map(phraseList(map).map((p, i) => [p.id, i]));
   const earlier = map.twins
     .filter((t) => t.second === id && t.first !== id)
-    .sort((a, b) => Number(a.kind !== "exact") - Number(b.kind !== "exact") || (order.get(a.first) ?? 0) - (order.get(b.first) ?? 0));
+    .sort(
+      (a, b) =>
+        Number(a.kind !== "exact") - Number(b.kind !== "exact") ||
+        (order.get(a.first) ?? 0) - (order.get(b.first) ?? 0),
+    );
   const twin = earlier[0];
   if (!twin) return null;
   return twin.kind === "exact" ? `same as ${twin.first}` : `like ${twin.first} but ${notes(twin.differingNotes)}`;

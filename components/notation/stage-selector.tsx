@@ -32,7 +32,12 @@ export function StageSelector({ stages, value, onChange, className }: StageSelec
           return (
             <div key={s.index} className="flex flex-col">
               <input
-                type="radio" id={id} name={name} value={s.index} checked={chosen} disabled={s.locked}
+                type="radio"
+                id={id}
+                name={name}
+                value={s.index}
+                checked={chosen}
+                disabled={s.locked}
                 aria-describedby={s.locked ? reasonId : undefined}
                 onChange={() => onChange(s.index)}
                 className="peer sr-only"

@@ -105,7 +105,11 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
       data-audio={audio}
     >
       <div className="flex flex-wrap items-center gap-3">
-        <Button onClick={() => void onPlay()} disabled={status === "loading"} aria-label={status === "playing" ? "Pause" : "Play"}>
+        <Button
+          onClick={() => void onPlay()}
+          disabled={status === "loading"}
+          aria-label={status === "playing" ? "Pause" : "Play"}
+        >
           <span aria-hidden="true">{status === "playing" ? "❚❚" : "▶"}</span>
           {status === "playing" ? "Pause" : "Play"}
         </Button>
@@ -114,25 +118,39 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
         </Button>
         <p role="status" className="text-small text-bark">
           {STATUS_WORDS[status]}
-          {status === "playing" || status === "paused" ? ` ${looping ? `Looping ${looping.id}.` : "Whole tune."} Speed ${tempo}%.` : ""}
+          {status === "playing" || status === "paused"
+            ? ` ${looping ? `Looping ${looping.id}.` : "Whole tune."} Speed ${tempo}%.`
+            : ""}
         </p>
       </div>
       <div className="grid gap-4 sm:grid-cols-3">
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-tempo`} className="font-semibold">
-            Speed <output htmlFor={`${id}-tempo`} className="font-normal">{tempo}%</output>
+            Speed{" "}
+            <output htmlFor={`${id}-tempo`} className="font-normal">
+              {tempo}%
+            </output>
           </label>
           <input
-            id={`${id}-tempo`} type="range" min={40} max={120} step={5} value={tempo}
+            id={`${id}-tempo`}
+            type="range"
+            min={40}
+            max={120}
+            step={5}
+            value={tempo}
             aria-valuetext={`${tempo} percent of the tune's speed`}
             onChange={(e) => setTempo(Number(e.target.value))}
             className="h-11 accent-cedar"
           />
         </div>
         <div className="flex flex-col gap-1">
-          <label htmlFor={`${id}-loop`} className="font-semibold">Loop</label>
+          <label htmlFor={`${id}-loop`} className="font-semibold">
+            Loop
+          </label>
           <select
-            id={`${id}-loop`} value={loopId} onChange={(e) => chooseLoop(e.target.value)}
+            id={`${id}-loop`}
+            value={loopId}
+            onChange={(e) => chooseLoop(e.target.value)}
             className="min-h-11 rounded-knot border border-grain bg-paper px-3"
           >
             <option value="">Whole tune, no loop</option>
@@ -142,7 +160,12 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
           </select>
         </div>
         <label className="flex min-h-11 items-center gap-2 self-end font-semibold">
-          <input type="checkbox" checked={countIn} onChange={(e) => setCountIn(e.target.checked)} className="size-5 accent-cedar" />
+          <input
+            type="checkbox"
+            checked={countIn}
+            onChange={(e) => setCountIn(e.target.checked)}
+            className="size-5 accent-cedar"
+          />
           Count in one bar
         </label>
       </div>

@@ -8,9 +8,17 @@ import { Button } from "@/components/ui/button";
 import { MAX_RECORDING_BYTES, refusalWords, uploadRecording } from "./upload";
 import { useRecorder } from "./use-recorder";
 
-export type RecordingPickerProps = { assignmentStudentId: string; stageIndex: number; onStored: (uploadId: string) => void };
+export type RecordingPickerProps = {
+  assignmentStudentId: string;
+  stageIndex: number;
+  onStored: (uploadId: string) => void;
+};
 
-type Upload = { phase: "idle" } | { phase: "sending"; percent: number } | { phase: "stored"; name: string } | { phase: "refused"; message: string };
+type Upload =
+  | { phase: "idle" }
+  | { phase: "sending"; percent: number }
+  | { phase: "stored"; name: string }
+  | { phase: "refused"; message: string };
 
 const clock = (s: number) => `${Math.floor(s / 60)}:${String(s % 60).padStart(2, "0")}`;
 
@@ -24,12 +32,17 @@ export function RecordingPicker({ assignmentStudentId, stageIndex, onStored }: R
 
   async function send(body: Blob, name: string) {
     if (body.size > MAX_RECORDING_BYTES) {
-      setUpload({ phase: "refused", message: `${name} is ${(body.size / 1048576).toFixed(1)} MB; a recording can be at most 25 MB.` });
+      setUpload({
+        phase: "refused",
+        message: `${name} is ${(body.size / 1048576).toFixed(1)} MB; a recording can be at most 25 MB.`,
+      });
       return;
     }
     setUpload({ phase: "sending", percent: 0 });
     try {
-      const uploadId = await uploadRecording(body, { assignmentStudentId, stageIndex }, (percent) => setUpload({ phase: "sending", percent }));
+      const uploadId = await uploadRecording(body, { assignmentStudentId, stageIndex }, (percent) =>
+        setUpload({ phase: "sending", percent }),
+      );
       setUpload({ phase: "stored", name });
       onStored(uploadId);
     } catch (e) {
@@ -97,7 +110,12 @@ export function RecordingPicker({ assignmentStudentId, stageIndex, onStored }: R
       ) : null}
       {upload.phase === "sending" ? (
         <div className="flex items-center gap-3">
-          <progress max={100} value={upload.percent} aria-label="Upload progress" className="h-3 w-full max-w-xs accent-cedar" />
+          <progress
+            max={100}
+            value={upload.percent}
+            aria-label="Upload progress"
+            className="h-3 w-full max-w-xs accent-cedar"
+          />
           <span aria-live="polite" className="tabular-nums">
             {upload.percent}%
           </span>

@@ -22,7 +22,13 @@ export function RecordingPlayer({ uploadId, label = "Check-in recording" }: { up
       setSrc(p.url);
       setProblem(null);
     } catch (e) {
-      setProblem(e instanceof ApiError && e.status === 404 ? "This recording is not available." : e instanceof Error ? e.message : "The recording could not be loaded.");
+      setProblem(
+        e instanceof ApiError && e.status === 404
+          ? "This recording is not available."
+          : e instanceof Error
+            ? e.message
+            : "The recording could not be loaded.",
+      );
     }
   }, [uploadId]);
 
@@ -49,5 +55,16 @@ export function RecordingPlayer({ uploadId, label = "Check-in recording" }: { up
 
   if (problem) return <Alert tone="warning">{problem}</Alert>;
   if (!src) return <p className="text-bark">Loading the recording…</p>;
-  return <audio ref={audio} controls preload="metadata" src={src} aria-label={label} onError={onError} onPlay={onPlay} className="w-full" />;
+  return (
+    <audio
+      ref={audio}
+      controls
+      preload="metadata"
+      src={src}
+      aria-label={label}
+      onError={onError}
+      onPlay={onPlay}
+      className="w-full"
+    />
+  );
 }

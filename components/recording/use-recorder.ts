@@ -3,7 +3,12 @@
 // released as soon as recording stops, so the browser's "in use" indicator does not linger.
 import { useCallback, useEffect, useRef, useState } from "react";
 
-export type RecorderState = { phase: "idle" | "recording" | "done"; seconds: number; blob: Blob | null; error: string | null };
+export type RecorderState = {
+  phase: "idle" | "recording" | "done";
+  seconds: number;
+  blob: Blob | null;
+  error: string | null;
+};
 
 // Error names from the Media Capture and Streams spec (getUserMedia's rejections).
 function micProblem(error: unknown): string {
@@ -11,8 +16,10 @@ function micProblem(error: unknown): string {
   if (name === "NotAllowedError" || name === "SecurityError") {
     return "Microphone permission was refused. Allow the microphone for this site in your browser's settings, or choose a file instead.";
   }
-  if (name === "NotFoundError" || name === "OverconstrainedError") return "No microphone was found. Plug one in, or choose a recorded file instead.";
-  if (name === "NotReadableError") return "The microphone is busy in another program. Close it there and try again, or choose a file.";
+  if (name === "NotFoundError" || name === "OverconstrainedError")
+    return "No microphone was found. Plug one in, or choose a recorded file instead.";
+  if (name === "NotReadableError")
+    return "The microphone is busy in another program. Close it there and try again, or choose a file.";
   return "Recording could not start in this browser. Choose a recorded file instead.";
 }
 
@@ -31,7 +38,12 @@ export function useRecorder() {
   const start = useCallback(async () => {
     if (typeof MediaRecorder === "undefined" || !navigator.mediaDevices?.getUserMedia) {
       // getUserMedia exists only in secure contexts (https or localhost).
-      setState({ phase: "idle", seconds: 0, blob: null, error: "This browser cannot record here. Choose a recorded file instead." });
+      setState({
+        phase: "idle",
+        seconds: 0,
+        blob: null,
+        error: "This browser cannot record here. Choose a recorded file instead.",
+      });
       return;
     }
     let stream: MediaStream;
@@ -53,7 +65,10 @@ export function useRecorder() {
     recorder.current = rec;
     rec.start(1000);
     const began = Date.now();
-    timer.current = setInterval(() => setState((s) => ({ ...s, seconds: Math.floor((Date.now() - began) / 1000) })), 500);
+    timer.current = setInterval(
+      () => setState((s) => ({ ...s, seconds: Math.floor((Date.now() - began) / 1000) })),
+      500,
+    );
     setState({ phase: "recording", seconds: 0, blob: null, error: null });
   }, [release]);
 

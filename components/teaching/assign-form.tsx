@@ -31,9 +31,20 @@ export type AssignFormProps = {
 
 type Done = { count: number; title: string };
 
-export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: initialTune, studentId }: AssignFormProps) {
-  const [tuneId, setTuneId] = useState(initialTune && tunes.some((t) => t.id === initialTune) ? initialTune : (tunes[0]?.id ?? ""));
-  const [chosen, setChosen] = useState<string[]>(studentId && students.some((s) => s.id === studentId) ? [studentId] : []);
+export function AssignForm({
+  tunes,
+  students,
+  teacherZone,
+  defaultDue,
+  tuneId: initialTune,
+  studentId,
+}: AssignFormProps) {
+  const [tuneId, setTuneId] = useState(
+    initialTune && tunes.some((t) => t.id === initialTune) ? initialTune : (tunes[0]?.id ?? ""),
+  );
+  const [chosen, setChosen] = useState<string[]>(
+    studentId && students.some((s) => s.id === studentId) ? [studentId] : [],
+  );
   const [due, setDue] = useState(defaultDue);
   const [changePlan, setChangePlan] = useState(false);
   const tune = tunes.find((t) => t.id === tuneId);
@@ -106,7 +117,8 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
       {done ? (
         <Alert tone="success" title="Assigned" live>
           Assigned “{done.title}” to {done.count} student
-          {done.count === 1 ? "" : "s"}; each gets an e-mail. <Link href="/teach/assignments">See your assignments</Link>
+          {done.count === 1 ? "" : "s"}; each gets an e-mail.{" "}
+          <Link href="/teach/assignments">See your assignments</Link>
         </Alert>
       ) : null}
       {message ? (
@@ -125,12 +137,23 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
           </Select>
         )}
       </Field>
-      <fieldset className="flex min-w-0 flex-col gap-2" aria-describedby={errors.studentIds ? "assign-students-error" : undefined}>
+      <fieldset
+        className="flex min-w-0 flex-col gap-2"
+        aria-describedby={errors.studentIds ? "assign-students-error" : undefined}
+      >
         <legend className="font-semibold text-ink">Students</legend>
         <div className="grid gap-2 sm:grid-cols-2">
           {students.map((s) => (
-            <label key={s.id} className="flex min-h-11 items-center gap-3 rounded-knot border border-line bg-paper px-3">
-              <input type="checkbox" className="size-5 accent-cedar" checked={chosen.includes(s.id)} onChange={(e) => toggle(s.id, e.target.checked)} />
+            <label
+              key={s.id}
+              className="flex min-h-11 items-center gap-3 rounded-knot border border-line bg-paper px-3"
+            >
+              <input
+                type="checkbox"
+                className="size-5 accent-cedar"
+                checked={chosen.includes(s.id)}
+                onChange={(e) => toggle(s.id, e.target.checked)}
+              />
               <span>{s.name}</span>
             </label>
           ))}
@@ -161,7 +184,14 @@ export function AssignForm({ tunes, students, teacherZone, defaultDue, tuneId: i
         onPlan={setPlan}
         error={errors.stagePlan}
       />
-      <UnlockRuleFields idPrefix="assign" rule={rule} minutes={minutes} onRule={setRule} onMinutes={setMinutes} errors={errors} />
+      <UnlockRuleFields
+        idPrefix="assign"
+        rule={rule}
+        minutes={minutes}
+        onRule={setRule}
+        onMinutes={setMinutes}
+        errors={errors}
+      />
       <Field id="assign-note" label="Note to the students" error={errors.note}>
         {(c) => <Textarea {...c} rows={4} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
       </Field>

@@ -46,7 +46,9 @@ export function AssignmentCard({ a }: { a: AssignmentView }) {
             {withdrawn ? <strong className="ml-2 text-bark">Withdrawn</strong> : null}
           </p>
           <p className="text-small text-bark">
-            {a.unlockRule === "teacher_sign_off" ? "You sign off each stage." : `Self check-in after ${a.unlockMinutes ?? 0} practice minutes.`}
+            {a.unlockRule === "teacher_sign_off"
+              ? "You sign off each stage."
+              : `Self check-in after ${a.unlockMinutes ?? 0} practice minutes.`}
             {a.stagePlan ? " Stage plan changed for this assignment." : ""}
           </p>
         </div>
@@ -60,7 +62,12 @@ export function AssignmentCard({ a }: { a: AssignmentView }) {
               size="sm"
               disabled={withdraw.isPending}
               onClick={() => {
-                if (window.confirm(`Withdraw “${a.tune.title}” from ${a.students.length} student(s)? Their stages stop changing.`)) withdraw.mutate();
+                if (
+                  window.confirm(
+                    `Withdraw “${a.tune.title}” from ${a.students.length} student(s)? Their stages stop changing.`,
+                  )
+                )
+                  withdraw.mutate();
               }}
             >
               Withdraw

@@ -35,7 +35,9 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
           unlockRule: rule,
           unlockMinutes: rule === "self_check_in" ? minutes : null,
           note,
-          ...(planTouched ? { stagePlan: changed && JSON.stringify(plan) !== JSON.stringify(tunePlan) ? plan : null } : {}),
+          ...(planTouched
+            ? { stagePlan: changed && JSON.stringify(plan) !== JSON.stringify(tunePlan) ? plan : null }
+            : {}),
         },
       }),
     onSuccess: async () => {
@@ -50,7 +52,12 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
   };
   const id = `edit-${a.id}`;
   return (
-    <form onSubmit={submit} className="mt-4 flex flex-col gap-4 border-t border-line pt-4" noValidate aria-label={`Edit ${a.tune.title}`}>
+    <form
+      onSubmit={submit}
+      className="mt-4 flex flex-col gap-4 border-t border-line pt-4"
+      noValidate
+      aria-label={`Edit ${a.tune.title}`}
+    >
       {save.isError ? (
         <Alert tone="error" live>
           {errorWords(save.error)}
@@ -74,7 +81,14 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
         }}
         error={errors.stagePlan}
       />
-      <UnlockRuleFields idPrefix={id} rule={rule} minutes={minutes} onRule={setRule} onMinutes={setMinutes} errors={errors} />
+      <UnlockRuleFields
+        idPrefix={id}
+        rule={rule}
+        minutes={minutes}
+        onRule={setRule}
+        onMinutes={setMinutes}
+        errors={errors}
+      />
       <Field id={`${id}-note`} label="Note to the students" error={errors.note}>
         {(c) => <Textarea {...c} rows={3} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
       </Field>

@@ -57,7 +57,12 @@ export function AssignmentList() {
             </Button>
           }
           next={
-            <Button variant="secondary" size="sm" disabled={page >= pages || q.isPlaceholderData} onClick={() => setPage(page + 1)}>
+            <Button
+              variant="secondary"
+              size="sm"
+              disabled={page >= pages || q.isPlaceholderData}
+              onClick={() => setPage(page + 1)}
+            >
               Next
             </Button>
           }

@@ -26,8 +26,15 @@ export function PlanChoice({ tunePlan, changed, plan, onChanged, onPlan, error }
     <fieldset className="flex min-w-0 flex-col gap-3">
       <legend className="font-semibold text-ink">Stage plan</legend>
       <label className="flex items-center gap-3">
-        <input type="checkbox" className="size-5 accent-cedar" checked={changed} onChange={(e) => onChanged(e.target.checked)} />
-        <span>Change the stage plan for this assignment (otherwise the tune&apos;s own {tunePlan.stages.length} stages)</span>
+        <input
+          type="checkbox"
+          className="size-5 accent-cedar"
+          checked={changed}
+          onChange={(e) => onChanged(e.target.checked)}
+        />
+        <span>
+          Change the stage plan for this assignment (otherwise the tune&apos;s own {tunePlan.stages.length} stages)
+        </span>
       </label>
       {changed ? (
         <PlanEditor

@@ -51,7 +51,8 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
       <div>
         <CardTitle level={2}>{title}</CardTitle>
         <p className="text-small text-bark">
-          {item.stage.name} · checked in {when} · self-rating {item.selfRating} of 5 · {item.fromMemory ? "played from memory" : "played from the music"}
+          {item.stage.name} · checked in {when} · self-rating {item.selfRating} of 5 ·{" "}
+          {item.fromMemory ? "played from memory" : "played from the music"}
         </p>
       </div>
       {item.uploadId ? (
@@ -60,7 +61,11 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
         <p className="text-small text-bark">No recording with this check-in.</p>
       )}
       {item.stage.abc ? (
-        <Notation abc={item.stage.abc} label={`${item.tune.title}, ${item.stage.name}`} className="rounded-knot border border-line p-2" />
+        <Notation
+          abc={item.stage.abc}
+          label={`${item.tune.title}, ${item.stage.name}`}
+          className="rounded-knot border border-line p-2"
+        />
       ) : null}
       <Field
         id={`${id}-feedback`}
@@ -68,7 +73,9 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
         hint="The student reads this in their e-mail and on the assignment page."
         error={review.error instanceof ApiError ? review.error.fieldErrors.feedback : undefined}
       >
-        {(c) => <Textarea {...c} rows={3} value={feedback} maxLength={4000} onChange={(e) => setFeedback(e.target.value)} />}
+        {(c) => (
+          <Textarea {...c} rows={3} value={feedback} maxLength={4000} onChange={(e) => setFeedback(e.target.value)} />
+        )}
       </Field>
       {review.isError ? (
         <Alert tone="error" live>

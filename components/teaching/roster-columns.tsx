@@ -43,6 +43,11 @@ export const rosterColumns = [
   col.accessor("overdueAssignments", {
     header: "Overdue",
     filterFn: onlyOverdue,
-    cell: (c) => (c.getValue() > 0 ? <strong className="text-berry">{c.getValue()} overdue</strong> : <span className="text-bark">0</span>),
+    cell: (c) =>
+      c.getValue() > 0 ? (
+        <strong className="text-berry">{c.getValue()} overdue</strong>
+      ) : (
+        <span className="text-bark">0</span>
+      ),
   }),
 ];

@@ -82,7 +82,11 @@ export function RosterTable() {
                 const dir = h.column.getIsSorted();
                 return (
                   <Th key={h.id} aria-sort={dir ? ARIA[dir] : "none"}>
-                    <button type="button" onClick={h.column.getToggleSortingHandler()} className="font-semibold underline-offset-2 hover:underline">
+                    <button
+                      type="button"
+                      onClick={h.column.getToggleSortingHandler()}
+                      className="font-semibold underline-offset-2 hover:underline"
+                    >
                       {flexRender(h.column.columnDef.header, h.getContext())}
                       {dir ? ARROWS[dir] : ""}
                     </button>
@@ -111,7 +115,12 @@ export function RosterTable() {
       </TableShell>
       {table.getPageCount() > 1 ? (
         <nav aria-label="Roster pages" className="flex flex-wrap items-center gap-3 text-small">
-          <Button variant="secondary" size="sm" disabled={!table.getCanPreviousPage()} onClick={() => table.previousPage()}>
+          <Button
+            variant="secondary"
+            size="sm"
+            disabled={!table.getCanPreviousPage()}
+            onClick={() => table.previousPage()}
+          >
             Previous
           </Button>
           <span>{`Page ${table.getState().pagination.pageIndex + 1} of ${table.getPageCount()}`}</span>

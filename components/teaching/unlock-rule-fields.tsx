@@ -15,7 +15,12 @@ export function UnlockRuleFields(p: {
 }) {
   return (
     <div className="grid gap-4 sm:grid-cols-2">
-      <Field id={`${p.idPrefix}-rule`} label="Unlock rule" hint="What opens the next stage." error={p.errors.unlockRule}>
+      <Field
+        id={`${p.idPrefix}-rule`}
+        label="Unlock rule"
+        hint="What opens the next stage."
+        error={p.errors.unlockRule}
+      >
         {(c) => (
           <Select {...c} value={p.rule} onChange={(e) => p.onRule(e.target.value as UnlockRule)}>
             <option value="teacher_sign_off">I sign off each check-in</option>
@@ -24,8 +29,23 @@ export function UnlockRuleFields(p: {
         )}
       </Field>
       {p.rule === "self_check_in" ? (
-        <Field id={`${p.idPrefix}-minutes`} label="Practice minutes" hint="Logged on this tune since the stage opened." error={p.errors.unlockMinutes}>
-          {(c) => <Input {...c} type="number" inputMode="numeric" min={1} max={600} value={p.minutes} onChange={(e) => p.onMinutes(e.target.value)} />}
+        <Field
+          id={`${p.idPrefix}-minutes`}
+          label="Practice minutes"
+          hint="Logged on this tune since the stage opened."
+          error={p.errors.unlockMinutes}
+        >
+          {(c) => (
+            <Input
+              {...c}
+              type="number"
+              inputMode="numeric"
+              min={1}
+              max={600}
+              value={p.minutes}
+              onChange={(e) => p.onMinutes(e.target.value)}
+            />
+          )}
         </Field>
       ) : null}
     </div>

@@ -71,7 +71,9 @@ export function AbcSource({ value, onChange, problems, checking }: AbcSourceProp
       </p>
       <div id="abc-problems" role="status" aria-live="polite" className="flex flex-col gap-1">
         {checking ? <p className="text-small text-bark">Reading the tune…</p> : null}
-        {!checking && problems.length === 0 ? <p className="text-small font-semibold text-spruce">No problems found in the ABC.</p> : null}
+        {!checking && problems.length === 0 ? (
+          <p className="text-small font-semibold text-spruce">No problems found in the ABC.</p>
+        ) : null}
         {problems.length ? (
           <>
             <p className="text-small font-semibold text-berry">

@@ -13,7 +13,10 @@ export interface PhrasePanelProps {
 function differenceWords(t: Twin): string {
   if (t.kind === "exact") return "identical";
   return t.differences
-    .map((d) => `bar ${d.secondBar} beat ${Number.isInteger(d.beat) ? d.beat : d.beat.toFixed(1)}: ${d.secondNote} where ${t.first} has ${d.firstNote}`)
+    .map(
+      (d) =>
+        `bar ${d.secondBar} beat ${Number.isInteger(d.beat) ? d.beat : d.beat.toFixed(1)}: ${d.secondNote} where ${t.first} has ${d.firstNote}`,
+    )
     .join("; ");
 }
 
@@ -24,13 +27,18 @@ export function PhrasePanel({ map, acceptedLoad, acceptedCount }: PhrasePanelPro
       <div className="rounded-knot border border-line bg-sawdust px-4 py-3" data-testid="learning-load">
         <p className="font-semibold">Learning load</p>
         <p className="text-small">
-          {phrases} phrases on the page, <strong>{map.learningLoad.distinct} distinct</strong> to learn; {map.learningLoad.afterSwaps} if every near twin is
-          swapped; <strong>{acceptedLoad}</strong> with the {acceptedCount} swap{acceptedCount === 1 ? "" : "s"} you accepted.
+          {phrases} phrases on the page, <strong>{map.learningLoad.distinct} distinct</strong> to learn;{" "}
+          {map.learningLoad.afterSwaps} if every near twin is swapped; <strong>{acceptedLoad}</strong> with the{" "}
+          {acceptedCount} swap{acceptedCount === 1 ? "" : "s"} you accepted.
         </p>
       </div>
       <div className="grid gap-3 md:grid-cols-2">
         {map.parts.map((part) => (
-          <section key={part.label} className="rounded-knot border border-line bg-paper p-3" aria-label={`Part ${part.label}`}>
+          <section
+            key={part.label}
+            className="rounded-knot border border-line bg-paper p-3"
+            aria-label={`Part ${part.label}`}
+          >
             <h4 className="font-semibold">Part {part.label}</h4>
             <p className="text-caption text-bark">
               {part.countedBars} bars; {part.grouping.reason}
@@ -58,7 +66,10 @@ export function PhrasePanel({ map, acceptedLoad, acceptedCount }: PhrasePanelPro
                 <span className="font-semibold">
                   {t.second} {t.kind === "exact" ? "=" : "≈"} {t.first}
                 </span>{" "}
-                ({t.kind === "exact" ? "exact twin" : `near twin, ${t.differingNotes} note${t.differingNotes === 1 ? "" : "s"} differ`}
+                (
+                {t.kind === "exact"
+                  ? "exact twin"
+                  : `near twin, ${t.differingNotes} note${t.differingNotes === 1 ? "" : "s"} differ`}
                 {t.partial ? ", compared over the shorter" : ""}): {differenceWords(t)}
               </li>
             ))}
@@ -78,7 +89,9 @@ export function PhrasePanel({ map, acceptedLoad, acceptedCount }: PhrasePanelPro
             ))}
           </ul>
         ) : (
-          <p className="text-small text-bark">None of the usual patterns (phrase 1 = phrase 3, shared last phrase, shared second half).</p>
+          <p className="text-small text-bark">
+            None of the usual patterns (phrase 1 = phrase 3, shared last phrase, shared second half).
+          </p>
         )}
       </section>
     </div>

@@ -47,17 +47,37 @@ export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, d
   const editable = tuneId !== null && !dirty && !isLast;
 
   return (
-    <article className={cx("flex min-w-72 flex-col gap-2 rounded-knot border bg-paper p-3", flagged ? "border-2 border-cedar" : "border-line")} aria-labelledby={`stage-${index}-title`} data-stage={index}>
+    <article
+      className={cx(
+        "flex min-w-72 flex-col gap-2 rounded-knot border bg-paper p-3",
+        flagged ? "border-2 border-cedar" : "border-line",
+      )}
+      aria-labelledby={`stage-${index}-title`}
+      data-stage={index}
+    >
       <header className="flex flex-wrap items-baseline justify-between gap-2">
         <h4 id={`stage-${index}-title`} className="font-semibold">
           Stage {index}: {name}
         </h4>
-        {hand ? <span className="rounded-sm border border-slate px-1.5 text-caption text-slate">Written by hand</span> : null}
+        {hand ? (
+          <span className="rounded-sm border border-slate px-1.5 text-caption text-slate">Written by hand</span>
+        ) : null}
       </header>
-      <p className="text-caption text-bark">{index === 1 ? "The skeleton: the core melody alone." : adds.length ? `Adds back: ${adds.map((k) => KIND_SHORT[k]).join(", ")}.` : "Adds nothing new."}</p>
+      <p className="text-caption text-bark">
+        {index === 1
+          ? "The skeleton: the core melody alone."
+          : adds.length
+            ? `Adds back: ${adds.map((k) => KIND_SHORT[k]).join(", ")}.`
+            : "Adds nothing new."}
+      </p>
       {flagged ? (
-        <p className="rounded-knot bg-rosin-tint px-2 py-1 text-caption font-semibold text-cedar" data-testid={`stage-${index}-flag`}>
-          {saved?.sourceChanged ? "The tune's source changed after this stage was written by hand: check it, or rebuild it from the source." : "Saving your changes will flag this hand-written stage for checking."}
+        <p
+          className="rounded-knot bg-rosin-tint px-2 py-1 text-caption font-semibold text-cedar"
+          data-testid={`stage-${index}-flag`}
+        >
+          {saved?.sourceChanged
+            ? "The tune's source changed after this stage was written by hand: check it, or rebuild it from the source."
+            : "Saving your changes will flag this hand-written stage for checking."}
         </p>
       ) : null}
       {draft === null ? (
@@ -65,7 +85,13 @@ export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, d
       ) : (
         <label className="flex flex-col gap-1 text-small">
           <span className="font-semibold">ABC of stage {index}</span>
-          <textarea value={draft} onChange={(e) => setDraft(e.target.value)} rows={12} spellCheck={false} className={cx(controlClasses, "font-mono text-caption")} />
+          <textarea
+            value={draft}
+            onChange={(e) => setDraft(e.target.value)}
+            rows={12}
+            spellCheck={false}
+            className={cx(controlClasses, "font-mono text-caption")}
+          />
         </label>
       )}
       {keep.error instanceof ProblemsError ? (
@@ -82,7 +108,13 @@ export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, d
       ) : null}
       <div className="mt-auto flex flex-wrap gap-2">
         {draft === null ? (
-          <Button size="sm" variant="secondary" disabled={!editable} onClick={() => setDraft(abc)} title={editable ? undefined : "Save the tune first"}>
+          <Button
+            size="sm"
+            variant="secondary"
+            disabled={!editable}
+            onClick={() => setDraft(abc)}
+            title={editable ? undefined : "Save the tune first"}
+          >
             Edit stage {index} by hand
           </Button>
         ) : (
@@ -101,8 +133,12 @@ export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, d
           </Button>
         ) : null}
       </div>
-      {isLast ? <p className="text-caption text-bark">The last stage is the full setting: edit the ABC above to change it.</p> : null}
-      {!isLast && tuneId !== null && dirty ? <p className="text-caption text-bark">Save the tune before editing a stage by hand.</p> : null}
+      {isLast ? (
+        <p className="text-caption text-bark">The last stage is the full setting: edit the ABC above to change it.</p>
+      ) : null}
+      {!isLast && tuneId !== null && dirty ? (
+        <p className="text-caption text-bark">Save the tune before editing a stage by hand.</p>
+      ) : null}
     </article>
   );
 }

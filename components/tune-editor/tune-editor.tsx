@@ -48,10 +48,19 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
   const live = useLiveCheck(abc, planOrNull, accepted);
 
   const tune = live.check?.ok ? live.check.value : live.fallback?.ok ? live.fallback.value : null;
-  const problems = live.check && !live.check.ok ? (live.check.planReasons.length && live.fallback && !live.fallback.ok ? live.fallback.problems : live.check.problems) : [];
+  const problems =
+    live.check && !live.check.ok
+      ? live.check.planReasons.length && live.fallback && !live.fallback.ok
+        ? live.fallback.problems
+        : live.check.problems
+      : [];
   const planReasons = live.check && !live.check.ok ? live.check.planReasons : [];
   const sourceDirty = saved ? abc !== saved.abc : true;
-  const dirty = sourceDirty || !saved || !samePlan(plan, saved.stagePlan ?? DEFAULT_PLAN) || accepted.join() !== saved.acceptedSwaps.join();
+  const dirty =
+    sourceDirty ||
+    !saved ||
+    !samePlan(plan, saved.stagePlan ?? DEFAULT_PLAN) ||
+    accepted.join() !== saved.acceptedSwaps.join();
 
   const save = useMutation({
     mutationFn: () =>
@@ -61,8 +70,12 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
       }),
     onSuccess: async (body) => {
       const notes = [`“${body.title}” is saved.`];
-      if (body.droppedSwaps.length) notes.push(`Swaps no longer offered by the phrase map were let go: ${body.droppedSwaps.join(", ")}.`);
-      if (body.flaggedStages.length) notes.push(`Hand-written stage${body.flaggedStages.length === 1 ? "" : "s"} ${body.flaggedStages.join(", ")} now carry a flag: check them.`);
+      if (body.droppedSwaps.length)
+        notes.push(`Swaps no longer offered by the phrase map were let go: ${body.droppedSwaps.join(", ")}.`);
+      if (body.flaggedStages.length)
+        notes.push(
+          `Hand-written stage${body.flaggedStages.length === 1 ? "" : "s"} ${body.flaggedStages.join(", ")} now carry a flag: check them.`,
+        );
       setSavedNote(notes.join(" "));
       setAccepted((a) => a.filter((id) => !body.droppedSwaps.includes(id)));
       if (!saved) router.replace(`/teach/tunes/${body.tuneId}`);
@@ -77,13 +90,29 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
       <header className="flex flex-col gap-4">
         <div className="flex flex-wrap items-end justify-between gap-4">
           <div>
-            <p className="text-small font-semibold tracking-widest text-cedar uppercase">{saved ? "Tune editor" : "New tune"}</p>
+            <p className="text-small font-semibold tracking-widest text-cedar uppercase">
+              {saved ? "Tune editor" : "New tune"}
+            </p>
             <h1 className="text-h2 font-semibold">{tune?.title || saved?.title || "Untitled tune"}</h1>
           </div>
-          <SaveBar onSave={() => save.mutate()} saving={save.isPending} dirty={dirty} isNew={!saved} error={save.error} savedNote={savedNote} />
+          <SaveBar
+            onSave={() => save.mutate()}
+            saving={save.isPending}
+            dirty={dirty}
+            isNew={!saved}
+            error={save.error}
+            savedNote={savedNote}
+          />
         </div>
-        <TuneFacts title={tune?.title ?? ""} tuneType={tune?.tuneType ?? "other"} keyName={tune?.key ?? ""} meter={tune?.meter ?? ""} />
-        {saved?.courses.length ? <p className="text-small text-bark">On the ladder of: {saved.courses.map((c) => c.title).join(", ")}.</p> : null}
+        <TuneFacts
+          title={tune?.title ?? ""}
+          tuneType={tune?.tuneType ?? "other"}
+          keyName={tune?.key ?? ""}
+          meter={tune?.meter ?? ""}
+        />
+        {saved?.courses.length ? (
+          <p className="text-small text-bark">On the ladder of: {saved.courses.map((c) => c.title).join(", ")}.</p>
+        ) : null}
       </header>
       <div className="grid gap-6 lg:grid-cols-2">
         <AbcSource value={abc} onChange={setAbc} problems={problems} checking={live.checking} />
@@ -92,18 +121,51 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
           <Notation abc={abc} phraseMap={tune?.analysis.phraseMap ?? null} label="The tune as written" />
         </div>
       </div>
-      <Section id="plan-heading" title="Stage plan" hint="Tick the stage at which each kind of embellishment comes back. Stage 1 is the skeleton.">
-        <PlanEditor plan={plan} onChange={setPlan} onReset={() => setPlan(DEFAULT_PLAN)} reasons={planReasons} isDefault={planOrNull === null} />
+      <Section
+        id="plan-heading"
+        title="Stage plan"
+        hint="Tick the stage at which each kind of embellishment comes back. Stage 1 is the skeleton."
+      >
+        <PlanEditor
+          plan={plan}
+          onChange={setPlan}
+          onReset={() => setPlan(DEFAULT_PLAN)}
+          reasons={planReasons}
+          isDefault={planOrNull === null}
+        />
       </Section>
       {tune ? (
         <>
-          <Section id="stages-heading" title="Stages side by side" hint="From the skeleton to the full setting. A stage written by hand is kept as written.">
-            <StagePreviews stages={tune.stages} plan={planReasons.length ? DEFAULT_PLAN : plan} saved={saved?.stages ?? []} tuneId={saved?.id ?? null} dirty={dirty} sourceDirty={sourceDirty && Boolean(saved)} />
+          <Section
+            id="stages-heading"
+            title="Stages side by side"
+            hint="From the skeleton to the full setting. A stage written by hand is kept as written."
+          >
+            <StagePreviews
+              stages={tune.stages}
+              plan={planReasons.length ? DEFAULT_PLAN : plan}
+              saved={saved?.stages ?? []}
+              tuneId={saved?.id ?? null}
+              dirty={dirty}
+              sourceDirty={sourceDirty && Boolean(saved)}
+            />
           </Section>
-          <Section id="phrases-heading" title="Phrase map" hint="Compared on the skeleton: which phrases repeat exactly, which nearly, and what is shared across parts.">
-            <PhrasePanel map={tune.analysis.phraseMap} acceptedLoad={learningLoadWith(tune.analysis.phraseMap, accepted)} acceptedCount={accepted.length} />
+          <Section
+            id="phrases-heading"
+            title="Phrase map"
+            hint="Compared on the skeleton: which phrases repeat exactly, which nearly, and what is shared across parts."
+          >
+            <PhrasePanel
+              map={tune.analysis.phraseMap}
+              acceptedLoad={learningLoadWith(tune.analysis.phraseMap, accepted)}
+              acceptedCount={accepted.length}
+            />
           </Section>
-          <Section id="swaps-heading" title="Twin swaps for the learning version" hint="While learning, a near twin can be played exactly like its twin. Accepted swaps are saved with the tune.">
+          <Section
+            id="swaps-heading"
+            title="Twin swaps for the learning version"
+            hint="While learning, a near twin can be played exactly like its twin. Accepted swaps are saved with the tune."
+          >
             <SwapPanel abc={abc} map={tune.analysis.phraseMap} accepted={accepted} onChange={setAccepted} />
           </Section>
         </>

@@ -30,7 +30,9 @@ export function TuneFacts({ title, tuneType, keyName, meter }: TuneFactsProps) {
         ))}
       </dl>
       {tuneType === "other" ? (
-        <p className="mt-1 text-caption text-bark">Add an R: line (for example R:reel or R:slip jig) to give the tune its type.</p>
+        <p className="mt-1 text-caption text-bark">
+          Add an R: line (for example R:reel or R:slip jig) to give the tune its type.
+        </p>
       ) : null}
     </div>
   );

@@ -9,7 +9,10 @@ import type { TuneSummary } from "@/lib/tunes/api-types";
 import { errorWords, teachFetch } from "@/lib/tunes/client-fetch";
 
 export function TuneList({ showTeacher }: { showTeacher: boolean }) {
-  const query = useQuery({ queryKey: ["teach-tunes"], queryFn: () => teachFetch<{ tunes: TuneSummary[] }>("/api/teach/tunes") });
+  const query = useQuery({
+    queryKey: ["teach-tunes"],
+    queryFn: () => teachFetch<{ tunes: TuneSummary[] }>("/api/teach/tunes"),
+  });
   if (query.isPending) return <p className="text-bark">Loading your tunes…</p>;
   if (query.isError) return <Alert tone="error">{errorWords(query.error)}</Alert>;
   const tunes = query.data.tunes;
@@ -45,7 +48,9 @@ export function TuneList({ showTeacher }: { showTeacher: boolean }) {
             <Td>{t.meter}</Td>
             <Td>{t.stageCount}</Td>
             {showTeacher ? <Td>{t.teacherName}</Td> : null}
-            <Td>{new Date(t.updatedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" })}</Td>
+            <Td>
+              {new Date(t.updatedAt).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric" })}
+            </Td>
           </tr>
         ))}
       </TBody>

@@ -7,7 +7,10 @@ import { errorWords, teachFetch } from "@/lib/tunes/client-fetch";
 import { TuneEditor } from "./tune-editor";
 
 export function TuneLoader({ tuneId }: { tuneId: string }) {
-  const query = useQuery({ queryKey: ["teach-tune", tuneId], queryFn: () => teachFetch<TuneView>(`/api/teach/tunes/${tuneId}`) });
+  const query = useQuery({
+    queryKey: ["teach-tune", tuneId],
+    queryFn: () => teachFetch<TuneView>(`/api/teach/tunes/${tuneId}`),
+  });
   if (query.isPending) return <p className="text-bark">Loading the tune…</p>;
   if (query.isError) return <Alert tone="error">{errorWords(query.error)}</Alert>;
   // Not keyed: after a save the editor keeps the teacher's text, which now equals what was stored.

@@ -4,7 +4,11 @@ import { useEffect, useState } from "react";
 import type { PhraseMap } from "@/lib/abc/phrase-types";
 import type { LearningVersion } from "@/lib/tunes/learning";
 
-export function useLearning(abc: string, map: PhraseMap | null, which: readonly string[] | null): LearningVersion | null {
+export function useLearning(
+  abc: string,
+  map: PhraseMap | null,
+  which: readonly string[] | null,
+): LearningVersion | null {
   const [version, setVersion] = useState<LearningVersion | null>(null);
   const key = which?.join(",") ?? null;
   useEffect(() => {

@@ -36,40 +36,70 @@ export function CompareSettings({ abc, stageName }: { abc: string; stageName: st
 
   const differing = result?.bars.filter((b) => b.status !== "equal") ?? [];
   return (
-    <section aria-labelledby={`${id}-title`} className="flex flex-col gap-3 rounded-knot border border-line bg-paper p-4">
-      <h2 id={`${id}-title`} className="font-serif text-h4 font-semibold">Compare with another setting</h2>
+    <section
+      aria-labelledby={`${id}-title`}
+      className="flex flex-col gap-3 rounded-knot border border-line bg-paper p-4"
+    >
+      <h2 id={`${id}-title`} className="font-serif text-h4 font-semibold">
+        Compare with another setting
+      </h2>
       <form onSubmit={(e) => void submit(e)} noValidate className="flex flex-col gap-3">
         <label htmlFor={`${id}-abc`} className="font-semibold">
           Another setting of this tune, in ABC
         </label>
         <Textarea
-          id={`${id}-abc`} rows={6} maxLength={COMPARE_MAX} value={text} onChange={(e) => setText(e.target.value)}
-          className="font-mono text-small" spellCheck={false} aria-invalid={error ? true : undefined}
+          id={`${id}-abc`}
+          rows={6}
+          maxLength={COMPARE_MAX}
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+          className="font-mono text-small"
+          spellCheck={false}
+          aria-invalid={error ? true : undefined}
           placeholder={"X:1\nT:…\nM:4/4\nL:1/8\nK:D\n…"}
         />
         <label className="flex min-h-11 items-center gap-2">
-          <input type="checkbox" checked={skeleton} onChange={(e) => setSkeleton(e.target.checked)} className="size-5 accent-cedar" />
+          <input
+            type="checkbox"
+            checked={skeleton}
+            onChange={(e) => setSkeleton(e.target.checked)}
+            className="size-5 accent-cedar"
+          />
           Compare the core melodies only (leave out ornaments and other embellishments)
         </label>
         <div>
-          <Button type="submit" size="sm" disabled={busy}>{busy ? "Comparing…" : `Compare with ${stageName}`}</Button>
+          <Button type="submit" size="sm" disabled={busy}>
+            {busy ? "Comparing…" : `Compare with ${stageName}`}
+          </Button>
         </div>
       </form>
-      {error ? <Alert tone="error" live>{error}</Alert> : null}
+      {error ? (
+        <Alert tone="error" live>
+          {error}
+        </Alert>
+      ) : null}
       {result ? (
         <div role="status" className="flex flex-col gap-2" data-compare-different={result.summary.different}>
           <p className="font-semibold">
             {`${result.summary.equal} bars the same, ${result.summary.different} different` +
-              (result.summary.onlyInFirst + result.summary.onlyInSecond > 0 ? `, ${result.summary.onlyInFirst + result.summary.onlyInSecond} in only one of them` : "") +
+              (result.summary.onlyInFirst + result.summary.onlyInSecond > 0
+                ? `, ${result.summary.onlyInFirst + result.summary.onlyInSecond} in only one of them`
+                : "") +
               "."}
           </p>
-          {result.summary.notes.map((n) => <p key={n} className="text-small text-bark">{n}</p>)}
+          {result.summary.notes.map((n) => (
+            <p key={n} className="text-small text-bark">
+              {n}
+            </p>
+          ))}
           <ul className="flex flex-col gap-2">
             {differing.map((b) => (
               <li key={`${b.part}-${b.place}-${b.firstBar}-${b.secondBar}`}>
                 <p>{barWords(b)}</p>
                 <ul className="ml-5 list-disc text-small text-bark">
-                  {b.differences.map((d, i) => <li key={i}>{differenceWords(d)}</li>)}
+                  {b.differences.map((d, i) => (
+                    <li key={i}>{differenceWords(d)}</li>
+                  ))}
                 </ul>
               </li>
             ))}

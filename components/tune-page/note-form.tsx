@@ -32,19 +32,34 @@ export function NoteForm({ bar, body = "", submitLabel, busy, onSubmit, onCancel
       await onSubmit(parsed.data);
       if (!onCancel) setText(""); // a new note's form is cleared for the next one
     } catch (err) {
-      setErrors(err instanceof ApiError ? { form: err.message, ...err.fieldErrors } : { form: "The note could not be saved." });
+      setErrors(
+        err instanceof ApiError ? { form: err.message, ...err.fieldErrors } : { form: "The note could not be saved." },
+      );
     }
   };
 
-  const err = (k: string) => (errors[k] ? <p id={`${id}-${k}-error`} className="text-small font-semibold text-berry">{errors[k]}</p> : null);
+  const err = (k: string) =>
+    errors[k] ? (
+      <p id={`${id}-${k}-error`} className="text-small font-semibold text-berry">
+        {errors[k]}
+      </p>
+    ) : null;
   return (
     <form onSubmit={(e) => void submit(e)} noValidate className="flex flex-col gap-3" aria-label={submitLabel}>
       <div className="flex flex-wrap items-end gap-3">
         <div className="flex w-28 flex-col gap-1">
-          <label htmlFor={`${id}-bar`} className="font-semibold">Bar</label>
+          <label htmlFor={`${id}-bar`} className="font-semibold">
+            Bar
+          </label>
           <Input
-            id={`${id}-bar`} type="number" min={0} max={MAX_BAR} inputMode="numeric" value={bar ?? ""}
-            aria-invalid={errors.bar ? true : undefined} aria-describedby={errors.bar ? `${id}-bar-error` : undefined}
+            id={`${id}-bar`}
+            type="number"
+            min={0}
+            max={MAX_BAR}
+            inputMode="numeric"
+            value={bar ?? ""}
+            aria-invalid={errors.bar ? true : undefined}
+            aria-describedby={errors.bar ? `${id}-bar-error` : undefined}
             onChange={(e) => onBarChange?.(e.target.value === "" ? null : Number(e.target.value))}
           />
         </div>
@@ -52,17 +67,30 @@ export function NoteForm({ bar, body = "", submitLabel, busy, onSubmit, onCancel
       </div>
       {err("bar")}
       <div className="flex flex-col gap-1">
-        <label htmlFor={`${id}-body`} className="font-semibold">Note</label>
+        <label htmlFor={`${id}-body`} className="font-semibold">
+          Note
+        </label>
         <Textarea
-          id={`${id}-body`} rows={2} maxLength={NOTE_MAX} value={text} onChange={(e) => setText(e.target.value)}
-          aria-invalid={errors.body ? true : undefined} aria-describedby={errors.body ? `${id}-body-error` : undefined}
+          id={`${id}-body`}
+          rows={2}
+          maxLength={NOTE_MAX}
+          value={text}
+          onChange={(e) => setText(e.target.value)}
+          aria-invalid={errors.body ? true : undefined}
+          aria-describedby={errors.body ? `${id}-body-error` : undefined}
         />
       </div>
       {err("body")}
       {err("form")}
       <div className="flex gap-2">
-        <Button type="submit" size="sm" disabled={busy}>{busy ? "Saving…" : submitLabel}</Button>
-        {onCancel ? <Button variant="quiet" size="sm" onClick={onCancel}>Cancel</Button> : null}
+        <Button type="submit" size="sm" disabled={busy}>
+          {busy ? "Saving…" : submitLabel}
+        </Button>
+        {onCancel ? (
+          <Button variant="quiet" size="sm" onClick={onCancel}>
+            Cancel
+          </Button>
+        ) : null}
       </div>
     </form>
   );

@@ -24,8 +24,12 @@ export default function StageMusic({ stage, title, phraseMap, printHref, onBarCl
       <TunePlayer abc={stage.abc} phraseMap={phraseMap} onLoopChange={setLoop} />
       {phraseMap ? <MemoryMode phraseMap={phraseMap} hidden={hidden} onChange={setHidden} /> : null}
       <Notation
-        abc={stage.abc} phraseMap={phraseMap} highlightPhrase={loop} hiddenPhrases={hidden}
-        onBarClick={onBarClick} label={`${title}, stage ${stage.index}: ${stage.name}`}
+        abc={stage.abc}
+        phraseMap={phraseMap}
+        highlightPhrase={loop}
+        hiddenPhrases={hidden}
+        onBarClick={onBarClick}
+        label={`${title}, stage ${stage.index}: ${stage.name}`}
       />
       <p>
         <Link href={printHref}>{`Print view of stage ${stage.index} (${stage.name})`}</Link>

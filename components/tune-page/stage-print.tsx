@@ -9,14 +9,26 @@ import { HttpError } from "@/lib/auth/errors";
 import type { Viewer } from "@/lib/catalogue/access";
 import { stageJson } from "@/lib/catalogue/tune";
 
-export async function StagePrint({ viewer, tuneId, stage, backHref }: { viewer: Viewer; tuneId: string; stage: string | undefined; backHref: string }) {
+export async function StagePrint({
+  viewer,
+  tuneId,
+  stage,
+  backHref,
+}: {
+  viewer: Viewer;
+  tuneId: string;
+  stage: string | undefined;
+  backHref: string;
+}) {
   const index = Number(stage ?? "1");
   if (!Number.isInteger(index) || index < 1 || index > 99) notFound();
   try {
     const s = await stageJson(db(), viewer, tuneId, index);
     return (
       <div className="flex flex-col gap-4">
-        <p data-print-hide><Link href={backHref}>Back to the tune page</Link></p>
+        <p data-print-hide>
+          <Link href={backHref}>Back to the tune page</Link>
+        </p>
         <PrintStage abc={s.abc} title={s.title} stageName={`${s.index}. ${s.name}`} />
       </div>
     );
@@ -25,7 +37,9 @@ export async function StagePrint({ viewer, tuneId, stage, backHref }: { viewer: 
       return (
         <Alert tone="warning" title="This stage is not open to you yet">
           <p>{e.message}</p>
-          <p className="mt-2"><Link href={backHref}>Back to the tune page</Link></p>
+          <p className="mt-2">
+            <Link href={backHref}>Back to the tune page</Link>
+          </p>
         </Alert>
       );
     }

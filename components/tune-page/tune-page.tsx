@@ -13,7 +13,9 @@ import { useStage, useTune } from "./use-tune";
 // React's own lazy(), not next/dynamic, which would add its own 2 kB to the first load.
 const loadMusic = () => import("./stage-music");
 const StageMusic = lazy(loadMusic);
-const StageSelector = lazy(() => import("@/components/notation/stage-selector").then((m) => ({ default: m.StageSelector })));
+const StageSelector = lazy(() =>
+  import("@/components/notation/stage-selector").then((m) => ({ default: m.StageSelector })),
+);
 const MarginNotes = lazy(() => import("./margin-notes").then((m) => ({ default: m.MarginNotes })));
 const CompareSettings = lazy(() => import("./compare-settings").then((m) => ({ default: m.CompareSettings })));
 const waiting = (what: string) => <p role="status" className="text-bark">{`Getting ${what} ready…`}</p>;
@@ -38,14 +40,27 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
   const music = useStage(tuneId, stage);
   useEffect(() => void loadMusic(), []); // fetch the music's code while the tune's data is on its way
 
-  if (tune.isPending) return <p role="status" className="text-bark">Loading the tune…</p>;
+  if (tune.isPending)
+    return (
+      <p role="status" className="text-bark">
+        Loading the tune…
+      </p>
+    );
   if (tune.isError) {
     return (
       // Plain markup rather than <Alert>: every byte counts on the public taster page's first load.
       <div role="alert" className="rounded-knot border-l-4 border-cedar bg-rosin-tint px-4 py-3">
-        <p className="font-semibold text-cedar">{tune.error instanceof ApiError && tune.error.status === 404 ? "We couldn't find this tune" : "This tune is not open to you yet"}</p>
+        <p className="font-semibold text-cedar">
+          {tune.error instanceof ApiError && tune.error.status === 404
+            ? "We couldn't find this tune"
+            : "This tune is not open to you yet"}
+        </p>
         <p className="mt-1">{errorWords(tune.error)}</p>
-        <p className="mt-2"><Link href={area === "learn" ? "/learn/courses" : "/catalogue"}>{area === "learn" ? "Back to my courses" : "Back to the catalogue"}</Link></p>
+        <p className="mt-2">
+          <Link href={area === "learn" ? "/learn/courses" : "/catalogue"}>
+            {area === "learn" ? "Back to my courses" : "Back to the catalogue"}
+          </Link>
+        </p>
       </div>
     );
   }
@@ -56,7 +71,11 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
       <header className="flex flex-col gap-1">
         {t.rung ? (
           <p className="text-small text-bark">
-            {area === "learn" ? <Link href={`/learn/courses/${t.rung.courseId}`}>{t.rung.courseTitle}</Link> : t.rung.courseTitle}
+            {area === "learn" ? (
+              <Link href={`/learn/courses/${t.rung.courseId}`}>{t.rung.courseTitle}</Link>
+            ) : (
+              t.rung.courseTitle
+            )}
             {` · ${t.rung.gradeTitle}, rung ${t.rung.position}${t.rung.isTaster ? " · free taster" : ""}`}
           </p>
         ) : null}
@@ -70,13 +89,24 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
           onChange={setStage}
         />
       </Suspense>
-      {music.isPending || music.isPlaceholderData ? <p role="status" className="text-bark">Loading the music of this stage…</p> : null}
-      {music.isError ? <p role="alert" className="font-semibold text-berry">{errorWords(music.error)}</p> : null}
+      {music.isPending || music.isPlaceholderData ? (
+        <p role="status" className="text-bark">
+          Loading the music of this stage…
+        </p>
+      ) : null}
+      {music.isError ? (
+        <p role="alert" className="font-semibold text-berry">
+          {errorWords(music.error)}
+        </p>
+      ) : null}
       {music.data ? (
         <Suspense fallback={waiting("the music")}>
           <StageMusic
-            stage={music.data} title={t.tune.title} phraseMap={t.phraseMap}
-            printHref={`${printBase}?stage=${music.data.index}`} onBarClick={notes ? setBar : undefined}
+            stage={music.data}
+            title={t.tune.title}
+            phraseMap={t.phraseMap}
+            printHref={`${printBase}?stage=${music.data.index}`}
+            onBarClick={notes ? setBar : undefined}
           />
         </Suspense>
       ) : null}
@@ -87,7 +117,8 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
           </Suspense>
         ) : (
           <p className="self-start rounded-knot border border-line bg-paper p-4 text-bark">
-            <Link href={`/sign-in?next=${encodeURIComponent(`/catalogue/tunes/${tuneId}`)}`}>Sign in</Link> to pin your own margin notes to bars of this tune.
+            <Link href={`/sign-in?next=${encodeURIComponent(`/catalogue/tunes/${tuneId}`)}`}>Sign in</Link> to pin your
+            own margin notes to bars of this tune.
           </p>
         )}
         {music.data ? (

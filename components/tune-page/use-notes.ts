@@ -20,11 +20,18 @@ export function useNoteMutations(tuneId: string) {
   const client = useQueryClient();
   const settle = { onSettled: () => client.invalidateQueries({ queryKey: tuneKeys.notes(tuneId) }) };
   return {
-    add: useMutation({ mutationFn: (v: NoteInput) => fetchJson<NoteJson>(`${base(tuneId)}/notes`, { method: "POST", body: v }), ...settle }),
-    change: useMutation({
-      mutationFn: ({ id, ...v }: NoteInput & { id: string }) => fetchJson<NoteJson>(`${base(tuneId)}/notes/${id}`, { method: "PATCH", body: v }),
+    add: useMutation({
+      mutationFn: (v: NoteInput) => fetchJson<NoteJson>(`${base(tuneId)}/notes`, { method: "POST", body: v }),
       ...settle,
     }),
-    remove: useMutation({ mutationFn: (id: string) => fetchJson<void>(`${base(tuneId)}/notes/${id}`, { method: "DELETE" }), ...settle }),
+    change: useMutation({
+      mutationFn: ({ id, ...v }: NoteInput & { id: string }) =>
+        fetchJson<NoteJson>(`${base(tuneId)}/notes/${id}`, { method: "PATCH", body: v }),
+      ...settle,
+    }),
+    remove: useMutation({
+      mutationFn: (id: string) => fetchJson<void>(`${base(tuneId)}/notes/${id}`, { method: "DELETE" }),
+      ...settle,
+    }),
   };
 }

@@ -8,7 +8,18 @@ import { and, eq, sql, type SQL } from "drizzle-orm";
 import type { Tx as Db } from "./auth";
 import { courses, enrolments, plans, subscriptions, users } from "../schema";
 import type { EnrolmentsQuery, MembershipsQuery } from "@/lib/billing/admin/params";
-import { after, countOf, dayRange, nameOrEmail, offsetOf, ordering, pageOf, textOf, type Cursor, type SortKey } from "@/lib/billing/admin/sql";
+import {
+  after,
+  countOf,
+  dayRange,
+  nameOrEmail,
+  offsetOf,
+  ordering,
+  pageOf,
+  textOf,
+  type Cursor,
+  type SortKey,
+} from "@/lib/billing/admin/sql";
 
 // A membership without a period end (incomplete) sorts as "renews last".
 const periodEnd = sql`coalesce(${subscriptions.currentPeriodEnd}, 'infinity'::timestamptz)`;
@@ -70,7 +81,13 @@ export async function listMemberships(db: Db, q: MembershipsQuery) {
 }
 
 export async function countMemberships(db: Db, q: MembershipsQuery): Promise<number> {
-  const [{ n }] = await db.select({ n: countOf }).from(subscriptions).innerJoin(users, eq(users.id, subscriptions.userId)).where(membershipsWhere(q)).prepare("admin_table_count").execute();
+  const [{ n }] = await db
+    .select({ n: countOf })
+    .from(subscriptions)
+    .innerJoin(users, eq(users.id, subscriptions.userId))
+    .where(membershipsWhere(q))
+    .prepare("admin_table_count")
+    .execute();
   return n;
 }
 
@@ -91,7 +108,9 @@ const ENROLMENT_SORT: Record<EnrolmentsQuery["sort"], SortKey> = {
 
 // The member's newest subscription says where their membership stands beside each enrolment.
 const latestSub = (col: SQL) =>
-  sql<string | null>`(select ${col} from ${subscriptions} s join ${plans} pl on pl.id = s.plan_id where s.user_id = "enrolments"."user_id" order by s.started_at desc limit 1)`;
+  sql<
+    string | null
+  >`(select ${col} from ${subscriptions} s join ${plans} pl on pl.id = s.plan_id where s.user_id = "enrolments"."user_id" order by s.started_at desc limit 1)`;
 
 const enrolmentCols = {
   id: enrolments.id,
@@ -142,7 +161,13 @@ export async function listEnrolments(db: Db, q: EnrolmentsQuery) {
 }
 
 export async function countEnrolments(db: Db, q: EnrolmentsQuery): Promise<number> {
-  const [{ n }] = await db.select({ n: countOf }).from(enrolments).innerJoin(users, eq(users.id, enrolments.userId)).where(enrolmentsWhere(q)).prepare("admin_table_count").execute();
+  const [{ n }] = await db
+    .select({ n: countOf })
+    .from(enrolments)
+    .innerJoin(users, eq(users.id, enrolments.userId))
+    .where(enrolmentsWhere(q))
+    .prepare("admin_table_count")
+    .execute();
   return n;
 }
 

@@ -35,7 +35,11 @@ export async function revenueByMonth(db: Db, since: Date): Promise<RevenueMonth[
       .where(and(sql`${payments.status} <> 'failed'`, gte(payments.createdAt, since)))
       .groupBy(sql`1`, payments.currency),
     db
-      .select({ month: month(refunds.createdAt), currency: refunds.currency, refunds: sql<number>`(-sum(${refunds.amount}))::int` })
+      .select({
+        month: month(refunds.createdAt),
+        currency: refunds.currency,
+        refunds: sql<number>`(-sum(${refunds.amount}))::int`,
+      })
       .from(refunds)
       .where(gte(refunds.createdAt, since))
       .groupBy(sql`1`, refunds.currency),

@@ -14,16 +14,31 @@ export async function findUserById(db: Tx, id: string) {
   return rows[0] ?? null;
 }
 
-export async function insertEmailToken(db: Tx, v: { userId: string; purpose: Purpose; tokenHash: string; expiresAt: Date }) {
+export async function insertEmailToken(
+  db: Tx,
+  v: { userId: string; purpose: Purpose; tokenHash: string; expiresAt: Date },
+) {
   await db.insert(emailTokens).values(v);
 }
 
 /** Marks a token used and returns its person, in one statement, so two clicks cannot both succeed. */
-export async function consumeEmailToken(db: Tx, tokenHash: string, purpose: Purpose, now = new Date()): Promise<string | null> {
+export async function consumeEmailToken(
+  db: Tx,
+  tokenHash: string,
+  purpose: Purpose,
+  now = new Date(),
+): Promise<string | null> {
   const rows = await db
     .update(emailTokens)
     .set({ usedAt: now })
-    .where(and(eq(emailTokens.tokenHash, tokenHash), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt), gt(emailTokens.expiresAt, now)))
+    .where(
+      and(
+        eq(emailTokens.tokenHash, tokenHash),
+        eq(emailTokens.purpose, purpose),
+        isNull(emailTokens.usedAt),
+        gt(emailTokens.expiresAt, now),
+      ),
+    )
     .returning({ userId: emailTokens.userId });
   return rows[0]?.userId ?? null;
 }
@@ -33,7 +48,14 @@ export async function peekEmailToken(db: Tx, tokenHash: string, purpose: Purpose
   const rows = await db
     .select({ id: emailTokens.id })
     .from(emailTokens)
-    .where(and(eq(emailTokens.tokenHash, tokenHash), eq(emailTokens.purpose, purpose), isNull(emailTokens.usedAt), gt(emailTokens.expiresAt, now)))
+    .where(
+      and(
+        eq(emailTokens.tokenHash, tokenHash),
+        eq(emailTokens.purpose, purpose),
+        isNull(emailTokens.usedAt),
+        gt(emailTokens.expiresAt, now),
+      ),
+    )
     .limit(1);
   return rows.length > 0;
 }
@@ -50,12 +72,19 @@ export async function setPasswordHash(db: Tx, userId: string, passwordHash: stri
   await db.update(users).set({ passwordHash }).where(eq(users.id, userId));
 }
 
-export async function updateUser(db: Tx, userId: string, v: { name?: string; passwordHash?: string; emailVerifiedAt?: Date; role?: Role }) {
+export async function updateUser(
+  db: Tx,
+  userId: string,
+  v: { name?: string; passwordHash?: string; emailVerifiedAt?: Date; role?: Role },
+) {
   const rows = await db.update(users).set(v).where(eq(users.id, userId)).returning();
   return rows[0] ?? null;
 }
 
-export async function insertInvitation(db: Tx, v: { email: string; role: Role; invitedBy: string; tokenHash: string; expiresAt: Date }) {
+export async function insertInvitation(
+  db: Tx,
+  v: { email: string; role: Role; invitedBy: string; tokenHash: string; expiresAt: Date },
+) {
   const rows = await db.insert(invitations).values(v).returning({ id: invitations.id });
   return rows[0];
 }
@@ -95,6 +124,9 @@ export async function addToRoster(db: Tx, teacherId: string, studentId: string) 
 }
 
 export async function countAdmins(db: Tx): Promise<number> {
-  const rows = await db.select({ n: sql<number>`count(*)::int` }).from(users).where(and(eq(users.role, "admin"), eq(users.disabled, false)));
+  const rows = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(users)
+    .where(and(eq(users.role, "admin"), eq(users.disabled, false)));
   return rows[0].n;
 }

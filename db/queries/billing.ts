@@ -31,13 +31,24 @@ export async function planByPrice(db: Db, priceId: string, productId?: string | 
 }
 
 export async function planInUse(db: Db, planId: string): Promise<boolean> {
-  const [s] = await db.select({ id: subscriptions.id }).from(subscriptions).where(eq(subscriptions.planId, planId)).limit(1);
+  const [s] = await db
+    .select({ id: subscriptions.id })
+    .from(subscriptions)
+    .where(eq(subscriptions.planId, planId))
+    .limit(1);
   const [p] = await db.select({ id: payments.id }).from(payments).where(eq(payments.planId, planId)).limit(1);
   return Boolean(s || p);
 }
 
-export async function userByCustomer(db: Db, customerId: string): Promise<{ id: string; email: string; name: string } | null> {
-  const [row] = await db.select({ id: users.id, email: users.email, name: users.name }).from(users).where(eq(users.stripeCustomerId, customerId)).limit(1);
+export async function userByCustomer(
+  db: Db,
+  customerId: string,
+): Promise<{ id: string; email: string; name: string } | null> {
+  const [row] = await db
+    .select({ id: users.id, email: users.email, name: users.name })
+    .from(users)
+    .where(eq(users.stripeCustomerId, customerId))
+    .limit(1);
   return row ?? null;
 }
 
@@ -56,18 +67,27 @@ export async function subscriptionByStripeId(db: Db, stripeId: string): Promise<
 }
 
 /** The subscription the billing page shows: one in good standing if any, else the newest. */
-export async function currentSubscriptionOf(db: Db, userId: string): Promise<(SubscriptionRow & { plan: PlanRow }) | null> {
+export async function currentSubscriptionOf(
+  db: Db,
+  userId: string,
+): Promise<(SubscriptionRow & { plan: PlanRow }) | null> {
   const rows = await db
     .select({ s: subscriptions, p: plans })
     .from(subscriptions)
     .innerJoin(plans, eq(plans.id, subscriptions.planId))
     .where(eq(subscriptions.userId, userId))
-    .orderBy(sql`case when ${subscriptions.status} in ('active','trialing','past_due','unpaid') then 0 else 1 end`, desc(subscriptions.startedAt))
+    .orderBy(
+      sql`case when ${subscriptions.status} in ('active','trialing','past_due','unpaid') then 0 else 1 end`,
+      desc(subscriptions.startedAt),
+    )
     .limit(1);
   return rows[0] ? { ...rows[0].s, plan: rows[0].p } : null;
 }
 
-export type PaymentWithRefunds = PaymentRow & { planName: string | null; refunds: { id: string; amount: number; currency: string; reason: string; createdAt: Date }[] };
+export type PaymentWithRefunds = PaymentRow & {
+  planName: string | null;
+  refunds: { id: string; amount: number; currency: string; reason: string; createdAt: Date }[];
+};
 
 /** A person's payments, newest first, each with its refunds. */
 export async function paymentsOf(db: Db, userId: string, paymentId?: string): Promise<PaymentWithRefunds[]> {
@@ -80,7 +100,14 @@ export async function paymentsOf(db: Db, userId: string, paymentId?: string): Pr
   const ids = rows.map((r) => r.p.id);
   const refundRows = ids.length
     ? await db
-        .select({ id: refunds.id, paymentId: refunds.paymentId, amount: refunds.amount, currency: refunds.currency, reason: refunds.reason, createdAt: refunds.createdAt })
+        .select({
+          id: refunds.id,
+          paymentId: refunds.paymentId,
+          amount: refunds.amount,
+          currency: refunds.currency,
+          reason: refunds.reason,
+          createdAt: refunds.createdAt,
+        })
         .from(refunds)
         .where(inArray(refunds.paymentId, ids))
         .orderBy(asc(refunds.createdAt))

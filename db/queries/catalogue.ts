@@ -54,7 +54,12 @@ export async function publishedCourses(db: Db): Promise<CourseRow[]> {
 /** A course by id or slug, published or not. */
 export async function findCourse(db: Db, idOrSlug: string): Promise<CourseRow | null> {
   const where = isUuid(idOrSlug) ? eq(courses.id, idOrSlug) : eq(courses.slug, idOrSlug);
-  const rows = await db.select(courseColumns).from(courses).innerJoin(users, eq(users.id, courses.teacherId)).where(where).limit(1);
+  const rows = await db
+    .select(courseColumns)
+    .from(courses)
+    .innerJoin(users, eq(users.id, courses.teacherId))
+    .where(where)
+    .limit(1);
   return rows[0] ?? null;
 }
 
@@ -101,7 +106,11 @@ export async function rungsOf(db: Db, courseIds: string[]): Promise<(RungRow & {
 
 /** Grades of a course, including empty ones, in order. */
 export async function gradesOf(db: Db, courseId: string) {
-  return db.select({ id: grades.id, title: grades.title, position: grades.position }).from(grades).where(eq(grades.courseId, courseId)).orderBy(asc(grades.position));
+  return db
+    .select({ id: grades.id, title: grades.title, position: grades.position })
+    .from(grades)
+    .where(eq(grades.courseId, courseId))
+    .orderBy(asc(grades.position));
 }
 
 /** Courses (ids) whose ladders hold a tune, and the course a rung belongs to. */
@@ -116,14 +125,22 @@ export async function coursesWithTune(db: Db, tuneId: string): Promise<string[]>
 
 export async function courseOfRung(db: Db, rungId: string): Promise<string | null> {
   if (!isUuid(rungId)) return null;
-  const rows = await db.select({ id: grades.courseId }).from(rungs).innerJoin(grades, eq(grades.id, rungs.gradeId)).where(eq(rungs.id, rungId)).limit(1);
+  const rows = await db
+    .select({ id: grades.courseId })
+    .from(rungs)
+    .innerJoin(grades, eq(grades.id, rungs.gradeId))
+    .where(eq(rungs.id, rungId))
+    .limit(1);
   return rows[0]?.id ?? null;
 }
 
 export type EnrolmentStatus = "active" | "paused" | "ended";
 
 export async function enrolmentsOf(db: Db, userId: string): Promise<{ courseId: string; status: EnrolmentStatus }[]> {
-  return db.select({ courseId: enrolments.courseId, status: enrolments.status }).from(enrolments).where(eq(enrolments.userId, userId));
+  return db
+    .select({ courseId: enrolments.courseId, status: enrolments.status })
+    .from(enrolments)
+    .where(eq(enrolments.userId, userId));
 }
 
 export async function enrolmentIn(db: Db, userId: string, courseId: string): Promise<EnrolmentStatus | null> {
@@ -148,7 +165,15 @@ export async function progressOf(db: Db, userId: string, tuneIds: string[]): Pro
 export async function findTune(db: Db, tuneId: string) {
   if (!isUuid(tuneId)) return null;
   const rows = await db
-    .select({ id: tunes.id, teacherId: tunes.teacherId, title: tunes.title, tuneType: sql<string>`${tunes.tuneType}::text`, key: tunes.key, meter: tunes.meter, abc: tunes.abc })
+    .select({
+      id: tunes.id,
+      teacherId: tunes.teacherId,
+      title: tunes.title,
+      tuneType: sql<string>`${tunes.tuneType}::text`,
+      key: tunes.key,
+      meter: tunes.meter,
+      abc: tunes.abc,
+    })
     .from(tunes)
     .where(eq(tunes.id, tuneId))
     .limit(1);

@@ -34,12 +34,28 @@ export async function slugTaken(db: Db, slug: string): Promise<boolean> {
   return (await db.select({ id: courses.id }).from(courses).where(eq(courses.slug, slug)).limit(1)).length > 0;
 }
 
-export async function insertCourse(db: Db, teacherId: string, v: { title: string; summary: string; slug: string }): Promise<string> {
-  return (await db.insert(courses).values({ teacherId, ...v }).returning({ id: courses.id }))[0].id;
+export async function insertCourse(
+  db: Db,
+  teacherId: string,
+  v: { title: string; summary: string; slug: string },
+): Promise<string> {
+  return (
+    await db
+      .insert(courses)
+      .values({ teacherId, ...v })
+      .returning({ id: courses.id })
+  )[0].id;
 }
 
-export async function updateCourse(db: Db, id: string, set: Partial<Pick<CourseRow, "title" | "summary" | "publishedAt">>): Promise<void> {
-  await db.update(courses).set({ ...set, updatedAt: new Date() }).where(eq(courses.id, id));
+export async function updateCourse(
+  db: Db,
+  id: string,
+  set: Partial<Pick<CourseRow, "title" | "summary" | "publishedAt">>,
+): Promise<void> {
+  await db
+    .update(courses)
+    .set({ ...set, updatedAt: new Date() })
+    .where(eq(courses.id, id));
 }
 
 export async function deleteCourse(db: Db, id: string): Promise<void> {
@@ -47,7 +63,10 @@ export async function deleteCourse(db: Db, id: string): Promise<void> {
 }
 
 export async function enrolmentCount(db: Db, courseId: string): Promise<number> {
-  const [row] = await db.select({ n: sql<number>`count(*)::int` }).from(enrolments).where(eq(enrolments.courseId, courseId));
+  const [row] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(enrolments)
+    .where(eq(enrolments.courseId, courseId));
   return row?.n ?? 0;
 }
 
@@ -64,17 +83,32 @@ async function stageNames(db: Db, tuneIds: string[]): Promise<Map<string, string
   return out;
 }
 
-export type LadderGrade = GradeFacts & { position: number; rungs: (GradeFacts["rungs"][number] & { tuneId: string; stageNames: string[] })[] };
+export type LadderGrade = GradeFacts & {
+  position: number;
+  rungs: (GradeFacts["rungs"][number] & { tuneId: string; stageNames: string[] })[];
+};
 
 /** The course's grades in order, each with its rungs in order, tune titles and stage names. */
 export async function courseLadder(db: Db, courseId: string): Promise<LadderGrade[]> {
   const gs = await db.select().from(grades).where(eq(grades.courseId, courseId)).orderBy(asc(grades.position));
   const rs = gs.length
     ? await db
-        .select({ id: rungs.id, gradeId: rungs.gradeId, tuneId: rungs.tuneId, tuneTitle: tunes.title, requiredStage: rungs.requiredStage, isTaster: rungs.isTaster })
+        .select({
+          id: rungs.id,
+          gradeId: rungs.gradeId,
+          tuneId: rungs.tuneId,
+          tuneTitle: tunes.title,
+          requiredStage: rungs.requiredStage,
+          isTaster: rungs.isTaster,
+        })
         .from(rungs)
         .innerJoin(tunes, eq(tunes.id, rungs.tuneId))
-        .where(inArray(rungs.gradeId, gs.map((g) => g.id)))
+        .where(
+          inArray(
+            rungs.gradeId,
+            gs.map((g) => g.id),
+          ),
+        )
         .orderBy(asc(rungs.position))
     : [];
   const names = await stageNames(db, [...new Set(rs.map((r) => r.tuneId))]);
@@ -84,12 +118,24 @@ export async function courseLadder(db: Db, courseId: string): Promise<LadderGrad
     position: g.position,
     rungs: rs
       .filter((r) => r.gradeId === g.id)
-      .map(({ gradeId: _g, ...r }) => ({ ...r, stageNames: names.get(r.tuneId) ?? [], stageCount: names.get(r.tuneId)?.length ?? 0 })),
+      .map(({ gradeId: _g, ...r }) => ({
+        ...r,
+        stageNames: names.get(r.tuneId) ?? [],
+        stageCount: names.get(r.tuneId)?.length ?? 0,
+      })),
   }));
 }
 
 export async function gradeOf(db: Db, courseId: string, gradeId: string) {
-  return (await db.select().from(grades).where(and(eq(grades.id, gradeId), eq(grades.courseId, courseId))).limit(1))[0] ?? null;
+  return (
+    (
+      await db
+        .select()
+        .from(grades)
+        .where(and(eq(grades.id, gradeId), eq(grades.courseId, courseId)))
+        .limit(1)
+    )[0] ?? null
+  );
 }
 
 export async function rungOf(db: Db, courseId: string, rungId: string) {
@@ -103,7 +149,10 @@ export async function rungOf(db: Db, courseId: string, rungId: string) {
 }
 
 export async function insertGrade(db: Db, courseId: string, title: string): Promise<string> {
-  const [{ next }] = await db.select({ next: sql<number>`coalesce(max(${grades.position}), 0)::int + 1` }).from(grades).where(eq(grades.courseId, courseId));
+  const [{ next }] = await db
+    .select({ next: sql<number>`coalesce(max(${grades.position}), 0)::int + 1` })
+    .from(grades)
+    .where(eq(grades.courseId, courseId));
   return (await db.insert(grades).values({ courseId, title, position: next }).returning({ id: grades.id }))[0].id;
 }
 
@@ -115,12 +164,28 @@ export async function deleteGrade(db: Db, gradeId: string): Promise<void> {
   await db.delete(grades).where(eq(grades.id, gradeId));
 }
 
-export async function insertRung(db: Db, gradeId: string, v: { tuneId: string; requiredStage: number; isTaster: boolean }): Promise<string> {
-  const [{ next }] = await db.select({ next: sql<number>`coalesce(max(${rungs.position}), 0)::int + 1` }).from(rungs).where(eq(rungs.gradeId, gradeId));
-  return (await db.insert(rungs).values({ gradeId, position: next, ...v }).returning({ id: rungs.id }))[0].id;
+export async function insertRung(
+  db: Db,
+  gradeId: string,
+  v: { tuneId: string; requiredStage: number; isTaster: boolean },
+): Promise<string> {
+  const [{ next }] = await db
+    .select({ next: sql<number>`coalesce(max(${rungs.position}), 0)::int + 1` })
+    .from(rungs)
+    .where(eq(rungs.gradeId, gradeId));
+  return (
+    await db
+      .insert(rungs)
+      .values({ gradeId, position: next, ...v })
+      .returning({ id: rungs.id })
+  )[0].id;
 }
 
-export async function updateRung(db: Db, rungId: string, set: { requiredStage?: number; isTaster?: boolean }): Promise<void> {
+export async function updateRung(
+  db: Db,
+  rungId: string,
+  set: { requiredStage?: number; isTaster?: boolean },
+): Promise<void> {
   await db.update(rungs).set(set).where(eq(rungs.id, rungId));
 }
 
@@ -133,14 +198,31 @@ export async function deleteRung(db: Db, rungId: string): Promise<void> {
  * everything first moves to negative positions, then to its place: no two rows ever collide.
  * Run inside a transaction.
  */
-export async function applyLadderOrder(db: Db, courseId: string, order: { grades: { id: string; rungs: string[] }[] }): Promise<void> {
+export async function applyLadderOrder(
+  db: Db,
+  courseId: string,
+  order: { grades: { id: string; rungs: string[] }[] },
+): Promise<void> {
   const gradeIds = order.grades.map((g) => g.id);
   if (gradeIds.length === 0) return;
-  await db.update(grades).set({ position: sql`-${grades.position}` }).where(eq(grades.courseId, courseId));
-  await db.update(rungs).set({ position: sql`-${rungs.position}` }).where(inArray(rungs.gradeId, gradeIds));
+  await db
+    .update(grades)
+    .set({ position: sql`-${grades.position}` })
+    .where(eq(grades.courseId, courseId));
+  await db
+    .update(rungs)
+    .set({ position: sql`-${rungs.position}` })
+    .where(inArray(rungs.gradeId, gradeIds));
   for (const [g, grade] of order.grades.entries()) {
-    await db.update(grades).set({ position: g + 1 }).where(eq(grades.id, grade.id));
+    await db
+      .update(grades)
+      .set({ position: g + 1 })
+      .where(eq(grades.id, grade.id));
     // Every rung not yet placed sits below zero, so position r + 1 in any grade is free.
-    for (const [r, rungId] of grade.rungs.entries()) await db.update(rungs).set({ gradeId: grade.id, position: r + 1 }).where(eq(rungs.id, rungId));
+    for (const [r, rungId] of grade.rungs.entries())
+      await db
+        .update(rungs)
+        .set({ gradeId: grade.id, position: r + 1 })
+        .where(eq(rungs.id, rungId));
   }
 }

@@ -4,7 +4,19 @@ import { and, asc, desc, eq, gte, inArray, isNotNull, lte, sql } from "drizzle-o
 import type { Tx as Db } from "./auth";
 import { isUuid } from "./catalogue";
 import { toAssignment } from "./check-in-place";
-import { assignments, assignmentStudents, checkIns, courses, grades, practiceLogs, rungs, stageStates, tunes, uploads, users } from "../schema";
+import {
+  assignments,
+  assignmentStudents,
+  checkIns,
+  courses,
+  grades,
+  practiceLogs,
+  rungs,
+  stageStates,
+  tunes,
+  uploads,
+  users,
+} from "../schema";
 
 export async function userZone(db: Db, userId: string): Promise<string> {
   const rows = await db.select({ zone: users.timeZone }).from(users).where(eq(users.id, userId)).limit(1);
@@ -95,7 +107,14 @@ export async function checkInsOfStages(db: Db, stageStateIds: string[]) {
 export async function checkInOwner(db: Db, checkInId: string) {
   if (!isUuid(checkInId)) return null;
   const rows = await db
-    .select({ id: checkIns.id, stageStateId: checkIns.stageStateId, studentId: checkIns.studentId, status: checkIns.status, stageIndex: stageStates.stageIndex, assignmentStudentId: stageStates.assignmentStudentId })
+    .select({
+      id: checkIns.id,
+      stageStateId: checkIns.stageStateId,
+      studentId: checkIns.studentId,
+      status: checkIns.status,
+      stageIndex: stageStates.stageIndex,
+      assignmentStudentId: stageStates.assignmentStudentId,
+    })
     .from(checkIns)
     .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
     .where(eq(checkIns.id, checkInId))
@@ -136,7 +155,13 @@ export async function recentFeedback(db: Db, studentId: string, limit: number) {
   return toAssignment(db.select(fields).from(checkIns).$dynamic())
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
     .innerJoin(users, eq(users.id, checkIns.reviewedBy))
-    .where(and(eq(checkIns.studentId, studentId), isNotNull(checkIns.reviewedAt), sql`coalesce(${checkIns.feedback}, '') <> ''`))
+    .where(
+      and(
+        eq(checkIns.studentId, studentId),
+        isNotNull(checkIns.reviewedAt),
+        sql`coalesce(${checkIns.feedback}, '') <> ''`,
+      ),
+    )
     .orderBy(desc(checkIns.reviewedAt))
     .limit(limit);
 }
@@ -147,7 +172,14 @@ export type PracticeValues = { tuneId: string | null; practisedOn: string; minut
 
 export async function practiceList(db: Db, userId: string, limit = 200) {
   return db
-    .select({ id: practiceLogs.id, tuneId: practiceLogs.tuneId, tuneTitle: tunes.title, practisedOn: practiceLogs.practisedOn, minutes: practiceLogs.minutes, note: practiceLogs.note })
+    .select({
+      id: practiceLogs.id,
+      tuneId: practiceLogs.tuneId,
+      tuneTitle: tunes.title,
+      practisedOn: practiceLogs.practisedOn,
+      minutes: practiceLogs.minutes,
+      note: practiceLogs.note,
+    })
     .from(practiceLogs)
     .leftJoin(tunes, eq(tunes.id, practiceLogs.tuneId))
     .where(eq(practiceLogs.userId, userId))
@@ -162,19 +194,29 @@ export async function practiceEntry(db: Db, id: string) {
 }
 
 export async function insertPractice(db: Db, userId: string, v: PracticeValues): Promise<string> {
-  const [row] = await db.insert(practiceLogs).values({ userId, ...v }).returning({ id: practiceLogs.id });
+  const [row] = await db
+    .insert(practiceLogs)
+    .values({ userId, ...v })
+    .returning({ id: practiceLogs.id });
   return row.id;
 }
 
 export async function updatePractice(db: Db, id: string, userId: string, v: Partial<PracticeValues>): Promise<boolean> {
   if (!isUuid(id)) return false;
-  const rows = await db.update(practiceLogs).set(v).where(and(eq(practiceLogs.id, id), eq(practiceLogs.userId, userId))).returning({ id: practiceLogs.id });
+  const rows = await db
+    .update(practiceLogs)
+    .set(v)
+    .where(and(eq(practiceLogs.id, id), eq(practiceLogs.userId, userId)))
+    .returning({ id: practiceLogs.id });
   return rows.length > 0;
 }
 
 export async function deletePractice(db: Db, id: string, userId: string): Promise<boolean> {
   if (!isUuid(id)) return false; // a malformed id names nothing (PostgreSQL would reject it)
-  const rows = await db.delete(practiceLogs).where(and(eq(practiceLogs.id, id), eq(practiceLogs.userId, userId))).returning({ id: practiceLogs.id });
+  const rows = await db
+    .delete(practiceLogs)
+    .where(and(eq(practiceLogs.id, id), eq(practiceLogs.userId, userId)))
+    .returning({ id: practiceLogs.id });
   return rows.length > 0;
 }
 

@@ -24,7 +24,12 @@ export async function listNotes(db: Db, userId: string, tuneId: string): Promise
     .orderBy(asc(marginNotes.bar), asc(marginNotes.createdAt));
 }
 
-export async function createNote(db: Db, userId: string, tuneId: string, v: { bar: number; body: string }): Promise<NoteRow> {
+export async function createNote(
+  db: Db,
+  userId: string,
+  tuneId: string,
+  v: { bar: number; body: string },
+): Promise<NoteRow> {
   const rows = await db.insert(marginNotes).values({ userId, tuneId, bar: v.bar, body: v.body }).returning(columns);
   return rows[0];
 }
@@ -33,7 +38,13 @@ const mine = (userId: string, tuneId: string, noteId: string) =>
   and(eq(marginNotes.id, noteId), eq(marginNotes.userId, userId), eq(marginNotes.tuneId, tuneId));
 
 /** Null when the note is not this writer's (or not on this tune). */
-export async function updateNote(db: Db, userId: string, tuneId: string, noteId: string, v: { bar?: number; body?: string }): Promise<NoteRow | null> {
+export async function updateNote(
+  db: Db,
+  userId: string,
+  tuneId: string,
+  noteId: string,
+  v: { bar?: number; body?: string },
+): Promise<NoteRow | null> {
   if (!isUuid(noteId)) return null;
   const rows = await db
     .update(marginNotes)
@@ -45,6 +56,9 @@ export async function updateNote(db: Db, userId: string, tuneId: string, noteId:
 
 export async function deleteNote(db: Db, userId: string, tuneId: string, noteId: string): Promise<boolean> {
   if (!isUuid(noteId)) return false;
-  const rows = await db.delete(marginNotes).where(mine(userId, tuneId, noteId)).returning({ id: marginNotes.id });
+  const rows = await db
+    .delete(marginNotes)
+    .where(mine(userId, tuneId, noteId))
+    .returning({ id: marginNotes.id });
   return rows.length > 0;
 }

@@ -43,7 +43,13 @@ type Kept = { kind: "walk" } | { kind: "people"; ids?: string[] };
 type Store = { cache: LRUCache<string, Kept>; generation: number };
 const STORE = Symbol.for("rosinwood.payer-search"); // one per process, as db/notices.ts explains
 const shared = globalThis as typeof globalThis & { [STORE]?: Store };
-const makeCache = () => new LRUCache<string, Kept>({ max: 1000, maxSize: 200_000, sizeCalculation: (k) => 1 + (k.kind === "people" ? (k.ids?.length ?? 0) : 0), ttl: 60_000 });
+const makeCache = () =>
+  new LRUCache<string, Kept>({
+    max: 1000,
+    maxSize: 200_000,
+    sizeCalculation: (k) => 1 + (k.kind === "people" ? (k.ids?.length ?? 0) : 0),
+    ttl: 60_000,
+  });
 const store = () => (shared[STORE] ??= { cache: makeCache(), generation: 0 });
 
 /** Forget every kept search (a person was added, removed or renamed somewhere). */
@@ -79,7 +85,9 @@ let everyone = { n: 0, at: -Infinity };
 /** PostgreSQL's estimate of how many people there are (pg_class.reltuples, kept by autovacuum; −1 before the first ANALYZE), read at most every five minutes: it only steers the choice. */
 async function peopleEstimate(db: Db): Promise<number> {
   if (performance.now() - everyone.at > 300_000) {
-    const [row] = await db.execute<{ n: number }>(sql`select greatest(reltuples, 0)::int as n from pg_class where oid = 'users'::regclass`);
+    const [row] = await db.execute<{ n: number }>(
+      sql`select greatest(reltuples, 0)::int as n from pg_class where oid = 'users'::regclass`,
+    );
     everyone = { n: Number(row?.n ?? 0), at: performance.now() };
   }
   return everyone.n;
@@ -99,19 +107,27 @@ export async function payerFilter(db: Db, q: string | undefined, walkFrom?: numb
   // change the read did not see).
   const before = heard ? store().generation : undefined;
   const enough = walkFrom ?? Math.max(WALK_MIN, Math.ceil(WALK_SHARE * (await peopleEstimate(db))));
-  const found = enough > 0 ? await db.select({ id: users.id }).from(users).where(search).limit(enough).prepare("payer_people").execute() : [];
+  const found =
+    enough > 0
+      ? await db.select({ id: users.id }).from(users).where(search).limit(enough).prepare("payer_people").execute()
+      : [];
   if (found.length >= enough) {
     if (walkFrom === undefined) store().cache.set(key, { kind: "walk" });
     return { kind: "walk", pattern: contains(q) };
   }
   const ids = found.map((r) => r.id);
-  if (walkFrom === undefined) store().cache.set(key, before !== undefined && before === store().generation ? { kind: "people", ids } : { kind: "people" });
+  if (walkFrom === undefined)
+    store().cache.set(
+      key,
+      before !== undefined && before === store().generation ? { kind: "people", ids } : { kind: "people" },
+    );
   return { kind: "people", ids };
 }
 
 /** The form the page's statement takes for a filter: part of its shape, the values apart. */
 export type PayerShape = "everyone" | "ids" | "inside" | "walk";
-export const payerShape = (f: PayerFilter): PayerShape => (f.kind === "people" ? ("ids" in f ? "ids" : "inside") : f.kind);
+export const payerShape = (f: PayerFilter): PayerShape =>
+  f.kind === "people" ? ("ids" in f ? "ids" : "inside") : f.kind;
 
 /** The payer condition of a shape, with placeholders (drizzle's sql.placeholder) that payerValues fills. */
 export function payerPlaceholder(shape: PayerShape): SQL | undefined {
@@ -122,7 +138,8 @@ export function payerPlaceholder(shape: PayerShape): SQL | undefined {
   // column's statistics, and planning the 200-person page took 0.70–0.76 ms instead of 0.53–0.58 ms,
   // with the same plan (EXPLAIN SUMMARY of the prepared statement, bench-payments' database).
   if (shape === "ids") return sql`${payments.userId} = any(array(select unnest(${p("ids")}::uuid[])))`;
-  if (shape === "inside") return sql`${payments.userId} = any(array(select ${users.id} from ${users} where ${nameOrEmailLike(p("pattern"))}))`;
+  if (shape === "inside")
+    return sql`${payments.userId} = any(array(select ${users.id} from ${users} where ${nameOrEmailLike(p("pattern"))}))`;
   return undefined;
 }
 

@@ -5,11 +5,18 @@ import { rosterEntries, users } from "../schema";
 export type Role = "student" | "teacher" | "admin";
 
 export async function findUserByEmail(db: Db, email: string) {
-  const rows = await db.select().from(users).where(sql`lower(${users.email}) = lower(${email})`).limit(1);
+  const rows = await db
+    .select()
+    .from(users)
+    .where(sql`lower(${users.email}) = lower(${email})`)
+    .limit(1);
   return rows[0] ?? null;
 }
 
-export async function createUser(db: Db, input: { email: string; name: string; role: Role; passwordHash?: string | null }) {
+export async function createUser(
+  db: Db,
+  input: { email: string; name: string; role: Role; passwordHash?: string | null },
+) {
   const rows = await db.insert(users).values(input).returning();
   return rows[0];
 }
@@ -49,7 +56,10 @@ export async function searchPeople(db: Db, opts: { query?: string; role?: Role; 
       .orderBy(asc(users.name), asc(users.id))
       .limit(opts.pageSize)
       .offset((opts.page - 1) * opts.pageSize),
-    db.select({ n: sql<number>`count(*)::int` }).from(users).where(where),
+    db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(users)
+      .where(where),
   ]);
   return { rows, total: total[0].n };
 }

@@ -43,7 +43,12 @@ export async function insertAssignmentStudents(db: Tx, assignmentId: string, stu
 }
 
 /** For each of the students' assignments, stage 1 open from now and the rest locked (shared design), in one statement. */
-export async function insertStageStates(db: Tx, assignmentStudentIds: string[], count: number, now: Date): Promise<void> {
+export async function insertStageStates(
+  db: Tx,
+  assignmentStudentIds: string[],
+  count: number,
+  now: Date,
+): Promise<void> {
   const rows = assignmentStudentIds.flatMap((assignmentStudentId) =>
     Array.from({ length: count }, (_, i) => ({
       assignmentStudentId,
@@ -64,7 +69,11 @@ export async function lockAssignment(db: Tx, id: string): Promise<AssignmentRow 
   return (await db.select().from(assignments).where(eq(assignments.id, id)).for("update"))[0] ?? null;
 }
 
-export async function updateAssignment(db: Tx, id: string, set: Partial<typeof assignments.$inferInsert>): Promise<void> {
+export async function updateAssignment(
+  db: Tx,
+  id: string,
+  set: Partial<typeof assignments.$inferInsert>,
+): Promise<void> {
   await db.update(assignments).set(set).where(eq(assignments.id, id));
 }
 
@@ -110,17 +119,26 @@ export async function withdrawWaitingCheckIns(db: Tx, assignmentId: string): Pro
 
 /** Drops the stage rows of every student of the assignment (only before anyone checked in). */
 export async function deleteStageStates(db: Tx, assignmentId: string): Promise<void> {
-  const ids = db.select({ id: assignmentStudents.id }).from(assignmentStudents).where(eq(assignmentStudents.assignmentId, assignmentId));
+  const ids = db
+    .select({ id: assignmentStudents.id })
+    .from(assignmentStudents)
+    .where(eq(assignmentStudents.assignmentId, assignmentId));
   await db.delete(stageStates).where(inArray(stageStates.assignmentStudentId, ids));
 }
 
 function assignmentsOf(teacherId: string | null, onlyId?: string) {
-  return and(teacherId === null ? undefined : eq(assignments.teacherId, teacherId), onlyId ? eq(assignments.id, onlyId) : undefined);
+  return and(
+    teacherId === null ? undefined : eq(assignments.teacherId, teacherId),
+    onlyId ? eq(assignments.id, onlyId) : undefined,
+  );
 }
 
 /** How many assignments a teacher has (every teacher's for an admin: teacherId null). */
 export async function countAssignments(db: Tx, teacherId: string | null): Promise<number> {
-  const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(assignments).where(assignmentsOf(teacherId));
+  const [{ n }] = await db
+    .select({ n: sql<number>`count(*)::int` })
+    .from(assignments)
+    .where(assignmentsOf(teacherId));
   return n;
 }
 
@@ -128,7 +146,11 @@ export async function countAssignments(db: Tx, teacherId: string | null): Promis
  * A teacher's assignments (every one for an admin: teacherId null), open ones first, newest due
  * first, with each student's progress: one page of them (`page` from 1), or the one `onlyId`.
  */
-export async function listAssignments(db: Tx, teacherId: string | null, which: { onlyId: string } | { page: number; pageSize: number }) {
+export async function listAssignments(
+  db: Tx,
+  teacherId: string | null,
+  which: { onlyId: string } | { page: number; pageSize: number },
+) {
   const onlyId = "onlyId" in which ? which.onlyId : undefined;
   const [limit, offset] = "onlyId" in which ? [1, 0] : [which.pageSize, (which.page - 1) * which.pageSize];
   const heads = await db

@@ -7,7 +7,11 @@ import { toAssignment } from "./check-in-place";
 
 /** Check-ins waiting for review on active assignments, oldest first. */
 const waitingOn = (teacherId: string | null) =>
-  and(eq(checkIns.status, "waiting"), eq(assignments.status, "active"), teacherId === null ? undefined : eq(assignments.teacherId, teacherId));
+  and(
+    eq(checkIns.status, "waiting"),
+    eq(assignments.status, "active"),
+    teacherId === null ? undefined : eq(assignments.teacherId, teacherId),
+  );
 
 /** The `limit` oldest check-ins waiting on a teacher's assignments (every teacher's: null). */
 export async function waitingForReview(db: Tx, teacherId: string | null, limit: number) {
@@ -35,12 +39,20 @@ export async function waitingForReview(db: Tx, teacherId: string | null, limit: 
 
 /** How many check-ins wait on a teacher's assignments (every teacher's: null). */
 export async function countWaiting(db: Tx, teacherId: string | null): Promise<number> {
-  const [row] = await toAssignment(db.select({ n: sql<number>`count(*)::int` }).from(checkIns).$dynamic()).where(waitingOn(teacherId));
+  const [row] = await toAssignment(
+    db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(checkIns)
+      .$dynamic(),
+  ).where(waitingOn(teacherId));
   return row?.n ?? 0;
 }
 
 export async function findCheckIn(db: Tx, id: string) {
-  const [row] = await db.select({ id: checkIns.id, stageStateId: checkIns.stageStateId }).from(checkIns).where(eq(checkIns.id, id));
+  const [row] = await db
+    .select({ id: checkIns.id, stageStateId: checkIns.stageStateId })
+    .from(checkIns)
+    .where(eq(checkIns.id, id));
   return row ?? null;
 }
 
@@ -59,7 +71,9 @@ export async function rosterFigures(db: Tx, teacherId: string | null, now: Date)
     studentId: users.id,
     name: users.name,
     email: users.email,
-    lastPractice: sql<string | null>`(select max(p.practised_on)::text from practice_logs p where p.user_id = "users"."id")`,
+    lastPractice: sql<
+      string | null
+    >`(select max(p.practised_on)::text from practice_logs p where p.user_id = "users"."id")`,
     openAssignments: sql<number>`(select count(*)::int ${open})`,
     overdueAssignments: sql<number>`(select count(*)::int ${open} and a.due_at < ${now.toISOString()}::timestamptz)`,
   };

@@ -2,7 +2,17 @@
 // lib/teaching/*; these only read and write rows.
 import { and, eq, gte, max, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import { assignments, assignmentStudents, checkIns, practiceLogs, stageStates, tuneProgress, tunes, uploads, users } from "../schema";
+import {
+  assignments,
+  assignmentStudents,
+  checkIns,
+  practiceLogs,
+  stageStates,
+  tuneProgress,
+  tunes,
+  uploads,
+  users,
+} from "../schema";
 
 /**
  * The stage's assignment row held FOR SHARE before the stage row is locked: an edit that rebuilds
@@ -55,13 +65,20 @@ export async function lastStageIndex(tx: Tx, assignmentStudentId: string): Promi
 }
 
 /** Minutes the student logged on this tune on or after `sinceDay` (YYYY-MM-DD in the student's zone). */
-export async function practiceMinutesSince(tx: Tx, studentId: string, tuneId: string, sinceDay: string): Promise<number> {
+export async function practiceMinutesSince(
+  tx: Tx,
+  studentId: string,
+  tuneId: string,
+  sinceDay: string,
+): Promise<number> {
   const [row] = await tx
     .select({
       total: sql<number>`coalesce(sum(${practiceLogs.minutes}), 0)::int`,
     })
     .from(practiceLogs)
-    .where(and(eq(practiceLogs.userId, studentId), eq(practiceLogs.tuneId, tuneId), gte(practiceLogs.practisedOn, sinceDay)));
+    .where(
+      and(eq(practiceLogs.userId, studentId), eq(practiceLogs.tuneId, tuneId), gte(practiceLogs.practisedOn, sinceDay)),
+    );
   return row?.total ?? 0;
 }
 
@@ -78,7 +95,12 @@ export async function waitingCheckIn(tx: Tx, stageStateId: string) {
   return row ?? null;
 }
 
-export async function setStageState(tx: Tx, id: string, state: "open" | "checked_in" | "signed_off", now: Date): Promise<void> {
+export async function setStageState(
+  tx: Tx,
+  id: string,
+  state: "open" | "checked_in" | "signed_off",
+  now: Date,
+): Promise<void> {
   await tx
     .update(stageStates)
     .set({ state, ...(state === "signed_off" ? { signedOffAt: now } : {}) })
@@ -90,12 +112,24 @@ export async function openStage(tx: Tx, assignmentStudentId: string, index: numb
   const rows = await tx
     .update(stageStates)
     .set({ state: "open", openedAt: now })
-    .where(and(eq(stageStates.assignmentStudentId, assignmentStudentId), eq(stageStates.stageIndex, index), eq(stageStates.state, "locked")))
+    .where(
+      and(
+        eq(stageStates.assignmentStudentId, assignmentStudentId),
+        eq(stageStates.stageIndex, index),
+        eq(stageStates.state, "locked"),
+      ),
+    )
     .returning({ id: stageStates.id });
   return rows.length > 0;
 }
 
-export async function raiseTuneProgress(tx: Tx, userId: string, tuneId: string, stage: number, now: Date): Promise<void> {
+export async function raiseTuneProgress(
+  tx: Tx,
+  userId: string,
+  tuneId: string,
+  stage: number,
+  now: Date,
+): Promise<void> {
   await tx
     .insert(tuneProgress)
     .values({ userId, tuneId, reachedStage: stage, updatedAt: now })
@@ -110,7 +144,10 @@ export async function raiseTuneProgress(tx: Tx, userId: string, tuneId: string, 
 
 /** Names and addresses for the feedback e-mail. */
 export async function mailPeople(tx: Tx, studentId: string, teacherId: string, tuneId: string) {
-  const [student] = await tx.select({ name: users.name, email: users.email, timeZone: users.timeZone }).from(users).where(eq(users.id, studentId));
+  const [student] = await tx
+    .select({ name: users.name, email: users.email, timeZone: users.timeZone })
+    .from(users)
+    .where(eq(users.id, studentId));
   const [teacher] = await tx.select({ name: users.name }).from(users).where(eq(users.id, teacherId));
   const [tune] = await tx.select({ title: tunes.title }).from(tunes).where(eq(tunes.id, tuneId));
   return {

@@ -45,7 +45,11 @@ export async function findTune(db: Db, id: string): Promise<TuneRow | null> {
 
 /** For the import: the same text already stored for this teacher (a file imported twice). */
 export async function findTuneByAbc(db: Db, teacherId: string, abc: string): Promise<{ id: string } | null> {
-  const rows = await db.select({ id: tunes.id }).from(tunes).where(and(eq(tunes.teacherId, teacherId), eq(tunes.abc, abc))).limit(1);
+  const rows = await db
+    .select({ id: tunes.id })
+    .from(tunes)
+    .where(and(eq(tunes.teacherId, teacherId), eq(tunes.abc, abc)))
+    .limit(1);
   return rows[0] ?? null;
 }
 
@@ -54,23 +58,43 @@ export async function stagesOf(db: Db, tuneId: string): Promise<StageRow[]> {
 }
 
 export async function insertTune(db: Db, teacherId: string, f: TuneFields): Promise<string> {
-  return (await db.insert(tunes).values({ teacherId, ...f }).returning({ id: tunes.id }))[0].id;
+  return (
+    await db
+      .insert(tunes)
+      .values({ teacherId, ...f })
+      .returning({ id: tunes.id })
+  )[0].id;
 }
 
 export async function updateTune(db: Db, id: string, f: TuneFields): Promise<void> {
-  await db.update(tunes).set({ ...f, updatedAt: new Date() }).where(eq(tunes.id, id));
+  await db
+    .update(tunes)
+    .set({ ...f, updatedAt: new Date() })
+    .where(eq(tunes.id, id));
 }
 
 /** An engine-made stage, written over whatever was there (hand edits are the caller's business). */
 export async function putStage(db: Db, tuneId: string, s: Stage): Promise<void> {
-  const values = { name: s.name, kinds: s.kinds, abc: s.abc, handEdited: false, sourceChanged: false, updatedAt: new Date() };
+  const values = {
+    name: s.name,
+    kinds: s.kinds,
+    abc: s.abc,
+    handEdited: false,
+    sourceChanged: false,
+    updatedAt: new Date(),
+  };
   await db
     .insert(tuneStages)
     .values({ tuneId, index: s.index, ...values })
     .onConflictDoUpdate({ target: [tuneStages.tuneId, tuneStages.index], set: values });
 }
 
-export async function updateStage(db: Db, tuneId: string, index: number, set: Partial<Omit<StageRow, "id" | "tuneId" | "index">>): Promise<void> {
+export async function updateStage(
+  db: Db,
+  tuneId: string,
+  index: number,
+  set: Partial<Omit<StageRow, "id" | "tuneId" | "index">>,
+): Promise<void> {
   await db
     .update(tuneStages)
     .set({ ...set, updatedAt: new Date() })

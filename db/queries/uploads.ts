@@ -15,6 +15,9 @@ export async function abandonedUploads(db: Db, before: Date, limit: number) {
 
 /** Drops one upload row if it is still pending (a completion in between keeps it). */
 export async function dropPendingUpload(db: Db, id: string): Promise<boolean> {
-  const gone = await db.delete(uploads).where(and(eq(uploads.id, id), eq(uploads.status, "pending"))).returning({ id: uploads.id });
+  const gone = await db
+    .delete(uploads)
+    .where(and(eq(uploads.id, id), eq(uploads.status, "pending")))
+    .returning({ id: uploads.id });
   return gone.length > 0;
 }

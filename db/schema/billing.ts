@@ -1,5 +1,17 @@
 import { sql } from "drizzle-orm";
-import { boolean, check, char, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import {
+  boolean,
+  check,
+  char,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  uuid,
+} from "drizzle-orm/pg-core";
 import { users } from "./people";
 
 export const planIntervalEnum = pgEnum("plan_interval", ["month", "year"]);

@@ -1,4 +1,17 @@
-import { boolean, check, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import {
+  boolean,
+  check,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  unique,
+  uuid,
+} from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
 import { users } from "./people";
 import { TUNE_TYPES } from "../../lib/tunes/header";
@@ -77,7 +90,10 @@ export const tuneStages = pgTable(
     sourceChanged: boolean("source_changed").notNull().default(false),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [unique("tune_stages_tune_index_uq").on(t.tuneId, t.index), check("tune_stages_index_pos", sql`${t.index} >= 1`)],
+  (t) => [
+    unique("tune_stages_tune_index_uq").on(t.tuneId, t.index),
+    check("tune_stages_index_pos", sql`${t.index} >= 1`),
+  ],
 );
 
 export const rungs = pgTable(
@@ -137,7 +153,10 @@ export const marginNotes = pgTable(
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [index("margin_notes_user_tune_idx").on(t.userId, t.tuneId), check("margin_notes_bar_nonneg", sql`${t.bar} >= 0`)],
+  (t) => [
+    index("margin_notes_user_tune_idx").on(t.userId, t.tuneId),
+    check("margin_notes_bar_nonneg", sql`${t.bar} >= 0`),
+  ],
 );
 
 /**
@@ -157,5 +176,8 @@ export const tuneProgress = pgTable(
     startedAt: timestamp("started_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [primaryKey({ columns: [t.userId, t.tuneId] }), check("tune_progress_stage_nonneg", sql`${t.reachedStage} >= 0`)],
+  (t) => [
+    primaryKey({ columns: [t.userId, t.tuneId] }),
+    check("tune_progress_stage_nonneg", sql`${t.reachedStage} >= 0`),
+  ],
 );

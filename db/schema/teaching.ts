@@ -1,4 +1,18 @@
-import { boolean, check, date, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import {
+  boolean,
+  check,
+  date,
+  index,
+  integer,
+  jsonb,
+  pgEnum,
+  pgTable,
+  text,
+  timestamp,
+  unique,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
 import { users } from "./people";
 import { tunes, type StagePlanJson } from "./catalogue";
@@ -42,7 +56,10 @@ export const assignmentStudents = pgTable(
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
   },
-  (t) => [unique("assignment_students_uq").on(t.assignmentId, t.studentId), index("assignment_students_student_idx").on(t.studentId)],
+  (t) => [
+    unique("assignment_students_uq").on(t.assignmentId, t.studentId),
+    index("assignment_students_student_idx").on(t.studentId),
+  ],
 );
 
 export const stageStateEnum = pgEnum("stage_state", ["locked", "open", "checked_in", "signed_off"]);
@@ -85,7 +102,9 @@ export const checkIns = pgTable(
   },
   (t) => [
     // At most one check-in waiting for review per stage: a double check-in cannot create two.
-    uniqueIndex("check_ins_one_waiting_uq").on(t.stageStateId).where(sql`${t.status} = 'waiting'`),
+    uniqueIndex("check_ins_one_waiting_uq")
+      .on(t.stageStateId)
+      .where(sql`${t.status} = 'waiting'`),
     index("check_ins_status_created_idx").on(t.status, t.createdAt),
     check("check_ins_rating_range", sql`${t.selfRating} between 1 and 5`),
   ],

@@ -11,8 +11,24 @@ export const DECLINE = "Your card was declined."; // Stripe docs: testing, card_
 
 export type PlanKey = "monthly" | "yearly";
 export const DEMO_PLANS = {
-  monthly: { id: "5e1d0000-7a11-4c0e-8000-00000000a001", name: "Monthly membership", amount: 1800, currency: "GBP", interval: "month", productId: "prod_LarchmoorMonthly", priceId: "price_LarchmoorMonthly1800" },
-  yearly: { id: "5e1d0000-7a11-4c0e-8000-00000000a012", name: "Yearly membership", amount: 18000, currency: "GBP", interval: "year", productId: "prod_LarchmoorYearly", priceId: "price_LarchmoorYearly18000" },
+  monthly: {
+    id: "5e1d0000-7a11-4c0e-8000-00000000a001",
+    name: "Monthly membership",
+    amount: 1800,
+    currency: "GBP",
+    interval: "month",
+    productId: "prod_LarchmoorMonthly",
+    priceId: "price_LarchmoorMonthly1800",
+  },
+  yearly: {
+    id: "5e1d0000-7a11-4c0e-8000-00000000a012",
+    name: "Yearly membership",
+    amount: 18000,
+    currency: "GBP",
+    interval: "year",
+    productId: "prod_LarchmoorYearly",
+    priceId: "price_LarchmoorYearly18000",
+  },
 } as const;
 
 /** What happens to one student's membership (index into STUDENTS). */
@@ -37,27 +53,49 @@ export const STORIES: Record<number, Story> = {
   0: { plan: "monthly", monthsAgo: 11 },
   1: { plan: "monthly", monthsAgo: 10, recovered: [4] },
   2: { plan: "yearly", monthsAgo: 11 },
-  3: { plan: "monthly", monthsAgo: 9, refunds: [{ payment: 2, amount: 900, reason: "Half of March back: away on tour for two weeks" }] },
+  3: {
+    plan: "monthly",
+    monthsAgo: 9,
+    refunds: [{ payment: 2, amount: 900, reason: "Half of March back: away on tour for two weeks" }],
+  },
   4: { plan: "yearly", monthsAgo: 5 },
   5: { plan: "monthly", monthsAgo: 7, cancel: "end" },
   6: { plan: "monthly", monthsAgo: 11, recovered: [2, 7] },
   7: { plan: "monthly", monthsAgo: 6 },
   8: { plan: "yearly", monthsAgo: 2 },
   9: { plan: "monthly", monthsAgo: 8 },
-  10: { plan: "monthly", monthsAgo: 11, cancel: 6, refunds: [{ payment: -1, amount: null, reason: "Charged after asking to stop: refunded in full" }] },
+  10: {
+    plan: "monthly",
+    monthsAgo: 11,
+    cancel: 6,
+    refunds: [{ payment: -1, amount: null, reason: "Charged after asking to stop: refunded in full" }],
+  },
   11: { plan: "monthly", monthsAgo: 4 },
   12: { plan: "monthly", monthsAgo: 9, lapsedAt: 7 },
-  13: { plan: "monthly", monthsAgo: 3, refunds: [{ payment: 0, amount: null, reason: "Paid twice by mistake on sign-up" }] },
+  13: {
+    plan: "monthly",
+    monthsAgo: 3,
+    refunds: [{ payment: 0, amount: null, reason: "Paid twice by mistake on sign-up" }],
+  },
   14: { plan: "monthly", monthsAgo: 8, cancel: 5 },
   15: { plan: "monthly", monthsAgo: 1 },
   16: { plan: "monthly", monthsAgo: 6 },
   17: { plan: "monthly", monthsAgo: 5, inGrace: true },
   19: { plan: "monthly", monthsAgo: 10, lapsedAt: 6 },
-  20: { plan: "yearly", monthsAgo: 8, refunds: [{ payment: 0, amount: 6000, reason: "Goodwill: four months lost to a wrist injury" }] },
+  20: {
+    plan: "yearly",
+    monthsAgo: 8,
+    refunds: [{ payment: 0, amount: 6000, reason: "Goodwill: four months lost to a wrist injury" }],
+  },
   21: { plan: "monthly", monthsAgo: 5, cancel: 3 },
   23: { plan: "monthly", monthsAgo: 2 },
   24: { plan: "monthly", monthsAgo: 11, recovered: [5] },
-  26: { plan: "monthly", monthsAgo: 7, cancel: 4, refunds: [{ payment: -1, amount: null, reason: "Cancelled the day after renewing" }] },
+  26: {
+    plan: "monthly",
+    monthsAgo: 7,
+    cancel: 4,
+    refunds: [{ payment: -1, amount: null, reason: "Cancelled the day after renewing" }],
+  },
   27: { plan: "yearly", monthsAgo: 10 },
   28: { plan: "monthly", monthsAgo: 4 },
   30: { plan: "monthly", monthsAgo: 8, cancel: "end" },
@@ -120,7 +158,16 @@ export function prng(seed: number): () => number {
 export function addMonths(anchor: number, months: number): number {
   const a = new Date(anchor * 1000);
   const lastDay = new Date(Date.UTC(a.getUTCFullYear(), a.getUTCMonth() + months + 1, 0)).getUTCDate();
-  return Date.UTC(a.getUTCFullYear(), a.getUTCMonth() + months, Math.min(a.getUTCDate(), lastDay), a.getUTCHours(), a.getUTCMinutes(), a.getUTCSeconds()) / 1000;
+  return (
+    Date.UTC(
+      a.getUTCFullYear(),
+      a.getUTCMonth() + months,
+      Math.min(a.getUTCDate(), lastDay),
+      a.getUTCHours(),
+      a.getUTCMinutes(),
+      a.getUTCSeconds(),
+    ) / 1000
+  );
 }
 
 const pad = (n: number, w: number) => String(n).padStart(w, "0");
@@ -136,13 +183,31 @@ export function demoBillingHistory(anchor: number): DemoMembership[] {
     // Sign-ups spread over the year: whole months back, then a few days and hours either way.
     // The member in grace renewed (and failed) two days before the anchor.
     const spread = Math.floor(rand() * 20 - 2) * DAY + Math.floor(rand() * 12) * 3600;
-    const start = story.inGrace ? addMonths(anchor - 2 * DAY, -story.monthsAgo) : Math.min(addMonths(anchor, -story.monthsAgo) + spread, anchor - 2 * DAY);
+    const start = story.inGrace
+      ? addMonths(anchor - 2 * DAY, -story.monthsAgo)
+      : Math.min(addMonths(anchor, -story.monthsAgo) + spread, anchor - 2 * DAY);
     const step = story.plan === "monthly" ? 1 : 12;
     const m: DemoMembership = {
-      student: i, name: STUDENTS[i].name, email: STUDENTS[i].email, customerId: `cus_${tag}`, paymentMethodId: `pm_${tag}`,
-      invoicePrefix: `LMF${pad(i, 3)}`, card: story.lapsedAt !== undefined || story.inGrace ? "0341" : "4242", subscriptionId: `sub_${tag}`, itemId: `si_${tag}`,
-      plan: story.plan, start, status: "active", periodStart: start, periodEnd: addMonths(start, step), cancelAtPeriodEnd: false,
-      canceledAt: null, endedAt: null, graceUntil: null, updatedAt: start, invoices: [],
+      student: i,
+      name: STUDENTS[i].name,
+      email: STUDENTS[i].email,
+      customerId: `cus_${tag}`,
+      paymentMethodId: `pm_${tag}`,
+      invoicePrefix: `LMF${pad(i, 3)}`,
+      card: story.lapsedAt !== undefined || story.inGrace ? "0341" : "4242",
+      subscriptionId: `sub_${tag}`,
+      itemId: `si_${tag}`,
+      plan: story.plan,
+      start,
+      status: "active",
+      periodStart: start,
+      periodEnd: addMonths(start, step),
+      cancelAtPeriodEnd: false,
+      canceledAt: null,
+      endedAt: null,
+      graceUntil: null,
+      updatedAt: start,
+      invoices: [],
     };
     const periods = typeof story.cancel === "number" ? story.cancel : Infinity;
     for (let k = 0; k < periods; k++) {
@@ -151,10 +216,21 @@ export function demoBillingHistory(anchor: number): DemoMembership[] {
       if (ps > anchor) break;
       const n = k + 1;
       const inv: DemoInvoice = {
-        id: `in_${tag}n${pad(n, 2)}`, number: `${m.invoicePrefix}-${pad(n, 4)}`, paymentIntentId: `pi_${tag}n${pad(n, 2)}`, kind: k === 0 ? "new" : "renewal",
-        created: ps, periodStart: ps, periodEnd: pe, amount: plan.amount, status: "paid", attempts: [], nextAttempt: null, refunds: [],
+        id: `in_${tag}n${pad(n, 2)}`,
+        number: `${m.invoicePrefix}-${pad(n, 4)}`,
+        paymentIntentId: `pi_${tag}n${pad(n, 2)}`,
+        kind: k === 0 ? "new" : "renewal",
+        created: ps,
+        periodStart: ps,
+        periodEnd: pe,
+        amount: plan.amount,
+        status: "paid",
+        attempts: [],
+        nextAttempt: null,
+        refunds: [],
       };
-      const charge = (at: number, ok: boolean) => inv.attempts.push({ at, ok, chargeId: `ch_${tag}n${pad(n, 2)}a${inv.attempts.length + 1}` });
+      const charge = (at: number, ok: boolean) =>
+        inv.attempts.push({ at, ok, chargeId: `ch_${tag}n${pad(n, 2)}a${inv.attempts.length + 1}` });
       if (story.inGrace && addMonths(start, (k + 1) * step) > anchor) {
         charge(ps, false);
         inv.status = "open";
@@ -181,7 +257,11 @@ export function demoBillingHistory(anchor: number): DemoMembership[] {
       const asked = m.periodEnd - Math.floor(3 + rand() * 10) * DAY;
       Object.assign(m, { status: "canceled", canceledAt: asked, endedAt: m.periodEnd, updatedAt: m.periodEnd });
     } else if (story.cancel === "end") {
-      Object.assign(m, { cancelAtPeriodEnd: true, canceledAt: Math.min(anchor - DAY, m.periodStart + 5 * DAY), updatedAt: Math.min(anchor - DAY, m.periodStart + 5 * DAY) });
+      Object.assign(m, {
+        cancelAtPeriodEnd: true,
+        canceledAt: Math.min(anchor - DAY, m.periodStart + 5 * DAY),
+        updatedAt: Math.min(anchor - DAY, m.periodStart + 5 * DAY),
+      });
     }
     for (const [r, ref] of (story.refunds ?? []).entries()) {
       const inv = ref.payment < 0 ? m.invoices.at(ref.payment) : m.invoices[ref.payment];

@@ -74,7 +74,12 @@ function invoiceObjects(m: DemoMembership, inv: DemoInvoice, out: StripeImport):
         },
       ],
     },
-    status_transitions: { finalized_at: inv.created, paid_at: paid ? (last?.at ?? null) : null, voided_at: null, marked_uncollectible_at: inv.status === "failed" ? (last?.at ?? null) : null },
+    status_transitions: {
+      finalized_at: inv.created,
+      paid_at: paid ? (last?.at ?? null) : null,
+      voided_at: null,
+      marked_uncollectible_at: inv.status === "failed" ? (last?.at ?? null) : null,
+    },
   });
   out.payment_intents.push({
     id: inv.paymentIntentId,
@@ -110,35 +115,118 @@ function invoiceObjects(m: DemoMembership, inv: DemoInvoice, out: StripeImport):
   }
   const paidCharge = inv.attempts.find((a) => a.ok)?.chargeId ?? "";
   for (const r of inv.refunds) {
-    out.refunds.push({ id: r.id, object: "refund", created: r.created, amount: r.amount, currency: lower(plan.currency), charge: paidCharge, payment_intent: inv.paymentIntentId, reason: "requested_by_customer", status: "succeeded", metadata: { reason: r.reason } });
+    out.refunds.push({
+      id: r.id,
+      object: "refund",
+      created: r.created,
+      amount: r.amount,
+      currency: lower(plan.currency),
+      charge: paidCharge,
+      payment_intent: inv.paymentIntentId,
+      reason: "requested_by_customer",
+      status: "succeeded",
+      metadata: { reason: r.reason },
+    });
   }
 }
 
 /** Everything the stand-in needs to agree with the database. */
 export function stripeImportOf(history: DemoMembership[], anchor: number): StripeImport {
-  const out: StripeImport = { customers: [], products: [], prices: [], payment_methods: [], subscriptions: [], invoices: [], payment_intents: [], charges: [], refunds: [] };
+  const out: StripeImport = {
+    customers: [],
+    products: [],
+    prices: [],
+    payment_methods: [],
+    subscriptions: [],
+    invoices: [],
+    payment_intents: [],
+    charges: [],
+    refunds: [],
+  };
   for (const p of Object.values(DEMO_PLANS)) {
     const created = anchor - 400 * 86_400;
-    out.products.push({ id: p.productId, object: "product", created, name: p.name, description: "The whole catalogue", active: true, default_price: p.priceId });
-    out.prices.push({ id: p.priceId, object: "price", created, active: true, currency: lower(p.currency), unit_amount: p.amount, product: p.productId, recurring: { interval: p.interval, interval_count: 1 } });
+    out.products.push({
+      id: p.productId,
+      object: "product",
+      created,
+      name: p.name,
+      description: "The whole catalogue",
+      active: true,
+      default_price: p.priceId,
+    });
+    out.prices.push({
+      id: p.priceId,
+      object: "price",
+      created,
+      active: true,
+      currency: lower(p.currency),
+      unit_amount: p.amount,
+      product: p.productId,
+      recurring: { interval: p.interval, interval_count: 1 },
+    });
   }
   for (const m of history) {
     out.customers.push({
-      id: m.customerId, object: "customer", created: m.start, email: m.email, name: m.name, invoice_prefix: m.invoicePrefix,
-      next_invoice_sequence: m.invoices.length + 1, invoice_settings: { default_payment_method: m.paymentMethodId },
+      id: m.customerId,
+      object: "customer",
+      created: m.start,
+      email: m.email,
+      name: m.name,
+      invoice_prefix: m.invoicePrefix,
+      next_invoice_sequence: m.invoices.length + 1,
+      invoice_settings: { default_payment_method: m.paymentMethodId },
       metadata: { demo: "larchmoor" },
     });
     out.payment_methods.push({
-      id: m.paymentMethodId, object: "payment_method", created: m.start, customer: m.customerId, type: "card",
-      card: { brand: "visa", last4: m.card, exp_month: 12, exp_year: 2034, funding: "credit", country: "GB" }, billing_details: { name: m.name, email: m.email },
+      id: m.paymentMethodId,
+      object: "payment_method",
+      created: m.start,
+      customer: m.customerId,
+      type: "card",
+      card: { brand: "visa", last4: m.card, exp_month: 12, exp_year: 2034, funding: "credit", country: "GB" },
+      billing_details: { name: m.name, email: m.email },
     });
     const plan = DEMO_PLANS[m.plan];
     out.subscriptions.push({
-      id: m.subscriptionId, object: "subscription", created: m.start, start_date: m.start, customer: m.customerId, currency: lower(plan.currency), status: m.status,
-      items: { object: "list", data: [{ id: m.itemId, object: "subscription_item", created: m.start, price: plan.priceId, quantity: 1, current_period_start: m.periodStart, current_period_end: m.periodEnd }] },
-      billing_cycle_anchor: m.start, cancel_at_period_end: m.cancelAtPeriodEnd, cancel_at: m.cancelAtPeriodEnd ? m.periodEnd : null,
-      canceled_at: m.canceledAt, ended_at: m.endedAt, cancellation_details: { reason: m.status === "canceled" ? (m.invoices.at(-1)?.status === "failed" ? "payment_failed" : "cancellation_requested") : m.cancelAtPeriodEnd ? "cancellation_requested" : null },
-      default_payment_method: m.paymentMethodId, latest_invoice: m.invoices.at(-1)?.id ?? null, metadata: {},
+      id: m.subscriptionId,
+      object: "subscription",
+      created: m.start,
+      start_date: m.start,
+      customer: m.customerId,
+      currency: lower(plan.currency),
+      status: m.status,
+      items: {
+        object: "list",
+        data: [
+          {
+            id: m.itemId,
+            object: "subscription_item",
+            created: m.start,
+            price: plan.priceId,
+            quantity: 1,
+            current_period_start: m.periodStart,
+            current_period_end: m.periodEnd,
+          },
+        ],
+      },
+      billing_cycle_anchor: m.start,
+      cancel_at_period_end: m.cancelAtPeriodEnd,
+      cancel_at: m.cancelAtPeriodEnd ? m.periodEnd : null,
+      canceled_at: m.canceledAt,
+      ended_at: m.endedAt,
+      cancellation_details: {
+        reason:
+          m.status === "canceled"
+            ? m.invoices.at(-1)?.status === "failed"
+              ? "payment_failed"
+              : "cancellation_requested"
+            : m.cancelAtPeriodEnd
+              ? "cancellation_requested"
+              : null,
+      },
+      default_payment_method: m.paymentMethodId,
+      latest_invoice: m.invoices.at(-1)?.id ?? null,
+      metadata: {},
     });
     for (const inv of m.invoices) invoiceObjects(m, inv, out);
   }

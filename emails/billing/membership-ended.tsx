@@ -12,7 +12,10 @@ export default function MembershipEndedEmail({ name, planName, endedOn, plansUrl
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>
-      <Text style={paragraph}>{line} Your notes and progress are kept: the taster tunes stay open, and the whole catalogue opens again whenever you rejoin.</Text>
+      <Text style={paragraph}>
+        {line} Your notes and progress are kept: the taster tunes stay open, and the whole catalogue opens again
+        whenever you rejoin.
+      </Text>
       <MailAction href={absoluteUrl(plansUrl, appUrl)} label="See the membership plans" />
     </MailLayout>
   );

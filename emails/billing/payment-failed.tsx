@@ -5,7 +5,15 @@ import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "
 
 type Data = BillingMail["payment-failed"];
 
-export default function PaymentFailedEmail({ name, planName, amount, failureMessage, graceUntil, billingUrl, appUrl }: Data & MailFrame) {
+export default function PaymentFailedEmail({
+  name,
+  planName,
+  amount,
+  failureMessage,
+  graceUntil,
+  billingUrl,
+  appUrl,
+}: Data & MailFrame) {
   const line = `We could not take ${amount} for your ${planName}. The bank said: “${failureMessage}”`;
   return (
     <MailLayout preview={line} appUrl={appUrl}>
@@ -14,7 +22,8 @@ export default function PaymentFailedEmail({ name, planName, amount, failureMess
       </Heading>
       <Text style={paragraph}>{line}</Text>
       <Text style={paragraph}>
-        Your lessons stay open until {graceUntil}. Update your card before then and we will try the payment again straight away.
+        Your lessons stay open until {graceUntil}. Update your card before then and we will try the payment again
+        straight away.
       </Text>
       <MailAction href={absoluteUrl(billingUrl, appUrl)} label="Update your card" />
     </MailLayout>

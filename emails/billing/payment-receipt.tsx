@@ -5,7 +5,16 @@ import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "
 
 type Data = BillingMail["payment-receipt"];
 
-export default function PaymentReceiptEmail({ name, planName, amount, receiptNumber, paidOn, period, receiptUrl, appUrl }: Data & MailFrame) {
+export default function PaymentReceiptEmail({
+  name,
+  planName,
+  amount,
+  receiptNumber,
+  paidOn,
+  period,
+  receiptUrl,
+  appUrl,
+}: Data & MailFrame) {
   const line = `Thank you: we received ${amount} for your ${planName} on ${paidOn}.`;
   return (
     <MailLayout preview={line} appUrl={appUrl}>

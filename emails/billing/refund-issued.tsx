@@ -5,7 +5,14 @@ import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "
 
 type Data = BillingMail["refund-issued"];
 
-export default function RefundIssuedEmail({ name, amount, receiptNumber, reason, receiptUrl, appUrl }: Data & MailFrame) {
+export default function RefundIssuedEmail({
+  name,
+  amount,
+  receiptNumber,
+  reason,
+  receiptUrl,
+  appUrl,
+}: Data & MailFrame) {
   const line = `We have refunded ${amount} on receipt ${receiptNumber}.`;
   return (
     <MailLayout preview={line} appUrl={appUrl}>

@@ -5,15 +5,23 @@ import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "
 
 type Data = TeachingMail["assignment-new"];
 
-export default function AssignmentNewEmail({ studentName, teacherName, tuneTitle, dueLocal, note, assignmentUrl, appUrl }: Data & MailFrame) {
+export default function AssignmentNewEmail({
+  studentName,
+  teacherName,
+  tuneTitle,
+  dueLocal,
+  note,
+  assignmentUrl,
+  appUrl,
+}: Data & MailFrame) {
   return (
     <MailLayout preview={`${teacherName} gave you “${tuneTitle}”, due ${dueLocal}.`} appUrl={appUrl}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {studentName},
       </Heading>
       <Text style={paragraph}>
-        {teacherName} has given you a new tune to learn: <strong>{tuneTitle}</strong>, due {dueLocal}. You start
-        with its first stage; the next ones open as you go.
+        {teacherName} has given you a new tune to learn: <strong>{tuneTitle}</strong>, due {dueLocal}. You start with
+        its first stage; the next ones open as you go.
       </Text>
       {note ? <Text style={{ ...paragraph, fontStyle: "italic" }}>“{note}”</Text> : null}
       <MailAction href={absoluteUrl(assignmentUrl, appUrl)} label="Open the assignment" />

@@ -6,7 +6,8 @@ import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "
 type Data = TeachingMail["checkin-feedback"];
 
 export default function CheckinFeedbackEmail(props: Data & MailFrame) {
-  const { studentName, teacherName, tuneTitle, stageName, outcome, feedback, nextStageName, assignmentUrl, appUrl } = props;
+  const { studentName, teacherName, tuneTitle, stageName, outcome, feedback, nextStageName, assignmentUrl, appUrl } =
+    props;
   const verdict =
     outcome === "signed_off"
       ? `${teacherName} listened to your recording of ${tuneTitle} and signed off ${stageName}.`

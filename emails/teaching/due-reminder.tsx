@@ -8,10 +8,18 @@ type Data = TeachingMail["due-reminder"];
 const lines: Record<Data["when"], (tune: string, due: string) => string> = {
   two_days: (tune, due) => `A friendly reminder: ${tune} is due in two days, ${due}.`,
   due_today: (tune, due) => `${tune} is due today, ${due}. A short, relaxed run-through counts.`,
-  overdue: (tune, due) => `${tune} was due ${due}. No harm done: check in when you are ready, or tell your teacher you need more time.`,
+  overdue: (tune, due) =>
+    `${tune} was due ${due}. No harm done: check in when you are ready, or tell your teacher you need more time.`,
 };
 
-export default function DueReminderEmail({ studentName, tuneTitle, dueLocal, when, assignmentUrl, appUrl }: Data & MailFrame) {
+export default function DueReminderEmail({
+  studentName,
+  tuneTitle,
+  dueLocal,
+  when,
+  assignmentUrl,
+  appUrl,
+}: Data & MailFrame) {
   const line = lines[when](tuneTitle, dueLocal);
   return (
     <MailLayout preview={line} appUrl={appUrl}>

@@ -4,7 +4,13 @@ import type { TeachingMail } from "@/lib/mail/types-teaching";
 export const teachingSubjects: { [T in keyof TeachingMail]: (data: TeachingMail[T]) => string } = {
   "assignment-new": (d) => `New tune from ${d.teacherName}: ${d.tuneTitle}`,
   "checkin-feedback": (d) =>
-    d.outcome === "signed_off" ? `${d.tuneTitle}: ${d.stageName} signed off` : `${d.tuneTitle}: feedback on ${d.stageName}`,
+    d.outcome === "signed_off"
+      ? `${d.tuneTitle}: ${d.stageName} signed off`
+      : `${d.tuneTitle}: feedback on ${d.stageName}`,
   "due-reminder": (d) =>
-    d.when === "two_days" ? `${d.tuneTitle} is due in two days` : d.when === "due_today" ? `${d.tuneTitle} is due today` : `${d.tuneTitle} is now overdue`,
+    d.when === "two_days"
+      ? `${d.tuneTitle} is due in two days`
+      : d.when === "due_today"
+        ? `${d.tuneTitle} is due today`
+        : `${d.tuneTitle} is now overdue`,
 };

@@ -32,7 +32,8 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
   const lineOffset = opts.lineOffset ?? 0;
   const plan = opts.plan ?? DEFAULT_PLAN;
   const check = validatePlan(plan);
-  if (!check.ok) return { ok: false, problems: check.reasons.map((message) => ({ line: 1 + lineOffset, column: 1, message })) };
+  if (!check.ok)
+    return { ok: false, problems: check.reasons.map((message) => ({ line: 1 + lineOffset, column: 1, message })) };
   const prepared = prepareTune(abc, lineOffset);
   if (!prepared.ok) return prepared;
   const p = prepared.value;

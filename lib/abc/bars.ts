@@ -31,9 +31,16 @@ const LINE: Record<string, BarLineKind | null> = {
   bar_dbl_repeat: "repeatBoth",
   bar_invisible: null,
 };
-export const lineKind = (b: BarEl | null): BarLineKind | null => (b ? LINE[b.barType] ?? "single" : null);
+export const lineKind = (b: BarEl | null): BarLineKind | null => (b ? (LINE[b.barType] ?? "single") : null);
 
-const PART_BOUNDARY = new Set<BarLineKind | null>(["repeatStart", "repeatEnd", "repeatBoth", "double", "final", "start"]);
+const PART_BOUNDARY = new Set<BarLineKind | null>([
+  "repeatStart",
+  "repeatEnd",
+  "repeatBoth",
+  "double",
+  "final",
+  "start",
+]);
 
 export function assembleBars(els: El[], header: HeaderInfo): VBar[] {
   const bars: VBar[] = [];
@@ -48,9 +55,18 @@ export function assembleBars(els: El[], header: HeaderInfo): VBar[] {
     let length = ZERO;
     for (const n of notes) length = add(length, n.duration);
     bars.push({
-      index: bars.length, number: -1, part: partAtStart, ending, left, right, notes,
-      startChar: left ? left.end : notes[0].start, endChar: right ? right.end : notes[notes.length - 1].end,
-      length, meter: valueAt(header.meters, notes[0].start), shift: ZERO,
+      index: bars.length,
+      number: -1,
+      part: partAtStart,
+      ending,
+      left,
+      right,
+      notes,
+      startChar: left ? left.end : notes[0].start,
+      endChar: right ? right.end : notes[notes.length - 1].end,
+      length,
+      meter: valueAt(header.meters, notes[0].start),
+      shift: ZERO,
       opensPart: partChanged || PART_BOUNDARY.has(lineKind(left)),
     });
     notes = [];
@@ -87,10 +103,15 @@ function number(bars: VBar[]): void {
     const full = bar.meter;
     const short = full !== null && cmp(bar.length, full) < 0;
     const prev = bars[i - 1];
-    const pickup = short && full !== null && (
-      i === 0 ||
-      (bar.opensPart && prev !== undefined && prev.meter !== null && cmp(add(prev.length, bar.length), full) === 0 && cmp(prev.length, full) < 0)
-    );
+    const pickup =
+      short &&
+      full !== null &&
+      (i === 0 ||
+        (bar.opensPart &&
+          prev !== undefined &&
+          prev.meter !== null &&
+          cmp(add(prev.length, bar.length), full) === 0 &&
+          cmp(prev.length, full) < 0));
     if (pickup && full) bar.shift = sub(full, bar.length);
     bar.number = pickup ? 0 : ++n;
     let onset = frac(0);

@@ -8,9 +8,18 @@ import type { Prepared } from "./tune";
 import type { Embellishment, Fraction, Kind, Position } from "./types";
 
 const NAMES: Record<string, string> = {
-  "<(": "crescendo", "crescendo(": "crescendo", "<)": "crescendo end", "crescendo)": "crescendo end",
-  ">(": "diminuendo", "diminuendo(": "diminuendo", ">)": "diminuendo end", "diminuendo)": "diminuendo end",
-  ">": "accent", emphasis: "accent", mordent: "lowermordent", pralltriller: "uppermordent",
+  "<(": "crescendo",
+  "crescendo(": "crescendo",
+  "<)": "crescendo end",
+  "crescendo)": "crescendo end",
+  ">(": "diminuendo",
+  "diminuendo(": "diminuendo",
+  ">)": "diminuendo end",
+  "diminuendo)": "diminuendo end",
+  ">": "accent",
+  emphasis: "accent",
+  mordent: "lowermordent",
+  pralltriller: "uppermordent",
 };
 
 function position(bar: VBar | null, grid: Fraction): Position {
@@ -29,8 +38,12 @@ export function classify(p: Prepared): Embellishment[] {
       // A decoration on a bar line belongs to the end of the bar it closes.
       const bars = model.bars.get(el.voice) ?? [];
       const closed = bars.find((b) => b.right === el) ?? null;
-      const pos = closed ? position(closed, add(closed.length, closed.shift)) : position(bars[0] ?? null, { num: 0, den: 1 });
-      for (const t of el.toks) if (t.kind === "deco") found.push(found1(abc, tokKind(t) ?? "marks", NAMES[t.name] ?? t.name, t.start, t.end, pos));
+      const pos = closed
+        ? position(closed, add(closed.length, closed.shift))
+        : position(bars[0] ?? null, { num: 0, den: 1 });
+      for (const t of el.toks)
+        if (t.kind === "deco")
+          found.push(found1(abc, tokKind(t) ?? "marks", NAMES[t.name] ?? t.name, t.start, t.end, pos));
       continue;
     }
     const chord = el.body.chord && el.body.notes.length > 1;
@@ -39,7 +52,14 @@ export function classify(p: Prepared): Embellishment[] {
     for (const t of el.lex.toks) {
       const kind = tokKind(t);
       if (!kind || t.kind === "slurClose") continue;
-      const what = t.kind === "grace" ? "grace notes" : t.kind === "slurOpen" ? (t.name === "dotted" ? "dotted slur" : "slur") : NAMES[t.name] ?? t.name;
+      const what =
+        t.kind === "grace"
+          ? "grace notes"
+          : t.kind === "slurOpen"
+            ? t.name === "dotted"
+              ? "dotted slur"
+              : "slur"
+            : (NAMES[t.name] ?? t.name);
       found.push(found1(abc, kind, what, t.start, t.end, pos));
     }
     if (chord) found.push(found1(abc, "doubleStops", chordName(el), el.body.start, el.body.end, pos));
@@ -50,7 +70,17 @@ export function classify(p: Prepared): Embellishment[] {
   }
   for (const t of p.crossing) {
     const first = t.els[0];
-    if (first) found.push(found1(abc, "fills", "tuplet across a beat (kept in every stage)", first.start, t.els[t.els.length - 1].end, position(first.bar, first.grid)));
+    if (first)
+      found.push(
+        found1(
+          abc,
+          "fills",
+          "tuplet across a beat (kept in every stage)",
+          first.start,
+          t.els[t.els.length - 1].end,
+          position(first.bar, first.grid),
+        ),
+      );
   }
   return found.sort((a, b) => a.startChar - b.startChar || a.endChar - b.endChar);
 }

@@ -70,7 +70,8 @@ export function compareSettings(a: string, b: string, opts: CompareOptions = {})
 function groups(plan: PartPlan | undefined): { pickups: Bar[]; main: Bar[]; endings: Map<string, Bar> } {
   const endings = new Map<string, Bar>();
   for (const set of plan?.endingSets ?? []) {
-    for (const alt of set.alternatives) alt.bars.forEach((b, i) => endings.set(`ending ${alt.ending}, bar ${i + 1}`, b));
+    for (const alt of set.alternatives)
+      alt.bars.forEach((b, i) => endings.set(`ending ${alt.ending}, bar ${i + 1}`, b));
   }
   return { pickups: plan?.pickups ?? [], main: plan?.main ?? [], endings };
 }
@@ -88,7 +89,9 @@ const GAP_COST = 0.55;
 function align(xs: Bar[], ys: Bar[], meter: Fraction): [number | null, number | null][] {
   const n = xs.length;
   const m = ys.length;
-  const cost: number[][] = Array.from({ length: n + 1 }, (_, i) => Array.from({ length: m + 1 }, (_, j) => (i + j) * GAP_COST));
+  const cost: number[][] = Array.from({ length: n + 1 }, (_, i) =>
+    Array.from({ length: m + 1 }, (_, j) => (i + j) * GAP_COST),
+  );
   const row = (i: number): number[] => cost[i] as number[];
   for (let i = 1; i <= n; i++) {
     for (let j = 1; j <= m; j++) {
@@ -101,7 +104,11 @@ function align(xs: Bar[], ys: Bar[], meter: Fraction): [number | null, number | 
   let j = m;
   while (i > 0 || j > 0) {
     const here = row(i)[j] as number;
-    if (i > 0 && j > 0 && Math.abs(here - ((row(i - 1)[j - 1] as number) + distance(xs[i - 1] as Bar, ys[j - 1] as Bar, meter))) < 1e-9) {
+    if (
+      i > 0 &&
+      j > 0 &&
+      Math.abs(here - ((row(i - 1)[j - 1] as number) + distance(xs[i - 1] as Bar, ys[j - 1] as Bar, meter))) < 1e-9
+    ) {
       out.push([--i, --j]);
     } else if (i > 0 && Math.abs(here - ((row(i - 1)[j] as number) + GAP_COST)) < 1e-9) out.push([--i, null]);
     else out.push([null, --j]);
@@ -114,15 +121,28 @@ export function compareBars(a: Shape, b: Shape): Comparison {
   const pb = findParts(b.bars, fullBarLength(b.bars, b.meter));
   const notes: string[] = [];
   const sameLabels = pa.map((p) => p.label).join() === pb.map((p) => p.label).join();
-  if (!sameLabels) notes.push(`parts differ (${pa.map((p) => p.label).join("")} and ${pb.map((p) => p.label).join("")}): parts are paired in order`);
+  if (!sameLabels)
+    notes.push(
+      `parts differ (${pa.map((p) => p.label).join("")} and ${pb.map((p) => p.label).join("")}): parts are paired in order`,
+    );
   if (a.meter.num !== b.meter.num || a.meter.den !== b.meter.den) {
-    notes.push(`meters differ (${a.meter.num}/${a.meter.den} and ${b.meter.num}/${b.meter.den}): beats are counted in the first`);
+    notes.push(
+      `meters differ (${a.meter.num}/${a.meter.den} and ${b.meter.num}/${b.meter.den}): beats are counted in the first`,
+    );
   }
   const bars: BarComparison[] = [];
   const pair = (part: string, place: string, bx: Bar | undefined, by: Bar | undefined): void => {
     if (bx === undefined || by === undefined) {
       const status = bx !== undefined ? "onlyInFirst" : "onlyInSecond";
-      bars.push({ part, place, firstBar: bx?.number ?? null, secondBar: by?.number ?? null, status, lengthDiffers: true, differences: [] });
+      bars.push({
+        part,
+        place,
+        firstBar: bx?.number ?? null,
+        secondBar: by?.number ?? null,
+        status,
+        lengthDiffers: true,
+        differences: [],
+      });
       return;
     }
     const differences = diffNotes(bx.notes, by.notes, a.meter);
@@ -138,27 +158,39 @@ export function compareBars(a: Shape, b: Shape): Comparison {
       pair(label, k === 0 ? "pickup" : `pickup ${k + 1}`, x.pickups[k], y.pickups[k]);
     }
     if (pa[p] !== undefined && pb[p] !== undefined && x.main.length !== y.main.length) {
-      notes.push(`part ${label} has ${x.main.length} bars in the first setting and ${y.main.length} in the second: bars are aligned so the added ones stand alone`);
+      notes.push(
+        `part ${label} has ${x.main.length} bars in the first setting and ${y.main.length} in the second: bars are aligned so the added ones stand alone`,
+      );
     }
     for (const [i, j] of align(x.main, y.main, a.meter)) {
       pair(label, `bar ${(i ?? j ?? 0) + 1}`, i === null ? undefined : x.main[i], j === null ? undefined : y.main[j]);
     }
-    for (const place of new Set([...x.endings.keys(), ...y.endings.keys()])) pair(label, place, x.endings.get(place), y.endings.get(place));
+    for (const place of new Set([...x.endings.keys(), ...y.endings.keys()]))
+      pair(label, place, x.endings.get(place), y.endings.get(place));
   }
   const count = (s: BarComparison["status"]): number => bars.filter((x) => x.status === s).length;
   return {
     bars,
-    summary: { equal: count("equal"), different: count("different"), onlyInFirst: count("onlyInFirst"), onlyInSecond: count("onlyInSecond"), notes },
+    summary: {
+      equal: count("equal"),
+      different: count("different"),
+      onlyInFirst: count("onlyInFirst"),
+      onlyInSecond: count("onlyInSecond"),
+      notes,
+    },
   };
 }
 
 const side = (n: MelodyNote | undefined): NoteSide | null =>
-  n === undefined ? null : { pitch: n.pitch, note: pitchName(n.pitch), duration: `${n.duration.num}/${n.duration.den}` };
+  n === undefined
+    ? null
+    : { pitch: n.pitch, note: pitchName(n.pitch), duration: `${n.duration.num}/${n.duration.den}` };
 
 /** The note attacked at each onset (a tied continuation is no new attack) and the note sounding there. */
 function diffNotes(x: MelodyNote[], y: MelodyNote[], meter: Fraction): NoteDifference[] {
   const key = (n: MelodyNote): number => Math.round(toNumber(n.onset) * 1e9);
-  const attacks = (ns: MelodyNote[]): Map<number, MelodyNote> => new Map(ns.filter((n) => !n.tiedFromPrevious).map((n) => [key(n), n]));
+  const attacks = (ns: MelodyNote[]): Map<number, MelodyNote> =>
+    new Map(ns.filter((n) => !n.tiedFromPrevious).map((n) => [key(n), n]));
   const sounding = (ns: MelodyNote[], t: number): MelodyNote | undefined =>
     ns.find((n) => key(n) <= t && t < Math.round((toNumber(n.onset) + toNumber(n.duration)) * 1e9));
   const ax = attacks(x);
@@ -171,7 +203,8 @@ function diffNotes(x: MelodyNote[], y: MelodyNote[], meter: Fraction): NoteDiffe
     const beat = beatNumber(t / 1e9, meter);
     if (nx !== undefined && ny !== undefined) {
       if (nx.pitch !== ny.pitch) out.push({ beat, kind: "pitch", first: side(nx), second: side(ny) });
-      else if (toNumber(nx.duration) !== toNumber(ny.duration)) out.push({ beat, kind: "duration", first: side(nx), second: side(ny) });
+      else if (toNumber(nx.duration) !== toNumber(ny.duration))
+        out.push({ beat, kind: "duration", first: side(nx), second: side(ny) });
     } else if (nx !== undefined) {
       const held = sounding(y, t);
       if (held?.pitch !== nx.pitch) out.push({ beat, kind: "onlyInFirst", first: side(nx), second: side(held) });

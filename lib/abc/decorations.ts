@@ -7,23 +7,79 @@ const TABLE: Record<string, Kind> = {};
 const put = (kind: Kind, names: string[]): void => names.forEach((n) => (TABLE[n] = kind));
 
 put("ornaments", [
-  "trill", "trill(", "trill)", "lowermordent", "uppermordent", "mordent", "pralltriller",
-  "roll", "turn", "turnx", "invertedturn", "invertedturnx", "arpeggio",
+  "trill",
+  "trill(",
+  "trill)",
+  "lowermordent",
+  "uppermordent",
+  "mordent",
+  "pralltriller",
+  "roll",
+  "turn",
+  "turnx",
+  "invertedturn",
+  "invertedturnx",
+  "arpeggio",
 ]);
 put("slides", ["slide"]);
 put("bowing", ["upbow", "downbow"]);
 put("dynamics", [
-  "pppp", "ppp", "pp", "p", "mp", "mf", "f", "ff", "fff", "ffff", "sfz",
-  "crescendo(", "<(", "crescendo)", "<)", "diminuendo(", ">(", "diminuendo)", ">)",
+  "pppp",
+  "ppp",
+  "pp",
+  "p",
+  "mp",
+  "mf",
+  "f",
+  "ff",
+  "fff",
+  "ffff",
+  "sfz",
+  "crescendo(",
+  "<(",
+  "crescendo)",
+  "<)",
+  "diminuendo(",
+  ">(",
+  "diminuendo)",
+  ">)",
 ]);
 put("articulation", [
-  ">", "accent", "emphasis", "fermata", "invertedfermata", "tenuto", "breath", "wedge",
-  "snap", "+", "plus", "marcato", "staccato",
+  ">",
+  "accent",
+  "emphasis",
+  "fermata",
+  "invertedfermata",
+  "tenuto",
+  "breath",
+  "wedge",
+  "snap",
+  "+",
+  "plus",
+  "marcato",
+  "staccato",
 ]);
 put("fingerings", ["0", "1", "2", "3", "4", "5", "open", "thumb"]);
 put("marks", [
-  "segno", "coda", "D.S.", "D.C.", "dacoda", "dacapo", "fine", "shortphrase", "mediumphrase",
-  "longphrase", "ped", "ped-up", "editorial", "courtesy", "xstem", "trem1", "trem2", "trem3", "trem4",
+  "segno",
+  "coda",
+  "D.S.",
+  "D.C.",
+  "dacoda",
+  "dacapo",
+  "fine",
+  "shortphrase",
+  "mediumphrase",
+  "longphrase",
+  "ped",
+  "ped-up",
+  "editorial",
+  "courtesy",
+  "xstem",
+  "trem1",
+  "trem2",
+  "trem3",
+  "trem4",
 ]);
 
 /** Kind of a decoration name; a name the table does not know is a mark (not melody either way). */
@@ -52,7 +108,7 @@ export function tokKind(t: Tok): Kind | null {
 // of its own: it is never taken out, and its element is still not bare.
 const KIND_BIT = new Map<Kind, number>(KINDS.map((k, i) => [k, 1 << i]));
 const UNLISTED_BIT = 1 << 30;
-export const kindBit = (k: Kind | null): number => (k === null ? 0 : KIND_BIT.get(k) ?? UNLISTED_BIT);
+export const kindBit = (k: Kind | null): number => (k === null ? 0 : (KIND_BIT.get(k) ?? UNLISTED_BIT));
 export function kindMask(kinds: Iterable<Kind>): number {
   let m = 0;
   for (const k of kinds) m |= kindBit(k);

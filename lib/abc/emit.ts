@@ -52,7 +52,11 @@ const keeps = (t: Tok, mask: number): boolean => (kindBit(tokKind(t)) & mask) ==
 
 /** `track`: also record offsets and melody notes (only the skeleton's bars need them). */
 export function emit(
-  model: TuneModel, removed: ReadonlySet<Kind>, groupOf: Map<NoteEl, FillGroup>, pick: DoubleStop, track = false,
+  model: TuneModel,
+  removed: ReadonlySet<Kind>,
+  groupOf: Map<NoteEl, FillGroup>,
+  pick: DoubleStop,
+  track = false,
 ): Emitted {
   const { abc } = model;
   const out = new Writer();
@@ -82,8 +86,12 @@ export function emit(
         const midi = writeNote(abc, el, g, state, r, out);
         if (track && el.voice === model.melody) {
           notes[el.index] = {
-            onset: el.onset, duration: g ? g.total : el.duration, pitch: midi,
-            tiedFromPrevious: el.tiedFromPrevious, startChar: start, endChar: out.text.length,
+            onset: el.onset,
+            duration: g ? g.total : el.duration,
+            pitch: midi,
+            tiedFromPrevious: el.tiedFromPrevious,
+            startChar: start,
+            endChar: out.text.length,
           };
         }
       }
@@ -147,7 +155,14 @@ function renderBar(abc: string, el: BarEl, mask: number): string {
 const PREFIX = new Set(["gchord", "deco", "short", "grace", "slurOpen"]);
 
 /** Writes one note element (or a whole collapsed group); returns the melody pitch written. */
-function writeNote(src: string, el: NoteEl, g: FillGroup | undefined, state: BarAccidentals, r: Removal, out: Writer): number | null {
+function writeNote(
+  src: string,
+  el: NoteEl,
+  g: FillGroup | undefined,
+  state: BarAccidentals,
+  r: Removal,
+  out: Writer,
+): number | null {
   const body = el.body;
   const reduce = body.chord && r.reduce;
   const m = melodyIndex(el, r.pick);
@@ -155,7 +170,9 @@ function writeNote(src: string, el: NoteEl, g: FillGroup | undefined, state: Bar
     // Nothing to take out: the element as written, unless an accidental must be re-spelt.
     const spelt = body.rest ? null : respelt(el, state);
     if (!spelt) out.write(src.slice(el.start, el.end));
-    else for (const t of el.lex.toks) out.write(t.kind === "body" ? withAccidentals(src, el, spelt) : src.slice(t.start, t.end));
+    else
+      for (const t of el.lex.toks)
+        out.write(t.kind === "body" ? withAccidentals(src, el, spelt) : src.slice(t.start, t.end));
     return el.midi[m];
   }
   if (!g) {
@@ -178,7 +195,9 @@ function writeNote(src: string, el: NoteEl, g: FillGroup | undefined, state: Bar
   out.write(renderBody(src, el, state, reduce ? m : null, div(g.total, el.unit)));
   const sameNote = el.midi[m] !== null && tiedPitches(last.next, r).includes(el.midi[m]);
   for (const t of last.lex.toks) if (t.kind === "tie" && sameNote) out.write(src.slice(t.start, t.end));
-  for (const member of g.els) for (const t of member.lex.toks) if (t.kind === "slurClose" && keeps(t, r.mask)) out.write(src.slice(t.start, t.end));
+  for (const member of g.els)
+    for (const t of member.lex.toks)
+      if (t.kind === "slurClose" && keeps(t, r.mask)) out.write(src.slice(t.start, t.end));
   const tail = last.lex.toks[last.lex.toks.length - 1];
   if (tail?.kind === "ws") out.write(src.slice(tail.start, tail.end));
   return el.midi[m];
@@ -226,11 +245,18 @@ function withAccidentals(src: string, el: NoteEl, spelt: string[]): string {
  * multiple of L). Accidentals are re-spelt where the output's bar context differs from the source.
  */
 function renderBody(
-  src: string, el: NoteEl, state: BarAccidentals, only: number | null, len: Fraction | null, tieOk = true,
+  src: string,
+  el: NoteEl,
+  state: BarAccidentals,
+  only: number | null,
+  len: Fraction | null,
+  tieOk = true,
 ): string {
   const b = el.body;
   if (b.rest) return len ? b.rest + abcLength(len) : src.slice(b.start, b.end);
-  const spelt = b.notes.map((n, i) => (only === null || only === i ? state.spell(el.pos[i], n.acc, el.midi[i] ?? 0) : ""));
+  const spelt = b.notes.map((n, i) =>
+    only === null || only === i ? state.spell(el.pos[i], n.acc, el.midi[i] ?? 0) : "",
+  );
   if (only !== null) {
     const n = b.notes[only];
     const l = len ?? mul(b.notes[0].len, b.outerLen);

@@ -12,7 +12,14 @@ export interface FillGroup {
 }
 
 const EIGHTH = frac(1, 8);
-const TUPLET_NAMES: Record<number, string> = { 2: "duplet", 3: "triplet", 4: "quadruplet", 5: "quintuplet", 6: "sextuplet", 7: "septuplet" };
+const TUPLET_NAMES: Record<number, string> = {
+  2: "duplet",
+  3: "triplet",
+  4: "quadruplet",
+  5: "quintuplet",
+  6: "sextuplet",
+  7: "septuplet",
+};
 
 /**
  * Every collapsible group of the tune, keyed by its first element.

@@ -6,8 +6,18 @@ import { parseAbcLength } from "./fraction";
 import type { Fraction } from "./types";
 
 export type TokKind =
-  | "ws" | "gchord" | "deco" | "short" | "grace" | "slurOpen" | "tuplet" | "body"
-  | "tie" | "broken" | "slurClose" | "other";
+  | "ws"
+  | "gchord"
+  | "deco"
+  | "short"
+  | "grace"
+  | "slurOpen"
+  | "tuplet"
+  | "body"
+  | "tie"
+  | "broken"
+  | "slurClose"
+  | "other";
 
 export interface Tok {
   kind: TokKind;
@@ -75,8 +85,19 @@ function scanLen(t: string, i: number, end: number): number {
 }
 /** JavaScript's `\s`. */
 function isWs(c: number): boolean {
-  return c === 32 || (c >= 9 && c <= 13) || c === 0xa0 || c === 0x1680 || (c >= 0x2000 && c <= 0x200a) ||
-    c === 0x2028 || c === 0x2029 || c === 0x202f || c === 0x205f || c === 0x3000 || c === 0xfeff;
+  return (
+    c === 32 ||
+    (c >= 9 && c <= 13) ||
+    c === 0xa0 ||
+    c === 0x1680 ||
+    (c >= 0x2000 && c <= 0x200a) ||
+    c === 0x2028 ||
+    c === 0x2029 ||
+    c === 0x202f ||
+    c === 0x205f ||
+    c === 0x3000 ||
+    c === 0xfeff
+  );
 }
 function scanWs(t: string, i: number, end: number): number {
   let j = i;
@@ -102,7 +123,15 @@ function readNote(t: string, i: number, end: number): WrittenNote | null {
   if (n === a) return null;
   const j = scanLen(t, n, end);
   const acc = a === i ? "" : t.slice(i, a);
-  return { start: i, letterStart: a, end: j, acc, name: t.slice(a, n), len: parseAbcLength(j === n ? "" : t.slice(n, j)), tie: "" };
+  return {
+    start: i,
+    letterStart: a,
+    end: j,
+    acc,
+    name: t.slice(a, n),
+    len: parseAbcLength(j === n ? "" : t.slice(n, j)),
+    tie: "",
+  };
 }
 
 function closing(t: string, i: number, ch: string, end: number): number {
@@ -111,7 +140,8 @@ function closing(t: string, i: number, ch: string, end: number): number {
 }
 
 const isSpace = (c: string): boolean => c === " " || c === "\t" || c === "\n" || c === "\r";
-const isNoteStart = (c: string): boolean => (c >= "A" && c <= "G") || (c >= "a" && c <= "g") || c === "^" || c === "_" || c === "=";
+const isNoteStart = (c: string): boolean =>
+  (c >= "A" && c <= "G") || (c >= "a" && c <= "g") || c === "^" || c === "_" || c === "=";
 
 /** Lex the span [start, end) of `t`. `shorthands` maps single-character decorations to names. */
 export function lexSpan(t: string, start: number, end: number, shorthands: Record<string, string>): Lexed {
@@ -159,7 +189,15 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
       name = t.slice(i, j);
     } else if (!body && (c === "z" || c === "x" || c === "Z" || c === "X")) {
       j = scanLen(t, i + 1, end);
-      const note: WrittenNote = { start: i, letterStart: i, end: j, acc: "", name: c, len: parseAbcLength(j === i + 1 ? "" : t.slice(i + 1, j)), tie: "" };
+      const note: WrittenNote = {
+        start: i,
+        letterStart: i,
+        end: j,
+        acc: "",
+        name: c,
+        len: parseAbcLength(j === i + 1 ? "" : t.slice(i + 1, j)),
+        tie: "",
+      };
       body = { start: i, end: j, chord: false, rest: c, notes: [note], outerLen: ONE };
       kind = "body";
     } else if (!body && c === "[") {

@@ -143,8 +143,14 @@ export function readModel(abc: string, tune: TuneObject): TuneModel {
 }
 
 function readVoice(
-  abc: string, items: readonly ItemFields[], voice: string, v: VoiceState, header: HeaderInfo,
-  shorthands: Record<string, string>, seen: Seen, tuplets: Tuplet[],
+  abc: string,
+  items: readonly ItemFields[],
+  voice: string,
+  v: VoiceState,
+  header: HeaderInfo,
+  shorthands: Record<string, string>,
+  seen: Seen,
+  tuplets: Tuplet[],
 ): void {
   const state = v.acc;
   const els = v.els;
@@ -159,9 +165,22 @@ function readVoice(
       state.reset();
       if (isSeen(seen, start)) continue;
       markSeen(seen, start);
-      const toks = hasMarks(abc, start, end) ? lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord") : [];
+      const toks = hasMarks(abc, start, end)
+        ? lexSpan(abc, start, end, {}).toks.filter((t) => t.kind === "deco" || t.kind === "gchord")
+        : [];
       const startEnding = str(item.startEnding) ?? null;
-      els.push({ type: "bar", index: -1, voice, start, end, toks, kinds: tokMask(toks), barType: str(item.type) ?? "", startEnding, endEnding: item.endEnding === true });
+      els.push({
+        type: "bar",
+        index: -1,
+        voice,
+        start,
+        end,
+        toks,
+        kinds: tokMask(toks),
+        barType: str(item.type) ?? "",
+        startEnding,
+        endEnding: item.endEnding === true,
+      });
     } else if (type === "note" && !isSeen(seen, start)) {
       const lex = lexSpan(abc, start, end, shorthands);
       if (!lex.body) continue;
@@ -170,7 +189,8 @@ function readVoice(
       const tStart = num(item.startTriplet);
       if (tStart !== undefined) {
         const spec = lex.toks.find((t) => t.kind === "tuplet")?.name ?? String(tStart);
-        const mult = tupletMultiplier(spec, valueAt(header.meters, start)) ?? fromNumber(num(item.tripletMultiplier) ?? 1);
+        const mult =
+          tupletMultiplier(spec, valueAt(header.meters, start)) ?? fromNumber(num(item.tripletMultiplier) ?? 1);
         const t: Tuplet = { spec, p: tStart, mult, els: [] };
         tuplets.push(t);
         v.tuplet = t;
@@ -220,8 +240,15 @@ function hasMarks(abc: string, start: number, end: number): boolean {
 }
 
 function noteEl(
-  abcjsDuration: number | undefined, voice: string, start: number, end: number, lex: Lexed, body: Body,
-  state: BarAccidentals, header: HeaderInfo, prev: NoteEl | undefined,
+  abcjsDuration: number | undefined,
+  voice: string,
+  start: number,
+  end: number,
+  lex: Lexed,
+  body: Body,
+  state: BarAccidentals,
+  header: HeaderInfo,
+  prev: NoteEl | undefined,
 ): NoteEl {
   const first = body.notes[0]?.len ?? ONE;
   const outer = body.outerLen;
@@ -236,9 +263,10 @@ function noteEl(
   }
   // The unit abcjs used is exact when no broken rhythm touches the note; it follows L: changes
   // abcjs applied (including inline [L:]) without a second reading of the fields.
-  const unit = !brokenOut && !prev?.brokenOut && written.num > 0 && duration.num > 0
-    ? unitOf(duration, written)
-    : valueAt(header.units, start);
+  const unit =
+    !brokenOut && !prev?.brokenOut && written.num > 0 && duration.num > 0
+      ? unitOf(duration, written)
+      : valueAt(header.units, start);
   const notes = body.notes;
   let pos: number[];
   let midi: (number | null)[];
@@ -253,8 +281,26 @@ function noteEl(
   }
   for (const n of notes) if (n.tie !== "") tieOut = true;
   return {
-    type: "note", index: -1, voice, start, end, lex, body, duration, unit, midi, pos, tieOut, kinds: tokMask(lex.toks),
-    tiedFromPrevious: prev?.tieOut ?? false, next: null, brokenOut, tuplet: null, key: state.key,
-    bar: null, onset: frac(0), grid: frac(0),
+    type: "note",
+    index: -1,
+    voice,
+    start,
+    end,
+    lex,
+    body,
+    duration,
+    unit,
+    midi,
+    pos,
+    tieOut,
+    kinds: tokMask(lex.toks),
+    tiedFromPrevious: prev?.tieOut ?? false,
+    next: null,
+    brokenOut,
+    tuplet: null,
+    key: state.key,
+    bar: null,
+    onset: frac(0),
+    grid: frac(0),
   };
 }

@@ -27,7 +27,11 @@ export function warningToProblem(w: string, lineOffset = 0): Problem {
 }
 
 function decode(s: string): string {
-  return s.replace(/&lt;/g, "<").replace(/&gt;/g, ">").replace(/&quot;/g, '"').replace(/&amp;/g, "&");
+  return s
+    .replace(/&lt;/g, "<")
+    .replace(/&gt;/g, ">")
+    .replace(/&quot;/g, '"')
+    .replace(/&amp;/g, "&");
 }
 function plain(s: string): string {
   return decode(s.replace(HTML_TAG, "")).replace(/\s+/g, " ").trim();

@@ -44,7 +44,7 @@ export function sampleBars(bars: Bar[], step: Fraction): Map<Bar, BarGrid> {
       }
     }
     // an empty cell is its own "note" so that differences there are still counted
-    for (let k = 0; k < cells; k++) if (notes[k] === -1) notes[k] = -(nextId++) - 2;
+    for (let k = 0; k < cells; k++) if (notes[k] === -1) notes[k] = -nextId++ - 2;
     out.set(bar, { bar, pitches, notes });
   }
   return out;
@@ -143,7 +143,8 @@ export function compareCells(x: Cells, y: Cells, stopAbove = Infinity): Comparis
       differences.push(current);
       current = null;
       // past the limit the exact count no longer matters: skip the note counts too
-      if (total > stopAbove) return { differingNotes: total, notes: 0, differences, partial: x.pitch.length !== y.pitch.length };
+      if (total > stopAbove)
+        return { differingNotes: total, notes: 0, differences, partial: x.pitch.length !== y.pitch.length };
     }
     if (!differs) continue;
     if (current === null) {

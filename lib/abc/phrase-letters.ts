@@ -39,7 +39,12 @@ export function assignLetters(
       const model = models[exact.base];
       // compared over a shorter stretch, "exact" need not carry over to the model: check it
       const toModel = model === undefined ? null : compare(model, u);
-      if (exact.letter !== letterName(exact.base) && model !== undefined && toModel !== null && toModel.differingNotes <= maxNotes) {
+      if (
+        exact.letter !== letterName(exact.base) &&
+        model !== undefined &&
+        toModel !== null &&
+        toModel.differingNotes <= maxNotes
+      ) {
         swaps.push([u, model]);
       }
       continue;

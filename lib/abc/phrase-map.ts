@@ -41,9 +41,17 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
     let c = cache.get(key);
     if (c === undefined) {
       // phrases of different bar counts are never twins; the rest stop counting past a near twin
-      c = a.bars.length !== b.bars.length ? null : compareCells(cells[i] ?? NO_CELLS, cells[j] ?? NO_CELLS, NEAR_TWIN_NOTES);
+      c =
+        a.bars.length !== b.bars.length
+          ? null
+          : compareCells(cells[i] ?? NO_CELLS, cells[j] ?? NO_CELLS, NEAR_TWIN_NOTES);
       // a twin keeps most of its notes: two of three notes changed is another phrase, not a near twin
-      if (c !== null && c.differingNotes > 0 && c.differingNotes <= NEAR_TWIN_NOTES && c.notes - c.differingNotes <= c.differingNotes) {
+      if (
+        c !== null &&
+        c.differingNotes > 0 &&
+        c.differingNotes <= NEAR_TWIN_NOTES &&
+        c.notes - c.differingNotes <= c.differingNotes
+      ) {
         c = { ...c, differingNotes: NEAR_TWIN_NOTES + 1 };
       }
       cache.set(key, c);
@@ -111,7 +119,8 @@ export function phraseMap(bars: Bar[], meter: Fraction, unit: Fraction): PhraseM
   }));
   const distinct = new Set(letters.values()).size;
   const swapped = new Set(swapPairs.map(([u]) => u));
-  const afterSwaps = new Set(units.map((u) => (swapped.has(u) ? baseLetter(letters.get(u) ?? "") : letters.get(u)))).size;
+  const afterSwaps = new Set(units.map((u) => (swapped.has(u) ? baseLetter(letters.get(u) ?? "") : letters.get(u))))
+    .size;
 
   return {
     parts,

@@ -49,12 +49,18 @@ export function findParts(bars: Bar[], fullBar: number): PartPlan[] {
     });
   } else {
     const marked = mergeFragments(splitRuns(bars, structuralBoundary), fullBar, 2);
-    const pieces = marked.flatMap((run) => halve(run, localFullBar(run, fullBar)).map((bars) => ({ bars, halved: bars !== run })));
+    const pieces = marked.flatMap((run) =>
+      halve(run, localFullBar(run, fullBar)).map((bars) => ({ bars, halved: bars !== run })),
+    );
     const label0 = bars[0]?.part ?? "A";
-    const how = marked.length === 1 ? "no P: labels, repeats or double bars divide the tune" : "repeat marks and double bars";
+    const how =
+      marked.length === 1 ? "no P: labels, repeats or double bars divide the tune" : "repeat marks and double bars";
     segments = pieces.map((piece, i) => ({
-      label: pieces.length === 1 ? label0 : String.fromCharCode(65 + (i % 26)) + (i >= 26 ? String(Math.floor(i / 26)) : ""),
-      foundBy: piece.halved ? `${how}; a stretch of more than 16 bars without marks is halved (strains are 8 or 16 bars: common practice)` : how,
+      label:
+        pieces.length === 1 ? label0 : String.fromCharCode(65 + (i % 26)) + (i >= 26 ? String(Math.floor(i / 26)) : ""),
+      foundBy: piece.halved
+        ? `${how}; a stretch of more than 16 bars without marks is halved (strains are 8 or 16 bars: common practice)`
+        : how,
       bars: piece.bars,
     }));
   }

@@ -14,7 +14,11 @@ const kindOf = (n: number): "exact" | "near" => (n === 0 ? "exact" : "near");
 const says = (n: number): string => (n === 0 ? "exactly" : `but for ${n} note${n === 1 ? "" : "s"}`);
 
 /** The closest pairing of two phrases, trying every ending of each (a part may share its last phrase through its second ending). */
-function best(a: { main: Unit; variants: Unit[] }, b: { main: Unit; variants: Unit[] }, compare: Comparer): { a: Unit; b: Unit; n: number } | null {
+function best(
+  a: { main: Unit; variants: Unit[] },
+  b: { main: Unit; variants: Unit[] },
+  compare: Comparer,
+): { a: Unit; b: Unit; n: number } | null {
   let out: { a: Unit; b: Unit; n: number } | null = null;
   for (const x of [a.main, ...a.variants]) {
     for (const y of [b.main, ...b.variants]) {
@@ -80,7 +84,11 @@ export function findPatterns(parts: PartPhrases[], compare: Comparer, maxNotes: 
 }
 
 /** Only parts with the same number of phrases (at least four) have halves that can match. */
-function secondHalf(a: PartPhrases, b: PartPhrases, compare: Comparer): { first: string[]; second: string[]; n: number } | null {
+function secondHalf(
+  a: PartPhrases,
+  b: PartPhrases,
+  compare: Comparer,
+): { first: string[]; second: string[]; n: number } | null {
   const count = a.phrases.length;
   if (count !== b.phrases.length || count < 4) return null;
   const first: string[] = [];

@@ -26,7 +26,8 @@ export function gridStep(bars: Bar[], unit: Fraction): Fraction {
   let step: Fraction = { num: unit.num, den: unit.den };
   for (;;) {
     if (step.num / step.den <= 1 / 32) return step;
-    const half: Fraction = step.num % 2 === 0 ? { num: step.num / 2, den: step.den } : { num: step.num, den: step.den * 2 };
+    const half: Fraction =
+      step.num % 2 === 0 ? { num: step.num / 2, den: step.den } : { num: step.num, den: step.den * 2 };
     let needsHalf = false;
     for (const bar of bars) {
       for (const n of bar.notes) {

@@ -37,13 +37,21 @@ export function skeletonFrom(p: Prepared, opts: SkeletonOptions = {}): TuneShape
 export function buildModel(abc: string, opts: SkeletonOptions = {}): Result<TuneShape> {
   const prepared = prepareTune(abc);
   if (!prepared.ok) return prepared;
-  return guard(0, () => ({ ok: true, value: shapeOf(prepared.value, null, opts.doubleStop ?? "highest"), warnings: prepared.warnings }));
+  return guard(0, () => ({
+    ok: true,
+    value: shapeOf(prepared.value, null, opts.doubleStop ?? "highest"),
+    warnings: prepared.warnings,
+  }));
 }
 
 function sourceNote(el: NoteEl, pick: DoubleStop): MelodyNote {
   return {
-    onset: el.onset, duration: el.duration, pitch: el.midi[melodyIndex(el, pick)],
-    tiedFromPrevious: el.tiedFromPrevious, startChar: el.start, endChar: el.end,
+    onset: el.onset,
+    duration: el.duration,
+    pitch: el.midi[melodyIndex(el, pick)],
+    tiedFromPrevious: el.tiedFromPrevious,
+    startChar: el.start,
+    endChar: el.end,
   };
 }
 
@@ -57,11 +65,15 @@ export function shapeOf(p: Prepared, out: Emitted | null, pick: DoubleStop): Tun
       if (n) notes.push(n);
     }
     bars.push({
-      number: vb.number, part: vb.part, ending: vb.ending,
-      startChar: out ? out.offsets.get(vb.startChar) ?? vb.startChar : vb.startChar,
-      endChar: out ? out.offsets.get(vb.endChar) ?? vb.endChar : vb.endChar,
-      leftLine: vb.index === 0 && !vb.left ? "start" : lineKind(vb.left), rightLine: lineKind(vb.right),
-      length: vb.length, notes,
+      number: vb.number,
+      part: vb.part,
+      ending: vb.ending,
+      startChar: out ? (out.offsets.get(vb.startChar) ?? vb.startChar) : vb.startChar,
+      endChar: out ? (out.offsets.get(vb.endChar) ?? vb.endChar) : vb.endChar,
+      leftLine: vb.index === 0 && !vb.left ? "start" : lineKind(vb.left),
+      rightLine: lineKind(vb.right),
+      length: vb.length,
+      notes,
     });
   }
   const key = /^K:(.*)$/m.exec(model.abc)?.[1]?.replace(/%.*/, "").trim() ?? "";

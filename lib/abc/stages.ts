@@ -31,12 +31,14 @@ export function validatePlan(plan: unknown): PlanCheck {
     }
     if (i === 0 && adds.length > 0) reasons.push("Stage 1 is the skeleton and adds no kinds.");
     for (const k of adds) {
-      if (typeof k !== "string" || !(KINDS as readonly string[]).includes(k)) reasons.push(`Stage ${i + 1}: unknown kind "${String(k)}".`);
+      if (typeof k !== "string" || !(KINDS as readonly string[]).includes(k))
+        reasons.push(`Stage ${i + 1}: unknown kind "${String(k)}".`);
       else if (seen.has(k)) reasons.push(`Kind "${k}" is added twice (stages ${seen.get(k)} and ${i + 1}).`);
       else seen.set(k, i + 1);
     }
   });
-  for (const k of KINDS) if (!seen.has(k)) reasons.push(`Kind "${k}" is never added back, so the last stage would not be the full setting.`);
+  for (const k of KINDS)
+    if (!seen.has(k)) reasons.push(`Kind "${k}" is never added back, so the last stage would not be the full setting.`);
   return reasons.length ? { ok: false, reasons } : { ok: true };
 }
 
@@ -46,7 +48,12 @@ export function validatePlan(plan: unknown): PlanCheck {
  * tune are the same text, written once (a tune without slurs has stage 2 = the skeleton, one
  * without double stops or dynamics has stage 3 = the source).
  */
-export function buildStages(p: Prepared, plan: StagePlan = DEFAULT_PLAN, pick: DoubleStop = "highest", skeletonAbc?: string): Stage[] {
+export function buildStages(
+  p: Prepared,
+  plan: StagePlan = DEFAULT_PLAN,
+  pick: DoubleStop = "highest",
+  skeletonAbc?: string,
+): Stage[] {
   const present = new Set<Kind>();
   const inTune = kindsIn(p.model, p.groupOf);
   const texts = new Map<number, string>();

@@ -17,13 +17,28 @@ export interface Prepared {
 export function prepareTune(abc: string, lineOffset = 0): Result<Prepared> {
   const { tune, warnings } = parseTune(abc, lineOffset);
   if (!tune) {
-    return { ok: false, problems: warnings.length ? warnings : [{ line: 1 + lineOffset, column: 1, message: "No tune found: a tune needs at least a K: field and some notes." }] };
+    return {
+      ok: false,
+      problems: warnings.length
+        ? warnings
+        : [
+            {
+              line: 1 + lineOffset,
+              column: 1,
+              message: "No tune found: a tune needs at least a K: field and some notes.",
+            },
+          ],
+    };
   }
   return guard(lineOffset, () => {
     const model = readModel(abc, tune);
     const melody = model.bars.get(model.melody) ?? [];
     if (melody.length === 0) {
-      const problem = { line: 1 + lineOffset, column: 1, message: /^K:/m.test(abc) ? "The tune has no notes." : "The tune has no K: field, so its music cannot be read." };
+      const problem = {
+        line: 1 + lineOffset,
+        column: 1,
+        message: /^K:/m.test(abc) ? "The tune has no notes." : "The tune has no K: field, so its music cannot be read.",
+      };
       return { ok: false, problems: [...warnings, problem] };
     }
     const { groups, crossing } = findGroups(model);

@@ -65,7 +65,8 @@ export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: stri
         const [ss, se] = barContent(abc, source);
         const text = abc.slice(ss, se);
         // a field inside a bar ([K:G], or a K: line in a bar broken over lines) would move or vanish
-        if (FIELD.test(text) || FIELD.test(abc.slice(ts, te))) reason = `bar ${target.number} or its model holds a field (K:, L:, M: …)`;
+        if (FIELD.test(text) || FIELD.test(abc.slice(ts, te)))
+          reason = `bar ${target.number} or its model holds a field (K:, L:, M: …)`;
         else edits.push({ start: ts, end: te, text });
       }
     }
@@ -98,7 +99,8 @@ function sameNotes(a: Bar, b: Bar): boolean {
 function barsWithDifferences(map: PhraseMap, swap: Swap): Set<number> {
   const out = new Set<number>();
   for (const t of map.twins) {
-    if (!((t.first === swap.model && t.second === swap.phrase) || (t.second === swap.model && t.first === swap.phrase))) continue;
+    if (!((t.first === swap.model && t.second === swap.phrase) || (t.second === swap.model && t.first === swap.phrase)))
+      continue;
     for (const d of t.differences) {
       const [from, to] = t.second === swap.phrase ? [d.secondBar, d.lastSecondBar] : [d.firstBar, d.lastFirstBar];
       for (let n = from; n <= to; n++) out.add(n);

@@ -10,9 +10,12 @@ import { HOME, type Role } from "./permissions";
 import { forgetUserEverywhere } from "./session-notices";
 import { hashToken } from "./tokens";
 
-export const INVITATION_DEAD = "This invitation has expired or has already been used. Ask whoever invited you for a new one.";
-export const INVITATION_OTHER_ADDRESS = "This invitation was sent to another address. Sign out, then open the link again.";
-export const INVITATION_SIGN_IN_FIRST = "This address already has an account: sign in, then open the invitation link again.";
+export const INVITATION_DEAD =
+  "This invitation has expired or has already been used. Ask whoever invited you for a new one.";
+export const INVITATION_OTHER_ADDRESS =
+  "This invitation was sent to another address. Sign out, then open the link again.";
+export const INVITATION_SIGN_IN_FIRST =
+  "This address already has an account: sign in, then open the invitation link again.";
 
 /** What the acceptance page shows before the person decides. */
 export async function describeInvitation(token: string) {
@@ -27,7 +30,10 @@ export async function describeInvitation(token: string) {
 // Invitations only ever add a role: a teacher invited as a student stays a teacher.
 const RANK: Record<Role, number> = { student: 0, teacher: 1, admin: 2 };
 
-export async function acceptInvitation(ctx: RequestContext, input: { token: string; name?: string; password?: string }): Promise<ActionState> {
+export async function acceptInvitation(
+  ctx: RequestContext,
+  input: { token: string; name?: string; password?: string },
+): Promise<ActionState> {
   const inv = await findInvitation(db(), hashToken(input.token));
   if (!inv || inv.acceptedAt || inv.expiresAt <= new Date()) throw notFound(INVITATION_DEAD);
   const same = (a: string) => a.trim().toLowerCase() === inv.email.trim().toLowerCase();

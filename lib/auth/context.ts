@@ -19,7 +19,11 @@ export type RequestContext = {
  */
 export function clientIp(headers: Headers): string {
   const forwarded = headers.get("x-forwarded-for");
-  const last = forwarded?.split(",").map((s) => s.trim()).filter(Boolean).pop();
+  const last = forwarded
+    ?.split(",")
+    .map((s) => s.trim())
+    .filter(Boolean)
+    .pop();
   return last || headers.get("x-real-ip") || "unknown";
 }
 
@@ -32,7 +36,12 @@ export async function loadContext(headers: Headers, setCookie: (cookie: Cookie) 
   if (session?.fresh) setCookie(lucia().createSessionCookie(session.id));
   if (!session) setCookie(lucia().createBlankSessionCookie());
   if (!session || !user || user.disabled) return { user: null, sessionId: null, ip, setCookie };
-  return { user: { id: user.id, name: user.name, email: user.email, role: user.role }, sessionId: session.id, ip, setCookie };
+  return {
+    user: { id: user.id, name: user.name, email: user.email, role: user.role },
+    sessionId: session.id,
+    ip,
+    setCookie,
+  };
 }
 
 /** Starts a session for a person and queues its cookie. */

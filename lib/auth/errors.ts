@@ -12,12 +12,14 @@ export class HttpError extends Error {
 /** What a person is told when the server failed in a way nobody planned for (the details go to the log). */
 export const UNEXPECTED_FAILURE = "Something went wrong on our side. Please try again.";
 
-export const badRequest = (message: string, fieldErrors?: Record<string, string>) => new HttpError(400, message, fieldErrors);
+export const badRequest = (message: string, fieldErrors?: Record<string, string>) =>
+  new HttpError(400, message, fieldErrors);
 export const unauthorized = (message = "Please sign in first.") => new HttpError(401, message);
 export const forbidden = (message = "Your account can't do that.") => new HttpError(403, message);
 export const notFound = (message = "We couldn't find that.") => new HttpError(404, message);
 export const conflict = (message: string) => new HttpError(409, message);
-export const unprocessable = (message: string, fieldErrors?: Record<string, string>) => new HttpError(422, message, fieldErrors);
+export const unprocessable = (message: string, fieldErrors?: Record<string, string>) =>
+  new HttpError(422, message, fieldErrors);
 
 export class RateLimitedError extends HttpError {
   constructor(readonly retryAfterSeconds: number) {

@@ -50,14 +50,23 @@ function unexpected(error: unknown): HttpError {
   return new HttpError(500, UNEXPECTED_FAILURE);
 }
 
-export function guardAction<S extends z.ZodType>(action: Action, schema: S, run: Run<S, ActionState | void>): GuardedAction {
+export function guardAction<S extends z.ZodType>(
+  action: Action,
+  schema: S,
+  run: Run<S, ActionState | void>,
+): GuardedAction {
   return async (ctx, input) => {
     const raw = formToObject(input);
     try {
       if (!can(ctx.user?.role ?? "visitor", action)) throw permissionFailure(ctx);
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
-        return { status: 400, message: "Please check the highlighted fields.", fieldErrors: fieldErrorsOf(parsed.error), values: echo(raw) };
+        return {
+          status: 400,
+          message: "Please check the highlighted fields.",
+          fieldErrors: fieldErrorsOf(parsed.error),
+          values: echo(raw),
+        };
       }
       return (await run(ctx, parsed.data)) ?? { status: 200 };
     } catch (e) {

@@ -33,11 +33,22 @@ export function parseAddresses(text: string): { valid: string[]; invalid: string
 
 async function invite(tx: Tx, inviter: { id: string; name: string }, email: string, role: Role) {
   const { token, hash } = newToken();
-  await insertInvitation(tx, { email, role, invitedBy: inviter.id, tokenHash: hash, expiresAt: new Date(Date.now() + INVITATION_TTL_DAYS * 86_400_000) });
+  await insertInvitation(tx, {
+    email,
+    role,
+    invitedBy: inviter.id,
+    tokenHash: hash,
+    expiresAt: new Date(Date.now() + INVITATION_TTL_DAYS * 86_400_000),
+  });
   await enqueueEmail(tx, {
     to: email,
     template: "invitation",
-    data: { inviterName: inviter.name, role, acceptUrl: appLink("/accept-invitation", { token }), expiresInDays: INVITATION_TTL_DAYS },
+    data: {
+      inviterName: inviter.name,
+      role,
+      acceptUrl: appLink("/accept-invitation", { token }),
+      expiresInDays: INVITATION_TTL_DAYS,
+    },
   });
 }
 
@@ -49,10 +60,15 @@ export async function inviteStudents(ctx: RequestContext, input: { addresses: st
   const inviter = ctx.user;
   if (!inviter) throw unauthorized();
   const { valid, invalid } = parseAddresses(input.addresses);
-  if (invalid.length) throw badRequest("Please fix the addresses.", { addresses: `These don't look like e-mail addresses: ${invalid.join(", ")}` });
+  if (invalid.length)
+    throw badRequest("Please fix the addresses.", {
+      addresses: `These don't look like e-mail addresses: ${invalid.join(", ")}`,
+    });
   if (!valid.length) throw badRequest("Please add an address.", { addresses: "Add at least one e-mail address." });
   if (valid.length > MAX_INVITES_AT_ONCE) {
-    throw badRequest("Too many at once.", { addresses: `Up to ${MAX_INVITES_AT_ONCE} addresses at a time, please (you gave ${valid.length}).` });
+    throw badRequest("Too many at once.", {
+      addresses: `Up to ${MAX_INVITES_AT_ONCE} addresses at a time, please (you gave ${valid.length}).`,
+    });
   }
   const others = valid.filter((a) => a.toLowerCase() !== inviter.email.toLowerCase());
   for (let i = 0; i < others.length; i++) await hit(db(), `invite:${inviter.id}`, LIMITS.invite);
@@ -60,7 +76,10 @@ export async function inviteStudents(ctx: RequestContext, input: { addresses: st
     for (const email of others) await invite(tx, inviter, email, "student");
   });
   const n = others.length;
-  return { status: 200, message: `Invitation${n === 1 ? "" : "s"} sent to ${n} address${n === 1 ? "" : "es"}. Each link works for ${INVITATION_TTL_DAYS} days.` };
+  return {
+    status: 200,
+    message: `Invitation${n === 1 ? "" : "s"} sent to ${n} address${n === 1 ? "" : "es"}. Each link works for ${INVITATION_TTL_DAYS} days.`,
+  };
 }
 
 export async function inviteTeacher(ctx: RequestContext, input: { email: string }): Promise<ActionState> {

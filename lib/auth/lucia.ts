@@ -22,7 +22,15 @@ class SessionAdapter extends DrizzlePostgreSQLAdapter {
     const hit = cachedSession(sessionId);
     if (hit) return hit;
     const [row] = await db()
-      .select({ id: sessions.id, userId: sessions.userId, expiresAt: sessions.expiresAt, name: users.name, email: users.email, role: users.role, disabled: users.disabled })
+      .select({
+        id: sessions.id,
+        userId: sessions.userId,
+        expiresAt: sessions.expiresAt,
+        name: users.name,
+        email: users.email,
+        role: users.role,
+        disabled: users.disabled,
+      })
       .from(sessions)
       .innerJoin(users, eq(users.id, sessions.userId))
       .where(eq(sessions.id, sessionId))
@@ -30,7 +38,10 @@ class SessionAdapter extends DrizzlePostgreSQLAdapter {
       .execute();
     if (!row) return [null, null];
     const { id, userId, expiresAt, ...attributes } = row;
-    const found: [DatabaseSession, DatabaseUser] = [{ id, userId, expiresAt, attributes: {} }, { id: userId, attributes }];
+    const found: [DatabaseSession, DatabaseUser] = [
+      { id, userId, expiresAt, attributes: {} },
+      { id: userId, attributes },
+    ];
     rememberSession(found);
     return found;
   }

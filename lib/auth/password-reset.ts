@@ -1,6 +1,13 @@
 import { db } from "@/db/client";
 import { findUserByEmail } from "@/db/queries/people";
-import { consumeEmailToken, findUserById, insertEmailToken, retireEmailTokens, updateUser, type Tx } from "@/db/queries/auth";
+import {
+  consumeEmailToken,
+  findUserById,
+  insertEmailToken,
+  retireEmailTokens,
+  updateUser,
+  type Tx,
+} from "@/db/queries/auth";
 import { enqueueEmail } from "@/lib/mail/outbox";
 import type { ActionState } from "./action-state";
 import type { RequestContext } from "./context";
@@ -21,7 +28,12 @@ export const RESET_LINK_DEAD = "This reset link has expired or has already been 
 export async function sendResetLink(tx: Tx, user: { id: string; name: string; email: string }) {
   const { token, hash } = newToken();
   await retireEmailTokens(tx, user.id, "reset_password");
-  await insertEmailToken(tx, { userId: user.id, purpose: "reset_password", tokenHash: hash, expiresAt: new Date(Date.now() + RESET_TTL_MINUTES * MINUTE) });
+  await insertEmailToken(tx, {
+    userId: user.id,
+    purpose: "reset_password",
+    tokenHash: hash,
+    expiresAt: new Date(Date.now() + RESET_TTL_MINUTES * MINUTE),
+  });
   await enqueueEmail(tx, {
     to: user.email,
     template: "password-reset",
@@ -40,7 +52,10 @@ export async function requestPasswordReset(ctx: RequestContext, input: { email: 
   return { status: 200, message: resetSentMessage(email) };
 }
 
-export async function resetPassword(_ctx: RequestContext, input: { token: string; password: string }): Promise<ActionState> {
+export async function resetPassword(
+  _ctx: RequestContext,
+  input: { token: string; password: string },
+): Promise<ActionState> {
   const problem = passwordProblem(input.password);
   if (problem) throw badRequest("Please choose another password.", { password: problem });
   const passwordHash = await hashPassword(input.password);

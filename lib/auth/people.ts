@@ -39,7 +39,8 @@ export async function changeRole(ctx: RequestContext, input: { userId: string; r
   if (input.userId === ctx.user.id) throw conflict("You can't change your own role. Ask another admin.");
   const person = await findUserById(db(), input.userId);
   if (!person) throw notFound("We couldn't find that person.");
-  if (person.role === input.role) return { status: 200, message: `${person.name} is already ${ROLE_WORD[input.role]}.` };
+  if (person.role === input.role)
+    return { status: 200, message: `${person.name} is already ${ROLE_WORD[input.role]}.` };
   await updateUser(db(), person.id, { role: input.role });
   await forgetUserEverywhere(person.id); // cached sessions carry the old role (./session-notices.ts)
   return { status: 200, message: `${person.name} is now ${ROLE_WORD[input.role]}.` };

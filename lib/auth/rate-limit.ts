@@ -25,7 +25,10 @@ export async function hit(db: Db, key: string, limit: Limit, now: Date = new Dat
   const rows = await db
     .insert(rateLimits)
     .values({ key, windowStart, count: 1 })
-    .onConflictDoUpdate({ target: [rateLimits.key, rateLimits.windowStart], set: { count: sql`${rateLimits.count} + 1` } })
+    .onConflictDoUpdate({
+      target: [rateLimits.key, rateLimits.windowStart],
+      set: { count: sql`${rateLimits.count} + 1` },
+    })
     .returning({ count: rateLimits.count });
   if (rows[0].count === 1) {
     // First hit of a new window: the key's older windows are spent, so tidy them here.

@@ -17,7 +17,11 @@ export const SESSION_CACHE_MS = 5_000;
 type Entry = [DatabaseSession, DatabaseUser];
 
 function make(perf?: { now(): number }) {
-  return new LRUCache<string, Entry>({ max: 10_000, ttl: SESSION_CACHE_MS, ...(perf ? { perf, ttlResolution: 0 } : {}) });
+  return new LRUCache<string, Entry>({
+    max: 10_000,
+    ttl: SESSION_CACHE_MS,
+    ...(perf ? { perf, ttlResolution: 0 } : {}),
+  });
 }
 
 // One cache for the whole process. `next build` copies this module into several server bundles
@@ -30,7 +34,10 @@ const store = () => (shared[KEY] ??= make());
 
 /** A copy, so that a caller changing what it was given cannot change the cached answer. */
 function copy([session, user]: Entry): Entry {
-  return [{ ...session, attributes: { ...session.attributes } }, { ...user, attributes: { ...user.attributes } }];
+  return [
+    { ...session, attributes: { ...session.attributes } },
+    { ...user, attributes: { ...user.attributes } },
+  ];
 }
 
 export function cachedSession(sessionId: string): Entry | undefined {

@@ -20,7 +20,10 @@ export const NOT_CONFIRMED =
 let decoy: Promise<string> | undefined;
 const decoyHash = () => (decoy ??= hashPassword("no account has this password; it only spends time"));
 
-export async function signIn(ctx: RequestContext, input: { email: string; password: string; next?: string }): Promise<ActionState> {
+export async function signIn(
+  ctx: RequestContext,
+  input: { email: string; password: string; next?: string },
+): Promise<ActionState> {
   const email = input.email.trim();
   await hitAll(db(), [
     [addressKey("sign-in", email), LIMITS.signInAddress],

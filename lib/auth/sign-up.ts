@@ -21,11 +21,24 @@ export const signUpSentMessage = (email: string) =>
   "(If that address already has an account, the message explains how to get back into it.)";
 
 /** Sends the confirmation link that makes a new account usable; older links stop working. */
-export async function sendVerifyLink(tx: Tx, user: { id: string; name: string; email: string }, template: "welcome" | "verify-email") {
+export async function sendVerifyLink(
+  tx: Tx,
+  user: { id: string; name: string; email: string },
+  template: "welcome" | "verify-email",
+) {
   const { token, hash } = newToken();
   await retireEmailTokens(tx, user.id, "verify_email");
-  await insertEmailToken(tx, { userId: user.id, purpose: "verify_email", tokenHash: hash, expiresAt: new Date(Date.now() + VERIFY_TTL_MINUTES * MINUTE) });
-  await enqueueEmail(tx, { to: user.email, template, data: { name: user.name, verifyUrl: appLink("/verify-email", { token }) } });
+  await insertEmailToken(tx, {
+    userId: user.id,
+    purpose: "verify_email",
+    tokenHash: hash,
+    expiresAt: new Date(Date.now() + VERIFY_TTL_MINUTES * MINUTE),
+  });
+  await enqueueEmail(tx, {
+    to: user.email,
+    template,
+    data: { name: user.name, verifyUrl: appLink("/verify-email", { token }) },
+  });
 }
 
 export async function signUp(ctx: RequestContext, input: SignUpInput): Promise<ActionState> {

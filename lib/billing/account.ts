@@ -12,7 +12,11 @@ import type { Stripe } from "./stripe";
 type Sub = NonNullable<Awaited<ReturnType<typeof currentSubscriptionOf>>>;
 
 /** The status in a member's words. */
-export function statusWords(s: Pick<Sub, "status" | "cancelAtPeriodEnd" | "currentPeriodEnd" | "graceUntil">, now = new Date(), tz = "Europe/London"): string {
+export function statusWords(
+  s: Pick<Sub, "status" | "cancelAtPeriodEnd" | "currentPeriodEnd" | "graceUntil">,
+  now = new Date(),
+  tz = "Europe/London",
+): string {
   const day = (d: Date | null) => (d ? formatDay(d, tz) : "the end of this period");
   switch (s.status) {
     case "active":
@@ -36,11 +40,18 @@ export function statusWords(s: Pick<Sub, "status" | "cancelAtPeriodEnd" | "curre
 }
 
 export async function billingSummary(db: Db, userId: string, now = new Date()) {
-  const [sub, payments, plans] = await Promise.all([currentSubscriptionOf(db, userId), paymentsOf(db, userId), listPlans(db, { activeOnly: true })]);
+  const [sub, payments, plans] = await Promise.all([
+    currentSubscriptionOf(db, userId),
+    paymentsOf(db, userId),
+    listPlans(db, { activeOnly: true }),
+  ]);
   const live = sub && sub.status !== "canceled" && sub.status !== "incomplete_expired";
   const good = sub ? standingOf({ ...sub, subscriptionId: sub.id, planName: sub.plan.name }, now).good : false;
   const nextCharge =
-    live && !sub.cancelAtPeriodEnd && sub.currentPeriodEnd && (sub.status === "active" || sub.status === "trialing" || sub.status === "past_due")
+    live &&
+    !sub.cancelAtPeriodEnd &&
+    sub.currentPeriodEnd &&
+    (sub.status === "active" || sub.status === "trialing" || sub.status === "past_due")
       ? { date: sub.currentPeriodEnd.toISOString(), amount: sub.plan.amount, currency: sub.plan.currency }
       : null;
   return {
@@ -72,7 +83,13 @@ export async function billingSummary(db: Db, userId: string, now = new Date()) {
       receiptNumber: p.receiptNumber,
       failureMessage: p.failureMessage,
       createdAt: p.createdAt.toISOString(),
-      refunds: p.refunds.map((r) => ({ id: r.id, amount: r.amount, currency: r.currency, reason: r.reason, createdAt: r.createdAt.toISOString() })),
+      refunds: p.refunds.map((r) => ({
+        id: r.id,
+        amount: r.amount,
+        currency: r.currency,
+        reason: r.reason,
+        createdAt: r.createdAt.toISOString(),
+      })),
     })),
     plans: plans.map((p) => ({ id: p.id, name: p.name, amount: p.amount, currency: p.currency, interval: p.interval })),
   };
@@ -82,11 +99,17 @@ export type BillingSummary = Awaited<ReturnType<typeof billingSummary>>;
 /** The member's live subscription, or 409 with what to do instead. */
 async function liveSubscription(db: Db, userId: string): Promise<Sub> {
   const sub = await currentSubscriptionOf(db, userId);
-  if (!sub || sub.status === "canceled" || sub.status === "incomplete_expired") throw conflict("You have no membership to change: choose a plan first.");
+  if (!sub || sub.status === "canceled" || sub.status === "incomplete_expired")
+    throw conflict("You have no membership to change: choose a plan first.");
   return sub;
 }
 
-export async function setCancelAtPeriodEnd(db: Db, stripe: Stripe, userId: string, cancel: boolean): Promise<{ cancelAtPeriodEnd: boolean }> {
+export async function setCancelAtPeriodEnd(
+  db: Db,
+  stripe: Stripe,
+  userId: string,
+  cancel: boolean,
+): Promise<{ cancelAtPeriodEnd: boolean }> {
   const sub = await liveSubscription(db, userId);
   // Always ask Stripe, never skip on our row: the row follows webhooks and may not have heard of a change made a
   // moment ago (cancel then resume at once would otherwise leave the cancellation standing). The update is idempotent.
@@ -97,9 +120,14 @@ export async function setCancelAtPeriodEnd(db: Db, stripe: Stripe, userId: strin
 async function changeTarget(db: Db, stripe: Stripe, userId: string, planId: string) {
   const sub = await liveSubscription(db, userId);
   const plan = await findPlan(db, planId);
-  if (!plan || plan.retiredAt || !plan.stripePriceId) throw unprocessable("That plan is not on offer.", { planId: "Choose one of the plans on offer." });
-  if (plan.id === sub.planId) throw unprocessable("You are on that plan already.", { planId: "Choose a different plan." });
-  if (plan.currency !== sub.plan.currency) throw unprocessable(`That plan is in ${plan.currency}; yours is in ${sub.plan.currency}.`, { planId: "Choose a plan in your currency." });
+  if (!plan || plan.retiredAt || !plan.stripePriceId)
+    throw unprocessable("That plan is not on offer.", { planId: "Choose one of the plans on offer." });
+  if (plan.id === sub.planId)
+    throw unprocessable("You are on that plan already.", { planId: "Choose a different plan." });
+  if (plan.currency !== sub.plan.currency)
+    throw unprocessable(`That plan is in ${plan.currency}; yours is in ${sub.plan.currency}.`, {
+      planId: "Choose a plan in your currency.",
+    });
   const remote = await stripe.subscriptions.retrieve(sub.stripeSubscriptionId);
   const item = remote.items.data[0];
   if (!item) throw new Error(`subscription ${remote.id} has no items`);
@@ -118,7 +146,8 @@ export async function previewPlanChange(db: Db, stripe: Stripe, userId: string, 
     subscription: t.sub.stripeSubscriptionId,
     subscription_details: { items: [{ id: t.itemId, price: t.priceId }], proration_behavior: "always_invoice" },
   });
-  const prorationDate = preview.parent?.subscription_details?.subscription_proration_date ?? Math.floor(Date.now() / 1000);
+  const prorationDate =
+    preview.parent?.subscription_details?.subscription_proration_date ?? Math.floor(Date.now() / 1000);
   return {
     planId: t.plan.id,
     planName: t.plan.name,

@@ -16,14 +16,22 @@ export async function ensureCustomer(db: Db, stripe: Stripe, person: Person): Pr
   const known = await customerOf(db, person.id);
   if (known) return known;
   // The key makes a double click create one customer (Stripe docs: "Idempotent requests").
-  const customer = await stripe.customers.create({ email: person.email, name: person.name, metadata: { userId: person.id } }, { idempotencyKey: `customer:${person.id}` });
+  const customer = await stripe.customers.create(
+    { email: person.email, name: person.name, metadata: { userId: person.id } },
+    { idempotencyKey: `customer:${person.id}` },
+  );
   await setCustomer(db, person.id, customer.id);
   return customer.id;
 }
 
 const appUrl = () => env().APP_URL.replace(/\/$/, "");
 
-export async function startCheckout(db: Db, stripe: Stripe, person: Person, input: { planId: string; courseId?: string | undefined }): Promise<{ url: string }> {
+export async function startCheckout(
+  db: Db,
+  stripe: Stripe,
+  person: Person,
+  input: { planId: string; courseId?: string | undefined },
+): Promise<{ url: string }> {
   const plan = await findPlan(db, input.planId);
   if (!plan || plan.retiredAt || !plan.stripePriceId) throw notFound("That plan is not on offer.");
   const course = input.courseId ? await findCourse(db, input.courseId) : null;
@@ -33,7 +41,11 @@ export async function startCheckout(db: Db, stripe: Stripe, person: Person, inpu
     throw conflict("You are already a member: change your plan on the billing page.");
   }
   const customer = await ensureCustomer(db, stripe, person);
-  const metadata: Record<string, string> = { userId: person.id, planId: plan.id, ...(course ? { courseId: course.id } : {}) };
+  const metadata: Record<string, string> = {
+    userId: person.id,
+    planId: plan.id,
+    ...(course ? { courseId: course.id } : {}),
+  };
   const back = course ? `&course=${encodeURIComponent(course.slug)}` : "";
   const session = await stripe.checkout.sessions.create({
     mode: "subscription",

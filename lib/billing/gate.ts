@@ -8,8 +8,7 @@ import { membershipsOf, type MembershipRow } from "@/db/queries/membership";
 export type Role = "student" | "teacher" | "admin";
 
 export type MemberStanding =
-  | { good: true; reason: "staff" | "active" | "grace"; until: Date | null }
-  | { good: false; why: string };
+  { good: true; reason: "staff" | "active" | "grace"; until: Date | null } | { good: false; why: string };
 
 /** Pure: the standing one subscription gives at `now`. */
 export function standingOf(row: MembershipRow, now: Date): MemberStanding {
@@ -18,12 +17,20 @@ export function standingOf(row: MembershipRow, now: Date): MemberStanding {
     case "active":
     case "trialing":
       // Cancelled at period end keeps access until that end (Stripe keeps the status "active" until then).
-      return periodOpen ? { good: true, reason: "active", until: row.currentPeriodEnd } : { good: false, why: "Your membership has ended." };
+      return periodOpen
+        ? { good: true, reason: "active", until: row.currentPeriodEnd }
+        : { good: false, why: "Your membership has ended." };
     case "past_due":
       if (row.graceUntil && row.graceUntil > now) return { good: true, reason: "grace", until: row.graceUntil };
-      return { good: false, why: "Your last membership payment failed: update your card on the billing page to open the catalogue again." };
+      return {
+        good: false,
+        why: "Your last membership payment failed: update your card on the billing page to open the catalogue again.",
+      };
     case "unpaid":
-      return { good: false, why: "Your membership is unpaid: pay the open invoice on the billing page to open the catalogue again." };
+      return {
+        good: false,
+        why: "Your membership is unpaid: pay the open invoice on the billing page to open the catalogue again.",
+      };
     case "canceled":
     case "incomplete_expired":
       return { good: false, why: "Your membership has ended: choose a plan to open the catalogue again." };
@@ -35,7 +42,11 @@ export function standingOf(row: MembershipRow, now: Date): MemberStanding {
 }
 
 /** Whether this person's membership opens the member-only catalogue now; teachers and admins always. */
-export async function memberStanding(db: Db, person: { id: string; role: Role } | null, now: Date = new Date()): Promise<MemberStanding> {
+export async function memberStanding(
+  db: Db,
+  person: { id: string; role: Role } | null,
+  now: Date = new Date(),
+): Promise<MemberStanding> {
   if (!person) return { good: false, why: "Join the school and choose a membership plan to open this." };
   if (person.role !== "student") return { good: true, reason: "staff", until: null };
   const rows = await membershipsOf(db, person.id);

@@ -17,6 +17,7 @@ export async function recomputeGrace(db: Db, subscriptionId: string): Promise<vo
     .where(eq(payments.subscriptionId, subscriptionId))
     .orderBy(desc(payments.createdAt), desc(payments.stripeInvoiceId))
     .limit(1);
-  const graceUntil = latest?.status === "failed" ? new Date(latest.createdAt.getTime() + GRACE_DAYS * 86_400_000) : null;
+  const graceUntil =
+    latest?.status === "failed" ? new Date(latest.createdAt.getTime() + GRACE_DAYS * 86_400_000) : null;
   await db.update(subscriptions).set({ graceUntil }).where(eq(subscriptions.id, subscriptionId));
 }

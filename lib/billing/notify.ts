@@ -7,7 +7,11 @@ import type { BillingMail } from "@/lib/mail/types-billing";
 import { formatDay, formatMoney } from "./money";
 
 async function member(db: Db, userId: string) {
-  const [u] = await db.select({ name: users.name, email: users.email, timeZone: users.timeZone }).from(users).where(eq(users.id, userId)).limit(1);
+  const [u] = await db
+    .select({ name: users.name, email: users.email, timeZone: users.timeZone })
+    .from(users)
+    .where(eq(users.id, userId))
+    .limit(1);
   return u ?? null;
 }
 
@@ -17,7 +21,18 @@ async function planName(db: Db, planId: string | null): Promise<string> {
   return p?.name ?? "membership";
 }
 
-type Payment = { id: string; userId: string; planId: string | null; amount: number; currency: string; receiptNumber: string | null; createdAt: Date; periodStart: Date | null; periodEnd: Date | null; stripeInvoiceId: string };
+type Payment = {
+  id: string;
+  userId: string;
+  planId: string | null;
+  amount: number;
+  currency: string;
+  receiptNumber: string | null;
+  createdAt: Date;
+  periodStart: Date | null;
+  periodEnd: Date | null;
+  stripeInvoiceId: string;
+};
 
 export async function mailReceipt(db: Db, p: Payment): Promise<void> {
   const u = await member(db, p.userId);
@@ -32,10 +47,19 @@ export async function mailReceipt(db: Db, p: Payment): Promise<void> {
     period: p.periodStart && p.periodEnd ? `${formatDay(p.periodStart, tz)} to ${formatDay(p.periodEnd, tz)}` : "",
     receiptUrl: `/learn/billing/receipts/${p.id}`,
   };
-  await enqueueEmail(db, { to: u.email, template: "payment-receipt", data, dedupeKey: `payment-receipt:${p.stripeInvoiceId}` });
+  await enqueueEmail(db, {
+    to: u.email,
+    template: "payment-receipt",
+    data,
+    dedupeKey: `payment-receipt:${p.stripeInvoiceId}`,
+  });
 }
 
-export async function mailFailure(db: Db, p: Payment & { failureMessage: string | null }, graceUntil: Date | null): Promise<void> {
+export async function mailFailure(
+  db: Db,
+  p: Payment & { failureMessage: string | null },
+  graceUntil: Date | null,
+): Promise<void> {
   const u = await member(db, p.userId);
   if (!u) return;
   const data: BillingMail["payment-failed"] = {
@@ -46,10 +70,18 @@ export async function mailFailure(db: Db, p: Payment & { failureMessage: string 
     graceUntil: graceUntil ? formatDay(graceUntil, u.timeZone) : "the end of your current period",
     billingUrl: "/learn/billing",
   };
-  await enqueueEmail(db, { to: u.email, template: "payment-failed", data, dedupeKey: `payment-failed:${p.stripeInvoiceId}` });
+  await enqueueEmail(db, {
+    to: u.email,
+    template: "payment-failed",
+    data,
+    dedupeKey: `payment-failed:${p.stripeInvoiceId}`,
+  });
 }
 
-export async function mailEnded(db: Db, s: { userId: string; planId: string; stripeSubscriptionId: string; endedAt: Date | null }): Promise<void> {
+export async function mailEnded(
+  db: Db,
+  s: { userId: string; planId: string; stripeSubscriptionId: string; endedAt: Date | null },
+): Promise<void> {
   const u = await member(db, s.userId);
   if (!u) return;
   const data: BillingMail["membership-ended"] = {
@@ -58,5 +90,10 @@ export async function mailEnded(db: Db, s: { userId: string; planId: string; str
     endedOn: formatDay(s.endedAt ?? new Date(), u.timeZone),
     plansUrl: "/plans",
   };
-  await enqueueEmail(db, { to: u.email, template: "membership-ended", data, dedupeKey: `membership-ended:${s.stripeSubscriptionId}` });
+  await enqueueEmail(db, {
+    to: u.email,
+    template: "membership-ended",
+    data,
+    dedupeKey: `membership-ended:${s.stripeSubscriptionId}`,
+  });
 }

@@ -13,7 +13,16 @@ export const subscriptionObject = z
   .object({
     id: z.string(),
     customer: idOf,
-    status: z.enum(["incomplete", "incomplete_expired", "trialing", "active", "past_due", "canceled", "unpaid", "paused"]),
+    status: z.enum([
+      "incomplete",
+      "incomplete_expired",
+      "trialing",
+      "active",
+      "past_due",
+      "canceled",
+      "unpaid",
+      "paused",
+    ]),
     cancel_at_period_end: z.boolean().default(false),
     canceled_at: unix.nullable().optional(),
     ended_at: unix.nullable().optional(),
@@ -79,9 +88,15 @@ export const invoiceObject = z
           z.object({
             period: z.object({ start: unix, end: unix }).optional(),
             price: idOf.nullable().optional(),
-            pricing: z.object({ price_details: z.object({ price: idOf }).nullable().optional() }).nullable().optional(),
+            pricing: z
+              .object({ price_details: z.object({ price: idOf }).nullable().optional() })
+              .nullable()
+              .optional(),
             proration: z.boolean().optional(),
-            parent: z.object({ subscription_item_details: z.object({ proration: z.boolean() }).nullable().optional() }).nullable().optional(),
+            parent: z
+              .object({ subscription_item_details: z.object({ proration: z.boolean() }).nullable().optional() })
+              .nullable()
+              .optional(),
           }),
         ),
       })
@@ -103,7 +118,8 @@ export const invoiceObject = z
       amountDue: i.amount_due,
       billingReason: i.billing_reason ?? null,
       subscription: i.parent?.subscription_details?.subscription ?? i.subscription ?? null,
-      paymentIntent: i.payments?.data.find((p) => p.payment?.payment_intent)?.payment?.payment_intent ?? i.payment_intent ?? null,
+      paymentIntent:
+        i.payments?.data.find((p) => p.payment?.payment_intent)?.payment?.payment_intent ?? i.payment_intent ?? null,
       periodStart: main?.period?.start ?? i.period_start ?? null,
       periodEnd: main?.period?.end ?? i.period_end ?? null,
       priceId,
@@ -144,4 +160,5 @@ export const chargeObject = z.object({
     .optional(),
 });
 
-export const toDate = (unixSeconds: number | null): Date | null => (unixSeconds === null ? null : new Date(unixSeconds * 1000));
+export const toDate = (unixSeconds: number | null): Date | null =>
+  unixSeconds === null ? null : new Date(unixSeconds * 1000);

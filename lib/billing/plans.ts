@@ -12,7 +12,11 @@ import { conflict, notFound, unprocessable } from "@/lib/auth/errors";
 import { CURRENCIES } from "./money";
 import type { Stripe } from "./stripe";
 
-const name = z.string({ error: "Give the plan a name." }).trim().min(1, "Give the plan a name.").max(80, "Keep the name under 80 characters.");
+const name = z
+  .string({ error: "Give the plan a name." })
+  .trim()
+  .min(1, "Give the plan a name.")
+  .max(80, "Keep the name under 80 characters.");
 const amount = z
   .number({ error: "Give the price as a whole number of minor units (pence or cents), e.g. 1800 for £18.00." })
   .int("Give the price as a whole number of minor units (pence or cents), e.g. 1800 for £18.00.")
@@ -24,10 +28,20 @@ const currency = z
   .transform((c) => c.trim().toUpperCase())
   .pipe(z.enum(CURRENCIES, { error: "Choose a currency: GBP, EUR or USD (ISO 4217 codes)." }));
 const interval = z.enum(["month", "year"], { error: "The interval is month or year." });
-const opens = z.string().trim().min(1, "Say what the plan opens.").max(300, "Keep “what it opens” under 300 characters.");
+const opens = z
+  .string()
+  .trim()
+  .min(1, "Say what the plan opens.")
+  .max(300, "Keep “what it opens” under 300 characters.");
 
 export const planInput = z.object({ name, amount, currency, interval, opens: opens.default("The whole catalogue") });
-export const planPatch = z.object({ name: name.optional(), opens: opens.optional(), amount: amount.optional(), currency: currency.optional(), interval: interval.optional() });
+export const planPatch = z.object({
+  name: name.optional(),
+  opens: opens.optional(),
+  amount: amount.optional(),
+  currency: currency.optional(),
+  interval: interval.optional(),
+});
 export type PlanInput = z.output<typeof planInput>;
 export type PlanPatch = z.output<typeof planPatch>;
 
@@ -35,13 +49,24 @@ export type PlanPatch = z.output<typeof planPatch>;
 function stripeRefusal(e: unknown): never {
   if (e && typeof e === "object" && "type" in e && "message" in e && typeof e.message === "string") {
     const param = "param" in e && typeof e.param === "string" ? e.param : "form";
-    throw unprocessable(`Stripe refused the plan: ${e.message}`, { [param === "unit_amount" ? "amount" : param]: e.message });
+    throw unprocessable(`Stripe refused the plan: ${e.message}`, {
+      [param === "unit_amount" ? "amount" : param]: e.message,
+    });
   }
   throw e;
 }
 
-async function newPrice(stripe: Stripe, productId: string, p: { amount: number; currency: string; interval: "month" | "year" }) {
-  return stripe.prices.create({ product: productId, unit_amount: p.amount, currency: p.currency.toLowerCase(), recurring: { interval: p.interval } });
+async function newPrice(
+  stripe: Stripe,
+  productId: string,
+  p: { amount: number; currency: string; interval: "month" | "year" },
+) {
+  return stripe.prices.create({
+    product: productId,
+    unit_amount: p.amount,
+    currency: p.currency.toLowerCase(),
+    recurring: { interval: p.interval },
+  });
 }
 
 export async function createPlan(db: Db, stripe: Stripe, input: PlanInput): Promise<PlanRow> {
@@ -63,8 +88,15 @@ export async function createPlan(db: Db, stripe: Stripe, input: PlanInput): Prom
 export async function updatePlan(db: Db, stripe: Stripe, id: string, patch: PlanPatch): Promise<PlanRow> {
   const plan = await findPlan(db, id);
   if (!plan) throw notFound("We couldn't find that plan.");
-  const next = { name: patch.name ?? plan.name, opens: patch.opens ?? plan.opens, amount: patch.amount ?? plan.amount, currency: patch.currency ?? plan.currency, interval: patch.interval ?? plan.interval };
-  const priceChanged = next.amount !== plan.amount || next.currency !== plan.currency || next.interval !== plan.interval;
+  const next = {
+    name: patch.name ?? plan.name,
+    opens: patch.opens ?? plan.opens,
+    amount: patch.amount ?? plan.amount,
+    currency: patch.currency ?? plan.currency,
+    interval: patch.interval ?? plan.interval,
+  };
+  const priceChanged =
+    next.amount !== plan.amount || next.currency !== plan.currency || next.interval !== plan.interval;
   if (priceChanged && plan.retiredAt) throw conflict("A retired plan keeps its price.");
   let stripePriceId = plan.stripePriceId;
   try {
@@ -78,7 +110,11 @@ export async function updatePlan(db: Db, stripe: Stripe, id: string, patch: Plan
   } catch (e) {
     stripeRefusal(e);
   }
-  const [row] = await db.update(plans).set({ ...next, stripePriceId }).where(eq(plans.id, id)).returning();
+  const [row] = await db
+    .update(plans)
+    .set({ ...next, stripePriceId })
+    .where(eq(plans.id, id))
+    .returning();
   return row;
 }
 
@@ -104,4 +140,8 @@ export async function deletePlan(db: Db, stripe: Stripe, id: string): Promise<vo
 }
 
 export type PlanJson = Omit<PlanRow, "retiredAt" | "createdAt"> & { retiredAt: string | null; createdAt: string };
-export const planJson = (p: PlanRow): PlanJson => ({ ...p, retiredAt: p.retiredAt?.toISOString() ?? null, createdAt: p.createdAt.toISOString() });
+export const planJson = (p: PlanRow): PlanJson => ({
+  ...p,
+  retiredAt: p.retiredAt?.toISOString() ?? null,
+  createdAt: p.createdAt.toISOString(),
+});

@@ -10,10 +10,7 @@ import { users } from "@/db/schema";
 import { formatMoney } from "./money";
 import { stripe as appStripe } from "./stripe";
 
-export type RefundPaymentRef =
-  | { paymentId: string }
-  | { stripePaymentIntentId: string }
-  | { stripeInvoiceId: string };
+export type RefundPaymentRef = { paymentId: string } | { stripePaymentIntentId: string } | { stripeInvoiceId: string };
 
 export type RecordRefundInput = RefundPaymentRef & {
   stripeRefundId: string;
@@ -25,12 +22,19 @@ export type RecordRefundInput = RefundPaymentRef & {
   createdAt?: Date;
 };
 
-export type RefundedPayment = { id: string; amount: number; refundedAmount: number; currency: string; status: PaymentStatus };
+export type RefundedPayment = {
+  id: string;
+  amount: number;
+  refundedAmount: number;
+  currency: string;
+  status: PaymentStatus;
+};
 type PaymentStatus = (typeof payments.$inferSelect)["status"];
 
 export type RecordRefundResult = { recorded: boolean; refundId: string; payment: RefundedPayment };
 
-export type RefundErrorCode = "payment_not_found" | "not_refundable" | "over_refund" | "currency_mismatch" | "bad_amount";
+export type RefundErrorCode =
+  "payment_not_found" | "not_refundable" | "over_refund" | "currency_mismatch" | "bad_amount";
 
 /** A refund the payment cannot take; `field` names the input at fault for a 422. */
 export class RefundError extends Error {
@@ -66,7 +70,13 @@ export async function recordRefund(db: Db, input: RecordRefundInput): Promise<Re
   }
   return db.transaction(async (tx) => {
     const [p] = await tx
-      .select({ id: payments.id, amount: payments.amount, refundedAmount: payments.refundedAmount, currency: payments.currency, status: payments.status })
+      .select({
+        id: payments.id,
+        amount: payments.amount,
+        refundedAmount: payments.refundedAmount,
+        currency: payments.currency,
+        status: payments.status,
+      })
       .from(payments)
       .where(whereRef(input))
       .for("update");
@@ -78,17 +88,32 @@ export async function recordRefund(db: Db, input: RecordRefundInput): Promise<Re
     if (seen) {
       // The webhook may have recorded it first: keep who asked for it when the admin path arrives second.
       if (!seen.createdBy && input.createdBy) {
-        await tx.update(refunds).set({ createdBy: input.createdBy, reason: input.reason }).where(eq(refunds.id, seen.id));
+        await tx
+          .update(refunds)
+          .set({ createdBy: input.createdBy, reason: input.reason })
+          .where(eq(refunds.id, seen.id));
       }
       return { recorded: false, refundId: seen.id, payment: p };
     }
-    if (p.status === "failed") throw new RefundError("not_refundable", "A failed payment took no money, so there is nothing to refund.", "paymentId");
+    if (p.status === "failed")
+      throw new RefundError(
+        "not_refundable",
+        "A failed payment took no money, so there is nothing to refund.",
+        "paymentId",
+      );
     if (input.currency.toUpperCase() !== p.currency.toUpperCase()) {
-      throw new RefundError("currency_mismatch", `The refund is in ${input.currency.toUpperCase()} but the payment was in ${p.currency}.`, "currency");
+      throw new RefundError(
+        "currency_mismatch",
+        `The refund is in ${input.currency.toUpperCase()} but the payment was in ${p.currency}.`,
+        "currency",
+      );
     }
     const remaining = p.amount - p.refundedAmount;
     if (input.amount > remaining) {
-      throw new RefundError("over_refund", `At most ${remaining} (minor units of ${p.currency}) of this payment is left to refund; ${input.amount} was asked.`);
+      throw new RefundError(
+        "over_refund",
+        `At most ${remaining} (minor units of ${p.currency}) of this payment is left to refund; ${input.amount} was asked.`,
+      );
     }
     const [row] = await tx
       .insert(refunds)
@@ -121,37 +146,87 @@ export type RefundsApi = { refunds: { create: Stripe["refunds"]["create"] } };
  * The admin's refund: checks what remains, asks Stripe (through the SDK) to refund, then records it.
  * The charge.refunded webhook Stripe sends for the same refund finds it already recorded.
  */
-export async function refundPayment(db: Db, admin: { id: string }, req: RefundRequest, stripe?: RefundsApi): Promise<RecordRefundResult> {
+export async function refundPayment(
+  db: Db,
+  admin: { id: string },
+  req: RefundRequest,
+  stripe?: RefundsApi,
+): Promise<RecordRefundResult> {
   const reason = req.reason.trim();
   if (!reason) throw new RefundError("bad_amount", "Say why the payment is refunded.", "amount");
   const [p] = await db
-    .select({ id: payments.id, amount: payments.amount, refundedAmount: payments.refundedAmount, currency: payments.currency, status: payments.status, pi: payments.stripePaymentIntentId })
+    .select({
+      id: payments.id,
+      amount: payments.amount,
+      refundedAmount: payments.refundedAmount,
+      currency: payments.currency,
+      status: payments.status,
+      pi: payments.stripePaymentIntentId,
+    })
     .from(payments)
     .where(eq(payments.id, req.paymentId));
   if (!p) throw new RefundError("payment_not_found", "We couldn't find that payment.", "paymentId");
-  if (p.status === "failed" || !p.pi) throw new RefundError("not_refundable", "A failed payment took no money, so there is nothing to refund.", "paymentId");
+  if (p.status === "failed" || !p.pi)
+    throw new RefundError(
+      "not_refundable",
+      "A failed payment took no money, so there is nothing to refund.",
+      "paymentId",
+    );
   const remaining = p.amount - p.refundedAmount;
   const amount = req.amount ?? remaining;
   if (!Number.isInteger(amount) || amount <= 0) {
-    throw new RefundError(remaining === 0 ? "over_refund" : "bad_amount", remaining === 0 ? "This payment has been refunded in full already." : "A refund amount must be a whole number of minor units above zero.");
+    throw new RefundError(
+      remaining === 0 ? "over_refund" : "bad_amount",
+      remaining === 0
+        ? "This payment has been refunded in full already."
+        : "A refund amount must be a whole number of minor units above zero.",
+    );
   }
-  if (amount > remaining) throw new RefundError("over_refund", `At most ${remaining} (minor units of ${p.currency}) of this payment is left to refund; ${amount} was asked.`);
+  if (amount > remaining)
+    throw new RefundError(
+      "over_refund",
+      `At most ${remaining} (minor units of ${p.currency}) of this payment is left to refund; ${amount} was asked.`,
+    );
   // The key ties the request to the payment's refund state, so a double click makes one refund
   // (Stripe docs: "Idempotent requests").
   // The client only now: a refusal above needs no Stripe (nor its settings).
   const refund = await (stripe ?? appStripe()).refunds.create(
-    { payment_intent: p.pi, amount, reason: "requested_by_customer", metadata: { reason, created_by: admin.id, payment_id: p.id } },
+    {
+      payment_intent: p.pi,
+      amount,
+      reason: "requested_by_customer",
+      metadata: { reason, created_by: admin.id, payment_id: p.id },
+    },
     { idempotencyKey: `refund:${p.id}:${p.refundedAmount}:${amount}` },
   );
-  const result = await recordRefund(db, { paymentId: p.id, stripeRefundId: refund.id, amount: refund.amount, currency: refund.currency, reason, createdBy: admin.id });
+  const result = await recordRefund(db, {
+    paymentId: p.id,
+    stripeRefundId: refund.id,
+    amount: refund.amount,
+    currency: refund.currency,
+    reason,
+    createdBy: admin.id,
+  });
   await mailRefund(db, p.id, refund.id, refund.amount, p.currency, reason);
   return result;
 }
 
 /** "refund-issued" to the member; the same key as the charge.refunded webhook's, so one mail whichever path comes first. */
-async function mailRefund(db: Db, paymentId: string, stripeRefundId: string, amount: number, currency: string, reason: string): Promise<void> {
+async function mailRefund(
+  db: Db,
+  paymentId: string,
+  stripeRefundId: string,
+  amount: number,
+  currency: string,
+  reason: string,
+): Promise<void> {
   const [p] = await db
-    .select({ email: users.email, name: users.name, receipt: payments.receiptNumber, invoice: payments.stripeInvoiceId })
+    .select({
+      email: users.email,
+      name: users.name,
+      receipt: payments.receiptNumber,
+      invoice: payments.stripeInvoiceId,
+    })
     .from(payments)
     .innerJoin(users, eq(users.id, payments.userId))
     .where(eq(payments.id, paymentId));
@@ -159,7 +234,13 @@ async function mailRefund(db: Db, paymentId: string, stripeRefundId: string, amo
   await enqueueEmail(db, {
     to: p.email,
     template: "refund-issued",
-    data: { name: p.name, amount: formatMoney(amount, currency), receiptNumber: p.receipt ?? p.invoice, reason, receiptUrl: `/learn/billing/receipts/${paymentId}` },
+    data: {
+      name: p.name,
+      amount: formatMoney(amount, currency),
+      receiptNumber: p.receipt ?? p.invoice,
+      reason,
+      receiptUrl: `/learn/billing/receipts/${paymentId}`,
+    },
     dedupeKey: `refund-issued:${stripeRefundId}`,
   });
 }

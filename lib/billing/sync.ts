@@ -15,7 +15,12 @@ export async function fetchSubscription(stripe: Stripe, id: string): Promise<Sub
 }
 
 /** Applies the subscription as of `eventCreated` (unix seconds); returns the row, or null when it is not ours. */
-export async function syncSubscription(db: Db, stripe: Stripe, facts: SubscriptionFacts, eventCreated: number): Promise<SubscriptionRow | null> {
+export async function syncSubscription(
+  db: Db,
+  stripe: Stripe,
+  facts: SubscriptionFacts,
+  eventCreated: number,
+): Promise<SubscriptionRow | null> {
   const at = new Date(eventCreated * 1000);
   const existing = await subscriptionByStripeId(db, facts.id);
   const seen = existing?.stripeUpdatedAt?.getTime();
@@ -26,7 +31,9 @@ export async function syncSubscription(db: Db, stripe: Stripe, facts: Subscripti
   const plan = s.priceId ? await planByPrice(db, s.priceId, s.productId) : null;
   const planId = plan?.id ?? existing?.planId ?? s.metadata.planId;
   if (!userId || !planId) {
-    console.warn(`[billing] subscription ${s.id}: no member or plan of ours (customer ${s.customer}, price ${s.priceId}); ignored`);
+    console.warn(
+      `[billing] subscription ${s.id}: no member or plan of ours (customer ${s.customer}, price ${s.priceId}); ignored`,
+    );
     return null;
   }
   const values = {
@@ -59,7 +66,12 @@ export async function syncSubscription(db: Db, stripe: Stripe, facts: Subscripti
 }
 
 /** The row of a Stripe subscription, read from Stripe and written when an invoice or checkout event comes first. */
-export async function ensureSubscription(db: Db, stripe: Stripe, stripeId: string, eventCreated: number): Promise<SubscriptionRow | null> {
+export async function ensureSubscription(
+  db: Db,
+  stripe: Stripe,
+  stripeId: string,
+  eventCreated: number,
+): Promise<SubscriptionRow | null> {
   const existing = await subscriptionByStripeId(db, stripeId);
   if (existing) return existing;
   return syncSubscription(db, stripe, await fetchSubscription(stripe, stripeId), eventCreated);

@@ -22,7 +22,13 @@ async function ownerOf(db: Db, token: string): Promise<Owner | null> {
 /** The assignments the person was given, each their own event. */
 async function received(db: Db, owner: Owner, appUrl: string, host: string): Promise<FeedEvent[]> {
   const rows = await db
-    .select({ id: assignmentStudents.id, dueAt: assignments.dueAt, note: assignments.note, updatedAt: assignments.updatedAt, title: tunes.title })
+    .select({
+      id: assignmentStudents.id,
+      dueAt: assignments.dueAt,
+      note: assignments.note,
+      updatedAt: assignments.updatedAt,
+      title: tunes.title,
+    })
     .from(assignmentStudents)
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
@@ -51,7 +57,12 @@ async function given(db: Db, owner: Owner, appUrl: string, host: string): Promis
     .select({ assignmentId: assignmentStudents.assignmentId, name: users.name })
     .from(assignmentStudents)
     .innerJoin(users, eq(users.id, assignmentStudents.studentId))
-    .where(inArray(assignmentStudents.assignmentId, rows.map((r) => r.id)))
+    .where(
+      inArray(
+        assignmentStudents.assignmentId,
+        rows.map((r) => r.id),
+      ),
+    )
     .orderBy(asc(users.name));
   return rows.map((r) => {
     const students = names.filter((n) => n.assignmentId === r.id).map((n) => n.name);

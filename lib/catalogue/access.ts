@@ -23,7 +23,8 @@ import { bestRung, decideLadder, decideStage, type RungDecision, type StageDecis
 /** Who is asking: the signed-in person, or null for a visitor. */
 export type Viewer = { id: string; role: "student" | "teacher" | "admin" } | null;
 
-const isStaffOf = (viewer: Viewer, teacherId: string): boolean => viewer !== null && (viewer.role === "admin" || viewer.id === teacherId);
+const isStaffOf = (viewer: Viewer, teacherId: string): boolean =>
+  viewer !== null && (viewer.role === "admin" || viewer.id === teacherId);
 
 /** Unpublished courses exist only for their teacher and admins. */
 export function canSeeCourse(viewer: Viewer, course: CourseRow): boolean {
@@ -41,7 +42,8 @@ export async function courseStanding(db: Db, viewer: Viewer, course: CourseRow):
   const [member, status] = await Promise.all([memberStanding(db, viewer), enrolmentIn(db, viewer.id, course.id)]);
   if (!member.good) return { pathway: "taster", why: member.why };
   if (status === "active") return { pathway: "ladder" };
-  if (status === "paused") return { pathway: "taster", why: "Your enrolment in this course is paused: ask your teacher to resume it." };
+  if (status === "paused")
+    return { pathway: "taster", why: "Your enrolment in this course is paused: ask your teacher to resume it." };
   if (status === "ended") return { pathway: "taster", why: "Your enrolment in this course has ended." };
   return { pathway: "taster", why: `Enrol in “${course.title}” to open this rung.` };
 }
@@ -55,9 +57,16 @@ export interface Ladder {
 
 /** A course's ladder as the viewer sees it: every rung with its state and, when locked, why. */
 export async function buildLadder(db: Db, viewer: Viewer, course: CourseRow): Promise<Ladder> {
-  const [rows, gradeRows, standing] = await Promise.all([rungsOf(db, [course.id]), gradesOf(db, course.id), courseStanding(db, viewer, course)]);
+  const [rows, gradeRows, standing] = await Promise.all([
+    rungsOf(db, [course.id]),
+    gradesOf(db, course.id),
+    courseStanding(db, viewer, course),
+  ]);
   const tuneIds = [...new Set(rows.map((r) => r.tuneId))];
-  const [stages, progress] = await Promise.all([stageListOf(db, tuneIds), viewer ? progressOf(db, viewer.id, tuneIds) : new Map<string, number>()]);
+  const [stages, progress] = await Promise.all([
+    stageListOf(db, tuneIds),
+    viewer ? progressOf(db, viewer.id, tuneIds) : new Map<string, number>(),
+  ]);
   const names = new Map<string, Record<number, string>>();
   for (const s of stages) names.set(s.tuneId, { ...names.get(s.tuneId), [s.index]: s.name });
   const withNames = rows.map((r) => ({ ...r, stageNames: names.get(r.tuneId) ?? {} }));
@@ -78,7 +87,11 @@ export async function ladderFor(db: Db, viewer: Viewer, idOrSlug: string): Promi
 }
 
 /** Whether the viewer may open a rung; null when the rung does not exist for them. */
-export async function canOpenRung(db: Db, viewer: Viewer, rungId: string): Promise<{ allowed: boolean; reason?: string } | null> {
+export async function canOpenRung(
+  db: Db,
+  viewer: Viewer,
+  rungId: string,
+): Promise<{ allowed: boolean; reason?: string } | null> {
   const courseId = await courseOfRung(db, rungId);
   const ladder = courseId ? await ladderFor(db, viewer, courseId) : null;
   const rung = ladder?.grades.flatMap((g) => g.rungs).find((r) => r.rungId === rungId);
@@ -110,7 +123,11 @@ export async function tuneAccess(db: Db, viewer: Viewer, tuneId: string): Promis
   if (!own && visible.length === 0) return null;
   const ladders = await Promise.all(visible.map((c) => buildLadder(db, viewer, c)));
   const here = ladders.flatMap((l) =>
-    l.grades.flatMap((g) => g.rungs.filter((r) => r.tuneId === tune.id).map((r) => ({ ...r, ladder: l, staff: l.standing.pathway === "staff" }))),
+    l.grades.flatMap((g) =>
+      g.rungs
+        .filter((r) => r.tuneId === tune.id)
+        .map((r) => ({ ...r, ladder: l, staff: l.standing.pathway === "staff" })),
+    ),
   );
   const best = bestRung(here);
   const staff = own || here.some((r) => r.staff);
@@ -119,14 +136,29 @@ export async function tuneAccess(db: Db, viewer: Viewer, tuneId: string): Promis
   const list = await stageListOf(db, [tune.id]);
   const names = Object.fromEntries(list.map((s) => [s.index, s.name]));
   const stages = list.map((s) => {
-    const d = open ? decideStage(s.index, names, { staff, reached, signedIn: viewer !== null }) : { index: s.index, allowed: false, reason: best?.reason };
+    const d = open
+      ? decideStage(s.index, names, { staff, reached, signedIn: viewer !== null })
+      : { index: s.index, allowed: false, reason: best?.reason };
     return { ...d, name: s.name, kinds: s.kinds };
   });
   const rung = best
-    ? { courseId: best.ladder.course.id, courseTitle: best.ladder.course.title, gradeTitle: best.gradeTitle, position: best.position, isTaster: best.isTaster }
+    ? {
+        courseId: best.ladder.course.id,
+        courseTitle: best.ladder.course.title,
+        gradeTitle: best.gradeTitle,
+        position: best.position,
+        isTaster: best.isTaster,
+      }
     : null;
   const shown = { id: tune.id, title: tune.title, tuneType: tune.tuneType, key: tune.key, meter: tune.meter };
-  return { tune: shown, rung, open, reached, stages, ...(open ? {} : { reason: best?.reason ?? "This tune is not open to you." }) };
+  return {
+    tune: shown,
+    rung,
+    open,
+    reached,
+    stages,
+    ...(open ? {} : { reason: best?.reason ?? "This tune is not open to you." }),
+  };
 }
 
 /** One stage: allowed or why not; null when the tune or the stage does not exist for the viewer. */

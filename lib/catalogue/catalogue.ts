@@ -1,6 +1,15 @@
 // Courses as the catalogue, "my courses" and the ladder show them (issue 5 items 4 and 5).
 import type { Tx as Db } from "@/db/queries/auth";
-import { coursesByIds, coursesTaughtBy, enrolmentsOf, findCourse, publishedCourses, rungsOf, type CourseRow, type RungRow } from "@/db/queries/catalogue";
+import {
+  coursesByIds,
+  coursesTaughtBy,
+  enrolmentsOf,
+  findCourse,
+  publishedCourses,
+  rungsOf,
+  type CourseRow,
+  type RungRow,
+} from "@/db/queries/catalogue";
 import { buildLadder, canSeeCourse, ladderFor, type Ladder, type Viewer } from "./access";
 import type { CatalogueCourse, LadderJson, MyCourse } from "./api-types";
 
@@ -10,17 +19,32 @@ function gradesOfRows(rows: RungRow[]): CatalogueCourse["grades"] {
   for (const r of rows) {
     if (r.gradeId !== last) grades.push({ title: r.gradeTitle, rungs: [] });
     last = r.gradeId;
-    grades[grades.length - 1].rungs.push({ tuneId: r.tuneId, tuneTitle: r.tuneTitle, tuneType: r.tuneType, tuneKey: r.tuneKey, isTaster: r.isTaster });
+    grades[grades.length - 1].rungs.push({
+      tuneId: r.tuneId,
+      tuneTitle: r.tuneTitle,
+      tuneType: r.tuneType,
+      tuneKey: r.tuneKey,
+      isTaster: r.isTaster,
+    });
   }
   return grades;
 }
 
-const courseHead = (c: CourseRow) => ({ id: c.id, slug: c.slug, title: c.title, summary: c.summary, teacherName: c.teacherName });
+const courseHead = (c: CourseRow) => ({
+  id: c.id,
+  slug: c.slug,
+  title: c.title,
+  summary: c.summary,
+  teacherName: c.teacherName,
+});
 
 /** The public catalogue: every published course with its grades and tune titles. */
 export async function catalogueCourses(db: Db): Promise<CatalogueCourse[]> {
   const list = await publishedCourses(db);
-  const rows = await rungsOf(db, list.map((c) => c.id));
+  const rows = await rungsOf(
+    db,
+    list.map((c) => c.id),
+  );
   return list.map((c) => ({ ...courseHead(c), grades: gradesOfRows(rows.filter((r) => r.courseId === c.id)) }));
 }
 

@@ -7,7 +7,13 @@ import type { Viewer } from "./access";
 import type { NoteJson } from "./api-types";
 import { openTune } from "./tune";
 
-const json = (n: NoteRow): NoteJson => ({ id: n.id, bar: n.bar, body: n.body, createdAt: n.createdAt.toISOString(), updatedAt: n.updatedAt.toISOString() });
+const json = (n: NoteRow): NoteJson => ({
+  id: n.id,
+  bar: n.bar,
+  body: n.body,
+  createdAt: n.createdAt.toISOString(),
+  updatedAt: n.updatedAt.toISOString(),
+});
 const NO_NOTE = "We couldn't find that note.";
 
 type Writer = NonNullable<Viewer>;
@@ -17,12 +23,23 @@ export async function notesOn(db: Db, writer: Writer, tuneId: string): Promise<N
   return (await listNotes(db, writer.id, tune.id)).map(json);
 }
 
-export async function addNote(db: Db, writer: Writer, tuneId: string, v: { bar: number; body: string }): Promise<NoteJson> {
+export async function addNote(
+  db: Db,
+  writer: Writer,
+  tuneId: string,
+  v: { bar: number; body: string },
+): Promise<NoteJson> {
   const { tune } = await openTune(db, writer, tuneId);
   return json(await createNote(db, writer.id, tune.id, v));
 }
 
-export async function changeNote(db: Db, writer: Writer, tuneId: string, noteId: string, v: { bar?: number; body?: string }): Promise<NoteJson> {
+export async function changeNote(
+  db: Db,
+  writer: Writer,
+  tuneId: string,
+  noteId: string,
+  v: { bar?: number; body?: string },
+): Promise<NoteJson> {
   const { tune } = await openTune(db, writer, tuneId);
   const row = await updateNote(db, writer.id, tune.id, noteId, v);
   if (!row) throw notFound(NO_NOTE);

@@ -6,11 +6,18 @@ import { COMPARE_MAX, MAX_BAR, NOTE_MAX } from "./limits";
 export { COMPARE_MAX, MAX_BAR, NOTE_MAX };
 
 export const noteInput = z.object({
-  bar: z.coerce.number({ message: "Choose a bar." }).int("Choose a whole bar number.").min(0, "Bars start at 0 (the pickup).").max(MAX_BAR, `Bars go up to ${MAX_BAR}.`),
-  body: z.string().trim().min(1, "Write something in the note.").max(NOTE_MAX, `Keep a note under ${NOTE_MAX} characters.`),
+  bar: z.coerce
+    .number({ message: "Choose a bar." })
+    .int("Choose a whole bar number.")
+    .min(0, "Bars start at 0 (the pickup).")
+    .max(MAX_BAR, `Bars go up to ${MAX_BAR}.`),
+  body: z
+    .string()
+    .trim()
+    .min(1, "Write something in the note.")
+    .max(NOTE_MAX, `Keep a note under ${NOTE_MAX} characters.`),
 });
 export type NoteInput = z.infer<typeof noteInput>;
-
 
 export const compareInput = z.object({
   abc: z

@@ -1,5 +1,12 @@
 // How a tune is named in lists: its title, then its type and key in plain words.
-const MODES: Record<string, string> = { m: "minor", min: "minor", dor: "Dorian", mix: "Mixolydian", maj: "major", "": "major" };
+const MODES: Record<string, string> = {
+  m: "minor",
+  min: "minor",
+  dor: "Dorian",
+  mix: "Mixolydian",
+  maj: "major",
+  "": "major",
+};
 
 /** "G", "Am", "Ador" → "G major", "A minor", "A Dorian" (ABC 2.1 §3.1.14 key names). */
 export function keyWords(key: string): string {

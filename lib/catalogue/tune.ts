@@ -22,16 +22,30 @@ export async function tuneJson(db: Db, viewer: Viewer, tuneId: string): Promise<
   const access = await openTune(db, viewer, tuneId);
   const first = await stageOf(db, access.tune.id, 1);
   return {
-    tune: { ...access.tune, words: `${tuneWords({ tuneType: access.tune.tuneType, tuneKey: access.tune.key })}${access.tune.meter ? `, ${access.tune.meter} time` : ""}` },
+    tune: {
+      ...access.tune,
+      words: `${tuneWords({ tuneType: access.tune.tuneType, tuneKey: access.tune.key })}${access.tune.meter ? `, ${access.tune.meter} time` : ""}`,
+    },
     rung: access.rung,
     reached: access.reached,
-    stages: access.stages.map((s) => ({ index: s.index, name: s.name, kinds: s.kinds, allowed: s.allowed, ...(s.reason ? { reason: s.reason } : {}) })),
+    stages: access.stages.map((s) => ({
+      index: s.index,
+      name: s.name,
+      kinds: s.kinds,
+      allowed: s.allowed,
+      ...(s.reason ? { reason: s.reason } : {}),
+    })),
     phraseMap: first ? phraseMapOf(first.abc) : null,
   };
 }
 
 /** One stage's ABC: 404 for an unknown tune or stage, 403 with the reason for a locked one. */
-export async function stageJson(db: Db, viewer: Viewer, tuneId: string, index: number): Promise<StageAbcJson & { title: string }> {
+export async function stageJson(
+  db: Db,
+  viewer: Viewer,
+  tuneId: string,
+  index: number,
+): Promise<StageAbcJson & { title: string }> {
   const access = await tuneAccess(db, viewer, tuneId);
   const stage = access?.stages.find((s) => s.index === index);
   if (!access || !stage) throw notFound(access ? "This tune has no such stage." : NOT_FOUND);

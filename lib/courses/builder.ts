@@ -46,21 +46,39 @@ async function change(db: Db, course: q.CourseRow, run: (tx: Tx) => Promise<void
 
 /** A URL-safe slug from the title, made unique with -2, -3 … (it never changes afterwards, so links keep working). */
 async function freeSlug(db: Db, title: string): Promise<string> {
-  const base = title.normalize("NFKD").replace(/[\u0300-\u036f]/g, "").toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/^-|-$/g, "").slice(0, 60) || "course";
+  const base =
+    title
+      .normalize("NFKD")
+      .replace(/[\u0300-\u036f]/g, "")
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, "-")
+      .replace(/^-|-$/g, "")
+      .slice(0, 60) || "course";
   for (let n = 1; ; n++) {
     const slug = n === 1 ? base : `${base}-${n}`;
     if (!(await q.slugTaken(db, slug))) return slug;
   }
 }
 
-export async function createCourse(db: Db, user: Pick<CurrentUser, "id">, v: { title: string; summary: string }): Promise<string> {
+export async function createCourse(
+  db: Db,
+  user: Pick<CurrentUser, "id">,
+  v: { title: string; summary: string },
+): Promise<string> {
   return q.insertCourse(db, user.id, { ...v, slug: await freeSlug(db, v.title) });
 }
 
-export async function patchCourse(db: Db, course: q.CourseRow, v: { title?: string; summary?: string; published?: boolean }): Promise<void> {
+export async function patchCourse(
+  db: Db,
+  course: q.CourseRow,
+  v: { title?: string; summary?: string; published?: boolean },
+): Promise<void> {
   if (v.published === true && course.publishedAt === null) {
     const problems = courseProblems(await q.courseLadder(db, course.id), { published: true });
-    if (problems.length) throw unprocessable(`Not published yet: ${problems.map((p) => p.message).join(" ")}`, { published: problems[0].message });
+    if (problems.length)
+      throw unprocessable(`Not published yet: ${problems.map((p) => p.message).join(" ")}`, {
+        published: problems[0].message,
+      });
   }
   const publishedAt = v.published === undefined ? undefined : v.published ? (course.publishedAt ?? new Date()) : null;
   await q.updateCourse(db, course.id, { title: v.title, summary: v.summary, publishedAt });
@@ -69,7 +87,10 @@ export async function patchCourse(db: Db, course: q.CourseRow, v: { title?: stri
 export async function removeCourse(db: Db, course: q.CourseRow): Promise<void> {
   if (course.publishedAt) throw conflict("Unpublish the course before deleting it.");
   const enrolled = await q.enrolmentCount(db, course.id);
-  if (enrolled) throw conflict(`${enrolled} student${enrolled === 1 ? " is" : "s are"} enrolled in this course, so it stays; unpublish it instead.`);
+  if (enrolled)
+    throw conflict(
+      `${enrolled} student${enrolled === 1 ? " is" : "s are"} enrolled in this course, so it stays; unpublish it instead.`,
+    );
   await q.deleteCourse(db, course.id);
 }
 
@@ -97,7 +118,12 @@ export async function removeGrade(db: Db, course: q.CourseRow, gradeId: string):
   await change(db, course, (tx) => q.deleteGrade(tx, gradeId));
 }
 
-export async function addRung(db: Db, user: Editor, course: q.CourseRow, v: { gradeId: string; tuneId: string; requiredStage: number; isTaster: boolean }): Promise<string> {
+export async function addRung(
+  db: Db,
+  user: Editor,
+  course: q.CourseRow,
+  v: { gradeId: string; tuneId: string; requiredStage: number; isTaster: boolean },
+): Promise<string> {
   await gradeIn(db, course.id, v.gradeId);
   const tune = await findTune(db, v.tuneId);
   if (!tune || !mayEdit(user, tune.teacherId)) throw notFound("We couldn't find that tune among yours.");
@@ -114,7 +140,12 @@ async function rungIn(db: Db, courseId: string, rungId: string) {
   return rung;
 }
 
-export async function patchRung(db: Db, course: q.CourseRow, rungId: string, set: { requiredStage?: number; isTaster?: boolean }): Promise<void> {
+export async function patchRung(
+  db: Db,
+  course: q.CourseRow,
+  rungId: string,
+  set: { requiredStage?: number; isTaster?: boolean },
+): Promise<void> {
   await rungIn(db, course.id, rungId);
   await change(db, course, (tx) => q.updateRung(tx, rungId, set));
 }

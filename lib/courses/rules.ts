@@ -39,11 +39,20 @@ export function courseProblems(grades: readonly GradeFacts[], opts: { published:
   for (const g of grades) {
     g.rungs.forEach((r, i) => {
       if (!r.tuneId) {
-        out.push({ gradeId: g.id, rungId: r.id, message: `${where(g, i)} has no tune: choose one or remove the rung.` });
+        out.push({
+          gradeId: g.id,
+          rungId: r.id,
+          message: `${where(g, i)} has no tune: choose one or remove the rung.`,
+        });
         return;
       }
       const first = seen.get(r.tuneId);
-      if (first) out.push({ gradeId: g.id, rungId: r.id, message: `“${r.tuneTitle}” is already on this ladder (${first}); a tune appears once in a course.` });
+      if (first)
+        out.push({
+          gradeId: g.id,
+          rungId: r.id,
+          message: `“${r.tuneTitle}” is already on this ladder (${first}); a tune appears once in a course.`,
+        });
       else seen.set(r.tuneId, where(g, i));
       if (r.requiredStage < 1 || r.requiredStage > r.stageCount) {
         out.push({
@@ -54,7 +63,8 @@ export function courseProblems(grades: readonly GradeFacts[], opts: { published:
       }
     });
   }
-  if (opts.published && grades.every((g) => g.rungs.length === 0)) out.push({ message: "A published course needs at least one rung with a tune." });
+  if (opts.published && grades.every((g) => g.rungs.length === 0))
+    out.push({ message: "A published course needs at least one rung with a tune." });
   return out;
 }
 
@@ -66,9 +76,12 @@ export function newProblems(before: readonly RuleProblem[], after: readonly Rule
 
 /** Notes that do not stop publishing but that a teacher would want to know. */
 export function courseHints(grades: readonly GradeFacts[]): string[] {
-  const out = grades.filter((g) => g.rungs.length === 0).map((g) => `${g.title} has no rungs yet: students will see it empty.`);
+  const out = grades
+    .filter((g) => g.rungs.length === 0)
+    .map((g) => `${g.title} has no rungs yet: students will see it empty.`);
   const rungs = grades.flatMap((g) => g.rungs);
-  if (rungs.length > 0 && !rungs.some((r) => r.isTaster)) out.push("No taster rung yet: visitors and students without a membership will see titles only.");
+  if (rungs.length > 0 && !rungs.some((r) => r.isTaster))
+    out.push("No taster rung yet: visitors and students without a membership will see titles only.");
   return out;
 }
 
@@ -81,8 +94,11 @@ export interface LadderOrder {
 export function orderMismatch(current: readonly GradeFacts[], order: LadderOrder): string | null {
   const sorted = (xs: string[]): string => [...xs].sort().join(",");
   const sameGrades = sorted(current.map((g) => g.id)) === sorted(order.grades.map((g) => g.id));
-  const sameRungs = sorted(current.flatMap((g) => g.rungs.map((r) => r.id))) === sorted(order.grades.flatMap((g) => g.rungs));
-  return sameGrades && sameRungs ? null : "The course changed since this page loaded; reload it and move the rungs again.";
+  const sameRungs =
+    sorted(current.flatMap((g) => g.rungs.map((r) => r.id))) === sorted(order.grades.flatMap((g) => g.rungs));
+  return sameGrades && sameRungs
+    ? null
+    : "The course changed since this page loaded; reload it and move the rungs again.";
 }
 
 /**

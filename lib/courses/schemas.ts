@@ -2,7 +2,8 @@
 // handlers (ENGINEERING.md: zod on both sides).
 import { z } from "zod";
 
-const title = (what: string) => z.string().trim().min(1, `Give the ${what} a title.`).max(120, `Keep the ${what}'s title under 120 characters.`);
+const title = (what: string) =>
+  z.string().trim().min(1, `Give the ${what} a title.`).max(120, `Keep the ${what}'s title under 120 characters.`);
 const id = (what: string) => z.uuid(`Unknown ${what}.`);
 
 export const courseId = z.object({ courseId: id("course") });
@@ -22,7 +23,11 @@ export const gradeInput = courseId.extend({ title: title("grade") });
 export const gradeRef = courseId.extend({ gradeId: id("grade") });
 export const gradePatch = gradeRef.extend({ title: title("grade") });
 
-const requiredStage = z.coerce.number({ message: "Choose a stage." }).int("Choose a stage.").min(1, "Stages start at 1 (the skeleton).").max(8, "No tune has more than 8 stages.");
+const requiredStage = z.coerce
+  .number({ message: "Choose a stage." })
+  .int("Choose a stage.")
+  .min(1, "Stages start at 1 (the skeleton).")
+  .max(8, "No tune has more than 8 stages.");
 
 export const rungInput = courseId.extend({
   gradeId: id("grade"),
@@ -36,7 +41,5 @@ export const rungPatch = rungRef
   .refine((v) => v.requiredStage !== undefined || v.isTaster !== undefined, { message: "Nothing to change." });
 
 export const orderInput = courseId.extend({
-  grades: z
-    .array(z.object({ id: id("grade"), rungs: z.array(id("rung")).max(500) }))
-    .max(100),
+  grades: z.array(z.object({ id: id("grade"), rungs: z.array(id("rung")).max(500) })).max(100),
 });

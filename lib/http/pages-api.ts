@@ -42,7 +42,9 @@ export function pagesApi(methods: Methods) {
     try {
       // The address as the client asked it (as Next.js builds a route handler's request.url).
       const url = new URL(req.url ?? "/", `http://${req.headers.host ?? "localhost"}`);
-      const answer = await methods.GET(new Request(url, { method, headers: headersOf(req.headers) }), { params: Promise.resolve({}) });
+      const answer = await methods.GET(new Request(url, { method, headers: headersOf(req.headers) }), {
+        params: Promise.resolve({}),
+      });
       const body = Buffer.from(await answer.arrayBuffer());
       res.statusCode = answer.status;
       for (const [name, value] of answer.headers) if (name !== "set-cookie") res.setHeader(name, value);

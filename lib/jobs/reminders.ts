@@ -14,7 +14,8 @@ export type ReminderWhen = TeachingMail["due-reminder"]["when"];
 
 const TWO_DAYS_MS = 2 * 24 * 60 * 60 * 1000;
 
-export const reminderKey = (when: ReminderWhen, assignmentStudentId: string, dueAt: Date) => `due-reminder:${when}:${assignmentStudentId}:${dueAt.toISOString()}`;
+export const reminderKey = (when: ReminderWhen, assignmentStudentId: string, dueAt: Date) =>
+  `due-reminder:${when}:${assignmentStudentId}:${dueAt.toISOString()}`;
 
 /**
  * Which reminder is due now, if any; only the most pressing one, so a worker that was down for days
@@ -56,7 +57,13 @@ async function candidates(db: Db, now: Date): Promise<Candidate[]> {
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .innerJoin(users, eq(users.id, assignmentStudents.studentId))
     .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
-    .where(and(eq(assignments.status, "active"), eq(users.disabled, false), lte(assignments.dueAt, new Date(now.getTime() + TWO_DAYS_MS))));
+    .where(
+      and(
+        eq(assignments.status, "active"),
+        eq(users.disabled, false),
+        lte(assignments.dueAt, new Date(now.getTime() + TWO_DAYS_MS)),
+      ),
+    );
 }
 
 /** Queues every reminder due at `now` that was not queued before; returns the keys queued by this call. */
@@ -72,7 +79,9 @@ export async function sendDueReminders(db: Db, now: Date): Promise<string[]> {
   // Skip the ones already in the outbox without a write; the unique key still decides any race.
   const keys = due.map((d) => reminderKey(d.when, d.c.id, d.c.dueAt));
   const done = new Set(
-    (await db.select({ key: emailOutbox.dedupeKey }).from(emailOutbox).where(inArray(emailOutbox.dedupeKey, keys))).map((r) => r.key),
+    (await db.select({ key: emailOutbox.dedupeKey }).from(emailOutbox).where(inArray(emailOutbox.dedupeKey, keys))).map(
+      (r) => r.key,
+    ),
   );
   const queued: string[] = [];
   for (const { c, when, zone } of due) {
@@ -81,7 +90,13 @@ export async function sendDueReminders(db: Db, now: Date): Promise<string[]> {
     const row = await enqueueEmail(db, {
       to: c.email,
       template: "due-reminder",
-      data: { studentName: c.name, tuneTitle: c.title, dueLocal: dueForMail(c.dueAt, zone), when, assignmentUrl: `/learn/assignments/${c.id}` },
+      data: {
+        studentName: c.name,
+        tuneTitle: c.title,
+        dueLocal: dueForMail(c.dueAt, zone),
+        when,
+        assignmentUrl: `/learn/assignments/${c.id}`,
+      },
       dedupeKey: key,
     });
     if (row) queued.push(key);

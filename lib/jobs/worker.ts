@@ -59,7 +59,12 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
   const sweep = options.sweep ?? DEFAULT_SWEEP;
   const concurrency = options.concurrency ?? 4;
 
-  const boss = new PgBoss({ connectionString: url, max: concurrency + 2, schedule: false, application_name: "rosinwood-worker" });
+  const boss = new PgBoss({
+    connectionString: url,
+    max: concurrency + 2,
+    schedule: false,
+    application_name: "rosinwood-worker",
+  });
   boss.on("error", (error) => log(`queue error: ${error.message}`));
   await boss.start(); // creates or migrates pg-boss's own schema ("pgboss")
   const queue = {
@@ -98,9 +103,12 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
 
   const clock = options.clock ?? (() => new Date());
   const remind = () => sendDueReminders(db, clock());
-  const reminderTimer = setInterval(() => {
-    remind().catch((error: unknown) => log(`reminders failed: ${String(error)}`));
-  }, (options.reminders?.intervalSeconds ?? 60) * 1000);
+  const reminderTimer = setInterval(
+    () => {
+      remind().catch((error: unknown) => log(`reminders failed: ${String(error)}`));
+    },
+    (options.reminders?.intervalSeconds ?? 60) * 1000,
+  );
   reminderTimer.unref();
   // Reminders missed while no worker ran go out now; each key can only be queued once.
   const reminded = await remind().catch((error: unknown) => {
@@ -116,9 +124,12 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
     if (n) log(`${n} abandoned upload(s) deleted`);
     return n;
   };
-  const tidyTimer = setInterval(() => {
-    tidy().catch((error: unknown) => log(`upload clean-up failed: ${String(error)}`));
-  }, (options.uploads?.intervalSeconds ?? 3600) * 1000);
+  const tidyTimer = setInterval(
+    () => {
+      tidy().catch((error: unknown) => log(`upload clean-up failed: ${String(error)}`));
+    },
+    (options.uploads?.intervalSeconds ?? 3600) * 1000,
+  );
   tidyTimer.unref();
   await tidy().catch((error: unknown) => log(`upload clean-up failed: ${String(error)}`));
 

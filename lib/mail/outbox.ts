@@ -14,7 +14,10 @@ export type AnyOutgoingMail = { [T in TemplateName]: OutgoingMail<T> }[TemplateN
  * the caller already holds one), so the mail exists exactly when the caller's change does.
  * Returns null when `dedupeKey` was already used: that message was queued before.
  */
-export async function enqueueEmail<T extends TemplateName>(db: DbOrTx, mail: OutgoingMail<T>): Promise<{ id: string } | null> {
+export async function enqueueEmail<T extends TemplateName>(
+  db: DbOrTx,
+  mail: OutgoingMail<T>,
+): Promise<{ id: string } | null> {
   return db.transaction(async (tx) => {
     const [row] = await tx
       .insert(emailOutbox)

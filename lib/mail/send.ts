@@ -28,7 +28,8 @@ export function createMailer(config: MailerConfig): Mailer {
 
 export function mailerFromEnv(): Mailer {
   const e = env();
-  if (!e.RESEND_API_KEY) throw new EnvError("Rosinwood cannot send e-mail: RESEND_API_KEY is missing. See .env.example.");
+  if (!e.RESEND_API_KEY)
+    throw new EnvError("Rosinwood cannot send e-mail: RESEND_API_KEY is missing. See .env.example.");
   return createMailer({ apiKey: e.RESEND_API_KEY, baseUrl: e.RESEND_BASE_URL, from: e.MAIL_FROM, appUrl: e.APP_URL });
 }
 
@@ -56,7 +57,10 @@ export async function sendOutboxEmail(db: DbOrTx, outboxId: string, mailer: Mail
     if (!row) return { outcome: "skipped" as const };
 
     const record = (fields: Partial<typeof emailOutbox.$inferInsert>) =>
-      tx.update(emailOutbox).set({ attempts: sql`${emailOutbox.attempts} + 1`, ...fields }).where(eq(emailOutbox.id, row.id));
+      tx
+        .update(emailOutbox)
+        .set({ attempts: sql`${emailOutbox.attempts} + 1`, ...fields })
+        .where(eq(emailOutbox.id, row.id));
 
     let rendered: RenderedMail;
     try {

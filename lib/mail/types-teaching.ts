@@ -2,7 +2,14 @@
 // Each entry needs a subject in emails/teaching/subjects.ts and a component in emails/teaching/index.ts.
 // Dates arrive already written out in the student's own time zone (e.g. "Friday 11 December, 18:00").
 export interface TeachingMail {
-  "assignment-new": { studentName: string; teacherName: string; tuneTitle: string; dueLocal: string; note: string; assignmentUrl: string };
+  "assignment-new": {
+    studentName: string;
+    teacherName: string;
+    tuneTitle: string;
+    dueLocal: string;
+    note: string;
+    assignmentUrl: string;
+  };
   "checkin-feedback": {
     studentName: string;
     teacherName: string;
@@ -14,5 +21,11 @@ export interface TeachingMail {
     nextStageName: string | null;
     assignmentUrl: string;
   };
-  "due-reminder": { studentName: string; tuneTitle: string; dueLocal: string; when: "two_days" | "due_today" | "overdue"; assignmentUrl: string };
+  "due-reminder": {
+    studentName: string;
+    tuneTitle: string;
+    dueLocal: string;
+    when: "two_days" | "due_today" | "overdue";
+    assignmentUrl: string;
+  };
 }

@@ -26,18 +26,31 @@ export async function startUpload(
     .select({ status: assignments.status, state: stageStates.state })
     .from(assignmentStudents)
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
-    .leftJoin(stageStates, and(eq(stageStates.assignmentStudentId, assignmentStudents.id), eq(stageStates.stageIndex, input.stageIndex)))
+    .leftJoin(
+      stageStates,
+      and(eq(stageStates.assignmentStudentId, assignmentStudents.id), eq(stageStates.stageIndex, input.stageIndex)),
+    )
     .where(and(eq(assignmentStudents.id, input.assignmentStudentId), eq(assignmentStudents.studentId, me.id)));
   // Someone else's assignment is "not found", not "forbidden": its existence is not the caller's business.
   if (!row) throw notFound(NOT_YOURS);
-  if (row.status !== "active") throw unprocessable("This assignment was withdrawn by your teacher.", { assignmentStudentId: "is withdrawn" });
-  if (!row.state) throw unprocessable(`This assignment has no stage ${input.stageIndex}.`, { stageIndex: "does not exist" });
-  if (row.state !== "open") throw unprocessable(`Stage ${input.stageIndex} is not open for a check-in (it is ${row.state.replace("_", " ")}).`, { stageIndex: "is not open" });
+  if (row.status !== "active")
+    throw unprocessable("This assignment was withdrawn by your teacher.", { assignmentStudentId: "is withdrawn" });
+  if (!row.state)
+    throw unprocessable(`This assignment has no stage ${input.stageIndex}.`, { stageIndex: "does not exist" });
+  if (row.state !== "open")
+    throw unprocessable(
+      `Stage ${input.stageIndex} is not open for a check-in (it is ${row.state.replace("_", " ")}).`,
+      { stageIndex: "is not open" },
+    );
   if (input.sizeBytes > MAX_RECORDING_BYTES) {
-    throw unprocessable(`The recording is ${megabytes(input.sizeBytes)}; the limit is 25 MB.`, { sizeBytes: "is larger than 25 MB" });
+    throw unprocessable(`The recording is ${megabytes(input.sizeBytes)}; the limit is 25 MB.`, {
+      sizeBytes: "is larger than 25 MB",
+    });
   }
   if (!/^audio\//i.test(input.contentType)) {
-    throw unprocessable("Only audio recordings can be uploaded.", { contentType: `must be an audio type, not ${input.contentType}` });
+    throw unprocessable("Only audio recordings can be uploaded.", {
+      contentType: `must be an audio type, not ${input.contentType}`,
+    });
   }
 
   const uploadId = randomUUID();
@@ -58,15 +71,27 @@ export async function startUpload(
 }
 
 /** After the browser's PUT: keep the object if it is audio within the limit, otherwise delete it. */
-export async function completeUpload(db: Db, me: CurrentUser, uploadId: string): Promise<{ uploadId: string; contentType: string; sizeBytes: number }> {
-  const [upload] = await db.select().from(uploads).where(and(eq(uploads.id, uploadId), eq(uploads.ownerId, me.id)));
+export async function completeUpload(
+  db: Db,
+  me: CurrentUser,
+  uploadId: string,
+): Promise<{ uploadId: string; contentType: string; sizeBytes: number }> {
+  const [upload] = await db
+    .select()
+    .from(uploads)
+    .where(and(eq(uploads.id, uploadId), eq(uploads.ownerId, me.id)));
   if (!upload) throw notFound("We couldn't find that upload.");
   if (upload.status === "stored") return { uploadId, contentType: upload.contentType, sizeBytes: upload.sizeBytes };
-  if (upload.status === "rejected") throw unprocessable("This upload was refused; please choose the recording again.", { uploadId: "was refused" });
+  if (upload.status === "rejected")
+    throw unprocessable("This upload was refused; please choose the recording again.", { uploadId: "was refused" });
 
   const head = await headObject(upload.storageKey);
-  if (!head) throw unprocessable("The recording has not arrived yet; please upload it again.", { file: "was not received" });
-  const verdict = head.sizeBytes > MAX_RECORDING_BYTES ? ({ ok: false, reason: "larger than 25 MB" } as const) : await judgeAudio(await readStart(upload.storageKey, SNIFF_BYTES), upload.contentType);
+  if (!head)
+    throw unprocessable("The recording has not arrived yet; please upload it again.", { file: "was not received" });
+  const verdict =
+    head.sizeBytes > MAX_RECORDING_BYTES
+      ? ({ ok: false, reason: "larger than 25 MB" } as const)
+      : await judgeAudio(await readStart(upload.storageKey, SNIFF_BYTES), upload.contentType);
   if (!verdict.ok) {
     await deleteObject(upload.storageKey);
     await db.update(uploads).set({ status: "rejected", sizeBytes: head.sizeBytes }).where(eq(uploads.id, uploadId));
@@ -80,14 +105,25 @@ export async function completeUpload(db: Db, me: CurrentUser, uploadId: string):
 }
 
 /** A presigned playback address: the recording's student, the assignment's teacher or an admin. */
-export async function playbackUrl(db: Db, me: CurrentUser, uploadId: string): Promise<{ url: string; expiresInSeconds: number }> {
+export async function playbackUrl(
+  db: Db,
+  me: CurrentUser,
+  uploadId: string,
+): Promise<{ url: string; expiresInSeconds: number }> {
   const [row] = await db
-    .select({ ownerId: uploads.ownerId, key: uploads.storageKey, contentType: uploads.contentType, status: uploads.status, teacherId: assignments.teacherId })
+    .select({
+      ownerId: uploads.ownerId,
+      key: uploads.storageKey,
+      contentType: uploads.contentType,
+      status: uploads.status,
+      teacherId: assignments.teacherId,
+    })
     .from(uploads)
     .leftJoin(assignmentStudents, eq(assignmentStudents.id, uploads.assignmentStudentId))
     .leftJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .where(eq(uploads.id, uploadId));
-  const allowed = row && (me.role === "admin" || row.ownerId === me.id || (row.teacherId !== null && row.teacherId === me.id));
+  const allowed =
+    row && (me.role === "admin" || row.ownerId === me.id || (row.teacherId !== null && row.teacherId === me.id));
   if (!row || !allowed || row.status !== "stored") throw notFound("We couldn't find that recording.");
   return { url: await presignGet(row.key, row.contentType), expiresInSeconds: GET_URL_SECONDS };
 }

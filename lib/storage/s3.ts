@@ -31,7 +31,9 @@ export function storage(): StorageConfig {
   const e = env();
   const missing = (["S3_ENDPOINT", "S3_ACCESS_KEY_ID", "S3_SECRET_ACCESS_KEY"] as const).filter((k) => !e[k]);
   if (missing.length) {
-    throw new StorageConfigError(`Recording storage is not configured: ${missing.join(", ")} ${missing.length === 1 ? "is" : "are"} missing (see .env.example).`);
+    throw new StorageConfigError(
+      `Recording storage is not configured: ${missing.join(", ")} ${missing.length === 1 ? "is" : "are"} missing (see .env.example).`,
+    );
   }
   const client = new S3Client({
     endpoint: e.S3_ENDPOINT,
@@ -62,9 +64,18 @@ export function storageConfigured(): boolean {
  * A presigned PUT for one object. Content-Type and Content-Length are signed headers, so the
  * upload must declare exactly what was asked for (AWS Signature Version 4: signed headers).
  */
-export async function presignPut(key: string, contentType: string, sizeBytes: number): Promise<{ url: string; headers: Record<string, string> }> {
+export async function presignPut(
+  key: string,
+  contentType: string,
+  sizeBytes: number,
+): Promise<{ url: string; headers: Record<string, string> }> {
   const { client, bucket } = storage();
-  const command = new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType, ContentLength: sizeBytes });
+  const command = new PutObjectCommand({
+    Bucket: bucket,
+    Key: key,
+    ContentType: contentType,
+    ContentLength: sizeBytes,
+  });
   const url = await getSignedUrl(client, command, {
     expiresIn: PUT_URL_SECONDS,
     signableHeaders: new Set(["content-type", "content-length"]),

@@ -40,7 +40,8 @@ export function formZone(students: { timeZone: string }[], teacherZone: string):
 
 export async function managedAssignment(db: Tx, me: Manager, id: string): Promise<AssignmentRow> {
   const row = await findAssignment(db, id);
-  if (!row || (me.role !== "admin" && row.teacherId !== me.id)) throw notFound("We couldn't find that assignment among yours.");
+  if (!row || (me.role !== "admin" && row.teacherId !== me.id))
+    throw notFound("We couldn't find that assignment among yours.");
   return row;
 }
 
@@ -57,12 +58,14 @@ function checkPlan(tune: TuneRow, plan: AssignmentCreateInput["stagePlan"], erro
     stagePlan: plan,
     acceptedSwaps: tune.acceptedSwaps,
   });
-  if (!check.ok) errors.stagePlan = check.planReasons.join(" ") || "This stage plan doesn't make clean stages of this tune.";
+  if (!check.ok)
+    errors.stagePlan = check.planReasons.join(" ") || "This stage plan doesn't make clean stages of this tune.";
 }
 
 function checkRule(rule: "teacher_sign_off" | "self_check_in", minutes: number | null, errors: Errors): number | null {
   if (rule === "teacher_sign_off") return null;
-  if (minutes === null) errors.unlockMinutes = "Give the practice minutes a student needs before their own check-in opens the next stage.";
+  if (minutes === null)
+    errors.unlockMinutes = "Give the practice minutes a student needs before their own check-in opens the next stage.";
   return minutes;
 }
 
@@ -101,7 +104,12 @@ async function mailNew(
   });
 }
 
-export async function createAssignment(db: Tx, me: Manager, input: AssignmentCreateInput, now: Date): Promise<{ id: string; assignmentStudentIds: string[] }> {
+export async function createAssignment(
+  db: Tx,
+  me: Manager,
+  input: AssignmentCreateInput,
+  now: Date,
+): Promise<{ id: string; assignmentStudentIds: string[] }> {
   const errors: Errors = {};
   const tune = await findTune(db, input.tuneId);
   if (!tune || (me.role !== "admin" && tune.teacherId !== me.id)) errors.tuneId = "Choose one of your own tunes.";
@@ -109,7 +117,10 @@ export async function createAssignment(db: Tx, me: Manager, input: AssignmentCre
   const students = await assignableStudents(db, scopeOf(me), ids);
   if (students.length !== ids.length) {
     const missing = ids.length - students.length;
-    errors.studentIds = missing === 1 ? "One of the chosen students is not on your roster." : `${missing} of the chosen students are not on your roster.`;
+    errors.studentIds =
+      missing === 1
+        ? "One of the chosen students is not on your roster."
+        : `${missing} of the chosen students are not on your roster.`;
   }
   const teacher = await findUserById(db, me.id);
   const due = checkDue(input.dueLocal, formZone(students, teacher?.timeZone ?? "UTC"), now, errors);
@@ -120,7 +131,10 @@ export async function createAssignment(db: Tx, me: Manager, input: AssignmentCre
 
   return db.transaction(async (tx) => {
     const stages = await assignmentStages(tx, tune.id, input.stagePlan);
-    if (!stages.length) throw unprocessable("This tune has no stages yet; save it in the tune editor first.", { tuneId: "This tune has no stages yet." });
+    if (!stages.length)
+      throw unprocessable("This tune has no stages yet; save it in the tune editor first.", {
+        tuneId: "This tune has no stages yet.",
+      });
     const id = await insertAssignment(tx, {
       teacherId: me.id,
       tuneId: tune.id,
@@ -133,7 +147,11 @@ export async function createAssignment(db: Tx, me: Manager, input: AssignmentCre
       updatedAt: now,
     });
     // Every student's row, then every stage row, each in one statement; then one e-mail each.
-    const assignmentStudentIds = await insertAssignmentStudents(tx, id, students.map((s) => s.id));
+    const assignmentStudentIds = await insertAssignmentStudents(
+      tx,
+      id,
+      students.map((s) => s.id),
+    );
     await insertStageStates(tx, assignmentStudentIds, stages.length, now);
     for (const [i, s] of students.entries()) {
       await mailNew(tx, s, assignmentStudentIds[i], {
@@ -156,21 +174,31 @@ export async function editAssignment(db: Tx, me: Manager, input: AssignmentEditI
     const set: Partial<AssignmentRow> = { updatedAt: now };
     if (input.dueLocal !== undefined) {
       const teacher = await findUserById(tx, a.teacherId);
-      const due = checkDue(input.dueLocal, formZone(await studentsOfAssignment(tx, a.id), teacher?.timeZone ?? "UTC"), now, errors);
+      const due = checkDue(
+        input.dueLocal,
+        formZone(await studentsOfAssignment(tx, a.id), teacher?.timeZone ?? "UTC"),
+        now,
+        errors,
+      );
       if (due) set.dueAt = due;
     }
     if (input.note !== undefined) set.note = input.note;
     const rule = input.unlockRule ?? a.unlockRule;
     if (input.unlockRule !== undefined || input.unlockMinutes !== undefined) {
       set.unlockRule = rule;
-      set.unlockMinutes = checkRule(rule, input.unlockMinutes === undefined ? a.unlockMinutes : input.unlockMinutes, errors);
+      set.unlockMinutes = checkRule(
+        rule,
+        input.unlockMinutes === undefined ? a.unlockMinutes : input.unlockMinutes,
+        errors,
+      );
     }
     const planChanged = input.stagePlan !== undefined && !samePlan(input.stagePlan, a.stagePlan);
     if (planChanged) {
       const tune = (await findTune(tx, a.tuneId)) as TuneRow;
       checkPlan(tune, input.stagePlan ?? null, errors);
       // Stages already checked in would lose their meaning if the plan changed under them.
-      if (!errors.stagePlan && (await countCheckIns(tx, a.id)) > 0) errors.stagePlan = "Students have checked in already, so the stage plan stays as it is.";
+      if (!errors.stagePlan && (await countCheckIns(tx, a.id)) > 0)
+        errors.stagePlan = "Students have checked in already, so the stage plan stays as it is.";
       set.stagePlan = input.stagePlan ?? null;
     }
     fail(errors);
@@ -179,7 +207,12 @@ export async function editAssignment(db: Tx, me: Manager, input: AssignmentEditI
       const stages = await assignmentStages(tx, a.tuneId, input.stagePlan ?? null);
       await deleteStageStates(tx, a.id);
       const students = await studentsOfAssignment(tx, a.id);
-      await insertStageStates(tx, students.map((s) => s.assignmentStudentId), stages.length, now);
+      await insertStageStates(
+        tx,
+        students.map((s) => s.assignmentStudentId),
+        stages.length,
+        now,
+      );
     }
   });
 }

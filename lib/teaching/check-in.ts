@@ -11,10 +11,19 @@ import { forbidden, notFound, unprocessable } from "@/lib/auth/errors";
 import { musicGate, ownAssignment, type Person } from "./learn-assignment";
 import { applyTransition, type ApplyResult } from "./transitions";
 
-export type CheckInRequest = { assignmentStudentId: string; stageIndex: number; uploadId: string; selfRating: number; fromMemory: boolean };
+export type CheckInRequest = {
+  assignmentStudentId: string;
+  stageIndex: number;
+  uploadId: string;
+  selfRating: number;
+  fromMemory: boolean;
+};
 
 const checkInSchema = z.object({
-  stageIndex: z.number({ error: "Say which stage you are checking in." }).int("The stage must be a whole number.").min(1, "The stage must be 1 or more."),
+  stageIndex: z
+    .number({ error: "Say which stage you are checking in." })
+    .int("The stage must be a whole number.")
+    .min(1, "The stage must be 1 or more."),
   uploadId: z.uuid("Add a recording: record one or choose a file, and wait for it to upload."),
   selfRating: z
     .number({ error: "Rate how it went, from 1 to 5." })
@@ -28,7 +37,8 @@ const checkInSchema = z.object({
 export function parseCheckIn(raw: Record<string, unknown>): Omit<CheckInRequest, "assignmentStudentId"> {
   const v = { ...raw };
   // A form may send numbers as text.
-  for (const k of ["stageIndex", "selfRating"] as const) if (typeof v[k] === "string" && v[k] !== "") v[k] = Number(v[k]);
+  for (const k of ["stageIndex", "selfRating"] as const)
+    if (typeof v[k] === "string" && v[k] !== "") v[k] = Number(v[k]);
   if (v.fromMemory === undefined) v.fromMemory = false;
   const parsed = checkInSchema.safeParse(v);
   if (parsed.success) return parsed.data;
@@ -66,7 +76,12 @@ export async function checkIn(db: Db, actor: Person, req: CheckInRequest, now = 
 }
 
 /** Takes back one's own check-in while it still waits for review; the stage is open again. */
-export async function withdrawCheckIn(db: Db, actor: Person, checkInId: string, now = new Date()): Promise<ApplyResult> {
+export async function withdrawCheckIn(
+  db: Db,
+  actor: Person,
+  checkInId: string,
+  now = new Date(),
+): Promise<ApplyResult> {
   const owner = await checkInOwner(db, checkInId);
   if (!owner || owner.studentId !== actor.id) throw notFound("We couldn't find that check-in.");
   return applyTransition(db, { stageStateId: owner.stageStateId, transition: "withdraw", actor, checkInId, now });

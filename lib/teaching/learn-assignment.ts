@@ -2,7 +2,14 @@
 // check-in, whether the music is open (membership gate; taster-rung tunes always), and the music
 // of the stage being worked on. Anyone but the assignment's student is answered 404.
 import type { Tx as Db } from "@/db/queries/auth";
-import { assignmentOfStudent, checkInsOfStages, stageStatesOf, tuneIsTaster, userZone, type AssignmentRow } from "@/db/queries/learning";
+import {
+  assignmentOfStudent,
+  checkInsOfStages,
+  stageStatesOf,
+  tuneIsTaster,
+  userZone,
+  type AssignmentRow,
+} from "@/db/queries/learning";
 import { notFound } from "@/lib/auth/errors";
 import { memberStanding } from "@/lib/billing/gate";
 import { phraseMapOf } from "@/lib/catalogue/phrase-map";
@@ -23,7 +30,13 @@ export type LearnCheckIn = {
   reviewedAt: string | null;
 };
 
-export type LearnStage = { index: number; name: string; state: StageState; openedAt: string | null; checkIn: LearnCheckIn | null };
+export type LearnStage = {
+  index: number;
+  name: string;
+  state: StageState;
+  openedAt: string | null;
+  checkIn: LearnCheckIn | null;
+};
 
 export type LearnAssignment = {
   assignmentStudentId: string;
@@ -57,7 +70,12 @@ export async function ownAssignment(db: Db, person: Person, assignmentStudentId:
 }
 
 /** Whether the assignment's music is open to its student: taster-rung tunes always, else by membership. */
-export async function musicGate(db: Db, person: Person, tuneId: string, now = new Date()): Promise<{ open: true } | { open: false; why: string }> {
+export async function musicGate(
+  db: Db,
+  person: Person,
+  tuneId: string,
+  now = new Date(),
+): Promise<{ open: true } | { open: false; why: string }> {
   if (await tuneIsTaster(db, tuneId)) return { open: true };
   const standing = await memberStanding(db, person, now);
   return standing.good ? { open: true } : { open: false, why: standing.why };
@@ -75,7 +93,12 @@ function checkInJson(c: Awaited<ReturnType<typeof checkInsOfStages>>[number]): L
   };
 }
 
-export async function learnAssignment(db: Db, person: Person, assignmentStudentId: string, now = new Date()): Promise<LearnAssignment> {
+export async function learnAssignment(
+  db: Db,
+  person: Person,
+  assignmentStudentId: string,
+  now = new Date(),
+): Promise<LearnAssignment> {
   const row = await ownAssignment(db, person, assignmentStudentId);
   const [zone, states, planned, gate] = await Promise.all([
     userZone(db, person.id),
@@ -83,7 +106,10 @@ export async function learnAssignment(db: Db, person: Person, assignmentStudentI
     assignmentStages(db, row.tuneId, row.stagePlan),
     musicGate(db, person, row.tuneId, now),
   ]);
-  const checks = await checkInsOfStages(db, states.map((s) => s.id));
+  const checks = await checkInsOfStages(
+    db,
+    states.map((s) => s.id),
+  );
   const stages: LearnStage[] = states.map((s) => {
     const latest = checks.find((c) => c.stageStateId === s.id); // newest first
     return {
@@ -115,7 +141,12 @@ export async function learnAssignment(db: Db, person: Person, assignmentStudentI
     current,
     music:
       gate.open && currentStage
-        ? { index: currentStage.index, name: currentStage.name, abc: currentStage.abc, phraseMap: phraseMapOf(planned[0]?.abc ?? currentStage.abc) }
+        ? {
+            index: currentStage.index,
+            name: currentStage.name,
+            abc: currentStage.abc,
+            phraseMap: phraseMapOf(planned[0]?.abc ?? currentStage.abc),
+          }
         : null,
   };
 }

@@ -5,7 +5,9 @@
 /** The calendar day an instant falls on in a time zone (IANA name). */
 export function dayIn(zone: string, at: Date = new Date()): string {
   // en-CA writes dates as YYYY-MM-DD (common practice for ISO-like output from Intl).
-  return new Intl.DateTimeFormat("en-CA", { timeZone: zone, year: "numeric", month: "2-digit", day: "2-digit" }).format(at);
+  return new Intl.DateTimeFormat("en-CA", { timeZone: zone, year: "numeric", month: "2-digit", day: "2-digit" }).format(
+    at,
+  );
 }
 
 export function addDays(day: string, n: number): string {
@@ -41,13 +43,23 @@ export function streakOf(days: readonly string[], today: string): number {
 
 /** A due date written out in the student's zone, e.g. "Friday 11 December, 18:00". */
 export function dueWords(due: Date, zone: string): string {
-  return new Intl.DateTimeFormat("en-GB", { timeZone: zone, weekday: "long", day: "numeric", month: "long", hour: "2-digit", minute: "2-digit", hour12: false })
+  return new Intl.DateTimeFormat("en-GB", {
+    timeZone: zone,
+    weekday: "long",
+    day: "numeric",
+    month: "long",
+    hour: "2-digit",
+    minute: "2-digit",
+    hour12: false,
+  })
     .format(due)
     .replace(" at ", ", ");
 }
 
 /** A short name of the zone for showing beside a time ("GMT", "GMT-4", "AEDT"). */
 export function zoneShort(zone: string, at: Date): string {
-  const part = new Intl.DateTimeFormat("en-GB", { timeZone: zone, timeZoneName: "short" }).formatToParts(at).find((p) => p.type === "timeZoneName");
+  const part = new Intl.DateTimeFormat("en-GB", { timeZone: zone, timeZoneName: "short" })
+    .formatToParts(at)
+    .find((p) => p.type === "timeZoneName");
   return part?.value ?? zone;
 }

@@ -33,12 +33,19 @@ const fields = {
     .int("Minutes must be a whole number from 1 to 600.")
     .min(1, "Minutes must be at least 1.")
     .max(MAX_MINUTES, `Minutes can be at most ${MAX_MINUTES} (10 hours) for one entry.`),
-  practisedOn: z.string({ error: "Give the day you practised." }).refine(isRealDay, "The date must be a real day written as YYYY-MM-DD."),
+  practisedOn: z
+    .string({ error: "Give the day you practised." })
+    .refine(isRealDay, "The date must be a real day written as YYYY-MM-DD."),
   tuneId: z.uuid("Choose a tune from the list, or none.").nullable(),
   note: z.string().max(MAX_NOTE, `The note can be at most ${MAX_NOTE} characters.`),
 };
 
-const createSchema = z.object({ minutes: fields.minutes, practisedOn: fields.practisedOn, tuneId: fields.tuneId.default(null), note: fields.note.default("") });
+const createSchema = z.object({
+  minutes: fields.minutes,
+  practisedOn: fields.practisedOn,
+  tuneId: fields.tuneId.default(null),
+  note: fields.note.default(""),
+});
 const editSchema = createSchema.partial();
 
 /** A form sends numbers as text; an empty tune choice means none. */
@@ -67,7 +74,9 @@ function parse<S extends z.ZodType>(schema: S, raw: Record<string, unknown>): z.
 export async function practiceTunes(db: Db, person: Person): Promise<{ id: string; title: string }[]> {
   const enrolled = (await enrolmentsOf(db, person.id)).map((e) => e.courseId);
   const ladders = await Promise.all((await coursesByIds(db, enrolled)).map((c) => buildLadder(db, person, c)));
-  const open = ladders.flatMap((l) => l.grades.flatMap((g) => g.rungs.filter((r) => r.open).map((r) => ({ id: r.tuneId, title: r.tuneTitle }))));
+  const open = ladders.flatMap((l) =>
+    l.grades.flatMap((g) => g.rungs.filter((r) => r.open).map((r) => ({ id: r.tuneId, title: r.tuneTitle }))),
+  );
   const all = [...(await assignedTunes(db, person.id)), ...open, ...(await tasterTunes(db))];
   const byId = new Map(all.map((t) => [t.id, t]));
   return [...byId.values()].sort((a, b) => a.title.localeCompare(b.title));
@@ -77,11 +86,17 @@ async function checkFacts(db: Db, person: Person, v: Partial<PracticeValues>): P
   if (v.practisedOn !== undefined) {
     const today = dayIn(await userZone(db, person.id));
     // "Today" is the student's own day: in Hobart it is already tomorrow for someone in Halifax.
-    if (v.practisedOn > today) throw unprocessable("Please check the highlighted fields.", { practisedOn: `The date can't be in the future: today is ${today} where you are.` });
+    if (v.practisedOn > today)
+      throw unprocessable("Please check the highlighted fields.", {
+        practisedOn: `The date can't be in the future: today is ${today} where you are.`,
+      });
   }
   if (v.tuneId) {
     const allowed = await practiceTunes(db, person);
-    if (!allowed.some((t) => t.id === v.tuneId)) throw unprocessable("Please check the highlighted fields.", { tuneId: "Choose a tune you can open or have been given." });
+    if (!allowed.some((t) => t.id === v.tuneId))
+      throw unprocessable("Please check the highlighted fields.", {
+        tuneId: "Choose a tune you can open or have been given.",
+      });
   }
 }
 

@@ -15,7 +15,10 @@ export const REVIEW_BATCH = 20;
 /** The oldest REVIEW_BATCH check-ins waiting, and how many wait in all. */
 export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: ReviewItem[]; waiting: number }> {
   const teacherId = me.role === "admin" ? null : me.id;
-  const [rows, waiting] = await Promise.all([waitingForReview(db, teacherId, REVIEW_BATCH), countWaiting(db, teacherId)]);
+  const [rows, waiting] = await Promise.all([
+    waitingForReview(db, teacherId, REVIEW_BATCH),
+    countWaiting(db, teacherId),
+  ]);
   // Stages are worked out once per assignment: several students' check-ins often share one.
   const stagesOf = new Map<string, Promise<AssignmentStage[]>>();
   const stages = (assignmentId: string, tuneId: string, plan: StagePlanJson | null) => {

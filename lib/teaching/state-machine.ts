@@ -65,9 +65,19 @@ const STATE_WORDS: Record<StageState, string> = {
 };
 
 /** Signed off (by the reviewer, or by the student's own check-in): the next stage opens unless this is the last. */
-const signedOff = (ctx: DecideContext): Decision => ({ ok: true, next: "signed_off", checkInStatus: "signed_off", opensNext: !ctx.isLastStage });
+const signedOff = (ctx: DecideContext): Decision => ({
+  ok: true,
+  next: "signed_off",
+  checkInStatus: "signed_off",
+  opensNext: !ctx.isLastStage,
+});
 /** A stage that stays where it is, or returns to open: nothing else opens. */
-const moved = (next: StageState, checkInStatus: CheckInStatus): Decision => ({ ok: true, next, checkInStatus, opensNext: false });
+const moved = (next: StageState, checkInStatus: CheckInStatus): Decision => ({
+  ok: true,
+  next,
+  checkInStatus,
+  opensNext: false,
+});
 
 function checkIn(ctx: DecideContext): Decision {
   if (!ctx.actor.isStudentOwner) return refuse(403, "Only the student of this assignment can check in.");
@@ -81,20 +91,23 @@ function checkIn(ctx: DecideContext): Decision {
 function withdraw(ctx: DecideContext): Decision {
   if (!ctx.actor.isStudentOwner) return refuse(403, "Only the student who checked in can withdraw the check-in.");
   if (ctx.state === "signed_off") return refuse(409, "This check-in has already been reviewed and signed off.");
-  if (ctx.state !== "checked_in") return refuse(409, "There is no check-in waiting for review on this stage to withdraw.");
+  if (ctx.state !== "checked_in")
+    return refuse(409, "There is no check-in waiting for review on this stage to withdraw.");
   return moved("open", "withdrawn");
 }
 
 function review(transition: "signOff" | "needsMoreTime", ctx: DecideContext): Decision {
   if (!reviewer(ctx.actor)) return refuse(403, "Only the assignment's teacher or an admin can review a check-in.");
   if (ctx.state === "signed_off") return refuse(409, "This stage has already been signed off.");
-  if (ctx.state !== "checked_in") return refuse(409, `There is no check-in to review: this stage is ${STATE_WORDS[ctx.state]}.`);
+  if (ctx.state !== "checked_in")
+    return refuse(409, `There is no check-in to review: this stage is ${STATE_WORDS[ctx.state]}.`);
   return transition === "signOff" ? signedOff(ctx) : moved("open", "needs_more_time");
 }
 
 export function decide(transition: Transition, ctx: DecideContext): Decision {
   if (!canSee(ctx.actor)) return refuse(404, "Assignment not found.");
-  if (ctx.assignmentStatus === "withdrawn") return refuse(409, "This assignment has been withdrawn; its stages can't change.");
+  if (ctx.assignmentStatus === "withdrawn")
+    return refuse(409, "This assignment has been withdrawn; its stages can't change.");
   switch (transition) {
     case "checkIn":
       return checkIn(ctx);

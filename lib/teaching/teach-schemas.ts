@@ -40,7 +40,12 @@ export const assignmentId = z.object({ id: z.uuid("Unknown assignment.") });
 /** The assignment lists, a page at a time: the teacher's (GET /api/teach/assignments?page=N) and the student's (/learn/assignments?page=N). */
 export const ASSIGNMENTS_PAGE_SIZE = 20;
 export const assignmentsPage = z.object({
-  page: z.coerce.number("The page must be a number.").int("The page must be a whole number.").min(1, "Pages start at 1.").max(100_000, "There are not that many pages.").default(1),
+  page: z.coerce
+    .number("The page must be a number.")
+    .int("The page must be a whole number.")
+    .min(1, "Pages start at 1.")
+    .max(100_000, "There are not that many pages.")
+    .default(1),
 });
 
 export const assignmentEditInput = assignmentId.extend({
@@ -55,5 +60,9 @@ export type AssignmentEditInput = z.output<typeof assignmentEditInput>;
 export const reviewInput = z.object({
   checkInId: z.uuid("Unknown check-in."),
   outcome: z.enum(["signed_off", "needs_more_time"], "Choose sign off or needs more time."),
-  feedback: z.string().trim().max(MAX_FEEDBACK_CHARS, `Keep the feedback under ${MAX_FEEDBACK_CHARS} characters.`).default(""),
+  feedback: z
+    .string()
+    .trim()
+    .max(MAX_FEEDBACK_CHARS, `Keep the feedback under ${MAX_FEEDBACK_CHARS} characters.`)
+    .default(""),
 });

@@ -23,7 +23,10 @@ export function stagesForPlan(abc: string, acceptedSwaps: string[], plan: StageP
 
 export async function assignmentStages(db: Tx, tuneId: string, plan: StagePlanJson | null): Promise<AssignmentStage[]> {
   if (plan) {
-    const [tune] = await db.select({ abc: tunes.abc, acceptedSwaps: tunes.acceptedSwaps }).from(tunes).where(eq(tunes.id, tuneId));
+    const [tune] = await db
+      .select({ abc: tunes.abc, acceptedSwaps: tunes.acceptedSwaps })
+      .from(tunes)
+      .where(eq(tunes.id, tuneId));
     const stages = tune ? stagesForPlan(tune.abc, tune.acceptedSwaps, plan) : null;
     // The plan was checked against this tune when saved; if the tune changed since, fall back to its own stages.
     if (stages) return stages;

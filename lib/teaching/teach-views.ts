@@ -20,7 +20,8 @@ export function assignmentView(row: AssignmentListRow, now: Date): AssignmentVie
     unlockMinutes: a.unlockMinutes,
     note: a.note,
     status: a.status,
-    overdue: a.status === "active" && a.dueAt.getTime() < now.getTime() && row.students.some((s) => s.signedOff < s.stages),
+    overdue:
+      a.status === "active" && a.dueAt.getTime() < now.getTime() && row.students.some((s) => s.signedOff < s.stages),
     students: row.students.map(({ assignmentId: _a, ...s }) => s),
   };
 }

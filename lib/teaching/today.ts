@@ -3,7 +3,14 @@
 // day over the last four weeks — every day and due date in the student's own time zone.
 import type { Tx as Db } from "@/db/queries/auth";
 import { coursesByIds, enrolmentsOf } from "@/db/queries/catalogue";
-import { assignmentsOfStudent, minutesByDay, practiceDaysUpTo, recentFeedback, stageStatesOf, userZone } from "@/db/queries/learning";
+import {
+  assignmentsOfStudent,
+  minutesByDay,
+  practiceDaysUpTo,
+  recentFeedback,
+  stageStatesOf,
+  userZone,
+} from "@/db/queries/learning";
 import { buildLadder } from "@/lib/catalogue/access";
 import { addDays, dayIn, daysBetween, dueWords, streakOf } from "./learn-dates";
 import type { Person } from "./learn-assignment";
@@ -29,18 +36,43 @@ export type TodayData = {
   timeZone: string;
   today: string;
   assignments: TodayAssignment[];
-  nextRungs: { courseId: string; courseTitle: string; tuneId: string; tuneTitle: string; gradeTitle: string; position: number }[];
-  feedback: { checkInId: string; assignmentStudentId: string; tuneTitle: string; stageIndex: number; outcome: string; feedback: string; reviewerName: string; reviewedAt: string }[];
+  nextRungs: {
+    courseId: string;
+    courseTitle: string;
+    tuneId: string;
+    tuneTitle: string;
+    gradeTitle: string;
+    position: number;
+  }[];
+  feedback: {
+    checkInId: string;
+    assignmentStudentId: string;
+    tuneTitle: string;
+    stageIndex: number;
+    outcome: string;
+    feedback: string;
+    reviewerName: string;
+    reviewedAt: string;
+  }[];
   streak: number;
   practisedToday: boolean;
   minutes: { day: string; minutes: number }[];
 };
 
 /** Active assignments, soonest due first; `open` leaves out those whose stages are all signed off. */
-export async function assignmentList(db: Db, person: Person, zone: string, now: Date, o: { open: boolean }): Promise<TodayAssignment[]> {
+export async function assignmentList(
+  db: Db,
+  person: Person,
+  zone: string,
+  now: Date,
+  o: { open: boolean },
+): Promise<TodayAssignment[]> {
   const rows = await assignmentsOfStudent(db, person.id);
   const statesOf = new Map<string, Awaited<ReturnType<typeof stageStatesOf>>>();
-  for (const s of await stageStatesOf(db, rows.map((r) => r.assignmentStudentId))) {
+  for (const s of await stageStatesOf(
+    db,
+    rows.map((r) => r.assignmentStudentId),
+  )) {
     const list = statesOf.get(s.assignmentStudentId);
     if (list) list.push(s);
     else statesOf.set(s.assignmentStudentId, [s]);
@@ -75,7 +107,14 @@ export type AssignmentPage = { items: TodayAssignment[]; total: number; page: nu
  * A page past the last shows the last. Read whole and paged here, not in SQL: "finished" comes from
  * each assignment's stage states, and one student's active assignments number in the dozens.
  */
-export async function assignmentPage(db: Db, person: Person, zone: string, now: Date, page: number, pageSize = ASSIGNMENTS_PAGE_SIZE): Promise<AssignmentPage> {
+export async function assignmentPage(
+  db: Db,
+  person: Person,
+  zone: string,
+  now: Date,
+  page: number,
+  pageSize = ASSIGNMENTS_PAGE_SIZE,
+): Promise<AssignmentPage> {
   const all = await assignmentList(db, person, zone, now, { open: false });
   const finished = (a: TodayAssignment) => a.stageCount > 0 && a.signedOff === a.stageCount;
   const ordered = [...all.filter((a) => !finished(a)), ...all.filter(finished).reverse()];
@@ -91,7 +130,17 @@ async function nextRungs(db: Db, person: Person): Promise<TodayData["nextRungs"]
   return ladders.flatMap((l) => {
     for (const g of l.grades) {
       const rung = g.rungs.find((r) => r.open && r.state !== "done");
-      if (rung) return [{ courseId: l.course.id, courseTitle: l.course.title, tuneId: rung.tuneId, tuneTitle: rung.tuneTitle, gradeTitle: g.title, position: rung.position }];
+      if (rung)
+        return [
+          {
+            courseId: l.course.id,
+            courseTitle: l.course.title,
+            tuneId: rung.tuneId,
+            tuneTitle: rung.tuneTitle,
+            gradeTitle: g.title,
+            position: rung.position,
+          },
+        ];
     }
     return [];
   });

@@ -70,11 +70,16 @@ function actorFor(stage: LockedStage, actor: ApplyInput["actor"]): Actor {
 
 function isUniqueViolation(e: unknown): boolean {
   const inner = e instanceof Error && e.cause instanceof Error ? e.cause : e;
-  return typeof inner === "object" && inner !== null && "code" in inner && (inner as { code: unknown }).code === "23505";
+  return (
+    typeof inner === "object" && inner !== null && "code" in inner && (inner as { code: unknown }).code === "23505"
+  );
 }
 
 async function checkUpload(tx: Tx, stage: LockedStage, input: CheckInInput | undefined): Promise<CheckInInput> {
-  if (!input) throw unprocessable("A check-in needs a recording, a self-rating and whether you played from memory.", { uploadId: "Add a recording." });
+  if (!input)
+    throw unprocessable("A check-in needs a recording, a self-rating and whether you played from memory.", {
+      uploadId: "Add a recording.",
+    });
   if (!Number.isInteger(input.selfRating) || input.selfRating < 1 || input.selfRating > 5) {
     throw unprocessable("Rate yourself from 1 to 5.", {
       selfRating: "Choose a whole number from 1 to 5.",
@@ -104,7 +109,13 @@ async function minutesFor(tx: Tx, stage: LockedStage, timeZone: string): Promise
   return practiceMinutesSince(tx, stage.studentId, stage.tuneId, dayIn(stage.openedAt, timeZone));
 }
 
-async function writeCheckIn(tx: Tx, stage: LockedStage, input: ApplyInput, c: CheckInInput, status: CheckInStatus): Promise<string> {
+async function writeCheckIn(
+  tx: Tx,
+  stage: LockedStage,
+  input: ApplyInput,
+  c: CheckInInput,
+  status: CheckInStatus,
+): Promise<string> {
   try {
     const [row] = await tx
       .insert(checkIns)
@@ -128,7 +139,8 @@ async function writeCheckIn(tx: Tx, stage: LockedStage, input: ApplyInput, c: Ch
 
 async function closeWaiting(tx: Tx, stage: LockedStage, input: ApplyInput, status: CheckInStatus): Promise<string> {
   const waiting = await waitingCheckIn(tx, stage.id);
-  if (!waiting || (input.checkInId && waiting.id !== input.checkInId)) throw conflict("This check-in has already been dealt with.");
+  if (!waiting || (input.checkInId && waiting.id !== input.checkInId))
+    throw conflict("This check-in has already been dealt with.");
   const review = input.transition !== "withdraw";
   await tx
     .update(checkIns)
@@ -152,14 +164,16 @@ export async function applyTransition(db: Tx, input: ApplyInput): Promise<ApplyR
     const stage = await lockStage(tx, input.stageStateId);
     if (!stage) throw new HttpError(404, "Stage not found.");
     const actor = actorFor(stage, input.actor);
-    const people = input.transition === "checkIn" ? await mailPeople(tx, stage.studentId, stage.teacherId, stage.tuneId) : null;
+    const people =
+      input.transition === "checkIn" ? await mailPeople(tx, stage.studentId, stage.teacherId, stage.tuneId) : null;
     const decision = decide(input.transition, {
       state: stage.state,
       actor,
       assignmentStatus: stage.status,
       unlockRule: stage.unlockRule,
       unlockMinutes: stage.unlockMinutes,
-      minutesSinceOpened: input.transition === "checkIn" ? await minutesFor(tx, stage, people?.student?.timeZone ?? "UTC") : undefined,
+      minutesSinceOpened:
+        input.transition === "checkIn" ? await minutesFor(tx, stage, people?.student?.timeZone ?? "UTC") : undefined,
       isLastStage: stage.stageIndex >= (await lastStageIndex(tx, stage.assignmentStudentId)),
     });
     if (!decision.ok) throw new HttpError(decision.status, decision.message);
@@ -174,10 +188,19 @@ export async function applyTransition(db: Tx, input: ApplyInput): Promise<ApplyR
     await setStageState(tx, stage.id, decision.next as "open" | "checked_in" | "signed_off", input.now);
 
     let openedStage: number | null = null;
-    if (decision.opensNext && (await openStage(tx, stage.assignmentStudentId, stage.stageIndex + 1, input.now))) openedStage = stage.stageIndex + 1;
-    if (decision.next === "signed_off") await raiseTuneProgress(tx, stage.studentId, stage.tuneId, stage.stageIndex, input.now);
+    if (decision.opensNext && (await openStage(tx, stage.assignmentStudentId, stage.stageIndex + 1, input.now)))
+      openedStage = stage.stageIndex + 1;
+    if (decision.next === "signed_off")
+      await raiseTuneProgress(tx, stage.studentId, stage.tuneId, stage.stageIndex, input.now);
     if (input.transition === "signOff" || input.transition === "needsMoreTime") {
-      await mailFeedback(tx, stage, checkInId, input.feedback ?? "", decision.checkInStatus as "signed_off" | "needs_more_time", openedStage);
+      await mailFeedback(
+        tx,
+        stage,
+        checkInId,
+        input.feedback ?? "",
+        decision.checkInStatus as "signed_off" | "needs_more_time",
+        openedStage,
+      );
     }
     return {
       stageStateId: stage.id,

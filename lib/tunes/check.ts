@@ -53,7 +53,11 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
   const problems: Problem[] = [...result.warnings];
   const a = result.value;
   if (a.title.trim() === "") {
-    problems.push({ line: fieldLine(abc, "X") + lineOffset, column: 1, message: "The tune needs a title: add a T: line under X:." });
+    problems.push({
+      line: fieldLine(abc, "X") + lineOffset,
+      column: 1,
+      message: "The tune needs a title: add a T: line under X:.",
+    });
   }
   if (problems.length) return { ok: false, problems: sortProblems(problems), planReasons: [] };
 

@@ -27,8 +27,9 @@ export function headerField(abc: string, letter: string): string {
 
 /** The tune type from the R: field (ABC 2.1 §3.1.9 "rhythm"), "other" when it names none we know. */
 export function tuneTypeOf(abc: string): TuneType {
-  const r = headerField(abc, "R").toLowerCase().replace(/[-_\s]+/g, " ");
+  const r = headerField(abc, "R")
+    .toLowerCase()
+    .replace(/[-_\s]+/g, " ");
   const name = r === "slipjig" ? "slip jig" : r;
   return (TUNE_TYPES as readonly string[]).includes(name) ? (name as TuneType) : "other";
 }
-

@@ -10,7 +10,10 @@ export { IMPORT_FILE_NAME, IMPORT_MAX_BYTES, IMPORT_MAX_TUNES };
 const MB = (n: number): string => `${(n / 1024 / 1024).toFixed(n % (1024 * 1024) === 0 ? 0 : 1)} MB`;
 
 export const tooBig = (bytes?: number): HttpError =>
-  new HttpError(413, `${bytes ? `This file is ${MB(bytes)}; ` : "This file is too big; "}the most one import takes is ${MB(IMPORT_MAX_BYTES)}. Split it into smaller files.`);
+  new HttpError(
+    413,
+    `${bytes ? `This file is ${MB(bytes)}; ` : "This file is too big; "}the most one import takes is ${MB(IMPORT_MAX_BYTES)}. Split it into smaller files.`,
+  );
 
 /** The body as text, stopping as soon as it passes the limit instead of holding an endless upload. */
 export async function readUpload(req: Request, maxBytes = IMPORT_MAX_BYTES): Promise<string> {
@@ -47,9 +50,12 @@ export function decodeText(bytes: Uint8Array): string {
 /** The tunes of a file, or a message when there are none or too many. */
 export function tunesOfFile(text: string): TuneText[] {
   const tunes = splitTunes(text);
-  if (tunes.length === 0) throw unprocessable("No tunes found: each tune in an ABC file starts with an X: line and has a K: line.");
+  if (tunes.length === 0)
+    throw unprocessable("No tunes found: each tune in an ABC file starts with an X: line and has a K: line.");
   if (tunes.length > IMPORT_MAX_TUNES) {
-    throw unprocessable(`This file holds ${tunes.length} tunes; the most one import takes is ${IMPORT_MAX_TUNES}. Split it into smaller files.`);
+    throw unprocessable(
+      `This file holds ${tunes.length} tunes; the most one import takes is ${IMPORT_MAX_TUNES}. Split it into smaller files.`,
+    );
   }
   return tunes;
 }

@@ -36,8 +36,16 @@ export async function* importTunes(db: Db, teacherId: string, tunes: readonly Tu
       event = await importOne(db, teacherId, t, i + 1);
     } catch (e) {
       console.error(e);
-      const message = "This tune could not be saved because of a fault on our side; the others were not affected. Try it again on its own.";
-      event = { type: "tune", n: i + 1, line: t.lineOffset + 1, title: headerField(t.abc, "T") || `Tune ${i + 1}`, status: "problems", problems: [{ line: t.lineOffset + 1, column: 1, message }] };
+      const message =
+        "This tune could not be saved because of a fault on our side; the others were not affected. Try it again on its own.";
+      event = {
+        type: "tune",
+        n: i + 1,
+        line: t.lineOffset + 1,
+        title: headerField(t.abc, "T") || `Tune ${i + 1}`,
+        status: "problems",
+        problems: [{ line: t.lineOffset + 1, column: 1, message }],
+      };
     }
     if (event.type === "tune") count[event.status === "problems" ? "failed" : event.status] += 1;
     yield event;

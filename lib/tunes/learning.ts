@@ -22,6 +22,8 @@ export function learningVersion(abc: string, map: PhraseMap, accepted: readonly 
 /** Accepted ids that the current phrase map still offers, in the map's order; the rest are stale. */
 export function offeredSwaps(map: PhraseMap, accepted: readonly string[]): { kept: string[]; dropped: string[] } {
   const offered = map.swaps.map((s) => s.phrase);
-  return { kept: offered.filter((id) => accepted.includes(id)), dropped: accepted.filter((id) => !offered.includes(id)) };
+  return {
+    kept: offered.filter((id) => accepted.includes(id)),
+    dropped: accepted.filter((id) => !offered.includes(id)),
+  };
 }
-

@@ -3,7 +3,16 @@
 // adds) changes afterwards it is flagged sourceChanged, and stays so until it is rebuilt or
 // edited again (PRODUCT.md §4.4).
 import type { Db } from "@/db/client";
-import { dropStagesAfter, insertTune, putStage, stagesOf, updateStage, updateTune, type TuneFields, type TuneRow } from "@/db/queries/tunes";
+import {
+  dropStagesAfter,
+  insertTune,
+  putStage,
+  stagesOf,
+  updateStage,
+  updateTune,
+  type TuneFields,
+  type TuneRow,
+} from "@/db/queries/tunes";
 import type { Problem, Stage } from "@/lib/abc/types";
 import { checkTune, type CheckedTune } from "./check";
 import type { TuneInput } from "./schemas";
@@ -15,10 +24,19 @@ export type SaveOutcome =
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
 function fieldsOf(t: CheckedTune): TuneFields {
-  return { title: t.title, tuneType: t.tuneType, key: t.key, meter: t.meter, abc: t.abc, stagePlan: t.stagePlan, acceptedSwaps: t.acceptedSwaps };
+  return {
+    title: t.title,
+    tuneType: t.tuneType,
+    key: t.key,
+    meter: t.meter,
+    abc: t.abc,
+    stagePlan: t.stagePlan,
+    acceptedSwaps: t.acceptedSwaps,
+  };
 }
 
-const sameKinds = (a: readonly string[], b: readonly string[]): boolean => a.length === b.length && a.every((k, i) => k === b[i]);
+const sameKinds = (a: readonly string[], b: readonly string[]): boolean =>
+  a.length === b.length && a.every((k, i) => k === b[i]);
 
 /**
  * Writes the engine's stages, keeping hand edits; returns the indexes newly flagged. The last
@@ -32,7 +50,11 @@ async function writeStages(tx: Tx, tuneId: string, stages: Stage[], sourceChange
     if (kept?.handEdited && s.index < stages.length) {
       const changed = sourceChanged || !sameKinds(kept.kinds, s.kinds);
       if (changed && !kept.sourceChanged) flagged.push(s.index);
-      await updateStage(tx, tuneId, s.index, { name: s.name, kinds: s.kinds, sourceChanged: kept.sourceChanged || changed });
+      await updateStage(tx, tuneId, s.index, {
+        name: s.name,
+        kinds: s.kinds,
+        sourceChanged: kept.sourceChanged || changed,
+      });
     } else {
       await putStage(tx, tuneId, s);
     }

@@ -23,7 +23,10 @@ export const stagePlanInput = z.object({
 export const abcText = z
   .string()
   .min(1, "Write the tune in ABC first.")
-  .max(MAX_TUNE_CHARS, `One tune is at most ${MAX_TUNE_CHARS.toLocaleString("en")} characters; use Import for a file of many tunes.`);
+  .max(
+    MAX_TUNE_CHARS,
+    `One tune is at most ${MAX_TUNE_CHARS.toLocaleString("en")} characters; use Import for a file of many tunes.`,
+  );
 
 export const tuneInput = z.object({
   abc: abcText,

@@ -16,7 +16,14 @@ export async function tuneView(db: Db, tune: TuneRow): Promise<TuneView> {
     stagePlan: storedPlan(tune.stagePlan),
     acceptedSwaps: tune.acceptedSwaps,
     updatedAt: tune.updatedAt.toISOString(),
-    stages: stages.map((s) => ({ index: s.index, name: s.name, kinds: s.kinds, abc: s.abc, handEdited: s.handEdited, sourceChanged: s.sourceChanged })),
+    stages: stages.map((s) => ({
+      index: s.index,
+      name: s.name,
+      kinds: s.kinds,
+      abc: s.abc,
+      handEdited: s.handEdited,
+      sourceChanged: s.sourceChanged,
+    })),
     courses,
   };
 }

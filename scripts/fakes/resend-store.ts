@@ -32,14 +32,24 @@ export class FakeEmailStore {
     }
   }
 
-  store(message: Omit<FakeEmail, "id" | "created_at" | "idempotency_key" | "body_hash">, key: string | null, rawBody: string): StoreResult {
+  store(
+    message: Omit<FakeEmail, "id" | "created_at" | "idempotency_key" | "body_hash">,
+    key: string | null,
+    rawBody: string,
+  ): StoreResult {
     const bodyHash = createHash("sha256").update(rawBody).digest("hex");
     const earlier = key ? this.byKey.get(key) : undefined;
     if (earlier) {
       // Resend: the same key with another payload is refused (409 invalid_idempotent_request).
       return earlier.body_hash === bodyHash ? { kind: "replayed", email: earlier } : { kind: "conflict" };
     }
-    const email: FakeEmail = { ...message, id: randomUUID(), created_at: new Date().toISOString(), idempotency_key: key, body_hash: bodyHash };
+    const email: FakeEmail = {
+      ...message,
+      id: randomUUID(),
+      created_at: new Date().toISOString(),
+      idempotency_key: key,
+      body_hash: bodyHash,
+    };
     this.remember(email);
     if (this.file) appendFileSync(this.file, `${JSON.stringify(email)}\n`);
     return { kind: "stored", email };

@@ -55,12 +55,16 @@ export async function startResendFake(options: ResendFakeOptions = {}): Promise<
     };
     const bearer = /^Bearer\s+(\S+)\s*$/i.exec(header(req, "authorization") ?? "")?.[1];
     if (!bearer) return answer(401, error(401, "missing_api_key", "Missing API key in the authorization header."));
-    if (options.apiKey && bearer !== options.apiKey) return answer(403, error(403, "invalid_api_key", "API key is invalid."));
+    if (options.apiKey && bearer !== options.apiKey)
+      return answer(403, error(403, "invalid_api_key", "API key is invalid."));
     if (key !== null && (key.length < 1 || key.length > 256)) {
       return answer(400, error(400, "invalid_idempotency_key", "The key must be between 1-256 chars."));
     }
     if (Math.random() < failRate) {
-      return answer(500, error(500, "internal_server_error", "An unexpected error occurred (the stand-in failed on purpose)."));
+      return answer(
+        500,
+        error(500, "internal_server_error", "An unexpected error occurred (the stand-in failed on purpose)."),
+      );
     }
     let body: unknown;
     try {
@@ -72,7 +76,10 @@ export async function startResendFake(options: ResendFakeOptions = {}): Promise<
     if (!checked.ok) return answer(422, error(422, checked.name, checked.message));
     const result = store.store(checked.email, key, raw);
     if (result.kind === "conflict") {
-      return answer(409, error(409, "invalid_idempotent_request", "Same idempotency key used with a different request payload."));
+      return answer(
+        409,
+        error(409, "invalid_idempotent_request", "Same idempotency key used with a different request payload."),
+      );
     }
     return answer(200, { id: result.email.id });
   }
@@ -133,7 +140,8 @@ export async function startResendFake(options: ResendFakeOptions = {}): Promise<
 
 function checkRate(value: unknown): number {
   const rate = Number(value);
-  if (!Number.isFinite(rate) || rate < 0 || rate > 1) throw new Error(`the failure rate must be a number from 0 to 1, not ${String(value)}`);
+  if (!Number.isFinite(rate) || rate < 0 || rate > 1)
+    throw new Error(`the failure rate must be a number from 0 to 1, not ${String(value)}`);
   return rate;
 }
 

@@ -12,9 +12,18 @@ import type { IncomingMessage, ServerResponse } from "node:http";
 const hmac = (key: Buffer | string, data: string) => createHmac("sha256", key).update(data, "utf8").digest();
 const sha256hex = (data: string) => createHash("sha256").update(data, "utf8").digest("hex");
 // RFC 3986 unreserved characters stay; everything else is percent-encoded (SigV4's UriEncode).
-const uriEncode = (s: string) => encodeURIComponent(s).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
+const uriEncode = (s: string) =>
+  encodeURIComponent(s).replace(/[!'()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
 
-type Parsed = { accessKeyId: string; scope: string[]; signedHeaders: string[]; signature: string; amzDate: string; payloadHash: string; expires?: number };
+type Parsed = {
+  accessKeyId: string;
+  scope: string[];
+  signedHeaders: string[];
+  signature: string;
+  amzDate: string;
+  payloadHash: string;
+  expires?: number;
+};
 
 function parse(req: IncomingMessage, query: URLSearchParams): Parsed | null {
   const header = req.headers.authorization;
@@ -30,7 +39,8 @@ function parse(req: IncomingMessage, query: URLSearchParams): Parsed | null {
       expires: Number(query.get("X-Amz-Expires") ?? "0"),
     };
   }
-  const m = header && /^AWS4-HMAC-SHA256 Credential=([^,]+),\s*SignedHeaders=([^,]+),\s*Signature=([0-9a-f]+)$/.exec(header);
+  const m =
+    header && /^AWS4-HMAC-SHA256 Credential=([^,]+),\s*SignedHeaders=([^,]+),\s*Signature=([0-9a-f]+)$/.exec(header);
   if (!m) return null;
   const credential = m[1].split("/");
   return {
@@ -43,15 +53,30 @@ function parse(req: IncomingMessage, query: URLSearchParams): Parsed | null {
   };
 }
 
-function canonicalRequest(req: IncomingMessage, method: string, path: string, query: URLSearchParams, p: Parsed): string {
-  const pairs = [...query.entries()].filter(([k]) => k !== "X-Amz-Signature").map(([k, v]) => [uriEncode(k), uriEncode(v)]);
+function canonicalRequest(
+  req: IncomingMessage,
+  method: string,
+  path: string,
+  query: URLSearchParams,
+  p: Parsed,
+): string {
+  const pairs = [...query.entries()]
+    .filter(([k]) => k !== "X-Amz-Signature")
+    .map(([k, v]) => [uriEncode(k), uriEncode(v)]);
   pairs.sort(([a, av], [b, bv]) => (a < b ? -1 : a > b ? 1 : av < bv ? -1 : av > bv ? 1 : 0));
   const headers = p.signedHeaders.map((name) => {
     const raw = req.headers[name];
     const value = Array.isArray(raw) ? raw.join(",") : (raw ?? "");
     return `${name}:${value.trim().replace(/\s+/g, " ")}\n`;
   });
-  return [method, path, pairs.map(([k, v]) => `${k}=${v}`).join("&"), headers.join(""), p.signedHeaders.join(";"), p.payloadHash].join("\n");
+  return [
+    method,
+    path,
+    pairs.map(([k, v]) => `${k}=${v}`).join("&"),
+    headers.join(""),
+    p.signedHeaders.join(";"),
+    p.payloadHash,
+  ].join("\n");
 }
 
 /** "20261202T023544Z" → epoch ms. */
@@ -69,15 +94,22 @@ export function sigV4Problem(req: IncomingMessage, secrets: Record<string, strin
   if (!secret) return "The AWS Access Key Id you provided does not exist in our records.";
   const [date, region, service, terminal] = p.scope;
   const signedAt = amzTime(p.amzDate);
-  if (Number.isNaN(signedAt) || terminal !== "aws4_request" || p.amzDate.slice(0, 8) !== date) return "The credential scope is malformed.";
+  if (Number.isNaN(signedAt) || terminal !== "aws4_request" || p.amzDate.slice(0, 8) !== date)
+    return "The credential scope is malformed.";
   if (p.expires !== undefined && now > signedAt + p.expires * 1000) return "Request has expired";
   const method = req.method ?? "GET";
   const path = (req.url ?? "/").split("?")[0];
-  const stringToSign = ["AWS4-HMAC-SHA256", p.amzDate, p.scope.join("/"), sha256hex(canonicalRequest(req, method, path, url.searchParams, p))].join("\n");
+  const stringToSign = [
+    "AWS4-HMAC-SHA256",
+    p.amzDate,
+    p.scope.join("/"),
+    sha256hex(canonicalRequest(req, method, path, url.searchParams, p)),
+  ].join("\n");
   const key = hmac(hmac(hmac(hmac(`AWS4${secret}`, date), region), service), "aws4_request");
   const expected = Buffer.from(createHmac("sha256", key).update(stringToSign, "utf8").digest("hex"));
   const given = Buffer.from(p.signature);
-  if (given.length !== expected.length || !timingSafeEqual(given, expected)) return "The request signature we calculated does not match the signature you provided.";
+  if (given.length !== expected.length || !timingSafeEqual(given, expected))
+    return "The request signature we calculated does not match the signature you provided.";
   return null;
 }
 
@@ -89,7 +121,11 @@ export function refuseUnsigned(req: IncomingMessage, res: ServerResponse, secret
   if (req.method === "OPTIONS") return false;
   const problem = sigV4Problem(req, secrets);
   if (!problem) return false;
-  const code = problem.startsWith("The request signature") ? "SignatureDoesNotMatch" : problem.startsWith("The AWS Access") ? "InvalidAccessKeyId" : "AccessDenied";
+  const code = problem.startsWith("The request signature")
+    ? "SignatureDoesNotMatch"
+    : problem.startsWith("The AWS Access")
+      ? "InvalidAccessKeyId"
+      : "AccessDenied";
   // Answer only after an upload's body is read: answering mid-upload lets the client see a reset
   // connection instead of the 403.
   req.on("end", () => {

@@ -41,7 +41,9 @@ export async function startS3Fake(options: { port: number; directory: string; bu
   const server = createServer((req, res) => {
     if (!refuseUnsigned(req, res, SECRETS)) handle(req, res);
   });
-  await new Promise<void>((resolve, reject) => server.once("error", reject).listen(options.port, "127.0.0.1", () => resolve()));
+  await new Promise<void>((resolve, reject) =>
+    server.once("error", reject).listen(options.port, "127.0.0.1", () => resolve()),
+  );
   const { port } = server.address() as AddressInfo;
   return {
     url: `http://127.0.0.1:${port}`,

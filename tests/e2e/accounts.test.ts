@@ -14,7 +14,11 @@ afterAll(async () => {
 });
 
 const stamp = Date.now().toString(36);
-const newcomer = { name: "Hazel Quarrie", email: `hazel.${stamp}@newcomers.example`, password: "hazel-plays-hornpipes" };
+const newcomer = {
+  name: "Hazel Quarrie",
+  email: `hazel.${stamp}@newcomers.example`,
+  password: "hazel-plays-hornpipes",
+};
 
 async function signIn(page: Page, email: string, password: string) {
   await page.getByLabel("E-mail address").fill(email);
@@ -130,7 +134,10 @@ describe("accounts in a real browser", () => {
   it("each role sees only its own area", async () => {
     const page = await signedIn(STUDENTS[0].email, DEMO_PASSWORD, "/learn");
     // Another role's area answers with the not-found page and none of its content.
-    for (const [area, content] of [["/teach", "Your students"], ["/admin/people", "Invite a teacher"]]) {
+    for (const [area, content] of [
+      ["/teach", "Your students"],
+      ["/admin/people", "Invite a teacher"],
+    ]) {
       await page.goto(`${BASE_URL}${area}`);
       await page.locator("main", { hasText: /could not find that page/ }).waitFor();
       const main = await page.locator("main").textContent();
@@ -186,10 +193,14 @@ describe("accounts in a real browser", () => {
     // in turn, so every process looks the session up and keeps it (lib/auth/session-cache.ts).
     const ask = (path: string, method = "GET") =>
       new Promise<number>((resolve, reject) => {
-        request(`${BASE_URL}${path}`, { method, agent: false, headers: { cookie: `rosinwood_session=${session}` } }, (res) => {
-          res.resume();
-          resolve(res.statusCode ?? 0);
-        })
+        request(
+          `${BASE_URL}${path}`,
+          { method, agent: false, headers: { cookie: `rosinwood_session=${session}` } },
+          (res) => {
+            res.resume();
+            resolve(res.statusCode ?? 0);
+          },
+        )
           .on("error", reject)
           .end();
       });

@@ -28,13 +28,20 @@ async function signIn(page: Page, email: string) {
 async function untilAddress(page: Page, act: () => Promise<void>, address: RegExp) {
   for (let attempt = 1; ; attempt++) {
     await act();
-    if (await page.waitForURL(address, { timeout: 10_000 }).then(() => true, () => false)) return;
+    if (
+      await page.waitForURL(address, { timeout: 10_000 }).then(
+        () => true,
+        () => false,
+      )
+    )
+      return;
     if (attempt === 3) throw new Error(`the address did not become ${address}: ${page.url()}`);
   }
 }
 
 /** The table's total: its own request, so "Counting…" (NaN here) until it lands. */
-const totalOf = async (page: Page) => Number(((await page.getByTestId("table-total").textContent()) ?? "").match(/^(\d+)/)?.[1] ?? NaN);
+const totalOf = async (page: Page) =>
+  Number(((await page.getByTestId("table-total").textContent()) ?? "").match(/^(\d+)/)?.[1] ?? NaN);
 const countedTotal = async (page: Page) => {
   await expect.poll(() => totalOf(page)).not.toBeNaN();
   return totalOf(page);
@@ -104,7 +111,10 @@ describe("admin payments in a real browser", () => {
     expect(lines.length - 1).toBe(filtered); // minus the header line (RFC 4180 §2)
 
     // Refund £5.00 of the first row.
-    await page.getByRole("button", { name: /^Refund / }).first().click();
+    await page
+      .getByRole("button", { name: /^Refund / })
+      .first()
+      .click();
     const dialog = page.getByRole("dialog");
     await dialog.waitFor();
     expect(await dialog.getByTestId("refundable").textContent()).toMatch(/£18\.00/);
@@ -146,13 +156,20 @@ describe("admin payments in a real browser", () => {
     const page = await context.newPage();
     await signIn(page, ADMIN.email);
     await page.goto(`${BASE_URL}/admin/memberships?status=past_due`);
-    await page.getByText(/grace until/).first().waitFor(); // the demo member in grace
+    await page
+      .getByText(/grace until/)
+      .first()
+      .waitFor(); // the demo member in grace
     await page.goto(`${BASE_URL}/admin/enrolments?sort=course&dir=asc`);
     await page.getByRole("cell", { name: /Alder/ }).first().waitFor();
     expect(await countedTotal(page)).toBeGreaterThan(10);
     // The roster (an admin's is every student) shows 25 to a page.
     await page.goto(`${BASE_URL}/teach`);
-    const caption = await page.locator("caption").filter({ hasText: /students?$/ }).first().textContent();
+    const caption = await page
+      .locator("caption")
+      .filter({ hasText: /students?$/ })
+      .first()
+      .textContent();
     const students = Number(caption?.match(/of (\d+) student/)?.[1] ?? NaN);
     expect(students).toBeGreaterThan(25); // 28 demo students, and any the other browser tests added
     const pages = Math.ceil(students / 25);

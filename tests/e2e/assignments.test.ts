@@ -49,7 +49,13 @@ async function assignmentLinkMailed(to: string, after: number): Promise<string> 
   const deadline = Date.now() + 45_000;
   for (;;) {
     const { data } = (await (await fetch(`${base}/_fake/emails`)).json()) as { data: FakeEmail[] };
-    const mail = data.find((m) => m.to.some((a) => a.toLowerCase() === to.toLowerCase()) && Date.parse(m.created_at) >= after && pattern.test(m.text ?? m.html ?? "") && (m.text ?? m.html ?? "").includes(TUNE));
+    const mail = data.find(
+      (m) =>
+        m.to.some((a) => a.toLowerCase() === to.toLowerCase()) &&
+        Date.parse(m.created_at) >= after &&
+        pattern.test(m.text ?? m.html ?? "") &&
+        (m.text ?? m.html ?? "").includes(TUNE),
+    );
     if (mail) return pattern.exec(mail.text ?? mail.html ?? "")![1];
     if (Date.now() > deadline) throw new Error(`no assignment mail to ${to} arrived in time`);
     await new Promise((r) => setTimeout(r, 300));
@@ -117,7 +123,9 @@ describe("assignments, check-in and sign-off in the browser", () => {
     await open(juno, `/learn/assignments/${junoId}`, "form[aria-label='Check in stage 1'] button[type=submit]");
     await expect(juno.locator('li[data-stage="1"]').getAttribute("data-state")).resolves.toBe("open");
     await expect(juno.getByTestId("due").textContent()).resolves.toContain("America/Halifax");
-    await juno.getByLabel("Choose a recording file").setInputFiles({ name: "biscuit-take-1.wav", mimeType: "audio/wav", buffer: silentWav() });
+    await juno
+      .getByLabel("Choose a recording file")
+      .setInputFiles({ name: "biscuit-take-1.wav", mimeType: "audio/wav", buffer: silentWav() });
     await juno.getByText("biscuit-take-1.wav is uploaded and ready").waitFor();
     await juno.getByRole("radio", { name: /^4/ }).check();
     await juno.getByRole("checkbox", { name: "Played from memory" }).check();
@@ -202,7 +210,11 @@ describe("assignments, check-in and sign-off in the browser", () => {
   it("the student's pages fit a 375 px phone without sideways scrolling", async () => {
     await morwen.setViewportSize({ width: 375, height: 800 });
     for (const [path, ready, name] of [
-      [`/learn/assignments/${morwenId}`, "form[aria-label='Check in stage 1'] button[type=submit]", "assignments-07-phone-assignment"],
+      [
+        `/learn/assignments/${morwenId}`,
+        "form[aria-label='Check in stage 1'] button[type=submit]",
+        "assignments-07-phone-assignment",
+      ],
       ["/learn/practice", "form[aria-label='Log practice'] button[type=submit]", "assignments-08-phone-practice"],
       ["/learn", "[data-testid=streak]", "assignments-09-phone-today"],
     ] as const) {
@@ -218,19 +230,30 @@ describe("assignments, check-in and sign-off in the browser", () => {
   it("the teacher's list shows 20 assignments a page, with the others on the next", async () => {
     // Enough assignments for two pages, all for Juno, made through the same route the assign form uses.
     const made = await teacher.evaluate(async (junoAssignment) => {
-      type List = { assignments: { tune: { id: string }; students: { studentId: string; assignmentStudentId: string }[] }[]; total: number };
+      type List = {
+        assignments: { tune: { id: string }; students: { studentId: string; assignmentStudentId: string }[] }[];
+        total: number;
+      };
       const list = (await (await fetch("/api/teach/assignments")).json()) as List;
       let juno: { tuneId: string; studentId: string } | undefined;
       for (let page = 1; !juno && (page - 1) * 20 < list.total; page++) {
         const some = page === 1 ? list : ((await (await fetch(`/api/teach/assignments?page=${page}`)).json()) as List);
         const a = some.assignments.find((x) => x.students.some((s) => s.assignmentStudentId === junoAssignment));
-        if (a) juno = { tuneId: a.tune.id, studentId: a.students.find((s) => s.assignmentStudentId === junoAssignment)!.studentId };
+        if (a)
+          juno = {
+            tuneId: a.tune.id,
+            studentId: a.students.find((s) => s.assignmentStudentId === junoAssignment)!.studentId,
+          };
       }
       if (!juno) throw new Error("Juno's assignment is not in the teacher's list");
       for (let i = 0; i < 21; i++) {
         const due = new Date(Date.now() + (30 + i) * 86_400_000).toISOString().slice(0, 10);
         const body = { tuneId: juno.tuneId, studentIds: [juno.studentId], dueLocal: `${due}T18:00` };
-        const res = await fetch("/api/teach/assignments", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+        const res = await fetch("/api/teach/assignments", {
+          method: "POST",
+          headers: { "content-type": "application/json" },
+          body: JSON.stringify(body),
+        });
         if (res.status !== 201) throw new Error(`POST answered ${res.status}: ${await res.text()}`);
       }
       return list.total + 21;
@@ -241,12 +264,17 @@ describe("assignments, check-in and sign-off in the browser", () => {
     expect(await teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count()).toBe(20);
     await teacher.getByRole("button", { name: "Next" }).click();
     await teacher.getByText(`Page 2 of ${pages} · ${made} assignments`).waitFor();
-    await expect.poll(() => teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count()).toBe(pages === 2 ? made - 20 : 20);
+    await expect
+      .poll(() => teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count())
+      .toBe(pages === 2 ? made - 20 : 20);
     await screenshot(teacher, "assignments-10-list-page-2");
   });
 
   it("the student's list pages too: this week's work first, the rest after Next", async () => {
-    const mine = await juno.evaluate(async () => ((await (await fetch("/api/learn/assignments")).json()) as { assignments: unknown[] }).assignments.length);
+    const mine = await juno.evaluate(
+      async () =>
+        ((await (await fetch("/api/learn/assignments")).json()) as { assignments: unknown[] }).assignments.length,
+    );
     expect(mine).toBeGreaterThan(20); // the 21 just made and the one from the first step
     const pages = Math.ceil(mine / 20);
     await open(juno, "/learn/assignments", "nav[aria-label='Assignment pages'] a");
@@ -255,10 +283,19 @@ describe("assignments, check-in and sign-off in the browser", () => {
     expect(await cards().count()).toBe(20);
     // The first step's assignment is due in ten days, before all 21 new ones (30 days and later).
     expect(await cards().first().getByRole("link").getAttribute("href")).toBe(`/learn/assignments/${junoId}`);
-    await follow(juno, juno.getByRole("navigation", { name: "Assignment pages" }).getByRole("link", { name: "Next" }), /\/learn\/assignments\?page=2$/);
+    await follow(
+      juno,
+      juno.getByRole("navigation", { name: "Assignment pages" }).getByRole("link", { name: "Next" }),
+      /\/learn\/assignments\?page=2$/,
+    );
     await juno.getByText(`Page 2 of ${pages} · ${mine} assignments`).waitFor();
     expect(await cards().count()).toBe(pages === 2 ? mine - 20 : 20);
-    expect(await juno.getByRole("navigation", { name: "Assignment pages" }).getByRole("link", { name: "Previous" }).isVisible()).toBe(true);
+    expect(
+      await juno
+        .getByRole("navigation", { name: "Assignment pages" })
+        .getByRole("link", { name: "Previous" })
+        .isVisible(),
+    ).toBe(true);
     await screenshot(juno, "assignments-11-student-list-page-2");
   });
 });

@@ -11,7 +11,11 @@ import { mailedLink } from "./helpers/mail-link";
 let browser: Browser;
 let page: Page;
 const stamp = Date.now().toString(36);
-const newcomer = { name: "Rowan Tillet", email: `rowan.${stamp}@newcomers.example`, password: "rowan-bows-reels-daily" };
+const newcomer = {
+  name: "Rowan Tillet",
+  email: `rowan.${stamp}@newcomers.example`,
+  password: "rowan-bows-reels-daily",
+};
 const MEMBER_RUNG = "Hop the Puddle"; // First Steps, Grade 1 rung 2: not a taster (db/seed-data/catalogue.ts)
 
 beforeAll(async () => {
@@ -32,7 +36,8 @@ async function payWith(card: string) {
   await page.getByRole("button", { name: "Pay" }).click();
 }
 
-const membership = async () => ((await (await page.request.get(`${BASE_URL}/api/billing`)).json()) as { membership: unknown }).membership;
+const membership = async () =>
+  ((await (await page.request.get(`${BASE_URL}/api/billing`)).json()) as { membership: unknown }).membership;
 
 describe("subscribing in a real browser", () => {
   it("signs up and confirms the address from the e-mail", async () => {

@@ -13,7 +13,10 @@ afterAll(async () => {
 
 describe("the home page and health in a real browser", () => {
   it("shows the school's offer with landmarks and a way to join, at desktop and phone widths", async () => {
-    for (const [name, width] of [["home-desktop", 1280], ["home-phone", 375]] as const) {
+    for (const [name, width] of [
+      ["home-desktop", 1280],
+      ["home-phone", 375],
+    ] as const) {
       const page = await browser.newPage({ viewport: { width, height: 900 } });
       const errors: string[] = [];
       page.on("pageerror", (e) => errors.push(e.message));

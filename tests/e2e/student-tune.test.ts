@@ -17,7 +17,12 @@ beforeAll(async () => {
   page = await browser.newPage({ viewport: { width: 1280, height: 1000 } });
   page.on("request", (r) => requests.push(r.url()));
   page.on("pageerror", (e) => errors.push(`${page.url()}: ${e.message}`)); // the address says which page failed
-  page.on("request", (r) => pending.set(r, `${Date.now()} ${r.method()} ${r.url().slice(0, 160)} ${r.headers()["next-router-prefetch"] ? "prefetch" : ""}`));
+  page.on("request", (r) =>
+    pending.set(
+      r,
+      `${Date.now()} ${r.method()} ${r.url().slice(0, 160)} ${r.headers()["next-router-prefetch"] ? "prefetch" : ""}`,
+    ),
+  );
   page.on("requestfinished", (r) => pending.delete(r));
   page.on("requestfailed", (r) => pending.delete(r));
 });
@@ -28,9 +33,14 @@ afterAll(async () => {
 // screenshot, so the failure says why (this is how the stalled link clicks, see follow(), were read).
 beforeEach(({ task, onTestFailed }) => {
   onTestFailed(async () => {
-    const shown = await page.locator("body").innerText().catch((e: Error) => `(no text: ${e.message})`);
+    const shown = await page
+      .locator("body")
+      .innerText()
+      .catch((e: Error) => `(no text: ${e.message})`);
     console.error(`unfinished requests at ${Date.now()}: ${JSON.stringify([...pending.values()])}`);
-    console.error(`"${task.name}" failed at ${page.url()}; page errors: ${JSON.stringify(errors)}; the page showed: ${shown.slice(0, 600)}`);
+    console.error(
+      `"${task.name}" failed at ${page.url()}; page errors: ${JSON.stringify(errors)}; the page showed: ${shown.slice(0, 600)}`,
+    );
     await screenshot(page, `student-tune-failed-${task.name.slice(0, 30).replace(/\W+/g, "-")}`).catch(() => undefined);
   });
 });
@@ -53,26 +63,40 @@ describe("a student's ladder and tune page in a real browser", () => {
     await page.getByRole("button", { name: "Sign in" }).click();
     await page.waitForURL(`${BASE_URL}/learn`);
     await page.goto(`${BASE_URL}/learn/courses`);
-    await follow(page, page.getByRole("link", { name: "Open the ladder of First Steps on the Fiddle" }), /\/learn\/courses\/[0-9a-f-]{36}$/);
+    await follow(
+      page,
+      page.getByRole("link", { name: "Open the ladder of First Steps on the Fiddle" }),
+      /\/learn\/courses\/[0-9a-f-]{36}$/,
+    );
     await page.getByRole("heading", { level: 1, name: "First Steps on the Fiddle" }).waitFor();
   });
 
   it("shows the ladder's rungs by state, and a locked rung says which rung and stage open it", async () => {
-    const states = await page.locator("[data-rung-state]").evaluateAll((els) => els.map((e) => e.getAttribute("data-rung-state")));
+    const states = await page
+      .locator("[data-rung-state]")
+      .evaluateAll((els) => els.map((e) => e.getAttribute("data-rung-state")));
     expect(states.slice(0, 3)).toEqual(["done", "inProgress", "locked"]); // the demo progress of STUDENTS[0]
     const why = page.locator("[data-rung-state=locked] [data-locked-reason]").first();
-    expect(await why.textContent()).toBe("Why it is locked: Opens when you reach stage 2 (Bowing) on “Hop the Puddle” (Grade 1, rung 2).");
+    expect(await why.textContent()).toBe(
+      "Why it is locked: Opens when you reach stage 2 (Bowing) on “Hop the Puddle” (Grade 1, rung 2).",
+    );
     expect(await page.locator("[data-rung-state=locked] a").count()).toBe(0); // a locked rung has no link to open
     await screenshot(page, "student-ladder");
   });
 
   it("opens the first rung: its stages, locked ones closed with why, and the music with its phrases", async () => {
-    await follow(page, page.getByRole("link", { name: "Practise Little Biscuit Polka" }), /\/learn\/tunes\/[0-9a-f-]{36}/);
+    await follow(
+      page,
+      page.getByRole("link", { name: "Practise Little Biscuit Polka" }),
+      /\/learn\/tunes\/[0-9a-f-]{36}/,
+    );
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     expect(await page.getByRole("radio", { name: /2\. Bowing/ }).isChecked()).toBe(true); // the furthest open stage
     const locked = page.getByRole("radio", { name: /3\. Ornaments/ });
     expect(await locked.isDisabled()).toBe(true);
-    expect(await page.getByText("Opens when you have reached stage 2 (Bowing) of this tune.").first().isVisible()).toBe(true);
+    expect(await page.getByText("Opens when you have reached stage 2 (Bowing) of this tune.").first().isVisible()).toBe(
+      true,
+    );
     expect(await page.locator("text.rw-phrase-label").count()).toBeGreaterThan(0);
   });
 
@@ -120,7 +144,10 @@ describe("a student's ladder and tune page in a real browser", () => {
   it("compares the stage with another setting pasted in, bar by bar", async () => {
     // Another player's version: the stage on screen with bar 1's last note moved down a step.
     const tuneId = new URL(page.url()).pathname.split("/").pop() ?? "";
-    const abc = await page.evaluate(async (id) => ((await (await fetch(`/api/tunes/${id}/stages/2`)).json()) as { abc: string }).abc, tuneId);
+    const abc = await page.evaluate(
+      async (id) => ((await (await fetch(`/api/tunes/${id}/stages/2`)).json()) as { abc: string }).abc,
+      tuneId,
+    );
     const other = abc.replace(/^(\|: .*?GB) \|/m, (_, head: string) => `${head.slice(0, -1)}A |`);
     expect(other).not.toBe(abc);
     await page.getByLabel("Another setting of this tune, in ABC").fill(other);
@@ -165,11 +192,20 @@ describe("a student's ladder and tune page in a real browser", () => {
     expect(await visitor.getByText("Evening at Thornsby Weir").isVisible()).toBe(true); // tune titles of locked rungs are listed
     expect(await abcjsLoaded()).toBe(false);
     await screenshot(visitor, "catalogue");
-    await follow(visitor, visitor.getByRole("link", { name: /Little Biscuit Polka/ }), /\/catalogue\/tunes\/[0-9a-f-]{36}/);
+    await follow(
+      visitor,
+      visitor.getByRole("link", { name: /Little Biscuit Polka/ }),
+      /\/catalogue\/tunes\/[0-9a-f-]{36}/,
+    );
     await visitor.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     expect(await visitor.getByRole("radio", { name: /1\. Skeleton/ }).isChecked()).toBe(true);
     expect(await visitor.getByRole("radio", { name: /2\. Bowing/ }).isDisabled()).toBe(true);
-    expect(await visitor.getByText(/join the school to learn it stage by stage/).first().isVisible()).toBe(true);
+    expect(
+      await visitor
+        .getByText(/join the school to learn it stage by stage/)
+        .first()
+        .isVisible(),
+    ).toBe(true);
     expect(await visitor.getByRole("button", { name: "Play" }).isEnabled()).toBe(true);
     expect(await abcjsLoaded()).toBe(true); // the same check sees abcjs where the music is drawn
     await screenshot(visitor, "catalogue-taster");

@@ -34,7 +34,8 @@ beforeAll(async () => {
   page = await browser.newPage({ viewport: { width: 1400, height: 1000 } });
   page.on("pageerror", (e) => errors.push(`${new URL(page.url()).pathname}: ${e.message}`));
   page.on("request", (r) => {
-    if (!r.url().startsWith(BASE_URL) && !r.url().startsWith("data:") && !r.url().startsWith("blob:")) offsite.push(r.url());
+    if (!r.url().startsWith(BASE_URL) && !r.url().startsWith("data:") && !r.url().startsWith("blob:"))
+      offsite.push(r.url());
   });
   await page.goto(`${BASE_URL}/sign-in`);
   await page.getByLabel("E-mail address").fill(TEACHERS[0].email);
@@ -65,17 +66,25 @@ describe("a teacher writes a tune and puts it on a course", () => {
     // The template has no notes yet: the first check's answer shows the engine runs in the page.
     await page.getByText("The tune has no notes.").waitFor({ timeout: 30_000 });
     await source().fill(MISTAKE);
-    const problem = page.getByTestId("abc-problems").getByRole("button", { name: new RegExp(`Line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`) });
+    const problem = page
+      .getByTestId("abc-problems")
+      .getByRole("button", {
+        name: new RegExp(`Line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`),
+      });
     await problem.waitFor({ timeout: 30_000 });
     // Choosing the problem puts the caret on it.
     await problem.click();
-    expect(await page.locator("#abc-caret").textContent()).toBe(`Caret at line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}`);
+    expect(await page.locator("#abc-caret").textContent()).toBe(
+      `Caret at line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}`,
+    );
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
     await screenshot(page, "teacher-tune-mistake");
     await page.getByRole("button", { name: "Save the new tune" }).click();
     const refused = page.getByTestId("save-problems");
     await refused.waitFor();
-    expect(await refused.textContent()).toBe(`Line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`);
+    expect(await refused.textContent()).toBe(
+      `Line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`,
+    );
     expect(new URL(page.url()).pathname).toBe("/teach/tunes/new"); // nothing was saved
   });
 
@@ -105,13 +114,18 @@ describe("a teacher writes a tune and puts it on a course", () => {
     await page.locator('figure svg[aria-label="Preview: A3 played like A1"]').waitFor({ timeout: 30_000 });
     await page.getByLabel(/Play A3 like A1 while learning/).check();
     await page.getByText("Learning version (1 swap accepted)").waitFor();
-    expect(await page.getByTestId("learning-load").textContent()).toMatch(/8 distinct.*7 if every near twin is swapped; 7 with the 1 swap you accepted/);
+    expect(await page.getByTestId("learning-load").textContent()).toMatch(
+      /8 distinct.*7 if every near twin is swapped; 7 with the 1 swap you accepted/,
+    );
     await screenshot(page, "teacher-tune-swaps");
     await page.getByRole("button", { name: "Save the new tune" }).click();
     await page.waitForURL(/\/teach\/tunes\/[0-9a-f-]{36}$/, { timeout: 30_000 });
     tuneUrl = page.url();
     await page.getByText("All changes saved.").waitFor({ timeout: 30_000 });
-    const stored = await page.evaluate(async (id) => (await fetch(`/api/teach/tunes/${id}`)).json(), tuneUrl.split("/").pop());
+    const stored = await page.evaluate(
+      async (id) => (await fetch(`/api/teach/tunes/${id}`)).json(),
+      tuneUrl.split("/").pop(),
+    );
     expect(stored.acceptedSwaps).toEqual(["A3"]);
     expect(stored.stagePlan.stages[1]).toEqual({ name: "Bowing and slides", adds: ["bowing", "slides"] });
     expect(stored.stages.map((s: { index: number }) => s.index)).toEqual([1, 2, 3, 4]);
@@ -128,7 +142,7 @@ describe("a teacher writes a tune and puts it on a course", () => {
     const addForm = page.getByRole("form", { name: "Add a rung to Grade 1" });
     await addForm.waitFor();
     const tuneSelect = addForm.getByLabel("Tune", { exact: true });
-    await page.waitForFunction(() => document.querySelectorAll('form select option').length > 1);
+    await page.waitForFunction(() => document.querySelectorAll("form select option").length > 1);
     await tuneSelect.selectOption({ label: `${TITLE} (reel, G)` });
     await addForm.getByLabel("Stage that opens the next rung").selectOption("2");
     await addForm.getByRole("button", { name: "Add to Grade 1" }).click();
@@ -138,12 +152,16 @@ describe("a teacher writes a tune and puts it on a course", () => {
     await tuneSelect.selectOption({ index: 1 });
     await addForm.getByRole("button", { name: "Add to Grade 1" }).click();
     await page.locator("li[data-rung]").nth(1).waitFor();
-    const titles = () => page.locator("li[data-rung]").evaluateAll((els) => els.map((e) => e.getAttribute("data-rung")));
+    const titles = () =>
+      page.locator("li[data-rung]").evaluateAll((els) => els.map((e) => e.getAttribute("data-rung")));
     expect(await titles()).toEqual([TITLE, other?.replace(/ \([^()]*\)$/, "")]);
     const down = page.getByRole("button", { name: `Move ${TITLE} down` });
     await down.focus();
     await page.keyboard.press("Enter");
-    await page.waitForFunction((t) => document.querySelectorAll("li[data-rung]")[1]?.getAttribute("data-rung") === t, TITLE);
+    await page.waitForFunction(
+      (t) => document.querySelectorAll("li[data-rung]")[1]?.getAttribute("data-rung") === t,
+      TITLE,
+    );
     // And back to the top by dragging its grip with the mouse.
     const grip = await page.getByRole("button", { name: `Drag rung 2, ${TITLE}` }).boundingBox();
     const top = await page.getByRole("button", { name: /^Drag rung 1, / }).boundingBox();
@@ -153,27 +171,48 @@ describe("a teacher writes a tune and puts it on a course", () => {
     await page.mouse.move(grip.x + grip.width / 2, grip.y + grip.height / 2 - 10, { steps: 4 });
     await page.mouse.move(top.x + top.width / 2, top.y + top.height / 2 - 10, { steps: 12 });
     await page.mouse.up();
-    await page.waitForFunction((t) => document.querySelectorAll("li[data-rung]")[0]?.getAttribute("data-rung") === t, TITLE);
+    await page.waitForFunction(
+      (t) => document.querySelectorAll("li[data-rung]")[0]?.getAttribute("data-rung") === t,
+      TITLE,
+    );
     await page.getByRole("button", { name: "Publish the course" }).click();
-    await page.getByTestId("publish-state").filter({ hasText: /^Published$/ }).waitFor();
+    await page
+      .getByTestId("publish-state")
+      .filter({ hasText: /^Published$/ })
+      .waitFor();
     await screenshot(page, "teacher-course-builder");
     const courseId = page.url().split("/").pop();
     const stored = await page.evaluate(async (id) => (await fetch(`/api/teach/courses/${id}`)).json(), courseId);
     expect(stored.published).toBe(true);
-    expect(stored.grades[0].rungs.map((r: { tuneTitle: string; requiredStage: number }) => [r.tuneTitle, r.requiredStage])[0]).toEqual([TITLE, 2]);
+    expect(
+      stored.grades[0].rungs.map((r: { tuneTitle: string; requiredStage: number }) => [
+        r.tuneTitle,
+        r.requiredStage,
+      ])[0],
+    ).toEqual([TITLE, 2]);
   });
 
   it("imports a file: the progress bar fills as each tune is reported, and the bad tune shows its line in the file", async () => {
     await open("/teach/import", "#abc-file");
     const file = `${TUNE.replace(TITLE, `${TITLE} (import)`)}\n${MISTAKE.replace(TITLE, `${TITLE} (broken)`).replace("X:1", "X:2")}`;
-    await page.getByLabel("ABC file").setInputFiles({ name: "coastal.abc", mimeType: "text/plain", buffer: Buffer.from(file) });
+    await page
+      .getByLabel("ABC file")
+      .setInputFiles({ name: "coastal.abc", mimeType: "text/plain", buffer: Buffer.from(file) });
     await page.getByRole("button", { name: "Import the tunes" }).click();
     await page.getByTestId("import-summary").waitFor({ timeout: 60_000 });
-    expect(await page.getByTestId("import-summary").textContent()).toBe("1 saved, 0 already in your tunes, 1 with problems.");
-    expect(await page.locator("#import-progress").evaluate((el) => [(el as HTMLProgressElement).value, (el as HTMLProgressElement).max])).toEqual([2, 2]);
+    expect(await page.getByTestId("import-summary").textContent()).toBe(
+      "1 saved, 0 already in your tunes, 1 with problems.",
+    );
+    expect(
+      await page
+        .locator("#import-progress")
+        .evaluate((el) => [(el as HTMLProgressElement).value, (el as HTMLProgressElement).max]),
+    ).toEqual([2, 2]);
     const bad = page.locator('[data-import-status="problems"]');
     // The broken tune starts on line 12 of the file, so its line 9 is the file's line 20.
-    expect(await bad.textContent()).toContain(`Line ${11 + MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`);
+    expect(await bad.textContent()).toContain(
+      `Line ${11 + MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`,
+    );
     await screenshot(page, "teacher-import");
   });
 

@@ -19,7 +19,8 @@ beforeAll(async () => {
   const admin = await w.person("admin");
   adminId = admin.id;
   adminCookie = await w.cookieFor(admin.id);
-  planId = (await w.plan(adminCookie, { name: "Monthly membership", amount: 1800, currency: "GBP", interval: "month" })).id;
+  planId = (await w.plan(adminCookie, { name: "Monthly membership", amount: 1800, currency: "GBP", interval: "month" }))
+    .id;
   student = await w.person("student", { name: "Perpetua Refundwell" });
   studentCookie = await w.cookieFor(student.id);
   await w.subscribe(studentCookie, planId);
@@ -30,7 +31,8 @@ afterAll(async () => w?.close());
 
 const payment = async () => (await w.db.select().from(payments).where(eq(payments.id, paymentId)))[0];
 const refundRows = async () => w.db.select().from(refunds).where(eq(refunds.paymentId, paymentId));
-const refund = (body: Record<string, unknown>, id = paymentId) => w.call("admin/payments/[id]/refunds", "POST", { cookie: adminCookie, params: { id }, body });
+const refund = (body: Record<string, unknown>, id = paymentId) =>
+  w.call("admin/payments/[id]/refunds", "POST", { cookie: adminCookie, params: { id }, body });
 
 describe("refunds", () => {
   it("refunds part of a payment through Stripe and records it with the reason", async () => {
@@ -59,7 +61,12 @@ describe("refunds", () => {
   });
 
   it("needs a reason and a whole positive amount of minor units", async () => {
-    for (const [body, field] of [[{ amount: 100 }, "reason"], [{ amount: 100, reason: "  " }, "reason"], [{ amount: 1.5, reason: "x" }, "amount"], [{ amount: -3, reason: "x" }, "amount"]] as const) {
+    for (const [body, field] of [
+      [{ amount: 100 }, "reason"],
+      [{ amount: 100, reason: "  " }, "reason"],
+      [{ amount: 1.5, reason: "x" }, "amount"],
+      [{ amount: -3, reason: "x" }, "amount"],
+    ] as const) {
       const res = await refund(body);
       expect(res.status, JSON.stringify(body)).toBe(422);
       expect(Object.keys(((await res.json()) as { fieldErrors: Record<string, string> }).fieldErrors)).toContain(field);
@@ -80,7 +87,13 @@ describe("refunds", () => {
   it("records the same Stripe refund once, whichever path sees it and however often", async () => {
     const { recordRefund } = await import("@/lib/billing/refunds");
     const [first] = await refundRows();
-    const again = await recordRefund(w.db, { paymentId, stripeRefundId: first.stripeRefundId, amount: first.amount, currency: "GBP", reason: "seen twice" });
+    const again = await recordRefund(w.db, {
+      paymentId,
+      stripeRefundId: first.stripeRefundId,
+      amount: first.amount,
+      currency: "GBP",
+      reason: "seen twice",
+    });
     expect(again.recorded).toBe(false);
     expect(await refundRows()).toHaveLength(2);
     expect((await payment()).refundedAmount).toBe(1800);
@@ -90,7 +103,17 @@ describe("refunds", () => {
     const { recordRefund } = await import("@/lib/billing/refunds");
     const [p] = await w.db
       .insert(payments)
-      .values({ userId: student.id, planId, stripeInvoiceId: "in_race", stripePaymentIntentId: "pi_race", kind: "renewal", amount: 1800, currency: "GBP", status: "paid", createdAt: new Date() })
+      .values({
+        userId: student.id,
+        planId,
+        stripeInvoiceId: "in_race",
+        stripePaymentIntentId: "pi_race",
+        kind: "renewal",
+        amount: 1800,
+        currency: "GBP",
+        status: "paid",
+        createdAt: new Date(),
+      })
       .returning();
     const both = await Promise.allSettled([
       recordRefund(w.db, { paymentId: p.id, stripeRefundId: "re_race_a", amount: 1000, currency: "GBP", reason: "a" }),
@@ -104,13 +127,18 @@ describe("refunds", () => {
   });
 
   it("shows the refund the same in the admin table and in the student's billing data", async () => {
-    const table = await w.call("admin/payments", "GET", { cookie: adminCookie, query: `?q=${encodeURIComponent("refundwell")}&sort=date&dir=asc` });
+    const table = await w.call("admin/payments", "GET", {
+      cookie: adminCookie,
+      query: `?q=${encodeURIComponent("refundwell")}&sort=date&dir=asc`,
+    });
     const rows = ((await table.json()) as { rows: { id: string; refundedAmount: number; status: string }[] }).rows;
     const inTable = rows.find((r) => r.id === paymentId);
     expect(inTable).toMatchObject({ refundedAmount: 1800, status: "refunded" });
     const mine = await w.call("billing", "GET", { cookie: studentCookie });
     expect(mine.status).toBe(200);
-    const summary = (await mine.json()) as { payments: { id: string; refundedAmount: number; status: string; refunds: { amount: number; reason: string }[] }[] };
+    const summary = (await mine.json()) as {
+      payments: { id: string; refundedAmount: number; status: string; refunds: { amount: number; reason: string }[] }[];
+    };
     const onBilling = summary.payments.find((p) => p.id === paymentId);
     expect(onBilling).toMatchObject({ refundedAmount: inTable?.refundedAmount, status: inTable?.status });
     expect(onBilling?.refunds.map((r) => r.amount).sort((a, b) => a - b)).toEqual([500, 1300]);

@@ -18,25 +18,47 @@ function parseCsv(text: string): string[][] {
   for (let i = 0; i < text.length; i++) {
     const c = text[i];
     if (quoted) {
-      if (c === '"' && text[i + 1] === '"') (field += '"'), i++;
+      if (c === '"' && text[i + 1] === '"') ((field += '"'), i++);
       else if (c === '"') quoted = false;
       else field += c;
     } else if (c === '"') quoted = true;
-    else if (c === ",") row.push(field), (field = "");
+    else if (c === ",") (row.push(field), (field = ""));
     else if (c === "\r" && text[i + 1] === "\n") {
-      row.push(field), rows.push(row), (row = []), (field = ""), i++;
+      (row.push(field), rows.push(row), (row = []), (field = ""), i++);
     } else field += c;
   }
-  if (field || row.length) row.push(field), rows.push(row);
+  if (field || row.length) (row.push(field), rows.push(row));
   return rows;
 }
 
 let w: AuthWorld;
 let cookie: string;
-type P = { id: string; name: string; email: string; planId: string; status: "paid" | "failed" | "refunded" | "partially_refunded"; amount: number; refunded: number; createdAt: Date };
+type P = {
+  id: string;
+  name: string;
+  email: string;
+  planId: string;
+  status: "paid" | "failed" | "refunded" | "partially_refunded";
+  amount: number;
+  refunded: number;
+  createdAt: Date;
+};
 const made: P[] = [];
 const planIds = { monthly: "", yearly: "" };
-const NAMES = ["Quentin Alder", "Beatrix Moss", "Cormac Fenwick", "Dorcas Hale", "Edwin Tarrant", "Freya Lowick", "Gareth Oakes", "Hilda Pym", "Ianthe Rowe", "Jasper Vane", "Keziah Wynn", "Lorcan Ashby"];
+const NAMES = [
+  "Quentin Alder",
+  "Beatrix Moss",
+  "Cormac Fenwick",
+  "Dorcas Hale",
+  "Edwin Tarrant",
+  "Freya Lowick",
+  "Gareth Oakes",
+  "Hilda Pym",
+  "Ianthe Rowe",
+  "Jasper Vane",
+  "Keziah Wynn",
+  "Lorcan Ashby",
+];
 const DAY = 86_400_000;
 const T0 = Date.UTC(2026, 0, 1);
 
@@ -55,7 +77,13 @@ beforeAll(async () => {
   planIds.yearly = y.id;
   const people = await w.db
     .insert(users)
-    .values(NAMES.map((name) => ({ name, email: `${name.toLowerCase().replace(" ", ".")}@tables.example`, role: "student" as const })))
+    .values(
+      NAMES.map((name) => ({
+        name,
+        email: `${name.toLowerCase().replace(" ", ".")}@tables.example`,
+        role: "student" as const,
+      })),
+    )
     .returning();
   // 1,200 payments (more than two CSV batches), spread over a year with every status and both plans.
   const statuses = ["paid", "paid", "paid", "failed", "refunded", "partially_refunded"] as const;
@@ -66,18 +94,50 @@ beforeAll(async () => {
     const amount = yearly ? 18000 : 1800 + (i % 3) * 100;
     const refunded = status === "refunded" ? amount : status === "partially_refunded" ? 500 : 0;
     return {
-      userId: u.id, planId: yearly ? y.id : m.id, stripeInvoiceId: `in_tables_${i}`, kind: "renewal" as const, amount, refundedAmount: refunded,
-      currency: "GBP", status, createdAt: new Date(T0 + ((i * 37) % 365) * DAY + i * 1000),
+      userId: u.id,
+      planId: yearly ? y.id : m.id,
+      stripeInvoiceId: `in_tables_${i}`,
+      kind: "renewal" as const,
+      amount,
+      refundedAmount: refunded,
+      currency: "GBP",
+      status,
+      createdAt: new Date(T0 + ((i * 37) % 365) * DAY + i * 1000),
     };
   });
   for (let i = 0; i < rows.length; i += 400) {
-    const got = await w.db.insert(payments).values(rows.slice(i, i + 400)).returning();
+    const got = await w.db
+      .insert(payments)
+      .values(rows.slice(i, i + 400))
+      .returning();
     for (const g of got) {
       const u = people.find((p) => p.id === g.userId);
-      made.push({ id: g.id, name: u?.name ?? "", email: u?.email ?? "", planId: g.planId ?? "", status: g.status, amount: g.amount, refunded: g.refundedAmount, createdAt: g.createdAt });
+      made.push({
+        id: g.id,
+        name: u?.name ?? "",
+        email: u?.email ?? "",
+        planId: g.planId ?? "",
+        status: g.status,
+        amount: g.amount,
+        refunded: g.refundedAmount,
+        createdAt: g.createdAt,
+      });
     }
   }
-  await w.db.insert(subscriptions).values(people.slice(0, 6).map((u, i) => ({ userId: u.id, planId: i % 2 ? y.id : m.id, stripeSubscriptionId: `sub_tables_${i}`, status: i === 5 ? ("canceled" as const) : ("active" as const), startedAt: new Date(T0 + i * 20 * DAY), currentPeriodEnd: new Date(T0 + (i + 30) * 10 * DAY) })));
+  await w.db
+    .insert(subscriptions)
+    .values(
+      people
+        .slice(0, 6)
+        .map((u, i) => ({
+          userId: u.id,
+          planId: i % 2 ? y.id : m.id,
+          stripeSubscriptionId: `sub_tables_${i}`,
+          status: i === 5 ? ("canceled" as const) : ("active" as const),
+          startedAt: new Date(T0 + i * 20 * DAY),
+          currentPeriodEnd: new Date(T0 + (i + 30) * 10 * DAY),
+        })),
+    );
 }, 60_000);
 afterAll(async () => w?.close());
 
@@ -85,14 +145,35 @@ const get = (file: string, query: string) => callRoute(`admin/${file}`, "GET", {
 const byId = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
 
 /** The test's own filter and order, written from the issue's words, not from the server's code. */
-function expected(o: { status?: string; plan?: string; from?: string; to?: string; q?: string; sort: "date" | "amount" | "status" | "name"; dir: "asc" | "desc" }) {
+function expected(o: {
+  status?: string;
+  plan?: string;
+  from?: string;
+  to?: string;
+  q?: string;
+  sort: "date" | "amount" | "status" | "name";
+  dir: "asc" | "desc";
+}) {
   const lo = o.from ? Date.parse(`${o.from}T00:00:00Z`) : -Infinity;
   const hi = o.to ? Date.parse(`${o.to}T00:00:00Z`) + DAY : Infinity;
   const q = o.q?.toLowerCase();
-  const key = (p: P): number | string => (o.sort === "date" ? p.createdAt.getTime() : o.sort === "amount" ? p.amount : o.sort === "status" ? p.status : p.name);
+  const key = (p: P): number | string =>
+    o.sort === "date"
+      ? p.createdAt.getTime()
+      : o.sort === "amount"
+        ? p.amount
+        : o.sort === "status"
+          ? p.status
+          : p.name;
   const sign = o.dir === "asc" ? 1 : -1;
   return made
-    .filter((p) => (!o.status || p.status === o.status) && (!o.plan || p.planId === o.plan) && p.createdAt.getTime() >= lo && p.createdAt.getTime() < hi)
+    .filter(
+      (p) =>
+        (!o.status || p.status === o.status) &&
+        (!o.plan || p.planId === o.plan) &&
+        p.createdAt.getTime() >= lo &&
+        p.createdAt.getTime() < hi,
+    )
     .filter((p) => !q || p.name.toLowerCase().includes(q) || p.email.toLowerCase().includes(q))
     .sort((a, b) => {
       const [x, y] = [key(a), key(b)];
@@ -100,7 +181,12 @@ function expected(o: { status?: string; plan?: string; from?: string; to?: strin
     });
 }
 
-type PageJson = { rows: { id: string; amount: number; refundedAmount: number; status: string; name: string }[]; hasMore: boolean; page: number; pageSize: number };
+type PageJson = {
+  rows: { id: string; amount: number; refundedAmount: number; status: string; name: string }[];
+  hasMore: boolean;
+  page: number;
+  pageSize: number;
+};
 /** The table's total: its own request, with the same parameters as the page. */
 const totalOf = async (file: string, query: string) => {
   const res = await get(`${file}/count`, query);
@@ -121,7 +207,15 @@ describe("admin payments table", () => {
   });
 
   it("filters by status, plan, dates and a name fragment together, sorts by amount and pages", async () => {
-    const f = { status: "paid", plan: planIds.monthly, from: "2026-03-01", to: "2026-08-31", q: "OAKES", sort: "amount" as const, dir: "desc" as const };
+    const f = {
+      status: "paid",
+      plan: planIds.monthly,
+      from: "2026-03-01",
+      to: "2026-08-31",
+      q: "OAKES",
+      sort: "amount" as const,
+      dir: "desc" as const,
+    };
     const want = expected(f);
     expect(want.length).toBeGreaterThan(6);
     const res = await get("payments", `?${new URLSearchParams({ ...f, page: "2", pageSize: "5" })}`);
@@ -137,16 +231,27 @@ describe("admin payments table", () => {
     const size = 7;
     const last = Math.ceil(want.length / size);
     expect(last).toBeGreaterThan(1);
-    const body = (await (await get("payments", `?${new URLSearchParams({ ...f, page: String(last), pageSize: String(size) })}`)).json()) as PageJson;
+    const body = (await (
+      await get("payments", `?${new URLSearchParams({ ...f, page: String(last), pageSize: String(size) })}`)
+    ).json()) as PageJson;
     expect(body.rows.map((r) => r.id)).toEqual(want.slice((last - 1) * size).map((p) => p.id));
     expect(body.hasMore).toBe(false);
-    const before = (await (await get("payments", `?${new URLSearchParams({ ...f, page: String(last - 1), pageSize: String(size) })}`)).json()) as PageJson;
+    const before = (await (
+      await get("payments", `?${new URLSearchParams({ ...f, page: String(last - 1), pageSize: String(size) })}`)
+    ).json()) as PageJson;
     expect(before.hasMore).toBe(true);
-    const past = (await (await get("payments", `?${new URLSearchParams({ ...f, page: String(last + 1), pageSize: String(size) })}`)).json()) as PageJson;
+    const past = (await (
+      await get("payments", `?${new URLSearchParams({ ...f, page: String(last + 1), pageSize: String(size) })}`)
+    ).json()) as PageJson;
     expect(past).toMatchObject({ rows: [], hasMore: false });
   });
 
-  for (const [sort, dir] of [["name", "asc"], ["status", "asc"], ["amount", "asc"], ["date", "asc"]] as const) {
+  for (const [sort, dir] of [
+    ["name", "asc"],
+    ["status", "asc"],
+    ["amount", "asc"],
+    ["date", "asc"],
+  ] as const) {
     it(`sorts by ${sort} ${dir} across pages`, async () => {
       const want = expected({ sort, dir });
       const body = (await (await get("payments", `?sort=${sort}&dir=${dir}&page=3&pageSize=40`)).json()) as PageJson;
@@ -162,7 +267,14 @@ describe("admin payments table", () => {
     await peopleNoticesReady(); // this process hears people change, so a search keeps its people's ids …
     const app = (await import("@/db/client")).reportsDb(); // … read through its own handle, as the routes read
     for (const search of ["OAKES", "a", "TABLES.example", "ow", "n M", "zz"]) {
-      const f = { status: "paid", from: "2026-02-01", to: "2026-10-31", q: search, sort: "amount" as const, dir: "desc" as const };
+      const f = {
+        status: "paid",
+        from: "2026-02-01",
+        to: "2026-10-31",
+        q: search,
+        sort: "amount" as const,
+        dir: "desc" as const,
+      };
       const want = expected(f);
       const q = paymentsQuery.parse({ ...f, page: "2", pageSize: "9" });
       const people = await payerFilter(w.db, search, Number.MAX_SAFE_INTEGER);
@@ -171,12 +283,16 @@ describe("admin payments table", () => {
       const chosen = await payerFilter(app, search); // chooses, and keeps it for the next request
       const kept = await payerFilter(app, search);
       expect(kept, search).toEqual(chosen);
-      if (kept.kind === "people" && "ids" in kept && "ids" in people) expect([...kept.ids].sort(), search).toEqual([...people.ids].sort());
+      if (kept.kind === "people" && "ids" in kept && "ids" in people)
+        expect([...kept.ids].sort(), search).toEqual([...people.ids].sort());
       else expect(kept.kind, search).toBe("walk");
       const inside = { kind: "people" as const, pattern: contains(search) }; // the people read in the page's statement
       for (const form of [people, walk, kept, inside]) {
         const page = await listPayments(w.db, q, form);
-        expect(page.rows.map((r) => r.id), `${search} (${form.kind})`).toEqual(want.slice(9, 18).map((p) => p.id));
+        expect(
+          page.rows.map((r) => r.id),
+          `${search} (${form.kind})`,
+        ).toEqual(want.slice(9, 18).map((p) => p.id));
         expect(page.hasMore, `${search} (${form.kind})`).toBe(want.length > 18);
       }
       expect(await countPayments(w.db, q), search).toBe(want.length);
@@ -196,7 +312,16 @@ describe("admin payments table", () => {
   });
 
   it("refuses unknown sorts, values and parameters with 422 naming each", async () => {
-    for (const [query, field] of [["?sort=colour", "sort"], ["?status=lost", "status"], ["?pageSize=101", "pageSize"], ["?page=0", "page"], ["?from=2026-13-01", "from"], ["?from=2026-05-01&to=2026-04-01", "to"], ["?plan=monthly", "plan"], ["?colour=red", "colour"]]) {
+    for (const [query, field] of [
+      ["?sort=colour", "sort"],
+      ["?status=lost", "status"],
+      ["?pageSize=101", "pageSize"],
+      ["?page=0", "page"],
+      ["?from=2026-13-01", "from"],
+      ["?from=2026-05-01&to=2026-04-01", "to"],
+      ["?plan=monthly", "plan"],
+      ["?colour=red", "colour"],
+    ]) {
       const res = await get("payments", query);
       expect(res.status, query).toBe(422);
       const body = (await res.json()) as { error: string; fieldErrors: Record<string, string> };
@@ -229,18 +354,24 @@ describe("admin payments table", () => {
 
 describe("admin memberships and enrolments tables", () => {
   it("filters memberships by status and plan, and exports the same rows", async () => {
-    const body = (await (await get("memberships", `?status=active&plan=${planIds.monthly}&sort=name&dir=asc`)).json()) as PageJson;
+    const body = (await (
+      await get("memberships", `?status=active&plan=${planIds.monthly}&sort=name&dir=asc`)
+    ).json()) as PageJson;
     expect(await totalOf("memberships", `?status=active&plan=${planIds.monthly}`)).toBe(3); // subscriptions 0, 2 and 4 are monthly and active
     expect(body.rows).toHaveLength(3);
     const names = body.rows.map((r) => r.name);
     expect(names).toEqual([...names].sort());
-    const csv = parseCsv(await (await get("memberships/export", `?status=active&plan=${planIds.monthly}&sort=name&dir=asc`)).text());
+    const csv = parseCsv(
+      await (await get("memberships/export", `?status=active&plan=${planIds.monthly}&sort=name&dir=asc`)).text(),
+    );
     expect(csv.slice(1).map((l) => l[csv[0].indexOf("Name")])).toEqual(names);
   });
 
   it("refuses a sort the enrolments table does not have", async () => {
     const res = await get("enrolments", "?sort=amount");
     expect(res.status).toBe(422);
-    expect(((await res.json()) as { fieldErrors: Record<string, string> }).fieldErrors.sort).toMatch(/date, name, status, course/);
+    expect(((await res.json()) as { fieldErrors: Record<string, string> }).fieldErrors.sort).toMatch(
+      /date, name, status, course/,
+    );
   });
 });

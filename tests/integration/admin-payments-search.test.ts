@@ -14,13 +14,29 @@ let personId = "";
 
 beforeAll(async () => {
   t = await createTestDatabase();
-  const [p] = await t.db.insert(users).values({ name: "Ottoline Quarrie", email: "O.Quarrie@Search.example", role: "student" }).returning();
+  const [p] = await t.db
+    .insert(users)
+    .values({ name: "Ottoline Quarrie", email: "O.Quarrie@Search.example", role: "student" })
+    .returning();
   personId = p.id;
-  await t.db.insert(payments).values([1, 2, 3].map((i) => ({ userId: p.id, stripeInvoiceId: `in_search_${i}`, kind: "renewal" as const, amount: 1500 + i, currency: "GBP", status: "paid" as const, createdAt: new Date(Date.UTC(2026, 4, i)) })));
+  await t.db
+    .insert(payments)
+    .values(
+      [1, 2, 3].map((i) => ({
+        userId: p.id,
+        stripeInvoiceId: `in_search_${i}`,
+        kind: "renewal" as const,
+        amount: 1500 + i,
+        currency: "GBP",
+        status: "paid" as const,
+        createdAt: new Date(Date.UTC(2026, 4, i)),
+      })),
+    );
 }, 60_000);
 afterAll(async () => t?.drop());
 
-const searchCopies = async () => (await t.db.select({ s: payments.payerSearch }).from(payments).where(eq(payments.userId, personId))).map((r) => r.s);
+const searchCopies = async () =>
+  (await t.db.select({ s: payments.payerSearch }).from(payments).where(eq(payments.userId, personId))).map((r) => r.s);
 
 /** The walk form (the one that reads the copy), its page and its total. */
 async function walkFinds(q: string) {
@@ -44,7 +60,10 @@ describe("the payments' search copy of the payer", () => {
     expect(await walkFinds("quarrie")).toEqual({ rows: 3, total: 3 }); // still in the address
     await t.db.update(users).set({ email: "ottoline@brisk.example" }).where(eq(users.id, personId));
     expect(await walkFinds("quarrie")).toEqual({ rows: 0, total: 0 });
-    const [other] = await t.db.insert(users).values({ name: "Piran Yelland", email: "piran@search.example", role: "student" }).returning();
+    const [other] = await t.db
+      .insert(users)
+      .values({ name: "Piran Yelland", email: "piran@search.example", role: "student" })
+      .returning();
     await t.db.execute(sql`update payments set user_id = ${other.id} where stripe_invoice_id = 'in_search_1'`);
     expect(await walkFinds("yelland")).toEqual({ rows: 1, total: 1 });
     expect(await walkFinds("brisk")).toEqual({ rows: 2, total: 2 });
@@ -56,8 +75,21 @@ describe("the payments' search copy of the payer", () => {
     const kept = await payerFilter(t.db, "TREMAYNE");
     expect(kept.kind).toBe("people");
     expect("ids" in kept).toBe(false);
-    const [p] = await t.db.insert(users).values({ name: "Morwenna Tremayne", email: "morwenna@search.example", role: "student" }).returning();
-    await t.db.insert(payments).values({ userId: p.id, stripeInvoiceId: "in_search_fresh", kind: "new", amount: 1800, currency: "GBP", status: "paid", createdAt: new Date() });
+    const [p] = await t.db
+      .insert(users)
+      .values({ name: "Morwenna Tremayne", email: "morwenna@search.example", role: "student" })
+      .returning();
+    await t.db
+      .insert(payments)
+      .values({
+        userId: p.id,
+        stripeInvoiceId: "in_search_fresh",
+        kind: "new",
+        amount: 1800,
+        currency: "GBP",
+        status: "paid",
+        createdAt: new Date(),
+      });
     expect((await listPayments(t.db, q)).rows.map((r) => r.name)).toEqual(["Morwenna Tremayne"]);
     expect(await countPayments(t.db, q)).toBe(1);
   });

@@ -28,7 +28,9 @@ describe("a teacher invites students", () => {
     expect(bad.fieldErrors?.addresses).toMatch(/nope/);
     expect(await w.mailsTo("ok@new.example")).toHaveLength(0);
 
-    const res = await A.inviteStudentsAction(await as(teacher), { addresses: "wren@new.example\nOak@new.example, wren@NEW.example" });
+    const res = await A.inviteStudentsAction(await as(teacher), {
+      addresses: "wren@new.example\nOak@new.example, wren@NEW.example",
+    });
     expect(res.status).toBe(200);
     expect(res.message).toMatch(/2 addresses/);
     const mails = [...(await w.mailsTo("wren@new.example")), ...(await w.mailsTo("oak@new.example"))];
@@ -55,7 +57,11 @@ describe("a teacher invites students", () => {
     expect(wren.emailVerifiedAt).not.toBeNull(); // the link reached the address
     expect(await roster(teacher.id)).toEqual(["wren@new.example"]);
 
-    const again = await A.acceptInvitationAction(await as(null), { token, name: "Someone", password: "another-long-pw" });
+    const again = await A.acceptInvitationAction(await as(null), {
+      token,
+      name: "Someone",
+      password: "another-long-pw",
+    });
     expect(again).toMatchObject({ status: 404, message: INV.INVITATION_DEAD });
     expect(await INV.describeInvitation(token)).toBeNull();
   });
@@ -77,7 +83,11 @@ describe("a teacher invites students", () => {
     await A.inviteStudentsAction(await as(teacher), { addresses: "existing@people.example" });
     const token = await w.tokenMailed(student.email, "invitation");
     expect((await INV.describeInvitation(token))?.needsSignIn).toBe(true);
-    const anonymous = await A.acceptInvitationAction(await as(null), { token, name: "X", password: "someone-elses-pw" });
+    const anonymous = await A.acceptInvitationAction(await as(null), {
+      token,
+      name: "X",
+      password: "someone-elses-pw",
+    });
     expect(anonymous).toMatchObject({ status: 409, message: INV.INVITATION_SIGN_IN_FIRST });
     const ok = await A.acceptInvitationAction(await as(student), { token });
     expect(ok).toMatchObject({ status: 200, redirectTo: "/learn" });
@@ -90,7 +100,11 @@ describe("an admin invites teachers and changes roles", () => {
     const admin = await w.person("admin");
     expect((await A.inviteTeacherAction(await as(admin), { email: "fiddler@new.example" })).status).toBe(200);
     const token = await w.tokenMailed("fiddler@new.example", "invitation");
-    const res = await A.acceptInvitationAction(await as(null), { token, name: "Bran Fiddler", password: "bran-plays-reels" });
+    const res = await A.acceptInvitationAction(await as(null), {
+      token,
+      name: "Bran Fiddler",
+      password: "bran-plays-reels",
+    });
     expect(res).toMatchObject({ status: 200, redirectTo: "/teach" });
     expect((await w.userByEmail("fiddler@new.example"))?.role).toBe("teacher");
   });
@@ -115,7 +129,10 @@ describe("an admin invites teachers and changes roles", () => {
     expect((await w.userByEmail(student.email))?.role).toBe("teacher");
     expect((await A.changeRoleAction(await as(admin), { userId: admin.id, role: "student" })).status).toBe(409);
     expect((await w.userByEmail(admin.email))?.role).toBe("admin");
-    const missing = await A.changeRoleAction(await as(admin), { userId: "00000000-0000-4000-8000-000000000000", role: "teacher" });
+    const missing = await A.changeRoleAction(await as(admin), {
+      userId: "00000000-0000-4000-8000-000000000000",
+      role: "teacher",
+    });
     expect(missing.status).toBe(404);
   });
 });

@@ -26,7 +26,10 @@ describe("sessions", () => {
   it("expire: a session past its date signs nobody in and the cookie is blanked", async () => {
     const p = await w.person("student");
     const cookie = await w.cookieFor(p.id);
-    await w.db.update(sessions).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(sessions.userId, p.id));
+    await w.db
+      .update(sessions)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(sessions.userId, p.id));
     const { ctx, set } = await w.context(cookie);
     expect(ctx.user).toBeNull();
     expect(set[0]?.value).toBe("");
@@ -35,7 +38,10 @@ describe("sessions", () => {
   it("slide: a session used in the second half of its 30 days is extended and re-sent", async () => {
     const p = await w.person("student");
     const cookie = await w.cookieFor(p.id);
-    await w.db.update(sessions).set({ expiresAt: new Date(Date.now() + 10 * DAY) }).where(eq(sessions.userId, p.id));
+    await w.db
+      .update(sessions)
+      .set({ expiresAt: new Date(Date.now() + 10 * DAY) })
+      .where(eq(sessions.userId, p.id));
     const { ctx, set } = await w.context(cookie);
     expect(ctx.user?.id).toBe(p.id);
     expect(set[0]?.name).toBe("rosinwood_session");
@@ -46,7 +52,10 @@ describe("sessions", () => {
   it("end at sign-out (the header's form POST), which answers with a redirect home", async () => {
     const p = await w.person("teacher");
     const cookie = await w.cookieFor(p.id);
-    const res = await signOutRoute.POST(new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers: { cookie, origin: TEST_APP_URL } }), NO_PARAMS);
+    const res = await signOutRoute.POST(
+      new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers: { cookie, origin: TEST_APP_URL } }),
+      NO_PARAMS,
+    );
     expect(res.status).toBe(303);
     expect(res.headers.get("location")).toBe("/");
     expect(res.headers.get("set-cookie")).toMatch(/rosinwood_session=;/);
@@ -56,9 +65,15 @@ describe("sessions", () => {
   it("a cross-site POST is refused by the Origin check and leaves the session alone", async () => {
     const p = await w.person("teacher");
     const cookie = await w.cookieFor(p.id);
-    const attempts: Record<string, string>[] = [{ cookie, origin: "https://elsewhere.example" }, { cookie, "sec-fetch-site": "cross-site" }];
+    const attempts: Record<string, string>[] = [
+      { cookie, origin: "https://elsewhere.example" },
+      { cookie, "sec-fetch-site": "cross-site" },
+    ];
     for (const headers of attempts) {
-      const res = await signOutRoute.POST(new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers }), NO_PARAMS);
+      const res = await signOutRoute.POST(
+        new Request(`${TEST_APP_URL}/api/auth/sign-out`, { method: "POST", headers }),
+        NO_PARAMS,
+      );
       expect(res.status).toBe(403);
     }
     expect((await w.context(cookie)).ctx.user?.id).toBe(p.id);
@@ -102,13 +117,24 @@ describe("rate limits", () => {
       last = (await A.signInAction(ctx, { email: p.email, password: `guess-number-${i}` })).status;
     }
     expect(last).toBe(429);
-    const res = await A.signInAction((await w.context(undefined, "203.0.113.250")).ctx, { email: p.email, password: "spruce-and-maple-top" });
+    const res = await A.signInAction((await w.context(undefined, "203.0.113.250")).ctx, {
+      email: p.email,
+      password: "spruce-and-maple-top",
+    });
     expect(res.status).toBe(429); // even the right password waits: the limit is per address
     expect(res.message).toMatch(/try again in \d+ minutes?/);
 
     const ip = "203.0.113.77";
-    await w.db.insert(rateLimits).values({ key: RL.ipKey("reset", ip), windowStart: new Date(Math.floor(Date.now() / 3_600_000) * 3_600_000), count: RL.LIMITS.resetIp.max });
-    const blocked = await A.requestResetAction((await w.context(undefined, ip)).ctx, { email: "anyone@people.example" });
+    await w.db
+      .insert(rateLimits)
+      .values({
+        key: RL.ipKey("reset", ip),
+        windowStart: new Date(Math.floor(Date.now() / 3_600_000) * 3_600_000),
+        count: RL.LIMITS.resetIp.max,
+      });
+    const blocked = await A.requestResetAction((await w.context(undefined, ip)).ctx, {
+      email: "anyone@people.example",
+    });
     expect(blocked.status).toBe(429);
   });
 
@@ -116,7 +142,9 @@ describe("rate limits", () => {
     let status = 0;
     for (let i = 0; i <= RL.LIMITS.signUpAddress.max; i++) {
       const { ctx } = await w.context(undefined, `198.51.100.${100 + i}`);
-      status = (await A.signUpAction(ctx, { name: "Repeat", email: "repeat@new.example", password: "repeat-sign-up-pw" })).status;
+      status = (
+        await A.signUpAction(ctx, { name: "Repeat", email: "repeat@new.example", password: "repeat-sign-up-pw" })
+      ).status;
     }
     expect(status).toBe(429);
   });
@@ -169,7 +197,10 @@ describe("the session cache (lib/auth/session-cache.ts)", () => {
     C.resetSessionCache({ now: () => clock });
     const p = await w.person("student");
     const cookie = await w.cookieFor(p.id);
-    await w.db.update(sessions).set({ expiresAt: new Date(Date.now() + 10 * DAY) }).where(eq(sessions.userId, p.id));
+    await w.db
+      .update(sessions)
+      .set({ expiresAt: new Date(Date.now() + 10 * DAY) })
+      .where(eq(sessions.userId, p.id));
     expect((await w.context(cookie)).set[0]?.name).toBe("rosinwood_session"); // extended and re-sent
     const second = await w.context(cookie);
     expect(second.ctx.user?.id).toBe(p.id);
@@ -187,7 +218,7 @@ describe("the session cache (lib/auth/session-cache.ts)", () => {
 
 describe("session notices between app processes (lib/auth/session-notices.ts)", () => {
   const within = async (ms: number, done: () => boolean) => {
-    for (const end = Date.now() + ms; !done(); ) {
+    for (const end = Date.now() + ms; !done();) {
       if (Date.now() > end) return false;
       await new Promise((r) => setTimeout(r, 10));
     }
@@ -222,7 +253,10 @@ describe("session notices between app processes (lib/auth/session-notices.ts)", 
       const cookie = await w.cookieFor(p.id);
       await w.lucia().invalidateSession(cookie.split("=")[1]);
       const { changeRole } = await import("@/lib/auth/people");
-      expect((await changeRole((await w.context(await w.cookieFor(admin.id))).ctx, { userId: p.id, role: "teacher" })).status).toBe(200);
+      expect(
+        (await changeRole((await w.context(await w.cookieFor(admin.id))).ctx, { userId: p.id, role: "teacher" }))
+          .status,
+      ).toBe(200);
       const want = [JSON.stringify({ session: cookie.split("=")[1] }), JSON.stringify({ user: p.id })];
       expect(await within(2000, () => want.every((x) => heard.includes(x)))).toBe(true);
     } finally {

@@ -5,12 +5,20 @@ import { emailTokens, sessions } from "@/db/schema";
 
 let w: AuthWorld;
 let A: typeof import("@/lib/auth/actions");
-let M: { signIn: typeof import("@/lib/auth/sign-in"); reset: typeof import("@/lib/auth/password-reset"); signUp: typeof import("@/lib/auth/sign-up") };
+let M: {
+  signIn: typeof import("@/lib/auth/sign-in");
+  reset: typeof import("@/lib/auth/password-reset");
+  signUp: typeof import("@/lib/auth/sign-up");
+};
 
 beforeAll(async () => {
   w = await authWorld();
   A = await import("@/lib/auth/actions");
-  M = { signIn: await import("@/lib/auth/sign-in"), reset: await import("@/lib/auth/password-reset"), signUp: await import("@/lib/auth/sign-up") };
+  M = {
+    signIn: await import("@/lib/auth/sign-in"),
+    reset: await import("@/lib/auth/password-reset"),
+    signUp: await import("@/lib/auth/sign-up"),
+  };
 });
 afterAll(async () => {
   await w?.close();
@@ -21,7 +29,11 @@ const visitor = (ip?: string) => w.context(undefined, ip);
 describe("sign-up, e-mail confirmation and sign-in", () => {
   it("creates an unconfirmed student, mails a link, and signs in only after the link is used", async () => {
     const { ctx } = await visitor();
-    const res = await A.signUpAction(ctx, { name: "Fern Oddie", email: "fern@new.example", password: "lantern-hill-reel" });
+    const res = await A.signUpAction(ctx, {
+      name: "Fern Oddie",
+      email: "fern@new.example",
+      password: "lantern-hill-reel",
+    });
     expect(res.status).toBe(200);
     expect(res.message).toBe(M.signUp.signUpSentMessage("fern@new.example"));
     const fern = await w.userByEmail("fern@new.example");
@@ -29,7 +41,10 @@ describe("sign-up, e-mail confirmation and sign-in", () => {
     expect(fern?.emailVerifiedAt).toBeNull();
     expect(fern?.passwordHash).toMatch(/^\$argon2id\$/);
 
-    const early = await A.signInAction((await visitor()).ctx, { email: "fern@new.example", password: "lantern-hill-reel" });
+    const early = await A.signInAction((await visitor()).ctx, {
+      email: "fern@new.example",
+      password: "lantern-hill-reel",
+    });
     expect(early.status).toBe(403);
     expect(early.message).toBe(M.signIn.NOT_CONFIRMED);
 
@@ -39,7 +54,11 @@ describe("sign-up, e-mail confirmation and sign-in", () => {
     expect((await A.verifyEmailAction((await visitor()).ctx, { token })).status).toBe(404); // single use
 
     const v = await visitor();
-    const ok = await A.signInAction(v.ctx, { email: "FERN@new.example", password: "lantern-hill-reel", next: "/learn/practice" });
+    const ok = await A.signInAction(v.ctx, {
+      email: "FERN@new.example",
+      password: "lantern-hill-reel",
+      next: "/learn/practice",
+    });
     expect(ok).toMatchObject({ status: 200, redirectTo: "/learn/practice" });
     const cookie = v.set.find((c) => c.name === "rosinwood_session");
     expect(cookie?.value).toBeTruthy();
@@ -52,7 +71,11 @@ describe("sign-up, e-mail confirmation and sign-in", () => {
 
   it("answers a sign-up for a taken address exactly as for a new one, without touching the account", async () => {
     const owner = await w.person("student", { email: "taken@people.example", password: "original-fiddle-pw" });
-    const res = await A.signUpAction((await visitor()).ctx, { name: "Someone Else", email: "Taken@people.example", password: "attacker-chosen-pw" });
+    const res = await A.signUpAction((await visitor()).ctx, {
+      name: "Someone Else",
+      email: "Taken@people.example",
+      password: "attacker-chosen-pw",
+    });
     expect(res).toEqual({ status: 200, message: M.signUp.signUpSentMessage("Taken@people.example") });
     expect((await w.userByEmail("taken@people.example"))?.passwordHash).toBe(owner.passwordHash);
     // The owner hears about it through a reset link instead of a welcome.
@@ -61,8 +84,14 @@ describe("sign-up, e-mail confirmation and sign-in", () => {
 
   it("gives one message for an unknown address and for a wrong password", async () => {
     await w.person("student", { email: "known@people.example", password: "known-person-pw" });
-    const unknown = await A.signInAction((await visitor()).ctx, { email: "nobody@people.example", password: "whatever-pw-1" });
-    const wrong = await A.signInAction((await visitor()).ctx, { email: "known@people.example", password: "whatever-pw-1" });
+    const unknown = await A.signInAction((await visitor()).ctx, {
+      email: "nobody@people.example",
+      password: "whatever-pw-1",
+    });
+    const wrong = await A.signInAction((await visitor()).ctx, {
+      email: "known@people.example",
+      password: "whatever-pw-1",
+    });
     expect(unknown.status).toBe(401);
     expect(wrong.status).toBe(401);
     expect(unknown.message).toBe(M.signIn.SIGN_IN_FAILED);
@@ -70,10 +99,18 @@ describe("sign-up, e-mail confirmation and sign-in", () => {
   });
 
   it("refuses a common or short password beside the password field", async () => {
-    const common = await A.signUpAction((await visitor()).ctx, { name: "Ivy", email: "ivy@new.example", password: "Password123" });
+    const common = await A.signUpAction((await visitor()).ctx, {
+      name: "Ivy",
+      email: "ivy@new.example",
+      password: "Password123",
+    });
     expect(common.status).toBe(400);
     expect(common.fieldErrors?.password).toMatch(/most common/);
-    const short = await A.signUpAction((await visitor()).ctx, { name: "Ivy", email: "ivy@new.example", password: "short" });
+    const short = await A.signUpAction((await visitor()).ctx, {
+      name: "Ivy",
+      email: "ivy@new.example",
+      password: "short",
+    });
     expect(short.fieldErrors?.password).toMatch(/at least/);
     const blank = await A.signUpAction((await visitor()).ctx, { name: "", email: "not-an-address", password: "x" });
     expect(blank.status).toBe(400);
@@ -109,13 +146,19 @@ describe("password reset", () => {
     expect(weak.status).toBe(400); // a refused password does not use up the link
     const done = await A.resetPasswordAction((await visitor()).ctx, { token, password: "rowan-new-password" });
     expect(done).toMatchObject({ status: 200, redirectTo: "/sign-in?reset=done" });
-    expect((await A.resetPasswordAction((await visitor()).ctx, { token, password: "another-new-pw" })).status).toBe(404);
+    expect((await A.resetPasswordAction((await visitor()).ctx, { token, password: "another-new-pw" })).status).toBe(
+      404,
+    );
 
     expect((await w.context(phone)).ctx.user).toBeNull();
     expect((await w.context(laptop)).ctx.user).toBeNull();
     expect(await w.db.select().from(sessions).where(eq(sessions.userId, rowan.id))).toHaveLength(0);
-    expect((await A.signInAction((await visitor()).ctx, { email: rowan.email, password: "rowan-old-password" })).status).toBe(401);
-    expect((await A.signInAction((await visitor()).ctx, { email: rowan.email, password: "rowan-new-password" })).status).toBe(200);
+    expect(
+      (await A.signInAction((await visitor()).ctx, { email: rowan.email, password: "rowan-old-password" })).status,
+    ).toBe(401);
+    expect(
+      (await A.signInAction((await visitor()).ctx, { email: rowan.email, password: "rowan-new-password" })).status,
+    ).toBe(200);
     expect((await w.mailsTo(rowan.email)).map((m) => m.template)).toContain("password-changed");
   });
 
@@ -125,9 +168,14 @@ describe("password reset", () => {
     await A.requestResetAction((await visitor()).ctx, { email: "rowan@people.example" });
     const newer = await w.tokenMailed("rowan@people.example", "password-reset");
     expect(newer).not.toBe(older);
-    expect((await A.resetPasswordAction((await visitor()).ctx, { token: older, password: "rowan-third-password" })).status).toBe(404);
+    expect(
+      (await A.resetPasswordAction((await visitor()).ctx, { token: older, password: "rowan-third-password" })).status,
+    ).toBe(404);
     await w.db.update(emailTokens).set({ expiresAt: new Date(Date.now() - 1000) });
-    const expired = await A.resetPasswordAction((await visitor()).ctx, { token: newer, password: "rowan-third-password" });
+    const expired = await A.resetPasswordAction((await visitor()).ctx, {
+      token: newer,
+      password: "rowan-third-password",
+    });
     expect(expired.status).toBe(404);
     expect(expired.message).toBe(M.reset.RESET_LINK_DEAD);
   });

@@ -18,20 +18,44 @@ import type { GuardedAction } from "@/lib/auth/guard";
 
 type Who = "visitor" | "student" | "teacher" | "otherTeacher" | "admin";
 const WHO: Who[] = ["visitor", "student", "teacher", "otherTeacher", "admin"];
-type People = Record<Exclude<Who, "visitor">, { id: string; email: string }> & { otherStudent: { id: string; email: string } };
+type People = Record<Exclude<Who, "visitor">, { id: string; email: string }> & {
+  otherStudent: { id: string; email: string };
+};
 /** What a row's call gets: a fresh session for the caller (null for the visitor), and helpers. */
-type Call = { who: Who; me: { id: string; email: string } | null; ctx: RequestContext; cookie: string | undefined; people: People; w: AuthWorld; n: number };
+type Call = {
+  who: Who;
+  me: { id: string; email: string } | null;
+  ctx: RequestContext;
+  cookie: string | undefined;
+  people: People;
+  w: AuthWorld;
+  n: number;
+};
 type Row = { covers: string[]; call: (c: Call) => Promise<number>; expect: Record<Who, number> };
 
-const all = (status: number): Record<Who, number> => ({ visitor: status, student: status, teacher: status, otherTeacher: status, admin: status });
+const all = (status: number): Record<Who, number> => ({
+  visitor: status,
+  student: status,
+  teacher: status,
+  otherTeacher: status,
+  admin: status,
+});
 const only = (ok: number, allowed: Who[]): Record<Who, number> =>
-  Object.fromEntries(WHO.map((w) => [w, allowed.includes(w) ? ok : w === "visitor" ? 401 : 403])) as Record<Who, number>;
+  Object.fromEntries(WHO.map((w) => [w, allowed.includes(w) ? ok : w === "visitor" ? 401 : 403])) as Record<
+    Who,
+    number
+  >;
 
 let A: typeof import("@/lib/auth/actions");
 const act = (name: keyof typeof import("@/lib/auth/actions")) => (c: Call, input: Record<string, unknown>) =>
   (A[name] as GuardedAction)(c.ctx, input).then((s) => s.status);
 
-async function route(file: string, method: string, c: Call, o: { query?: string; params?: Record<string, string> } = {}) {
+async function route(
+  file: string,
+  method: string,
+  c: Call,
+  o: { query?: string; params?: Record<string, string> } = {},
+) {
   const handler = (await routeModule(file))[method];
   if (!handler) throw new Error(`${method} ${file} does not exist`);
   const headers = new Headers({ origin: TEST_APP_URL, "x-forwarded-for": `192.0.2.${c.n % 250}` });
@@ -50,7 +74,9 @@ const ROWS: Row[] = [
     // The payment stand-in's clock (npm start / npm test only): admins; 0 days runs what is due without moving time.
     covers: ["POST /api/dev/stripe-clock"],
     call: async (c) => {
-      const mod = (await import("@/app/api/dev/stripe-clock/route")) as { POST: (r: Request, a: unknown) => Promise<Response> };
+      const mod = (await import("@/app/api/dev/stripe-clock/route")) as {
+        POST: (r: Request, a: unknown) => Promise<Response>;
+      };
       const headers = new Headers({ origin: TEST_APP_URL, "content-type": "application/x-www-form-urlencoded" });
       if (c.cookie) headers.set("cookie", c.cookie);
       const req = new Request(`${TEST_APP_URL}/api/dev/stripe-clock`, { method: "POST", headers, body: "days=0" });
@@ -60,8 +86,16 @@ const ROWS: Row[] = [
   },
   // Accounts (issue 4).
   { covers: ["POST /api/auth/sign-out"], call: (c) => route("auth/sign-out", "POST", c), expect: all(303) },
-  { covers: ["GET /api/auth/to-sign-in"], call: (c) => route("auth/to-sign-in", "GET", c, { query: "?next=%2Flearn" }), expect: all(307) },
-  { covers: ["app/(auth)/actions.ts#signUp"], call: (c) => act("signUpAction")(c, { name: "New Person", email: fresh(c, "up"), password: "matrix-sign-up-pw" }), expect: all(200) },
+  {
+    covers: ["GET /api/auth/to-sign-in"],
+    call: (c) => route("auth/to-sign-in", "GET", c, { query: "?next=%2Flearn" }),
+    expect: all(307),
+  },
+  {
+    covers: ["app/(auth)/actions.ts#signUp"],
+    call: (c) => act("signUpAction")(c, { name: "New Person", email: fresh(c, "up"), password: "matrix-sign-up-pw" }),
+    expect: all(200),
+  },
   {
     covers: ["app/(auth)/actions.ts#signIn"],
     call: async (c) => {
@@ -70,13 +104,20 @@ const ROWS: Row[] = [
     },
     expect: all(200),
   },
-  { covers: ["app/(auth)/actions.ts#requestReset"], call: (c) => act("requestResetAction")(c, { email: fresh(c, "reset") }), expect: all(200) },
+  {
+    covers: ["app/(auth)/actions.ts#requestReset"],
+    call: (c) => act("requestResetAction")(c, { email: fresh(c, "reset") }),
+    expect: all(200),
+  },
   {
     covers: ["app/(auth)/actions.ts#resetPassword"],
     call: async (c) => {
       const p = await c.w.person("student", { email: fresh(c, "newpw") });
       await act("requestResetAction")(c, { email: p.email });
-      return act("resetPasswordAction")(c, { token: await c.w.tokenMailed(p.email, "password-reset"), password: "matrix-new-password" });
+      return act("resetPasswordAction")(c, {
+        token: await c.w.tokenMailed(p.email, "password-reset"),
+        password: "matrix-new-password",
+      });
     },
     expect: all(200),
   },
@@ -99,18 +140,34 @@ const ROWS: Row[] = [
       const by = c.who === "admin" ? await c.w.person("teacher") : c.people.admin;
       const inviter = (await c.w.context(await c.w.cookieFor(by.id))).ctx;
       await admin.inviteStudents(inviter, { addresses: email });
-      return act("acceptInvitationAction")(c, { token: await c.w.tokenMailed(email, "invitation"), name: "Invited Person", password: "matrix-invited-pw" });
+      return act("acceptInvitationAction")(c, {
+        token: await c.w.tokenMailed(email, "invitation"),
+        name: "Invited Person",
+        password: "matrix-invited-pw",
+      });
     },
     expect: all(200),
   },
-  { covers: ["app/teach/invite/actions.ts#inviteStudents"], call: (c) => act("inviteStudentsAction")(c, { addresses: fresh(c, "pupil") }), expect: only(200, ["teacher", "otherTeacher", "admin"]) },
-  { covers: ["app/admin/people/actions.ts#inviteTeacher"], call: (c) => act("inviteTeacherAction")(c, { email: fresh(c, "teach") }), expect: only(200, ["admin"]) },
+  {
+    covers: ["app/teach/invite/actions.ts#inviteStudents"],
+    call: (c) => act("inviteStudentsAction")(c, { addresses: fresh(c, "pupil") }),
+    expect: only(200, ["teacher", "otherTeacher", "admin"]),
+  },
+  {
+    covers: ["app/admin/people/actions.ts#inviteTeacher"],
+    call: (c) => act("inviteTeacherAction")(c, { email: fresh(c, "teach") }),
+    expect: only(200, ["admin"]),
+  },
   {
     covers: ["app/admin/people/actions.ts#changeRole"],
     call: async (c) => act("changeRoleAction")(c, { userId: (await c.w.person("student")).id, role: "student" }),
     expect: only(200, ["admin"]),
   },
-  { covers: ["GET /api/people"], call: (c) => route("people", "GET", c, { query: "?q=matrix&page=1" }), expect: only(200, ["admin"]) },
+  {
+    covers: ["GET /api/people"],
+    call: (c) => route("people", "GET", c, { query: "?q=matrix&page=1" }),
+    expect: only(200, ["admin"]),
+  },
   {
     // "A teacher reaches only their own roster; a student only their own data" (issue 4 §5).
     covers: ["GET /api/people/[id]"],
@@ -170,22 +227,34 @@ describe("authorization matrix", () => {
 
   it("has a row for every route handler method, API route method and server action", async () => {
     const walk = (dir: string): string[] =>
-      readdirSync(dir).flatMap((f) => (statSync(path.join(dir, f)).isDirectory() ? walk(path.join(dir, f)) : [path.join(dir, f)]));
+      readdirSync(dir).flatMap((f) =>
+        statSync(path.join(dir, f)).isDirectory() ? walk(path.join(dir, f)) : [path.join(dir, f)],
+      );
     const exist: string[] = [];
     // Pages Router API routes (lib/http/pages-api.ts): the default export serves the named methods.
     for (const file of walk("pages/api")) {
       const text = readFileSync(file, "utf8");
-      const url = "/" + file.split(path.sep).slice(1).join("/").replace(/\.ts$/, "").replace(/\/index$/, "");
+      const url =
+        "/" +
+        file
+          .split(path.sep)
+          .slice(1)
+          .join("/")
+          .replace(/\.ts$/, "")
+          .replace(/\/index$/, "");
       expect(text, `${file} serves its methods through pagesApi`).toMatch(/export default pagesApi\(\{/);
-      for (const m of text.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)) exist.push(`${m[1]} ${url}`);
+      for (const m of text.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g))
+        exist.push(`${m[1]} ${url}`);
     }
     for (const file of walk("app")) {
       const text = readFileSync(file, "utf8");
       if (/\/route\.ts$/.test(file)) {
         const url = "/" + path.dirname(file).split(path.sep).slice(1).join("/");
-        for (const m of text.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g)) exist.push(`${m[1]} ${url}`);
+        for (const m of text.matchAll(/export (?:const|async function) (GET|POST|PUT|PATCH|DELETE)\b/g))
+          exist.push(`${m[1]} ${url}`);
       } else if (/^\s*["']use server["']/.test(text)) {
-        for (const m of text.matchAll(/export async function (\w+)/g)) exist.push(`${file.split(path.sep).join("/")}#${m[1]}`);
+        for (const m of text.matchAll(/export async function (\w+)/g))
+          exist.push(`${file.split(path.sep).join("/")}#${m[1]}`);
       }
     }
     const covered = new Set(ROWS.flatMap((r) => r.covers));

@@ -18,7 +18,13 @@ beforeAll(async () => {
   teacher = await w.person("teacher");
   // The fixture's own student gets a test membership; these tests use fresh students instead.
   f = await makeCatalogueFixture(w.db, { teacher, student: await w.person("student") });
-  monthly = await w.plan(adminCookie, { name: "Monthly membership", amount: 1800, currency: "gbp", interval: "month", opens: "Every course" });
+  monthly = await w.plan(adminCookie, {
+    name: "Monthly membership",
+    amount: 1800,
+    currency: "gbp",
+    interval: "month",
+    opens: "Every course",
+  });
 }, 60_000);
 afterAll(async () => w?.close());
 
@@ -54,7 +60,11 @@ describe("plans", () => {
 
   it("renames in step with the Stripe product; a new price is a new Stripe price", async () => {
     const p = await w.plan(adminCookie, { name: "Spring term", amount: 4500, currency: "EUR", interval: "month" });
-    const res = await w.call("admin/plans/[id]", "PATCH", { cookie: adminCookie, params: { id: p.id }, body: { name: "Spring term (new)", amount: 4800 } });
+    const res = await w.call("admin/plans/[id]", "PATCH", {
+      cookie: adminCookie,
+      params: { id: p.id },
+      body: { name: "Spring term (new)", amount: 4800 },
+    });
     expect(res.status).toBe(200);
     const [row] = await w.db.select().from(plans).where(eq(plans.id, p.id));
     expect(row.stripePriceId).not.toBe(p.stripePriceId);
@@ -62,7 +72,9 @@ describe("plans", () => {
     expect((await w.stripe().prices.retrieve(p.stripePriceId)).active).toBe(false); // Stripe prices are immutable: the old one is archived
     expect((await w.stripe().prices.retrieve(row.stripePriceId ?? "")).unit_amount).toBe(4800);
     // Never used: deleted outright, its product deactivated.
-    expect((await w.call("admin/plans/[id]", "DELETE", { cookie: adminCookie, params: { id: p.id } })).status).toBe(204);
+    expect((await w.call("admin/plans/[id]", "DELETE", { cookie: adminCookie, params: { id: p.id } })).status).toBe(
+      204,
+    );
     expect((await w.stripe().products.retrieve(row.stripeProductId ?? "")).active).toBe(false);
   });
 });
@@ -93,25 +105,33 @@ describe("checkout → webhook → gate", () => {
     expect((await canOpenRung(w.db, viewer, f.rungs.B))?.allowed).toBe(true);
     expect((await w.mailsTo(student.email)).map((m) => m.template)).toContain("payment-receipt");
     // The billing page's summary: status in words, the next charge, the invoice with its receipt number.
-    const summary = await w.json<{ membership: { statusWords: string; nextCharge: { amount: number; date: string } }; payments: { receiptNumber: string }[] }>(
-      await w.call("billing", "GET", { cookie }),
-    );
+    const summary = await w.json<{
+      membership: { statusWords: string; nextCharge: { amount: number; date: string } };
+      payments: { receiptNumber: string }[];
+    }>(await w.call("billing", "GET", { cookie }));
     expect(summary.membership.statusWords).toBe("Active");
     expect(summary.membership.nextCharge).toMatchObject({ amount: 1800, date: sub.currentPeriodEnd?.toISOString() });
     expect(summary.payments.map((p) => p.receiptNumber)).toEqual([pay.receiptNumber]);
     // Cancel at period end goes to Stripe; the row follows from the webhook, and resume undoes it.
     expect((await w.call("billing/cancel", "POST", { cookie, body: {} })).status).toBe(200);
     await w.fake.settled();
-    expect((await w.db.select().from(subscriptions).where(eq(subscriptions.id, sub.id)))[0].cancelAtPeriodEnd).toBe(true);
+    expect((await w.db.select().from(subscriptions).where(eq(subscriptions.id, sub.id)))[0].cancelAtPeriodEnd).toBe(
+      true,
+    );
     expect((await canOpenRung(w.db, viewer, f.rungs.B))?.allowed).toBe(true); // open until the period ends
     expect((await w.call("billing/resume", "POST", { cookie, body: {} })).status).toBe(200);
     await w.fake.settled();
-    expect((await w.db.select().from(subscriptions).where(eq(subscriptions.id, sub.id)))[0].cancelAtPeriodEnd).toBe(false);
+    expect((await w.db.select().from(subscriptions).where(eq(subscriptions.id, sub.id)))[0].cancelAtPeriodEnd).toBe(
+      false,
+    );
   });
 
   it("a declined card opens nothing and writes no membership", async () => {
     const student = await w.person("student");
-    const res = await w.call("billing/checkout", "POST", { cookie: await w.cookieFor(student.id), body: { planId: monthly.id } });
+    const res = await w.call("billing/checkout", "POST", {
+      cookie: await w.cookieFor(student.id),
+      body: { planId: monthly.id },
+    });
     const page = await w.pay((await w.json<{ url: string }>(res)).url, "4000 0000 0000 0002");
     expect(page.status).toBe(402);
     expect(await page.text()).toContain("Your card was declined."); // Stripe docs: Testing — generic decline
@@ -122,13 +142,23 @@ describe("checkout → webhook → gate", () => {
 
   it("refuses a bad or missing signature with 400 and writes nothing", async () => {
     const before = await eventCount();
-    const body = JSON.stringify({ id: "evt_forged", object: "event", type: "customer.subscription.deleted", created: 1, data: { object: {} } });
+    const body = JSON.stringify({
+      id: "evt_forged",
+      object: "event",
+      type: "customer.subscription.deleted",
+      created: 1,
+      data: { object: {} },
+    });
     const { POST } = await import("@/app/api/webhooks/stripe/route");
     const t = Math.floor(Date.now() / 1000);
-    const forged = w.stripe().webhooks.generateTestHeaderString({ payload: body, secret: "whsec_someone_else", timestamp: t });
+    const forged = w
+      .stripe()
+      .webhooks.generateTestHeaderString({ payload: body, secret: "whsec_someone_else", timestamp: t });
     for (const sig of [forged, null, "t=1,v1=00"]) {
       const headers = new Headers(sig ? { "stripe-signature": sig } : {});
-      expect((await POST(new Request("http://127.0.0.1/api/webhooks/stripe", { method: "POST", headers, body }))).status).toBe(400);
+      expect(
+        (await POST(new Request("http://127.0.0.1/api/webhooks/stripe", { method: "POST", headers, body }))).status,
+      ).toBe(400);
     }
     expect(await eventCount()).toBe(before);
   });
@@ -141,7 +171,13 @@ describe("checkout → webhook → gate", () => {
     const sig = w.stripe().webhooks.generateTestHeaderString({ payload: body, secret: w.webhookSecret });
     const before = { events: await eventCount(), payments: await w.db.select().from(payments) };
     const { POST } = await import("@/app/api/webhooks/stripe/route");
-    const res = await POST(new Request("http://127.0.0.1/api/webhooks/stripe", { method: "POST", headers: { "stripe-signature": sig }, body }));
+    const res = await POST(
+      new Request("http://127.0.0.1/api/webhooks/stripe", {
+        method: "POST",
+        headers: { "stripe-signature": sig },
+        body,
+      }),
+    );
     expect(res.status).toBe(200);
     expect(await res.json()).toMatchObject({ duplicate: true });
     expect(await eventCount()).toBe(before.events);
@@ -152,10 +188,17 @@ describe("checkout → webhook → gate", () => {
     const res = await w.call("admin/plans/[id]", "DELETE", { cookie: adminCookie, params: { id: monthly.id } });
     expect(res.status).toBe(409);
     expect((await w.json<{ error: string }>(res)).error).toMatch(/retire it instead/);
-    const retired = await w.call("admin/plans/[id]", "POST", { cookie: adminCookie, params: { id: monthly.id }, body: { action: "retire" } });
+    const retired = await w.call("admin/plans/[id]", "POST", {
+      cookie: adminCookie,
+      params: { id: monthly.id },
+      body: { action: "retire" },
+    });
     expect(retired.status).toBe(200);
     expect((await w.stripe().prices.retrieve(monthly.stripePriceId)).active).toBe(false);
-    const visitorList = await w.call("billing/checkout", "POST", { cookie: await w.cookieFor((await w.person("student")).id), body: { planId: monthly.id } });
+    const visitorList = await w.call("billing/checkout", "POST", {
+      cookie: await w.cookieFor((await w.person("student")).id),
+      body: { planId: monthly.id },
+    });
     expect(visitorList.status).toBe(404); // a retired plan is not on offer to new members
   });
 });

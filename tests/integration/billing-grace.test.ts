@@ -13,7 +13,12 @@ const DAY = 86_400;
 beforeAll(async () => {
   w = await billingWorld();
   const admin = await w.person("admin");
-  const plan = await w.plan(await w.cookieFor(admin.id), { name: "Monthly membership", amount: 1800, currency: "GBP", interval: "month" });
+  const plan = await w.plan(await w.cookieFor(admin.id), {
+    name: "Monthly membership",
+    amount: 1800,
+    currency: "GBP",
+    interval: "month",
+  });
   student = await w.person("student");
   cookie = await w.cookieFor(student.id);
   await w.subscribe(cookie, plan.id);
@@ -41,7 +46,7 @@ describe("failed renewal → past due → grace → closed → paid → open", (
     await saveCard("4000000000000341");
     const periodEnd = (await sub()).currentPeriodEnd;
     expect(periodEnd).toBeInstanceOf(Date);
-    await w.fake.advanceClock(Math.ceil(((periodEnd?.getTime() ?? 0) / 1000 - w.fake.now()) + 3600));
+    await w.fake.advanceClock(Math.ceil((periodEnd?.getTime() ?? 0) / 1000 - w.fake.now() + 3600));
     await w.fake.settled();
     const s = await sub();
     expect(s.status).toBe("past_due");

@@ -36,8 +36,18 @@ let changePreview = 0;
 beforeAll(async () => {
   w = await billingWorld();
   const adminCookie = await w.cookieFor((await w.person("admin")).id);
-  const monthly = await w.plan(adminCookie, { name: "Monthly membership", amount: 1800, currency: "GBP", interval: "month" });
-  const yearly = await w.plan(adminCookie, { name: "Yearly membership", amount: 18000, currency: "GBP", interval: "year" });
+  const monthly = await w.plan(adminCookie, {
+    name: "Monthly membership",
+    amount: 1800,
+    currency: "GBP",
+    interval: "month",
+  });
+  const yearly = await w.plan(adminCookie, {
+    name: "Yearly membership",
+    amount: 18000,
+    currency: "GBP",
+    interval: "year",
+  });
   for (let i = 0; i < 14; i++) {
     const p = await w.person("student");
     people.push({ id: p.id, email: p.email, cookie: await w.cookieFor(p.id) });
@@ -51,16 +61,34 @@ beforeAll(async () => {
       await w.pay((await w.json<{ url: string }>(res)).url, "4000000000000341"); // Stripe docs (Testing): fails when charged
     }
     if (month === 4) {
-      const preview = await w.call("billing/change-plan/preview", "POST", { cookie: switcher.cookie, body: { planId: yearly.id } });
+      const preview = await w.call("billing/change-plan/preview", "POST", {
+        cookie: switcher.cookie,
+        body: { planId: yearly.id },
+      });
       expect(preview.status).toBe(200);
       const p = await w.json<{ amountDue: number; prorationDate: number }>(preview);
       changePreview = p.amountDue;
-      expect((await w.call("billing/change-plan", "POST", { cookie: switcher.cookie, body: { planId: yearly.id, prorationDate: p.prorationDate } })).status).toBe(200);
+      expect(
+        (
+          await w.call("billing/change-plan", "POST", {
+            cookie: switcher.cookie,
+            body: { planId: yearly.id, prorationDate: p.prorationDate },
+          })
+        ).status,
+      ).toBe(200);
     }
     if (month === 5) {
-      const first = (await w.stripe().invoices.list({ customer: (await customerOf(w.db, refunded.id)) ?? "", limit: 100 })).data.at(-1);
+      const first = (
+        await w.stripe().invoices.list({ customer: (await customerOf(w.db, refunded.id)) ?? "", limit: 100 })
+      ).data.at(-1);
       const pi = first?.payments?.data[0]?.payment.payment_intent;
-      await w.stripe().refunds.create({ payment_intent: typeof pi === "string" ? pi : "", amount: 500, metadata: { reason: "Missed two lessons" } });
+      await w
+        .stripe()
+        .refunds.create({
+          payment_intent: typeof pi === "string" ? pi : "",
+          amount: 500,
+          metadata: { reason: "Missed two lessons" },
+        });
     }
     if (month === 6) {
       expect((await w.call("billing/cancel", "POST", { cookie: undecided.cookie })).status).toBe(200);
@@ -87,7 +115,10 @@ async function snapshot(db: Db) {
   const refs = await db.select().from(refunds).orderBy(asc(refunds.stripeRefundId));
   return {
     subscriptions: subs.map(({ id: _id, ...s }) => s),
-    payments: pays.map(({ id: _id, subscriptionId, ...p }) => ({ ...p, subscription: subscriptionId ? subId.get(subscriptionId) : null })),
+    payments: pays.map(({ id: _id, subscriptionId, ...p }) => ({
+      ...p,
+      subscription: subscriptionId ? subId.get(subscriptionId) : null,
+    })),
     refunds: refs.map(({ id: _id, paymentId, ...r }) => ({ ...r, payment: payId.get(paymentId) })),
   };
 }
@@ -106,7 +137,14 @@ describe("webhook replay", () => {
     const events = w.fake.events().map(({ delivery: _d, ...e }) => e);
     expect(events.length).toBeGreaterThanOrEqual(200);
     const types = new Set(events.map((e) => e.type));
-    for (const t of ["checkout.session.completed", "customer.subscription.updated", "customer.subscription.deleted", "invoice.paid", "invoice.payment_failed", "charge.refunded"]) {
+    for (const t of [
+      "checkout.session.completed",
+      "customer.subscription.updated",
+      "customer.subscription.deleted",
+      "invoice.paid",
+      "invoice.payment_failed",
+      "charge.refunded",
+    ]) {
       expect(types).toContain(t);
     }
     const ordered = await twin();
@@ -121,7 +159,11 @@ describe("webhook replay", () => {
       const b = await snapshot(mixed.db);
       expect(b).toEqual(a);
       // And the ordered run says what happened.
-      expect(a.subscriptions.map((s) => s.status).sort()).toEqual([...Array<string>(12).fill("active"), "canceled", "canceled"]);
+      expect(a.subscriptions.map((s) => s.status).sort()).toEqual([
+        ...Array<string>(12).fill("active"),
+        "canceled",
+        "canceled",
+      ]);
       expect(a.payments.filter((p) => p.kind === "plan_change").map((p) => p.amount)).toEqual([changePreview]);
       expect(a.refunds.map((r) => [r.amount, r.reason])).toEqual([[500, "Missed two lessons"]]);
       expect(a.payments.find((p) => p.status === "partially_refunded")?.refundedAmount).toBe(500);

@@ -21,9 +21,25 @@ beforeAll(async () => {
   teacher = await w.person("teacher");
   otherTeacher = await w.person("teacher");
   for (const p of [ana, ben, cleo, teacher, otherTeacher]) cookies[p.id] = await w.cookieFor(p.id);
-  shared = await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [ana.id, ben.id], dueAt: due, title: "The Heron's Step" });
-  elsewhere = await makeAssignment(w.db, { teacherId: otherTeacher.id, studentIds: [cleo.id], dueAt: new Date("2031-03-20T09:00:00Z"), title: "Mossbank Jig" });
-  await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [ana.id], dueAt: due, status: "withdrawn", title: "Withdrawn Reel" });
+  shared = await makeAssignment(w.db, {
+    teacherId: teacher.id,
+    studentIds: [ana.id, ben.id],
+    dueAt: due,
+    title: "The Heron's Step",
+  });
+  elsewhere = await makeAssignment(w.db, {
+    teacherId: otherTeacher.id,
+    studentIds: [cleo.id],
+    dueAt: new Date("2031-03-20T09:00:00Z"),
+    title: "Mossbank Jig",
+  });
+  await makeAssignment(w.db, {
+    teacherId: teacher.id,
+    studentIds: [ana.id],
+    dueAt: due,
+    status: "withdrawn",
+    title: "Withdrawn Reel",
+  });
 });
 afterAll(async () => {
   await w?.close();
@@ -51,7 +67,12 @@ async function events(token: string): Promise<Ev[]> {
   expect(calendar.getFirstPropertyValue("prodid")).toBeTruthy();
   return calendar.getAllSubcomponents("vevent").map((v) => {
     const e = new ICAL.Event(v);
-    return { uid: e.uid, summary: e.summary, start: e.startDate.toJSDate(), url: String(v.getFirstPropertyValue("url")) };
+    return {
+      uid: e.uid,
+      summary: e.summary,
+      start: e.startDate.toJSDate(),
+      url: String(v.getFirstPropertyValue("url")),
+    };
   });
 }
 
@@ -83,7 +104,9 @@ describe("calendar feed", () => {
     expect(list).toHaveLength(1);
     expect(list[0].summary).toBe("Due: The Heron's Step (Ana Quillfeather, Ben Alderbrook)");
     expect(list[0].uid).toContain(shared.assignmentId);
-    expect((await events(await turnOn(otherTeacher))).map((e) => e.summary)).toEqual(["Due: Mossbank Jig (Cleo Marrowgate)"]);
+    expect((await events(await turnOn(otherTeacher))).map((e) => e.summary)).toEqual([
+      "Due: Mossbank Jig (Cleo Marrowgate)",
+    ]);
   });
 
   it("stops answering an address once it is rotated or turned off", async () => {

@@ -23,10 +23,15 @@ beforeAll(async () => {
 afterAll(async () => w?.close());
 
 /** As the student, or as a visitor when `who` is null. */
-const get = (file: string, params: Record<string, string>, who: string | null = cookie) => callRoute(file, "GET", { cookie: who ?? undefined, params });
-const ladder = async () => (await (await get("courses/[courseId]/ladder", { courseId: f.courseId })).json()) as LadderJson;
+const get = (file: string, params: Record<string, string>, who: string | null = cookie) =>
+  callRoute(file, "GET", { cookie: who ?? undefined, params });
+const ladder = async () =>
+  (await (await get("courses/[courseId]/ladder", { courseId: f.courseId })).json()) as LadderJson;
 const setProgress = (tuneId: string, reachedStage: number) =>
-  w.db.update(tuneProgress).set({ reachedStage }).where(and(eq(tuneProgress.userId, student.id), eq(tuneProgress.tuneId, tuneId)));
+  w.db
+    .update(tuneProgress)
+    .set({ reachedStage })
+    .where(and(eq(tuneProgress.userId, student.id), eq(tuneProgress.tuneId, tuneId)));
 
 describe("the ladder", () => {
   it("shows each rung done, in progress or locked, and a locked rung says which rung and stage open it", async () => {
@@ -65,7 +70,8 @@ describe("the ladder", () => {
   });
 
   it("keeps a paused student on the taster only, and says why", async () => {
-    const pause = (status: "paused" | "active") => w.db.update(enrolments).set({ status }).where(eq(enrolments.userId, student.id));
+    const pause = (status: "paused" | "active") =>
+      w.db.update(enrolments).set({ status }).where(eq(enrolments.userId, student.id));
     await pause("paused");
     try {
       const rungs = (await ladder()).grades.flatMap((g) => g.rungs);
@@ -83,11 +89,18 @@ describe("the tune and its stages", () => {
     const res = await get("tunes/[tuneId]", { tuneId: f.tunes.A });
     expect(res.status).toBe(200);
     const body = (await res.json()) as TuneJson;
-    expect(body.stages.map((s) => [s.index, s.allowed])).toEqual([[1, true], [2, true], [3, false], [4, false]]);
+    expect(body.stages.map((s) => [s.index, s.allowed])).toEqual([
+      [1, true],
+      [2, true],
+      [3, false],
+      [4, false],
+    ]);
     expect(body.stages[2].reason).toBe("Opens when you have reached stage 2 (Bowing) of this tune.");
     expect(body.phraseMap?.parts[0].phrases.length).toBeGreaterThan(0);
     expect(JSON.stringify(body)).not.toContain("!mf!"); // dynamics belong to stage 4, which is locked
-    const stage = (await (await get("tunes/[tuneId]/stages/[index]", { tuneId: f.tunes.A, index: "2" })).json()) as StageAbcJson;
+    const stage = (await (
+      await get("tunes/[tuneId]/stages/[index]", { tuneId: f.tunes.A, index: "2" })
+    ).json()) as StageAbcJson;
     expect(stage.abc).toContain("(d"); // stage 2 adds the slurs back
     expect(stage.abc).not.toContain("~");
   });
@@ -112,7 +125,9 @@ describe("the tune and its stages", () => {
 
 describe("courses", () => {
   it("lists published courses with grades and tune titles, and leaves drafts out", async () => {
-    const body = (await (await get("courses", {}, null)).json()) as { courses: { id: string; grades: { rungs: { tuneTitle: string; isTaster: boolean }[] }[] }[] };
+    const body = (await (await get("courses", {}, null)).json()) as {
+      courses: { id: string; grades: { rungs: { tuneTitle: string; isTaster: boolean }[] }[] }[];
+    };
     const ids = body.courses.map((c) => c.id);
     expect(ids).toContain(f.courseId);
     expect(ids).not.toContain(f.draftCourseId);
@@ -125,8 +140,16 @@ describe("courses", () => {
   });
 
   it("gives the student their courses with how far they have come and where to carry on", async () => {
-    const body = (await (await get("courses/mine", {})).json()) as { courses: { id: string; relation: string; done: number; rungs: number; next: { tuneTitle: string } | null }[] };
+    const body = (await (await get("courses/mine", {})).json()) as {
+      courses: { id: string; relation: string; done: number; rungs: number; next: { tuneTitle: string } | null }[];
+    };
     expect(body.courses).toHaveLength(1);
-    expect(body.courses[0]).toMatchObject({ id: f.courseId, relation: "active", done: 1, rungs: 3, next: { tuneTitle: "Fixture Second" } });
+    expect(body.courses[0]).toMatchObject({
+      id: f.courseId,
+      relation: "active",
+      done: 1,
+      rungs: 3,
+      next: { tuneTitle: "Fixture Second" },
+    });
   });
 });

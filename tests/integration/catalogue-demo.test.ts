@@ -18,7 +18,9 @@ beforeAll(async () => {
   world = await createTestDatabase();
   db = world.db;
   await seed(db); // people, catalogue and progress
-  const rows = await db.execute<{ id: string }>(sql`select id from users where lower(email) = lower(${STUDENTS[0].email})`);
+  const rows = await db.execute<{ id: string }>(
+    sql`select id from users where lower(email) = lower(${STUDENTS[0].email})`,
+  );
   alder = { id: rows[0].id, role: "student" };
 });
 afterAll(async () => world?.drop());
@@ -37,8 +39,11 @@ describe("demo progress", () => {
     const states = [first, dance].flatMap((l) => l?.grades.flatMap((g) => g.rungs.map((r) => r.state)) ?? []);
     expect(new Set(states)).toEqual(new Set(["done", "inProgress", "open", "locked"]));
     expect(first?.grades[0].rungs.map((r) => r.state)).toEqual(["done", "inProgress", "locked"]);
-    const locked = [first, dance].flatMap((l) => l?.grades.flatMap((g) => g.rungs.filter((r) => r.state === "locked")) ?? []);
-    for (const r of locked) expect(r.reason).toMatch(/^Opens when you reach stage \d \(.+\) on “.+” \(Grade \d, rung \d\)\.$/);
+    const locked = [first, dance].flatMap(
+      (l) => l?.grades.flatMap((g) => g.rungs.filter((r) => r.state === "locked")) ?? [],
+    );
+    for (const r of locked)
+      expect(r.reason).toMatch(/^Opens when you reach stage \d \(.+\) on “.+” \(Grade \d, rung \d\)\.$/);
   });
 
   it("keeps a course the student is not enrolled in to its taster", async () => {

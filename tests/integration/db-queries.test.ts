@@ -26,7 +26,9 @@ describe("db/queries against a migrated throwaway database", () => {
   });
 
   it("refuses a second account for the same address in other letter case", async () => {
-    await expect(createUser(t.db, { email: "FERN.ODDIE@example.test", name: "Other", role: "student" })).rejects.toThrow();
+    await expect(
+      createUser(t.db, { email: "FERN.ODDIE@example.test", name: "Other", role: "student" }),
+    ).rejects.toThrow();
   });
 
   it("seeds an admin, three teachers and 32 students, and a second seed changes nothing", async () => {
@@ -58,7 +60,9 @@ describe("db/queries against a migrated throwaway database", () => {
     expect(page4.rows).toHaveLength(page1.total - 30);
     const names = page1.rows.map((r) => r.name);
     expect([...names].sort((a, b) => (a < b ? -1 : 1))).toEqual(names);
-    expect((await searchPeople(t.db, { query: "penhallow", page: 1, pageSize: 10 })).rows[0]?.email).toBe(TEACHERS[0].email);
+    expect((await searchPeople(t.db, { query: "penhallow", page: 1, pageSize: 10 })).rows[0]?.email).toBe(
+      TEACHERS[0].email,
+    );
     expect((await searchPeople(t.db, { query: "%", page: 1, pageSize: 10 })).total).toBe(0);
   });
 
@@ -74,10 +78,17 @@ describe("db/queries against a migrated throwaway database", () => {
 
   it("keeps refunds within the payment by a check constraint", async () => {
     const error = await t.db
-      .execute(sql`insert into payments (user_id, stripe_invoice_id, kind, amount, refunded_amount, currency, status, created_at)
-        select id, 'in_test_1', 'new', 1500, 1600, 'GBP', 'paid', now() from users limit 1`)
-      .then(() => null, (e: unknown) => e);
+      .execute(
+        sql`insert into payments (user_id, stripe_invoice_id, kind, amount, refunded_amount, currency, status, created_at)
+        select id, 'in_test_1', 'new', 1500, 1600, 'GBP', 'paid', now() from users limit 1`,
+      )
+      .then(
+        () => null,
+        (e: unknown) => e,
+      );
     // drizzle wraps the driver's error; the constraint's name is on the cause.
-    expect((error as { cause?: { constraint_name?: string } } | null)?.cause?.constraint_name).toBe("payments_refund_within_amount");
+    expect((error as { cause?: { constraint_name?: string } } | null)?.cause?.constraint_name).toBe(
+      "payments_refund_within_amount",
+    );
   });
 });

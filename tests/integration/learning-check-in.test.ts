@@ -25,7 +25,8 @@ beforeAll(async () => {
 });
 afterAll(async () => w?.close());
 
-const post = (who: { cookie: string }, id: string, body: Record<string, unknown>) => w.call("learn/assignments/[id]/check-ins", "POST", { cookie: who.cookie, params: { id }, body });
+const post = (who: { cookie: string }, id: string, body: Record<string, unknown>) =>
+  w.call("learn/assignments/[id]/check-ins", "POST", { cookie: who.cookie, params: { id }, body });
 const view = async (who: { cookie: string }, id: string) => {
   const res = await w.call("learn/assignments/[id]", "GET", { cookie: who.cookie, params: { id } });
   expect(res.status).toBe(200);
@@ -35,7 +36,12 @@ const view = async (who: { cookie: string }, id: string) => {
 async function fresh(o: Parameters<typeof makeAssignment>[1] extends infer P ? Partial<P> : never = {}) {
   const f = await makeAssignment(w.db, { teacherId, studentIds: [ann.id, ben.id], ...o });
   const id = f.students[ann.id];
-  return { ...f, id, other: f.students[ben.id], upload: await makeUpload(w.db, { ownerId: ann.id, assignmentStudentId: id }) };
+  return {
+    ...f,
+    id,
+    other: f.students[ben.id],
+    upload: await makeUpload(w.db, { ownerId: ann.id, assignmentStudentId: id }),
+  };
 }
 
 async function waitingCount(assignmentStudentId: string): Promise<number> {
@@ -78,16 +84,31 @@ describe("check-in", () => {
 
   it("withdraws a check-in before review: the stage is open again, and a second withdraw is 409", async () => {
     const f = await fresh();
-    const made = (await (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 2, fromMemory: false })).json()) as { checkIn: { checkInId: string } };
-    const del = () => w.call("learn/check-ins/[checkInId]", "DELETE", { cookie: ann.cookie, params: { checkInId: made.checkIn.checkInId } });
+    const made = (await (
+      await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 2, fromMemory: false })
+    ).json()) as { checkIn: { checkInId: string } };
+    const del = () =>
+      w.call("learn/check-ins/[checkInId]", "DELETE", {
+        cookie: ann.cookie,
+        params: { checkInId: made.checkIn.checkInId },
+      });
     // Another student can't withdraw it, nor learn that it exists.
-    expect((await w.call("learn/check-ins/[checkInId]", "DELETE", { cookie: ben.cookie, params: { checkInId: made.checkIn.checkInId } })).status).toBe(404);
+    expect(
+      (
+        await w.call("learn/check-ins/[checkInId]", "DELETE", {
+          cookie: ben.cookie,
+          params: { checkInId: made.checkIn.checkInId },
+        })
+      ).status,
+    ).toBe(404);
     expect((await del()).status).toBe(200);
     const a = await view(ann, f.id);
     expect(a.stages[0]).toMatchObject({ state: "open", checkIn: { status: "withdrawn" } });
     expect((await del()).status).toBe(409);
     // The stage can be checked in again with the same stored recording.
-    expect((await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 3, fromMemory: false })).status).toBe(201);
+    expect(
+      (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 3, fromMemory: false })).status,
+    ).toBe(201);
   });
 
   it("refuses a locked stage with 409", async () => {
@@ -101,9 +122,15 @@ describe("check-in", () => {
   it("answers 404 on another student's assignment, for checking in and for reading", async () => {
     const f = await fresh();
     const upload = await makeUpload(w.db, { ownerId: ann.id, assignmentStudentId: f.id });
-    expect((await post(ben, f.id, { stageIndex: 1, uploadId: upload, selfRating: 3, fromMemory: false })).status).toBe(404);
-    expect((await w.call("learn/assignments/[id]", "GET", { cookie: ben.cookie, params: { id: f.id } })).status).toBe(404);
-    expect((await w.call("learn/assignments/[id]", "GET", { cookie: ben.cookie, params: { id: "not-a-uuid" } })).status).toBe(404);
+    expect((await post(ben, f.id, { stageIndex: 1, uploadId: upload, selfRating: 3, fromMemory: false })).status).toBe(
+      404,
+    );
+    expect((await w.call("learn/assignments/[id]", "GET", { cookie: ben.cookie, params: { id: f.id } })).status).toBe(
+      404,
+    );
+    expect(
+      (await w.call("learn/assignments/[id]", "GET", { cookie: ben.cookie, params: { id: "not-a-uuid" } })).status,
+    ).toBe(404);
   });
 
   it("refuses an upload that is not stored, or not the student's, or of another assignment (422 on uploadId)", async () => {
@@ -134,12 +161,16 @@ describe("check-in", () => {
     expect(closed.musicOpen).toBe(false);
     expect(closed.closedWhy).toMatch(/membership plan/);
     expect(closed.music).toBeNull();
-    expect((await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 3, fromMemory: false })).status).toBe(403);
+    expect(
+      (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 3, fromMemory: false })).status,
+    ).toBe(403);
     await giveMembership(w.db, ann.id);
     const open = await view(ann, f.id);
     expect(open.musicOpen).toBe(true);
     expect(open.music?.abc).toContain("K:");
-    expect((await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 3, fromMemory: false })).status).toBe(201);
+    expect(
+      (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 3, fromMemory: false })).status,
+    ).toBe(201);
   });
 });
 
@@ -152,7 +183,9 @@ describe("self_check_in rule", () => {
     const f = await fresh({ unlockRule: "self_check_in", unlockMinutes: 30, openedAt });
     await makePractice(w.db, ann.id, { practisedOn: day(new Date()), minutes: 29, tuneId: f.tuneId });
     await makePractice(w.db, ann.id, { practisedOn: "2020-01-01", minutes: 500, tuneId: f.tuneId }); // before the stage opened
-    expect((await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 4, fromMemory: false })).status).toBe(201);
+    expect(
+      (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 4, fromMemory: false })).status,
+    ).toBe(201);
     const a = await view(ann, f.id);
     expect(a.stages.slice(0, 2).map((s) => s.state)).toEqual(["checked_in", "locked"]);
   });
@@ -164,7 +197,9 @@ describe("self_check_in rule", () => {
     // Practice on no particular tune, or before the stage opened, does not count.
     await makePractice(w.db, ann.id, { practisedOn: "2020-01-01", minutes: 500, tuneId: f.tuneId });
     await makePractice(w.db, ann.id, { practisedOn: day(new Date()), minutes: 500, tuneId: null });
-    expect((await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 4, fromMemory: false })).status).toBe(201);
+    expect(
+      (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 4, fromMemory: false })).status,
+    ).toBe(201);
     const a = await view(ann, f.id);
     expect(a.stages.slice(0, 2).map((s) => s.state)).toEqual(["signed_off", "open"]);
     expect(a.stages[0].checkIn?.status).toBe("signed_off");
@@ -176,9 +211,18 @@ describe("self_check_in rule", () => {
 describe("after the teacher signs off", () => {
   it("opens stage 2 for that student only; the other student's stage 2 stays locked in the API", async () => {
     const f = await fresh();
-    const made = (await (await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 4, fromMemory: false })).json()) as { checkIn: { stageStateId: string; checkInId: string } };
+    const made = (await (
+      await post(ann, f.id, { stageIndex: 1, uploadId: f.upload, selfRating: 4, fromMemory: false })
+    ).json()) as { checkIn: { stageStateId: string; checkInId: string } };
     const { applyTransition } = await import("@/lib/teaching/transitions");
-    await applyTransition(w.db, { stageStateId: made.checkIn.stageStateId, transition: "signOff", actor: { id: teacherId, role: "teacher" }, feedback: "Lovely lift.", checkInId: made.checkIn.checkInId, now: new Date() });
+    await applyTransition(w.db, {
+      stageStateId: made.checkIn.stageStateId,
+      transition: "signOff",
+      actor: { id: teacherId, role: "teacher" },
+      feedback: "Lovely lift.",
+      checkInId: made.checkIn.checkInId,
+      now: new Date(),
+    });
     const mine = await view(ann, f.id);
     expect(mine.stages.slice(0, 2).map((s) => s.state)).toEqual(["signed_off", "open"]);
     expect(mine.stages[0].checkIn?.feedback).toBe("Lovely lift.");
@@ -186,6 +230,13 @@ describe("after the teacher signs off", () => {
     const theirs = await view(ben, f.other);
     expect(theirs.stages.slice(0, 2).map((s) => s.state)).toEqual(["open", "locked"]);
     // Withdrawing a reviewed check-in is refused.
-    expect((await w.call("learn/check-ins/[checkInId]", "DELETE", { cookie: ann.cookie, params: { checkInId: made.checkIn.checkInId } })).status).toBe(409);
+    expect(
+      (
+        await w.call("learn/check-ins/[checkInId]", "DELETE", {
+          cookie: ann.cookie,
+          params: { checkInId: made.checkIn.checkInId },
+        })
+      ).status,
+    ).toBe(409);
   });
 });

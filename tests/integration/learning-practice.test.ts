@@ -25,16 +25,27 @@ beforeAll(async () => {
 });
 afterAll(async () => w?.close());
 
-const post = (body: Record<string, unknown>, who = me) => w.call("learn/practice", "POST", { cookie: who.cookie, body });
-const list = async (who = me) => (await (await w.call("learn/practice", "GET", { cookie: who.cookie })).json()) as { entries: Entry[]; tunes: { id: string }[] };
-const fieldsOf = async (res: Response) => Object.keys(((await res.json()) as { fieldErrors?: Record<string, string> }).fieldErrors ?? {});
+const post = (body: Record<string, unknown>, who = me) =>
+  w.call("learn/practice", "POST", { cookie: who.cookie, body });
+const list = async (who = me) =>
+  (await (await w.call("learn/practice", "GET", { cookie: who.cookie })).json()) as {
+    entries: Entry[];
+    tunes: { id: string }[];
+  };
+const fieldsOf = async (res: Response) =>
+  Object.keys(((await res.json()) as { fieldErrors?: Record<string, string> }).fieldErrors ?? {});
 
 describe("practice log", () => {
   it("logs an entry and lists it", async () => {
     const res = await post({ minutes: "35", practisedOn: "2026-01-10", note: "  Slow bowing  " });
     expect(res.status).toBe(201);
     const { id } = (await res.json()) as { id: string };
-    expect((await list()).entries.find((e) => e.id === id)).toMatchObject({ minutes: 35, practisedOn: "2026-01-10", note: "Slow bowing", tuneId: null });
+    expect((await list()).entries.find((e) => e.id === id)).toMatchObject({
+      minutes: 35,
+      practisedOn: "2026-01-10",
+      note: "Slow bowing",
+      tuneId: null,
+    });
   });
 
   it.each([
@@ -84,19 +95,26 @@ describe("practice log", () => {
   it("edits and deletes one's own entry; another person's answers 404 and stays as it was", async () => {
     const mine = await makePractice(w.db, me.id, { practisedOn: "2026-01-12", minutes: 20 });
     const theirs = await makePractice(w.db, other.id, { practisedOn: "2026-01-12", minutes: 40 });
-    const patch = (id: string, body: Record<string, unknown>) => w.call("learn/practice/[id]", "PATCH", { cookie: me.cookie, params: { id }, body });
+    const patch = (id: string, body: Record<string, unknown>) =>
+      w.call("learn/practice/[id]", "PATCH", { cookie: me.cookie, params: { id }, body });
     expect((await patch(mine, { minutes: 25, note: "Rolls" })).status).toBe(200);
     const bad = await patch(mine, { minutes: 700 });
     expect(bad.status).toBe(422);
     expect(await fieldsOf(bad)).toEqual(["minutes"]);
     expect((await list()).entries.find((e) => e.id === mine)).toMatchObject({ minutes: 25, note: "Rolls" });
     expect((await patch(theirs, { minutes: 1 })).status).toBe(404);
-    expect((await w.call("learn/practice/[id]", "DELETE", { cookie: me.cookie, params: { id: theirs } })).status).toBe(404);
-    expect((await w.call("learn/practice/[id]", "DELETE", { cookie: me.cookie, params: { id: "nope" } })).status).toBe(404);
+    expect((await w.call("learn/practice/[id]", "DELETE", { cookie: me.cookie, params: { id: theirs } })).status).toBe(
+      404,
+    );
+    expect((await w.call("learn/practice/[id]", "DELETE", { cookie: me.cookie, params: { id: "nope" } })).status).toBe(
+      404,
+    );
     const [kept] = await w.db.select().from(practiceLogs).where(eq(practiceLogs.id, theirs));
     expect(kept.minutes).toBe(40);
     expect((await list()).entries.some((e) => e.id === theirs)).toBe(false);
-    expect((await w.call("learn/practice/[id]", "DELETE", { cookie: me.cookie, params: { id: mine } })).status).toBe(204);
+    expect((await w.call("learn/practice/[id]", "DELETE", { cookie: me.cookie, params: { id: mine } })).status).toBe(
+      204,
+    );
     expect((await list()).entries.some((e) => e.id === mine)).toBe(false);
   });
 });

@@ -34,7 +34,9 @@ describe("streak", () => {
   it("counts days in the student's zone: the same log is a 3-day streak in Auckland and 2 in London", async () => {
     const auck = await student("Pacific/Auckland");
     const lond = await student("Europe/London");
-    for (const p of [auck, lond]) for (const day of ["2026-03-11", "2026-03-10", "2026-03-09", "2026-03-07"]) await makePractice(w.db, p.id, { practisedOn: day, minutes: 20 });
+    for (const p of [auck, lond])
+      for (const day of ["2026-03-11", "2026-03-10", "2026-03-09", "2026-03-07"])
+        await makePractice(w.db, p.id, { practisedOn: day, minutes: 20 });
     const a = await todayFor(w.db, auck, NOW);
     expect(a.today).toBe("2026-03-11");
     expect([a.streak, a.practisedToday]).toEqual([3, true]);
@@ -78,8 +80,16 @@ describe("minutes per day", () => {
 describe("assignments, next rung and feedback", () => {
   it("lists open assignments soonest due first, marks the overdue one and leaves out a finished one", async () => {
     const p = await student("America/Halifax");
-    const later = await makeAssignment(w.db, { teacherId, studentIds: [p.id], dueAt: new Date("2026-03-20T21:00:00Z") });
-    const overdue = await makeAssignment(w.db, { teacherId, studentIds: [p.id], dueAt: new Date("2026-03-09T21:00:00Z") });
+    const later = await makeAssignment(w.db, {
+      teacherId,
+      studentIds: [p.id],
+      dueAt: new Date("2026-03-20T21:00:00Z"),
+    });
+    const overdue = await makeAssignment(w.db, {
+      teacherId,
+      studentIds: [p.id],
+      dueAt: new Date("2026-03-09T21:00:00Z"),
+    });
     const t = await todayFor(w.db, p, NOW);
     expect(t.assignments.map((a) => a.assignmentStudentId)).toEqual([overdue.students[p.id], later.students[p.id]]);
     expect(t.assignments.map((a) => a.overdue)).toEqual([true, false]);
@@ -91,8 +101,16 @@ describe("assignments, next rung and feedback", () => {
   it("GET /api/learn/assignments lists only the caller's own, soonest due first", async () => {
     const me = await student("Europe/London");
     const someoneElse = await student("Europe/London");
-    const late = await makeAssignment(w.db, { teacherId, studentIds: [me.id, someoneElse.id], dueAt: new Date("2030-05-02T17:00:00Z") });
-    const soon = await makeAssignment(w.db, { teacherId, studentIds: [me.id], dueAt: new Date("2030-05-01T17:00:00Z") });
+    const late = await makeAssignment(w.db, {
+      teacherId,
+      studentIds: [me.id, someoneElse.id],
+      dueAt: new Date("2030-05-02T17:00:00Z"),
+    });
+    const soon = await makeAssignment(w.db, {
+      teacherId,
+      studentIds: [me.id],
+      dueAt: new Date("2030-05-01T17:00:00Z"),
+    });
     const res = await w.call("learn/assignments", "GET", { cookie: await w.cookieFor(me.id) });
     expect(res.status).toBe(200);
     const { assignments } = (await res.json()) as { assignments: { assignmentStudentId: string; dueLocal: string }[] };
@@ -111,11 +129,33 @@ describe("assignments, next rung and feedback", () => {
     const id = f.students[p.id];
     const { checkIn } = await import("@/lib/teaching/check-in");
     const { applyTransition } = await import("@/lib/teaching/transitions");
-    const made = await checkIn(w.db, p, { assignmentStudentId: id, stageIndex: 1, uploadId: await makeUpload(w.db, { ownerId: p.id, assignmentStudentId: id }), selfRating: 3, fromMemory: false });
-    await applyTransition(w.db, { stageStateId: made.stageStateId, transition: "needsMoreTime", actor: { id: teacherId, role: "teacher" }, feedback: "Keep the bow straighter.", checkInId: made.checkInId, now: new Date() });
+    const made = await checkIn(w.db, p, {
+      assignmentStudentId: id,
+      stageIndex: 1,
+      uploadId: await makeUpload(w.db, { ownerId: p.id, assignmentStudentId: id }),
+      selfRating: 3,
+      fromMemory: false,
+    });
+    await applyTransition(w.db, {
+      stageStateId: made.stageStateId,
+      transition: "needsMoreTime",
+      actor: { id: teacherId, role: "teacher" },
+      feedback: "Keep the bow straighter.",
+      checkInId: made.checkInId,
+      now: new Date(),
+    });
     const t = await todayFor(w.db, p, new Date());
-    expect(t.nextRungs).toEqual([expect.objectContaining({ courseId: course.id, tuneId: tune.tuneId, tuneTitle: "Today Taster", position: 1 })]);
-    expect(t.feedback).toEqual([expect.objectContaining({ checkInId: made.checkInId, feedback: "Keep the bow straighter.", outcome: "needs_more_time", tuneTitle: "Today Taster" })]);
+    expect(t.nextRungs).toEqual([
+      expect.objectContaining({ courseId: course.id, tuneId: tune.tuneId, tuneTitle: "Today Taster", position: 1 }),
+    ]);
+    expect(t.feedback).toEqual([
+      expect.objectContaining({
+        checkInId: made.checkInId,
+        feedback: "Keep the bow straighter.",
+        outcome: "needs_more_time",
+        tuneTitle: "Today Taster",
+      }),
+    ]);
   });
 
   it("the Assignments page: still-to-do ones first by due date, finished ones after (latest first), 20 a page", async () => {
@@ -129,7 +169,8 @@ describe("assignments, next rung and feedback", () => {
       ids.push(f.students[me.id]);
     }
     const finished = [1, 5, 9];
-    for (const n of finished) await w.db.update(stageStates).set({ state: "signed_off" }).where(eq(stageStates.assignmentStudentId, ids[n]));
+    for (const n of finished)
+      await w.db.update(stageStates).set({ state: "signed_off" }).where(eq(stageStates.assignmentStudentId, ids[n]));
     const open = ids.filter((_, n) => !finished.includes(n));
     const expected = [...open, ids[9], ids[5], ids[1]];
 

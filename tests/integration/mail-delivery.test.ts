@@ -31,13 +31,15 @@ describe("e-mail delivery through the outbox, the job queue and the stand-in", (
     const ids = (await enqueueEmails(database.db, mails)).map((r) => r?.id);
     expect(ids.every((id) => typeof id === "string")).toBe(true);
 
-    const sentCount = async () => (await database.db.select().from(emailOutbox).where(eq(emailOutbox.status, "sent"))).length;
+    const sentCount = async () =>
+      (await database.db.select().from(emailOutbox).where(eq(emailOutbox.status, "sent"))).length;
     await waitFor(async () => (await sentCount()) === 50, 50_000, "50 sent rows");
 
     // Counted in the stand-in by idempotency key, which is the outbox row id.
     const delivered = world.fake.emails();
     const perRow = new Map<string, number>();
-    for (const e of delivered) perRow.set(e.idempotency_key ?? "none", (perRow.get(e.idempotency_key ?? "none") ?? 0) + 1);
+    for (const e of delivered)
+      perRow.set(e.idempotency_key ?? "none", (perRow.get(e.idempotency_key ?? "none") ?? 0) + 1);
     expect(delivered).toHaveLength(50);
     expect([...perRow.keys()].sort()).toEqual([...ids].sort());
     expect([...perRow.values()].every((n) => n === 1)).toBe(true);

@@ -13,7 +13,8 @@ let earlyId: string | undefined;
 const welcome = (to: string, dedupeKey?: string) =>
   ({ to, template: "welcome", data: { name: "Ann", verifyUrl: "/verify-email?token=x" }, dedupeKey }) as const;
 const row = async (id: string) => (await database.db.select().from(emailOutbox).where(eq(emailOutbox.id, id)))[0];
-const waitSent = (id: string, ms = 15_000) => waitFor(async () => (await row(id))?.status === "sent", ms, `row ${id} sent`);
+const waitSent = (id: string, ms = 15_000) =>
+  waitFor(async () => (await row(id))?.status === "sent", ms, `row ${id} sent`);
 const deliveredFor = (id: string) => world.fake.emails().filter((e) => e.idempotency_key === id);
 
 beforeAll(async () => {
@@ -112,7 +113,12 @@ describe("the e-mail outbox and its job queue", () => {
   it("queues again a row whose job was lost, when swept", async () => {
     const [lost] = await database.db
       .insert(emailOutbox)
-      .values({ toAddress: "swept@example.com", template: "password-changed", subject: "Your Rosinwood password was changed", payload: { name: "Sam" } })
+      .values({
+        toAddress: "swept@example.com",
+        template: "password-changed",
+        subject: "Your Rosinwood password was changed",
+        payload: { name: "Sam" },
+      })
       .returning({ id: emailOutbox.id });
     const id = lost?.id ?? "";
     expect(await world.worker.sweepNow()).toBeGreaterThanOrEqual(1);

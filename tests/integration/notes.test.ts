@@ -33,7 +33,8 @@ const list = async (cookie: string, tuneId = f.tunes.A) => {
   const res = await callRoute("tunes/[tuneId]/notes", "GET", { cookie, params: { tuneId } });
   return { status: res.status, notes: res.status === 200 ? ((await res.json()) as { notes: NoteJson[] }).notes : [] };
 };
-const add = (cookie: string, body: unknown, tuneId = f.tunes.A) => callRoute("tunes/[tuneId]/notes", "POST", { cookie, params: { tuneId }, body });
+const add = (cookie: string, body: unknown, tuneId = f.tunes.A) =>
+  callRoute("tunes/[tuneId]/notes", "POST", { cookie, params: { tuneId }, body });
 const one = (method: "PATCH" | "DELETE", cookie: string, noteId: string, body?: unknown) =>
   callRoute("tunes/[tuneId]/notes/[noteId]", method, { cookie, params: { tuneId: f.tunes.A, noteId }, body });
 
@@ -69,9 +70,13 @@ describe("margin notes", () => {
   it("refuses bad input with a message per field", async () => {
     const empty = await add(me, { bar: 1, body: "   " });
     expect(empty.status).toBe(400);
-    expect(((await empty.json()) as { fieldErrors: Record<string, string> }).fieldErrors.body).toBe("Write something in the note.");
+    expect(((await empty.json()) as { fieldErrors: Record<string, string> }).fieldErrors.body).toBe(
+      "Write something in the note.",
+    );
     const negative = await add(me, { bar: -1, body: "x" });
-    expect(((await negative.json()) as { fieldErrors: Record<string, string> }).fieldErrors.bar).toMatch(/Bars start at 0/);
+    expect(((await negative.json()) as { fieldErrors: Record<string, string> }).fieldErrors.bar).toMatch(
+      /Bars start at 0/,
+    );
     expect((await add(me, { bar: 1, body: "x".repeat(2001) })).status).toBe(400);
     expect((await one("PATCH", me, f.studentNoteId, {})).status).toBe(400); // nothing to change
   });
@@ -85,7 +90,9 @@ describe("margin notes", () => {
   });
 
   it("refuses a cross-site request", async () => {
-    const mod = (await import("@/app/api/tunes/[tuneId]/notes/route")) as { POST: (r: Request, a: unknown) => Promise<Response> };
+    const mod = (await import("@/app/api/tunes/[tuneId]/notes/route")) as {
+      POST: (r: Request, a: unknown) => Promise<Response>;
+    };
     const req = new Request("http://127.0.0.1:3999/api/tunes/x/notes", {
       method: "POST",
       headers: { origin: "https://elsewhere.example", cookie: me, "content-type": "application/json" },

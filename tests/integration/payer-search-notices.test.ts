@@ -26,7 +26,17 @@ afterAll(async () => w?.close());
 
 async function payer(name: string, email = `${name.toLowerCase().replace(/\W+/g, ".")}@notices.example`) {
   const [p] = await w.db.insert(users).values({ name, email, role: "student" }).returning();
-  await w.db.insert(payments).values({ userId: p.id, stripeInvoiceId: `in_notices_${++n}`, kind: "new", amount: 1800, currency: "GBP", status: "paid", createdAt: new Date() });
+  await w.db
+    .insert(payments)
+    .values({
+      userId: p.id,
+      stripeInvoiceId: `in_notices_${++n}`,
+      kind: "new",
+      amount: 1800,
+      currency: "GBP",
+      status: "paid",
+      createdAt: new Date(),
+    });
   return p;
 }
 
@@ -44,7 +54,10 @@ describe("the people a payments search keeps", () => {
     expect(await names("polglase")).toEqual(["Wenna Polglase"]);
     expect(await S.payerFilter(app, "POLGLASE")).toEqual({ kind: "people", ids: [first.id] }); // kept, whatever the case
     await payer("Jory Polglase");
-    await vi.waitFor(async () => expect(await names("polglase")).toEqual(["Jory Polglase", "Wenna Polglase"]), { timeout: 2000, interval: 10 });
+    await vi.waitFor(async () => expect(await names("polglase")).toEqual(["Jory Polglase", "Wenna Polglase"]), {
+      timeout: 2000,
+      interval: 10,
+    });
   });
 
   it("no longer finds a person renamed out of the search, nor finds one at an address they left", async () => {
@@ -71,6 +84,9 @@ describe("the people a payments search keeps", () => {
     expect(await names("trebilcock")).toEqual([]);
     expect(await S.payerFilter(app, "trebilcock")).toEqual({ kind: "people", ids: [] });
     await payer("Morvoren Trebilcock");
-    await vi.waitFor(async () => expect(await names("trebilcock")).toEqual(["Morvoren Trebilcock"]), { timeout: 2000, interval: 10 });
+    await vi.waitFor(async () => expect(await names("trebilcock")).toEqual(["Morvoren Trebilcock"]), {
+      timeout: 2000,
+      interval: 10,
+    });
   });
 });

@@ -30,6 +30,9 @@ describe("recording storage configuration", () => {
     for (const k of KEYS) delete process.env[k];
     const { withStorage } = await import("@/lib/storage/respond");
     const { storage } = await import("@/lib/storage/s3");
-    await expect(withStorage(async () => storage())).rejects.toMatchObject({ status: 503, message: expect.stringContaining("S3_ACCESS_KEY_ID") });
+    await expect(withStorage(async () => storage())).rejects.toMatchObject({
+      status: 503,
+      message: expect.stringContaining("S3_ACCESS_KEY_ID"),
+    });
   });
 });

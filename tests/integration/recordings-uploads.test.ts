@@ -4,7 +4,14 @@
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { uploads } from "@/db/schema";
-import { ensureS3, makeAssignment, pngBytes, putTicket, wavBytes, type AssignmentFixture } from "./helpers/recordings-world";
+import {
+  ensureS3,
+  makeAssignment,
+  pngBytes,
+  putTicket,
+  wavBytes,
+  type AssignmentFixture,
+} from "./helpers/recordings-world";
 import { callRoute, teachWorld } from "./helpers/teach-world";
 import type { AuthWorld } from "./helpers/auth-world";
 
@@ -32,19 +39,36 @@ beforeAll(async () => {
   const dueAt = new Date(Date.now() + 7 * 86_400_000);
   mine = await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [student.id], dueAt });
   theirs = await makeAssignment(w.db, { teacherId: otherTeacher.id, studentIds: [otherStudent.id], dueAt });
-  withdrawn = await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [student.id], dueAt, status: "withdrawn" });
+  withdrawn = await makeAssignment(w.db, {
+    teacherId: teacher.id,
+    studentIds: [student.id],
+    dueAt,
+    status: "withdrawn",
+  });
 });
 afterAll(async () => {
   await w?.close();
   await s3?.close();
 });
 
-const ask = (who: Person, body: Record<string, unknown>) => callRoute("recordings", "POST", { cookie: cookie[who.id], body });
-const complete = (who: Person, uploadId: string) => callRoute("recordings/[uploadId]/complete", "POST", { cookie: cookie[who.id], params: { uploadId } });
-const playback = (who: Person, uploadId: string) => callRoute("recordings/[uploadId]/playback", "GET", { cookie: cookie[who.id], params: { uploadId } });
+const ask = (who: Person, body: Record<string, unknown>) =>
+  callRoute("recordings", "POST", { cookie: cookie[who.id], body });
+const complete = (who: Person, uploadId: string) =>
+  callRoute("recordings/[uploadId]/complete", "POST", { cookie: cookie[who.id], params: { uploadId } });
+const playback = (who: Person, uploadId: string) =>
+  callRoute("recordings/[uploadId]/playback", "GET", { cookie: cookie[who.id], params: { uploadId } });
 
-function request(a: AssignmentFixture, who: Person, o: { contentType?: string; sizeBytes?: number; stageIndex?: number } = {}) {
-  return { assignmentStudentId: a.students[who.id] ?? Object.values(a.students)[0], stageIndex: o.stageIndex ?? 1, contentType: o.contentType ?? "audio/wav", sizeBytes: o.sizeBytes ?? 16_044 };
+function request(
+  a: AssignmentFixture,
+  who: Person,
+  o: { contentType?: string; sizeBytes?: number; stageIndex?: number } = {},
+) {
+  return {
+    assignmentStudentId: a.students[who.id] ?? Object.values(a.students)[0],
+    stageIndex: o.stageIndex ?? 1,
+    contentType: o.contentType ?? "audio/wav",
+    sizeBytes: o.sizeBytes ?? 16_044,
+  };
 }
 
 /** Ask, upload the bytes, complete: the complete answer. */
@@ -85,7 +109,9 @@ describe("asking for an upload address", () => {
   it("refuses a locked stage, a stage that does not exist and a withdrawn assignment", async () => {
     const locked = await ask(student, request(mine, student, { stageIndex: 2 }));
     expect(locked.status).toBe(422);
-    expect(((await locked.json()) as { fieldErrors: Record<string, string> }).fieldErrors.stageIndex).toBe("is not open");
+    expect(((await locked.json()) as { fieldErrors: Record<string, string> }).fieldErrors.stageIndex).toBe(
+      "is not open",
+    );
     expect((await ask(student, request(mine, student, { stageIndex: 9 }))).status).toBe(422);
     expect((await ask(student, request(withdrawn, student))).status).toBe(422);
   });
@@ -95,7 +121,9 @@ describe("asking for an upload address", () => {
     const url = new URL(ticket.url);
     // AWS Signature Version 4, query parameters of a presigned request (AWS S3 API reference: Authenticating Requests, query string).
     expect(url.searchParams.get("X-Amz-Expires")).toBe("300");
-    expect(url.searchParams.get("X-Amz-SignedHeaders")?.split(";")).toEqual(expect.arrayContaining(["content-type", "content-length"]));
+    expect(url.searchParams.get("X-Amz-SignedHeaders")?.split(";")).toEqual(
+      expect.arrayContaining(["content-type", "content-length"]),
+    );
     expect(url.pathname).toBe(`/rosinwood-recordings/recordings/${student.id}/${ticket.uploadId}`);
     expect(ticket).toMatchObject({ method: "PUT", headers: { "Content-Type": "audio/wav" } });
     expect((await rowOf(ticket.uploadId)).status).toBe("pending");
@@ -106,7 +134,11 @@ describe("completing an upload", () => {
   it("stores a real WAV, typed by its content", async () => {
     const { ticket, done } = await upload(wavBytes(), "audio/x-wav");
     expect(done.status).toBe(200);
-    expect(await done.json()).toMatchObject({ uploadId: ticket.uploadId, contentType: "audio/wav", sizeBytes: wavBytes().length });
+    expect(await done.json()).toMatchObject({
+      uploadId: ticket.uploadId,
+      contentType: "audio/wav",
+      sizeBytes: wavBytes().length,
+    });
     expect(await rowOf(ticket.uploadId)).toMatchObject({ status: "stored", contentType: "audio/wav", stageIndex: 1 });
   });
 
@@ -162,7 +194,9 @@ describe("playback", () => {
     }
     expect((await playback(otherTeacher, ticket.uploadId)).status).toBe(404);
     expect((await playback(otherStudent, ticket.uploadId)).status).toBe(404);
-    expect((await callRoute("recordings/[uploadId]/playback", "GET", { params: { uploadId: ticket.uploadId } })).status).toBe(401);
+    expect(
+      (await callRoute("recordings/[uploadId]/playback", "GET", { params: { uploadId: ticket.uploadId } })).status,
+    ).toBe(401);
   });
 
   it("has no address for an upload that was not stored", async () => {
@@ -182,17 +216,29 @@ describe("the storage stays private", () => {
 
     const fresh = (await (await ask(student, request(mine, student, { sizeBytes: 1044 }))).json()) as Ticket;
     // Content-Type and Content-Length are signed: another type or size breaks the signature (AWS Signature Version 4).
-    expect((await putTicket({ url: fresh.url, headers: { "Content-Type": "image/png" } }, wavBytes(500))).status).toBe(403);
+    expect((await putTicket({ url: fresh.url, headers: { "Content-Type": "image/png" } }, wavBytes(500))).status).toBe(
+      403,
+    );
     expect((await putTicket(fresh, wavBytes(900))).status).toBe(403);
     expect((await putTicket(fresh, wavBytes(500))).status).toBe(200);
 
     // An address signed 11 minutes ago with a 10-minute life, through the same presigner the app uses.
     const { S3Client, GetObjectCommand } = await import("@aws-sdk/client-s3");
     const { getSignedUrl } = await import("@aws-sdk/s3-request-presigner");
-    const client = new S3Client({ endpoint, region: "us-east-1", forcePathStyle: true, credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" } });
-    const old = await getSignedUrl(client, new GetObjectCommand({ Bucket: "rosinwood-recordings", Key: key }), { expiresIn: 600, signingDate: new Date(Date.now() - 11 * 60_000) });
+    const client = new S3Client({
+      endpoint,
+      region: "us-east-1",
+      forcePathStyle: true,
+      credentials: { accessKeyId: "S3RVER", secretAccessKey: "S3RVER" },
+    });
+    const old = await getSignedUrl(client, new GetObjectCommand({ Bucket: "rosinwood-recordings", Key: key }), {
+      expiresIn: 600,
+      signingDate: new Date(Date.now() - 11 * 60_000),
+    });
     expect((await fetch(old)).status).toBe(403);
-    const current = await getSignedUrl(client, new GetObjectCommand({ Bucket: "rosinwood-recordings", Key: key }), { expiresIn: 600 });
+    const current = await getSignedUrl(client, new GetObjectCommand({ Bucket: "rosinwood-recordings", Key: key }), {
+      expiresIn: 600,
+    });
     expect((await fetch(current)).status).toBe(200);
   });
 });

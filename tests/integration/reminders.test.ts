@@ -50,12 +50,18 @@ beforeAll(async () => {
   ids.london = (await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [london], dueAt })).students[london];
   ids.done = (await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [done], dueAt })).students[done];
   await signOffAll(w.db, ids.done);
-  ids.gone = (await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [gone], dueAt, status: "withdrawn" })).students[gone];
+  ids.gone = (
+    await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [gone], dueAt, status: "withdrawn" })
+  ).students[gone];
   // One assignment, two students half a world apart: due 20:00 UTC is 13:00 on the 24th in Los Angeles
   // (PDT, UTC−7) and 09:00 on the 25th in Auckland (NZDT, UTC+13) — IANA tz database.
   const auckland = await person("auckland", "Pacific/Auckland");
   const la = await person("la", "America/Los_Angeles");
-  const both = await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [auckland, la], dueAt: new Date("2032-03-24T20:00:00Z") });
+  const both = await makeAssignment(w.db, {
+    teacherId: teacher.id,
+    studentIds: [auckland, la],
+    dueAt: new Date("2032-03-24T20:00:00Z"),
+  });
   ids.auckland = both.students[auckland];
   ids.la = both.students[la];
   worker = await startTheWorker();
@@ -68,7 +74,10 @@ afterAll(async () => {
 
 /** The reminder kinds queued so far for one student's copy, in order. */
 async function sent(label: string): Promise<string[]> {
-  const rows = await w.db.select().from(emailOutbox).where(like(emailOutbox.dedupeKey, `due-reminder:%:${ids[label]}:%`));
+  const rows = await w.db
+    .select()
+    .from(emailOutbox)
+    .where(like(emailOutbox.dedupeKey, `due-reminder:%:${ids[label]}:%`));
   return rows.sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime()).map((r) => String(r.payload.when));
 }
 
@@ -98,7 +107,10 @@ describe("due-date reminders", () => {
     expect(await passAt("2031-03-20T18:00:00Z")).toEqual([]);
     expect(await sent("london")).toEqual(["two_days", "due_today", "overdue"]);
     const [mail] = (await w.mailsTo(emails.london)).filter((m) => m.payload.when === "due_today");
-    expect(mail.payload).toMatchObject({ dueLocal: "Friday 14 March, 18:00", assignmentUrl: `/learn/assignments/${ids.london}` });
+    expect(mail.payload).toMatchObject({
+      dueLocal: "Friday 14 March, 18:00",
+      assignmentUrl: `/learn/assignments/${ids.london}`,
+    });
   });
 
   it("sends nothing for a fully signed-off or a withdrawn assignment", async () => {
@@ -119,10 +131,20 @@ describe("due-date reminders", () => {
   it("queues a reminder once when passes race (two workers at the same moment)", async () => {
     const teacher = await w.person("teacher");
     const racer = await w.person("student");
-    ids.race = (await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [racer.id], dueAt: new Date("2031-06-10T12:00:00Z") })).students[racer.id];
+    ids.race = (
+      await makeAssignment(w.db, {
+        teacherId: teacher.id,
+        studentIds: [racer.id],
+        dueAt: new Date("2031-06-10T12:00:00Z"),
+      })
+    ).students[racer.id];
     now = new Date("2031-06-10T13:00:00Z");
     const { sendDueReminders } = await import("@/lib/jobs/reminders");
-    const runs = await Promise.all([sendDueReminders(w.db, now), sendDueReminders(w.db, now), sendDueReminders(w.db, now)]);
+    const runs = await Promise.all([
+      sendDueReminders(w.db, now),
+      sendDueReminders(w.db, now),
+      sendDueReminders(w.db, now),
+    ]);
     // The outbox's unique dedupe_key decides the race: exactly one pass queued it.
     expect(runs.flat()).toEqual([`due-reminder:overdue:${ids.race}:2031-06-10T12:00:00.000Z`]);
     expect(await sent("race")).toEqual(["overdue"]);
@@ -132,12 +154,23 @@ describe("due-date reminders", () => {
     const teacher = await w.person("teacher");
     const mover = await w.person("student");
     emails.moved = mover.email;
-    const made = await makeAssignment(w.db, { teacherId: teacher.id, studentIds: [mover.id], dueAt: new Date("2031-07-10T12:00:00Z") });
+    const made = await makeAssignment(w.db, {
+      teacherId: teacher.id,
+      studentIds: [mover.id],
+      dueAt: new Date("2031-07-10T12:00:00Z"),
+    });
     ids.moved = made.students[mover.id];
-    expect(await passAt("2031-07-08T13:00:00Z")).toEqual([`due-reminder:two_days:${ids.moved}:2031-07-10T12:00:00.000Z`]);
-    await w.db.update(assignments).set({ dueAt: new Date("2031-07-20T12:00:00Z") }).where(eq(assignments.id, made.assignmentId));
+    expect(await passAt("2031-07-08T13:00:00Z")).toEqual([
+      `due-reminder:two_days:${ids.moved}:2031-07-10T12:00:00.000Z`,
+    ]);
+    await w.db
+      .update(assignments)
+      .set({ dueAt: new Date("2031-07-20T12:00:00Z") })
+      .where(eq(assignments.id, made.assignmentId));
     expect(await passAt("2031-07-09T13:00:00Z")).toEqual([]); // the new date is eleven days away
-    expect(await passAt("2031-07-18T13:00:00Z")).toEqual([`due-reminder:two_days:${ids.moved}:2031-07-20T12:00:00.000Z`]);
+    expect(await passAt("2031-07-18T13:00:00Z")).toEqual([
+      `due-reminder:two_days:${ids.moved}:2031-07-20T12:00:00.000Z`,
+    ]);
     expect(await passAt("2031-07-18T14:00:00Z")).toEqual([]);
     const dues = (await w.mailsTo(emails.moved)).map((m) => m.payload.dueLocal);
     expect(dues).toHaveLength(2);
@@ -155,7 +188,8 @@ describe("due-date reminders", () => {
     expect(await sent("auckland")).toEqual(["two_days"]);
     await passAt("2032-03-24T11:01:00Z"); // 00:01 on the 25th in Auckland
     expect(await sent("auckland")).toEqual(["two_days", "due_today"]);
-    const local = async (label: string) => (await w.mailsTo(emails[label])).find((m) => m.payload.when === "due_today")?.payload.dueLocal;
+    const local = async (label: string) =>
+      (await w.mailsTo(emails[label])).find((m) => m.payload.when === "due_today")?.payload.dueLocal;
     expect(await local("la")).toBe("Wednesday 24 March, 13:00");
     expect(await local("auckland")).toBe("Thursday 25 March, 09:00");
     await passAt("2032-03-24T20:00:00Z");

@@ -29,12 +29,21 @@ const anchorOf = async () => {
 describe("demo billing history", () => {
   it("covers the last twelve months with money taken in each", async () => {
     const now = Date.now();
-    const taken = await w.db.select({ at: payments.createdAt }).from(payments).where(sql`${payments.status} <> 'failed'`);
+    const taken = await w.db
+      .select({ at: payments.createdAt })
+      .from(payments)
+      .where(sql`${payments.status} <> 'failed'`);
     for (let i = 0; i < 12; i++) {
       const [from, to] = [now - (i + 1) * 30 * DAY_MS, now - i * 30 * DAY_MS];
-      expect(taken.some((p) => p.at.getTime() >= from && p.at.getTime() < to), `payments ${i * 30}–${(i + 1) * 30} days ago`).toBe(true);
+      expect(
+        taken.some((p) => p.at.getTime() >= from && p.at.getTime() < to),
+        `payments ${i * 30}–${(i + 1) * 30} days ago`,
+      ).toBe(true);
     }
-    const kinds = await w.db.select({ status: payments.status, n: sql<number>`count(*)::int` }).from(payments).groupBy(payments.status);
+    const kinds = await w.db
+      .select({ status: payments.status, n: sql<number>`count(*)::int` })
+      .from(payments)
+      .groupBy(payments.status);
     const n = Object.fromEntries(kinds.map((k) => [k.status, k.n]));
     // Failed renewals (not recovered), full and partial refunds are all in the demo.
     expect(n.failed).toBeGreaterThanOrEqual(2);
@@ -48,7 +57,10 @@ describe("demo billing history", () => {
     const { demoBillingHistory } = await import("@/db/seed-data/billing-history");
     const res = await w.call("admin/revenue", "GET", { cookie: adminCookie });
     expect(res.status).toBe(200);
-    const report = await w.json<{ months: string[]; rows: { currency: string; new: number; renewals: number; refunds: number; net: number }[] }>(res);
+    const report = await w.json<{
+      months: string[];
+      rows: { currency: string; new: number; renewals: number; refunds: number; net: number }[];
+    }>(res);
     const since = Date.parse(`${report.months[0]}-01T00:00:00Z`) / 1000;
     let expectTaken = 0;
     let expectBack = 0;
@@ -68,7 +80,13 @@ describe("demo billing history", () => {
 
   it("never refunds more than a payment took, and each payment's refunded amount is its refunds' sum", async () => {
     const rows = await w.db
-      .select({ id: payments.id, amount: payments.amount, refunded: payments.refundedAmount, status: payments.status, sum: sql<number>`coalesce((select sum(r.amount) from refunds r where r.payment_id = "payments"."id"), 0)::int` })
+      .select({
+        id: payments.id,
+        amount: payments.amount,
+        refunded: payments.refundedAmount,
+        status: payments.status,
+        sum: sql<number>`coalesce((select sum(r.amount) from refunds r where r.payment_id = "payments"."id"), 0)::int`,
+      })
       .from(payments);
     for (const p of rows) {
       expect(p.refunded).toBeLessThanOrEqual(p.amount);
@@ -81,22 +99,40 @@ describe("demo billing history", () => {
   it("leaves every enrolled student in good standing except the deliberately lapsed", async () => {
     const { memberStanding } = await import("@/lib/billing/gate");
     const { STORIES } = await import("@/db/seed-data/billing-history");
-    const enrolled = await w.db.selectDistinct({ id: users.id, email: users.email }).from(enrolments).innerJoin(users, eq(users.id, enrolments.userId)).where(eq(enrolments.status, "active"));
+    const enrolled = await w.db
+      .selectDistinct({ id: users.id, email: users.email })
+      .from(enrolments)
+      .innerJoin(users, eq(users.id, enrolments.userId))
+      .where(eq(enrolments.status, "active"));
     expect(enrolled.length).toBeGreaterThanOrEqual(10);
-    for (const s of enrolled) expect(await memberStanding(w.db, { id: s.id, role: "student" }), s.email).toMatchObject({ good: true });
+    for (const s of enrolled)
+      expect(await memberStanding(w.db, { id: s.id, role: "student" }), s.email).toMatchObject({ good: true });
     // The students the browser tests sign in as.
     const first = await w.userByEmail(STUDENTS[0].email);
-    expect(await memberStanding(w.db, { id: first?.id ?? "", role: "student" })).toMatchObject({ good: true, reason: "active" });
+    expect(await memberStanding(w.db, { id: first?.id ?? "", role: "student" })).toMatchObject({
+      good: true,
+      reason: "active",
+    });
     // The lapsed examples: a renewal that failed for good, and cancellations that have ended.
     for (const i of [10, 12, 14]) {
       expect(STORIES[i]).toBeDefined();
       const u = await w.userByEmail(STUDENTS[i].email);
-      expect(await memberStanding(w.db, { id: u?.id ?? "", role: "student" }), STUDENTS[i].email).toMatchObject({ good: false });
+      expect(await memberStanding(w.db, { id: u?.id ?? "", role: "student" }), STUDENTS[i].email).toMatchObject({
+        good: false,
+      });
     }
   });
 
   it("has the same customers, subscription ids and statuses in the Stripe stand-in", async () => {
-    const subs = await w.db.select({ sid: subscriptions.stripeSubscriptionId, status: subscriptions.status, end: subscriptions.currentPeriodEnd, cus: users.stripeCustomerId }).from(subscriptions).innerJoin(users, eq(users.id, subscriptions.userId));
+    const subs = await w.db
+      .select({
+        sid: subscriptions.stripeSubscriptionId,
+        status: subscriptions.status,
+        end: subscriptions.currentPeriodEnd,
+        cus: users.stripeCustomerId,
+      })
+      .from(subscriptions)
+      .innerJoin(users, eq(users.id, subscriptions.userId));
     expect(subs.length).toBeGreaterThanOrEqual(25);
     for (const s of subs) {
       const remote = await w.stripe().subscriptions.retrieve(s.sid);
@@ -104,7 +140,9 @@ describe("demo billing history", () => {
       expect(remote.customer).toBe(s.cus);
       expect(remote.items.data[0].current_period_end * 1000).toBe(s.end?.getTime());
     }
-    const paid = await w.db.select({ inv: payments.stripeInvoiceId, status: payments.status, refunded: payments.refundedAmount }).from(payments);
+    const paid = await w.db
+      .select({ inv: payments.stripeInvoiceId, status: payments.status, refunded: payments.refundedAmount })
+      .from(payments);
     for (const p of paid.slice(0, 40)) {
       const inv = await w.stripe().invoices.retrieve(p.inv);
       expect(inv.status === "paid", p.inv).toBe(p.status !== "failed");
@@ -125,13 +163,17 @@ describe("demo billing history", () => {
       const env = { STRIPE_API_BASE: fresh.url, STRIPE_SECRET_KEY: "sk_test_fresh" };
       expect((await seedBilling(w.db, env)).imported).toBe(true);
       expect((await seedBilling(w.db, env)).imported).toBe(false);
-      const res = await fetch(`${fresh.url}/v1/subscriptions/sub_LmDemo00`, { headers: { authorization: "Bearer sk_test_fresh" } });
+      const res = await fetch(`${fresh.url}/v1/subscriptions/sub_LmDemo00`, {
+        headers: { authorization: "Bearer sk_test_fresh" },
+      });
       expect(res.status).toBe(200);
     } finally {
       await fresh.close();
     }
     expect(await count()).toBe(before);
-    await expect(seedBilling(w.db, { STRIPE_API_BASE: "http://127.0.0.1:9", STRIPE_SECRET_KEY: "sk_test_x" })).rejects.toThrow(/not reachable/);
+    await expect(
+      seedBilling(w.db, { STRIPE_API_BASE: "http://127.0.0.1:9", STRIPE_SECRET_KEY: "sk_test_x" }),
+    ).rejects.toThrow(/not reachable/);
     await expect(seedBilling(w.db, {})).rejects.toThrow(/STRIPE_API_BASE/);
   });
 });

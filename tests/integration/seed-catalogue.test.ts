@@ -12,8 +12,9 @@ import { createTestDatabase } from "./helpers/db";
 let world: Awaited<ReturnType<typeof createTestDatabase>>;
 let db: Db;
 
-const count = async (table: typeof courses | typeof grades | typeof rungs | typeof tunes | typeof tuneStages | typeof enrolments) =>
-  (await db.select({ n: sql<number>`count(*)::int` }).from(table))[0].n;
+const count = async (
+  table: typeof courses | typeof grades | typeof rungs | typeof tunes | typeof tuneStages | typeof enrolments,
+) => (await db.select({ n: sql<number>`count(*)::int` }).from(table))[0].n;
 const counts = async () => ({
   courses: await count(courses),
   grades: await count(grades),
@@ -43,15 +44,23 @@ describe("seedCatalogue", () => {
 
   it("gives every rung a tune with its stages, and each course at least two grades", async () => {
     const rows = await db
-      .select({ slug: courses.slug, grade: grades.position, tune: tunes.title, stages: sql<number>`(select count(*)::int from tune_stages s where s.tune_id = ${tunes.id})` })
+      .select({
+        slug: courses.slug,
+        grade: grades.position,
+        tune: tunes.title,
+        stages: sql<number>`(select count(*)::int from tune_stages s where s.tune_id = ${tunes.id})`,
+      })
       .from(rungs)
       .innerJoin(grades, eq(rungs.gradeId, grades.id))
       .innerJoin(courses, eq(grades.courseId, courses.id))
       .innerJoin(tunes, eq(rungs.tuneId, tunes.id));
     expect(rows).toHaveLength(DEMO_COURSES.reduce((n, c) => n + c.grades.reduce((m, g) => m + g.rungs.length, 0), 0));
     for (const r of rows) expect([r.tune, r.stages]).toEqual([r.tune, 4]);
-    for (const c of DEMO_COURSES) expect(new Set(rows.filter((r) => r.slug === c.slug).map((r) => r.grade)).size).toBeGreaterThanOrEqual(2);
-    const unlinked = await db.execute(sql`select g.id from grades g where not exists (select 1 from rungs r where r.grade_id = g.id)`);
+    for (const c of DEMO_COURSES)
+      expect(new Set(rows.filter((r) => r.slug === c.slug).map((r) => r.grade)).size).toBeGreaterThanOrEqual(2);
+    const unlinked = await db.execute(
+      sql`select g.id from grades g where not exists (select 1 from rungs r where r.grade_id = g.id)`,
+    );
     expect(unlinked.length).toBe(0);
   });
 
@@ -73,7 +82,11 @@ describe("seedCatalogue", () => {
     expect([wren.tuneType, wren.key, wren.meter]).toEqual(["reel", "G", "4/4"]);
     const [heron] = await db.select().from(tunes).where(eq(tunes.title, "The Heron's Second Thought"));
     expect([heron.tuneType, heron.key, heron.meter]).toEqual(["slip jig", "Em", "9/8"]);
-    const stages = await db.select().from(tuneStages).where(eq(tuneStages.tuneId, wren.id)).orderBy(asc(tuneStages.index));
+    const stages = await db
+      .select()
+      .from(tuneStages)
+      .where(eq(tuneStages.tuneId, wren.id))
+      .orderBy(asc(tuneStages.index));
     expect(stages.map((s) => s.index)).toEqual([1, 2, 3, 4]);
     expect(stages[3].abc).toBe(wren.abc);
     expect(stages[0].kinds).toEqual([]);
@@ -83,12 +96,21 @@ describe("seedCatalogue", () => {
   it("keeps a hand-edited stage when the demo source is seeded again, and flags it", async () => {
     const [wren] = await db.select().from(tunes).where(eq(tunes.title, "The Gatepost Wren"));
     const edited = "X:1\nT:The Gatepost Wren\nM:4/4\nL:1/8\nK:G\nG8|\n";
-    await db.update(tuneStages).set({ abc: edited, handEdited: true }).where(sql`${tuneStages.tuneId} = ${wren.id} and ${tuneStages.index} = 2`);
-    await db.update(tunes).set({ abc: wren.abc.replace("K:G", "% an older copy\nK:G") }).where(eq(tunes.id, wren.id));
+    await db
+      .update(tuneStages)
+      .set({ abc: edited, handEdited: true })
+      .where(sql`${tuneStages.tuneId} = ${wren.id} and ${tuneStages.index} = 2`);
+    await db
+      .update(tunes)
+      .set({ abc: wren.abc.replace("K:G", "% an older copy\nK:G") })
+      .where(eq(tunes.id, wren.id));
     await seedCatalogue(db);
     const [after] = await db.select().from(tunes).where(eq(tunes.id, wren.id));
     expect(after.abc).toBe(wren.abc);
-    const [stage2] = await db.select().from(tuneStages).where(sql`${tuneStages.tuneId} = ${wren.id} and ${tuneStages.index} = 2`);
+    const [stage2] = await db
+      .select()
+      .from(tuneStages)
+      .where(sql`${tuneStages.tuneId} = ${wren.id} and ${tuneStages.index} = 2`);
     expect([stage2.abc, stage2.handEdited, stage2.sourceChanged]).toEqual([edited, true, true]);
   });
 });

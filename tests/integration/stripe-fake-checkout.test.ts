@@ -2,7 +2,14 @@
 // as a person would, the outcome of each card, and what exists afterwards.
 import type Stripe from "stripe";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { CARDS, monthlyPlan, payOnHostedPage, startStripeWorld, subscribe, type StripeWorld } from "./helpers/stripe-fake-world";
+import {
+  CARDS,
+  monthlyPlan,
+  payOnHostedPage,
+  startStripeWorld,
+  subscribe,
+  type StripeWorld,
+} from "./helpers/stripe-fake-world";
 
 let world: StripeWorld;
 let price: Stripe.Price;
@@ -13,12 +20,18 @@ beforeAll(async () => {
 afterAll(async () => world.close());
 
 const typesFor = (customer: string) =>
-  world.fake.events().filter((e) => JSON.stringify(e.data.object).includes(customer)).map((e) => e.type);
+  world.fake
+    .events()
+    .filter((e) => JSON.stringify(e.data.object).includes(customer))
+    .map((e) => e.type);
 
 describe("hosted checkout page", () => {
   it("shows the form with its labels and what is being paid", async () => {
     const session = await world.stripe.checkout.sessions.create({
-      mode: "subscription", customer_email: "look@example.test", line_items: [{ price: price.id, quantity: 1 }], success_url: "http://app.test/ok",
+      mode: "subscription",
+      customer_email: "look@example.test",
+      line_items: [{ price: price.id, quantity: 1 }],
+      success_url: "http://app.test/ok",
     });
     const html = await (await fetch(session.url ?? "")).text();
     for (const label of ["Card number", "Expiry", "CVC", "Name on card"]) expect(html).toContain(`>${label}</label>`);
@@ -31,17 +44,32 @@ describe("hosted checkout page", () => {
     expect(paid.status).toBe(303);
     expect(paid.location).toBe(`http://app.test/billing/done?session=${session.id}`);
     const done = await world.stripe.checkout.sessions.retrieve(session.id, { expand: ["invoice"] });
-    expect(done).toMatchObject({ status: "complete", payment_status: "paid", customer: customer.id, customer_details: { email: "ok@example.test", name: "Ffion Test" } });
+    expect(done).toMatchObject({
+      status: "complete",
+      payment_status: "paid",
+      customer: customer.id,
+      customer_details: { email: "ok@example.test", name: "Ffion Test" },
+    });
     expect(sub?.status).toBe("active");
     expect(sub?.items.data[0]?.price.id).toBe(price.id);
     const invoice = done.invoice as Stripe.Invoice;
-    expect(invoice).toMatchObject({ status: "paid", amount_paid: 1800, billing_reason: "subscription_create", customer: customer.id });
+    expect(invoice).toMatchObject({
+      status: "paid",
+      amount_paid: 1800,
+      billing_reason: "subscription_create",
+      customer: customer.id,
+    });
     expect(invoice.parent?.subscription_details?.subscription).toBe(sub?.id);
     const intent = String(invoice.payments?.data[0]?.payment.payment_intent);
     const pi = await world.stripe.paymentIntents.retrieve(intent, { expand: ["latest_charge"] });
     expect(pi.status).toBe("succeeded");
     expect((pi.latest_charge as Stripe.Charge).payment_method_details?.card?.last4).toBe("4242");
-    expect(typesFor(customer.id)).toEqual(["customer.created", "customer.subscription.created", "invoice.paid", "checkout.session.completed"]);
+    expect(typesFor(customer.id)).toEqual([
+      "customer.created",
+      "customer.subscription.created",
+      "invoice.paid",
+      "checkout.session.completed",
+    ]);
   });
 
   it("4000 0000 0000 0002 is declined with Stripe's message and creates no subscription", async () => {
@@ -75,9 +103,16 @@ describe("hosted checkout page", () => {
 
   it("refuses incomplete fields with a message beside each, keeping the session open", async () => {
     const session = await world.stripe.checkout.sessions.create({
-      mode: "subscription", customer_email: "typo@example.test", line_items: [{ price: price.id, quantity: 1 }], success_url: "http://app.test/ok",
+      mode: "subscription",
+      customer_email: "typo@example.test",
+      line_items: [{ price: price.id, quantity: 1 }],
+      success_url: "http://app.test/ok",
     });
-    const bad = await payOnHostedPage(session.url ?? "", "4242 4242 4242 4241", { expiry: "13/30", cvc: "1", name: " " });
+    const bad = await payOnHostedPage(session.url ?? "", "4242 4242 4242 4241", {
+      expiry: "13/30",
+      cvc: "1",
+      name: " ",
+    });
     expect(bad.status).toBe(422);
     expect(bad.html).toContain('id="number-error">Your card number is invalid.');
     expect(bad.html).toContain('id="expiry-error">');
@@ -94,7 +129,10 @@ describe("hosted checkout page", () => {
     expect(second.status).toBe(200);
     expect(second.html).toContain("This checkout is already complete.");
     const other = await world.stripe.checkout.sessions.create({
-      mode: "subscription", customer_email: "late@example.test", line_items: [{ price: price.id, quantity: 1 }], success_url: "http://app.test/ok",
+      mode: "subscription",
+      customer_email: "late@example.test",
+      line_items: [{ price: price.id, quantity: 1 }],
+      success_url: "http://app.test/ok",
     });
     await world.fake.advanceClock(25 * 3600); // Stripe docs: Checkout Sessions expire after 24 hours by default.
     expect((await world.stripe.checkout.sessions.retrieve(other.id)).status).toBe("expired");

@@ -7,7 +7,15 @@ import { join } from "node:path";
 import Stripe from "stripe";
 import { afterEach, describe, expect, it } from "vitest";
 import { periodEnd } from "@/scripts/fakes/stripe/clock";
-import { CARDS, DAY, monthlyPlan, startStripeWorld, subscribe, updateCard, type StripeWorld } from "./helpers/stripe-fake-world";
+import {
+  CARDS,
+  DAY,
+  monthlyPlan,
+  startStripeWorld,
+  subscribe,
+  updateCard,
+  type StripeWorld,
+} from "./helpers/stripe-fake-world";
 
 const START = new Date("2026-04-01T00:00:00Z");
 const worlds: StripeWorld[] = [];
@@ -21,7 +29,10 @@ async function world(stateFile?: string) {
 }
 
 const eventsOf = (w: StripeWorld, subId: string, after = 0) =>
-  w.fake.events().slice(after).filter((e) => JSON.stringify(e.data.object).includes(subId));
+  w.fake
+    .events()
+    .slice(after)
+    .filter((e) => JSON.stringify(e.data.object).includes(subId));
 
 describe("billing periods", () => {
   it("keep to the anchor's day of the month (Stripe docs: set the subscription billing renewal date)", () => {
@@ -56,8 +67,14 @@ describe("advancing the clock", () => {
     ]);
     expect(invoices.data[0]?.created).toBe(first?.current_period_end);
     // Stripe's invoice period is the usage period just ended; the new service period is on the line.
-    expect([invoices.data[0]?.period_start, invoices.data[0]?.period_end]).toEqual([first?.current_period_start, first?.current_period_end]);
-    expect(invoices.data[0]?.lines.data[0]?.period).toEqual({ start: renewed.items.data[0]?.current_period_start, end: renewed.items.data[0]?.current_period_end });
+    expect([invoices.data[0]?.period_start, invoices.data[0]?.period_end]).toEqual([
+      first?.current_period_start,
+      first?.current_period_end,
+    ]);
+    expect(invoices.data[0]?.lines.data[0]?.period).toEqual({
+      start: renewed.items.data[0]?.current_period_start,
+      end: renewed.items.data[0]?.current_period_end,
+    });
     // A whole year more: eleven further renewals, each at its own period's end.
     await w.fake.advanceClock(335 * DAY);
     expect((await w.stripe.invoices.list({ subscription: sub?.id, limit: 100 })).data).toHaveLength(13);
@@ -73,20 +90,34 @@ describe("advancing the clock", () => {
     const end = sub?.items.data[0]?.current_period_end ?? 0;
     let mark = w.fake.events().length;
     await w.fake.advanceClock(end - w.fake.now() + 1);
-    expect(eventsOf(w, id, mark).map((e) => e.type)).toEqual(["customer.subscription.updated", "invoice.payment_failed"]);
+    expect(eventsOf(w, id, mark).map((e) => e.type)).toEqual([
+      "customer.subscription.updated",
+      "invoice.payment_failed",
+    ]);
     const failed = eventsOf(w, id, mark)[1]?.data.object as unknown as Stripe.Invoice;
-    expect(failed).toMatchObject({ status: "open", attempt_count: 1, amount_due: 1800, next_payment_attempt: end + 3 * DAY });
+    expect(failed).toMatchObject({
+      status: "open",
+      attempt_count: 1,
+      amount_due: 1800,
+      next_payment_attempt: end + 3 * DAY,
+    });
     expect((await w.stripe.subscriptions.retrieve(id)).status).toBe("past_due");
 
     mark = w.fake.events().length;
     await w.fake.advanceClock(3 * DAY);
-    const second = eventsOf(w, id, mark).map((e) => [e.type, (e.data.object as { attempt_count?: number }).attempt_count]);
+    const second = eventsOf(w, id, mark).map((e) => [
+      e.type,
+      (e.data.object as { attempt_count?: number }).attempt_count,
+    ]);
     expect(second).toEqual([["invoice.payment_failed", 2]]);
     expect((await w.stripe.invoices.retrieve(failed.id ?? "")).next_payment_attempt).toBe(end + 8 * DAY);
 
     mark = w.fake.events().length;
     await w.fake.advanceClock(5 * DAY);
-    expect(eventsOf(w, id, mark).map((e) => e.type)).toEqual(["invoice.payment_failed", "customer.subscription.deleted"]);
+    expect(eventsOf(w, id, mark).map((e) => e.type)).toEqual([
+      "invoice.payment_failed",
+      "customer.subscription.deleted",
+    ]);
     const ended = await w.stripe.subscriptions.retrieve(id);
     expect(ended).toMatchObject({ status: "canceled", ended_at: end + 8 * DAY });
     expect(ended.cancellation_details?.reason).toBe("payment_failed");
@@ -105,7 +136,12 @@ describe("advancing the clock", () => {
     const [open] = (await w.stripe.invoices.list({ subscription: sub?.id, status: "open" })).data;
     const declined = await w.stripe.invoices.pay(open?.id ?? "").catch((e: unknown) => e);
     expect(declined).toBeInstanceOf(Stripe.errors.StripeCardError);
-    expect(declined).toMatchObject({ statusCode: 402, code: "card_declined", decline_code: "generic_decline", message: "Your card was declined." });
+    expect(declined).toMatchObject({
+      statusCode: 402,
+      code: "card_declined",
+      decline_code: "generic_decline",
+      message: "Your card was declined.",
+    });
     const mark = w.fake.events().length;
     const saved = await updateCard(w, customer.id, sub?.id ?? "", CARDS.visa);
     expect(saved.status).toBe(303);
@@ -169,22 +205,88 @@ describe("state", () => {
     const t0 = w.fake.now() - 20 * DAY;
     const t1 = periodEnd(t0, t0, "month", 1);
     const demo = {
-      customers: [{ id: "cus_demoA", object: "customer", created: t0, email: "demo@example.test", name: "Demo", invoice_settings: { default_payment_method: "pm_demoA" } }],
-      payment_methods: [{ id: "pm_demoA", object: "payment_method", customer: "cus_demoA", card: { brand: "visa", last4: "0341", exp_month: 12, exp_year: 2034 } }],
+      customers: [
+        {
+          id: "cus_demoA",
+          object: "customer",
+          created: t0,
+          email: "demo@example.test",
+          name: "Demo",
+          invoice_settings: { default_payment_method: "pm_demoA" },
+        },
+      ],
+      payment_methods: [
+        {
+          id: "pm_demoA",
+          object: "payment_method",
+          customer: "cus_demoA",
+          card: { brand: "visa", last4: "0341", exp_month: 12, exp_year: 2034 },
+        },
+      ],
       products: [{ id: "prod_demoM", object: "product", created: t0, name: "Monthly membership" }],
-      prices: [{ id: "price_demoM", object: "price", created: t0, currency: "gbp", unit_amount: 1800, product: "prod_demoM", recurring: { interval: "month", interval_count: 1 } }],
-      subscriptions: [{
-        id: "sub_demoA", object: "subscription", created: t0, customer: "cus_demoA", status: "active", currency: "gbp", billing_cycle_anchor: t0,
-        items: { object: "list", data: [{ id: "si_demoA", price: { id: "price_demoM" }, quantity: 1, current_period_start: t0, current_period_end: t1 }] },
-      }],
-      invoices: [{
-        id: "in_demoA1", object: "invoice", created: t0, customer: "cus_demoA", status: "paid", billing_reason: "subscription_create", total: 1800, amount_paid: 1800,
-        parent: { type: "subscription_details", subscription_details: { subscription: "sub_demoA" } },
-        lines: { data: [{ id: "il_demoA1", amount: 1800, period: { start: t0, end: t1 }, pricing: { price_details: { price: "price_demoM" } } }] },
-      }],
+      prices: [
+        {
+          id: "price_demoM",
+          object: "price",
+          created: t0,
+          currency: "gbp",
+          unit_amount: 1800,
+          product: "prod_demoM",
+          recurring: { interval: "month", interval_count: 1 },
+        },
+      ],
+      subscriptions: [
+        {
+          id: "sub_demoA",
+          object: "subscription",
+          created: t0,
+          customer: "cus_demoA",
+          status: "active",
+          currency: "gbp",
+          billing_cycle_anchor: t0,
+          items: {
+            object: "list",
+            data: [
+              {
+                id: "si_demoA",
+                price: { id: "price_demoM" },
+                quantity: 1,
+                current_period_start: t0,
+                current_period_end: t1,
+              },
+            ],
+          },
+        },
+      ],
+      invoices: [
+        {
+          id: "in_demoA1",
+          object: "invoice",
+          created: t0,
+          customer: "cus_demoA",
+          status: "paid",
+          billing_reason: "subscription_create",
+          total: 1800,
+          amount_paid: 1800,
+          parent: { type: "subscription_details", subscription_details: { subscription: "sub_demoA" } },
+          lines: {
+            data: [
+              {
+                id: "il_demoA1",
+                amount: 1800,
+                period: { start: t0, end: t1 },
+                pricing: { price_details: { price: "price_demoM" } },
+              },
+            ],
+          },
+        },
+      ],
     };
-    const post = async () => (await fetch(`${w.fake.url}/_fake/import`, { method: "POST", body: JSON.stringify(demo) })).json();
-    expect(await post()).toEqual({ imported: { customers: 1, products: 1, prices: 1, payment_methods: 1, subscriptions: 1, invoices: 1 } });
+    const post = async () =>
+      (await fetch(`${w.fake.url}/_fake/import`, { method: "POST", body: JSON.stringify(demo) })).json();
+    expect(await post()).toEqual({
+      imported: { customers: 1, products: 1, prices: 1, payment_methods: 1, subscriptions: 1, invoices: 1 },
+    });
     await post();
     expect((await w.stripe.customers.list({ email: "demo@example.test" })).data).toHaveLength(1);
     expect((await w.stripe.invoices.list({ subscription: "sub_demoA" })).data.map((i) => i.id)).toEqual(["in_demoA1"]);

@@ -15,7 +15,11 @@ afterAll(async () => world.close());
 describe("objects and lists", () => {
   it("creates, retrieves, updates and lists customers by e-mail", async () => {
     const { stripe } = world;
-    const a = await stripe.customers.create({ email: "ada@example.test", name: "Ada", metadata: { user_id: "u-1", keep: "yes" } });
+    const a = await stripe.customers.create({
+      email: "ada@example.test",
+      name: "Ada",
+      metadata: { user_id: "u-1", keep: "yes" },
+    });
     await stripe.customers.create({ email: "bea@example.test" });
     // Stripe docs: "Object IDs" — customers are cus_…
     expect(a.id).toMatch(/^cus_[A-Za-z0-9]+$/);
@@ -25,7 +29,7 @@ describe("objects and lists", () => {
     const got = await stripe.customers.retrieve(a.id);
     expect(got).toMatchObject({ id: a.id, email: "ada@example.test", metadata: { user_id: "u-1", keep: "yes" } });
     // Stripe docs: "Metadata" — an empty value unsets one key, others stay.
-    const updated = await stripe.customers.update(a.id, { name: "Ada L.", metadata: { user_id: "" , plan: "m" } });
+    const updated = await stripe.customers.update(a.id, { name: "Ada L.", metadata: { user_id: "", plan: "m" } });
     expect(updated.name).toBe("Ada L.");
     expect(updated.metadata).toEqual({ keep: "yes", plan: "m" });
     const byEmail = await stripe.customers.list({ email: "ada@example.test" });
@@ -37,7 +41,8 @@ describe("objects and lists", () => {
   it("pages through a list newest first with starting_after", async () => {
     const { stripe } = world;
     const made: string[] = [];
-    for (let i = 0; i < 5; i++) made.push((await stripe.products.create({ name: `Paging ${i}`, metadata: { batch: "paging" } })).id);
+    for (let i = 0; i < 5; i++)
+      made.push((await stripe.products.create({ name: `Paging ${i}`, metadata: { batch: "paging" } })).id);
     const first = await stripe.products.list({ limit: 3 });
     expect(first.data).toHaveLength(3);
     expect(first.has_more).toBe(true);
@@ -53,7 +58,13 @@ describe("objects and lists", () => {
   it("keeps prices fixed but lets them be archived, and filters by product and active", async () => {
     const { stripe } = world;
     const price = await monthlyPlan(stripe, 1800, "month", "Monthly membership");
-    expect(price).toMatchObject({ object: "price", currency: "gbp", unit_amount: 1800, type: "recurring", active: true });
+    expect(price).toMatchObject({
+      object: "price",
+      currency: "gbp",
+      unit_amount: 1800,
+      type: "recurring",
+      active: true,
+    });
     expect(price.recurring).toMatchObject({ interval: "month", interval_count: 1, usage_type: "licensed" });
     expect(price.id).toMatch(/^price_/);
     const archived = await stripe.prices.update(price.id, { active: false });
@@ -71,14 +82,25 @@ describe("objects and lists", () => {
     const { stripe } = world;
     const price = await monthlyPlan(stripe, 18000, "year", "Yearly membership");
     const session = await stripe.checkout.sessions.create({
-      mode: "subscription", customer_email: "new@example.test", line_items: [{ price: price.id, quantity: 1 }],
-      success_url: "http://app.test/ok?s={CHECKOUT_SESSION_ID}", cancel_url: "http://app.test/plans",
-      metadata: { user_id: "u-9" }, subscription_data: { metadata: { user_id: "u-9" } },
+      mode: "subscription",
+      customer_email: "new@example.test",
+      line_items: [{ price: price.id, quantity: 1 }],
+      success_url: "http://app.test/ok?s={CHECKOUT_SESSION_ID}",
+      cancel_url: "http://app.test/plans",
+      metadata: { user_id: "u-9" },
+      subscription_data: { metadata: { user_id: "u-9" } },
     });
     expect(session.id).toMatch(/^cs_test_/);
     expect(session).toMatchObject({
-      object: "checkout.session", mode: "subscription", status: "open", payment_status: "unpaid", amount_total: 18000,
-      currency: "gbp", customer_email: "new@example.test", metadata: { user_id: "u-9" }, subscription: null,
+      object: "checkout.session",
+      mode: "subscription",
+      status: "open",
+      payment_status: "unpaid",
+      amount_total: 18000,
+      currency: "gbp",
+      customer_email: "new@example.test",
+      metadata: { user_id: "u-9" },
+      subscription: null,
     });
     expect(session.url).toBe(`${world.fake.url}/pay/${session.id}`);
     const items = await stripe.checkout.sessions.listLineItems(session.id);
@@ -93,7 +115,9 @@ describe("idempotent requests", () => {
     const b = await world.stripe.customers.create({ email: "once@example.test" }, { idempotencyKey: "customer:once" });
     expect(b.id).toBe(a.id);
     expect((await world.stripe.customers.list({ email: "once@example.test" })).data).toHaveLength(1);
-    const other = await world.stripe.customers.create({ email: "twice@example.test" }, { idempotencyKey: "customer:once" }).catch((e: unknown) => e);
+    const other = await world.stripe.customers
+      .create({ email: "twice@example.test" }, { idempotencyKey: "customer:once" })
+      .catch((e: unknown) => e);
     expect(other).toBeInstanceOf(Stripe.errors.StripeIdempotencyError);
   });
 });
@@ -109,9 +133,16 @@ describe("errors as the SDK surfaces them", () => {
   });
 
   it("answers a missing parameter with 400 parameter_missing naming it", async () => {
-    const err = await world.stripe.prices.create({ currency: "gbp", unit_amount: 100 } as Stripe.PriceCreateParams).catch((e: unknown) => e);
+    const err = await world.stripe.prices
+      .create({ currency: "gbp", unit_amount: 100 } as Stripe.PriceCreateParams)
+      .catch((e: unknown) => e);
     expect(err).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
-    expect(err).toMatchObject({ statusCode: 400, code: "parameter_missing", param: "product", type: "StripeInvalidRequestError" });
+    expect(err).toMatchObject({
+      statusCode: 400,
+      code: "parameter_missing",
+      param: "product",
+      type: "StripeInvalidRequestError",
+    });
     const badMode = await world.stripe.checkout.sessions
       .create({ success_url: "http://app.test/ok" } as Stripe.Checkout.SessionCreateParams)
       .catch((e: unknown) => e);
@@ -120,12 +151,15 @@ describe("errors as the SDK surfaces them", () => {
 
   it("answers a malformed value with 400 naming the parameter", async () => {
     const res = await fetch(`${world.fake.url}/v1/prices`, {
-      method: "POST", headers: { authorization: `Bearer ${FAKE_API_KEY}`, "content-type": "application/x-www-form-urlencoded" },
+      method: "POST",
+      headers: { authorization: `Bearer ${FAKE_API_KEY}`, "content-type": "application/x-www-form-urlencoded" },
       body: "currency=gbp&product=prod_x&unit_amount=12.5",
     });
     expect(res.status).toBe(400);
     // Stripe docs: "Error codes" — parameter_invalid_integer.
-    expect(await res.json()).toMatchObject({ error: { type: "invalid_request_error", code: "parameter_invalid_integer", param: "unit_amount" } });
+    expect(await res.json()).toMatchObject({
+      error: { type: "invalid_request_error", code: "parameter_invalid_integer", param: "unit_amount" },
+    });
   });
 
   it("answers an unknown id with 404 resource_missing", async () => {
@@ -134,7 +168,11 @@ describe("errors as the SDK surfaces them", () => {
     expect(err).toMatchObject({ statusCode: 404, code: "resource_missing", param: "id" });
     expect((err as Error).message).toBe("No such subscription: 'sub_doesnotexist'");
     const price = await world.stripe.checkout.sessions
-      .create({ mode: "subscription", success_url: "http://app.test/ok", line_items: [{ price: "price_nope", quantity: 1 }] })
+      .create({
+        mode: "subscription",
+        success_url: "http://app.test/ok",
+        line_items: [{ price: "price_nope", quantity: 1 }],
+      })
       .catch((e: unknown) => e);
     expect(price).toMatchObject({ statusCode: 404, code: "resource_missing", param: "line_items[0][price]" });
   });

@@ -32,10 +32,18 @@ describe("plan change previews and invoices", () => {
     // By hand: unused time = 15 of 30 days → credit −1800 × 15/30 = −900; the yearly period restarts at t
     // and is charged in full, 18000; total 18000 − 900 = 17100.
     const preview = await w.stripe.invoices.createPreview({
-      customer: String(sub?.customer), subscription: sub?.id,
-      subscription_details: { items: [{ id: item?.id, price: yearly.id }], proration_behavior: "always_invoice", proration_date: t },
+      customer: String(sub?.customer),
+      subscription: sub?.id,
+      subscription_details: {
+        items: [{ id: item?.id, price: yearly.id }],
+        proration_behavior: "always_invoice",
+        proration_date: t,
+      },
     });
-    expect(preview.lines.data.map((l) => [l.amount, l.parent?.subscription_item_details?.proration])).toEqual([[-900, true], [18000, false]]);
+    expect(preview.lines.data.map((l) => [l.amount, l.parent?.subscription_item_details?.proration])).toEqual([
+      [-900, true],
+      [18000, false],
+    ]);
     expect(preview.lines.data[0]?.description).toBe("Unused time on Monthly membership after 16 Apr 2026");
     expect(preview.lines.data[1]?.period).toEqual({ start: t, end: t + 365 * DAY });
     expect(preview).toMatchObject({ total: 17100, amount_due: 17100, status: "draft" });
@@ -43,7 +51,9 @@ describe("plan change previews and invoices", () => {
     expect(preview.parent?.subscription_details?.subscription_proration_date).toBe(t);
 
     const changed = await w.stripe.subscriptions.update(sub?.id ?? "", {
-      items: [{ id: item?.id, price: yearly.id }], proration_behavior: "always_invoice", proration_date: t,
+      items: [{ id: item?.id, price: yearly.id }],
+      proration_behavior: "always_invoice",
+      proration_date: t,
     });
     expect(changed.items.data[0]?.price.id).toBe(yearly.id);
     expect(changed.items.data[0]?.current_period_start).toBe(t);
@@ -62,12 +72,19 @@ describe("plan change previews and invoices", () => {
     // credit = −round(1800 × 1,715,655 / 2,592,000) = −round(1191.43) = −1191
     // charge = round(2500 × 1,715,655 / 2,592,000) = round(1654.76) = 1655
     // next renewal (create_prorations) = −1191 + 1655 + 2500 = 2964.
-    const change = { items: [{ id: item?.id, price: monthlyPlus.id }], proration_behavior: "create_prorations" as const, proration_date: t };
+    const change = {
+      items: [{ id: item?.id, price: monthlyPlus.id }],
+      proration_behavior: "create_prorations" as const,
+      proration_date: t,
+    };
     const preview = await w.stripe.invoices.createPreview({ subscription: sub?.id, subscription_details: change });
     expect(preview.lines.data.map((l) => l.amount)).toEqual([-1191, 1655, 2500]);
     expect(preview.total).toBe(2964);
     expect(preview.next_payment_attempt).toBe(end);
-    const now = await w.stripe.invoices.createPreview({ subscription: sub?.id, subscription_details: { ...change, proration_behavior: "always_invoice" } });
+    const now = await w.stripe.invoices.createPreview({
+      subscription: sub?.id,
+      subscription_details: { ...change, proration_behavior: "always_invoice" },
+    });
     expect(now.total).toBe(1655 - 1191);
 
     await w.stripe.subscriptions.update(sub?.id ?? "", change);
@@ -83,10 +100,22 @@ describe("refunds", () => {
     const { customer } = await subscribe(w, monthly.id, undefined, "refund@example.test");
     const [invoice] = (await w.stripe.invoices.list({ customer: customer.id })).data;
     const intent = String(invoice?.payments?.data[0]?.payment.payment_intent);
-    const part = await w.stripe.refunds.create({ payment_intent: intent, amount: 500, reason: "requested_by_customer" });
-    expect(part).toMatchObject({ object: "refund", amount: 500, status: "succeeded", reason: "requested_by_customer", payment_intent: intent });
+    const part = await w.stripe.refunds.create({
+      payment_intent: intent,
+      amount: 500,
+      reason: "requested_by_customer",
+    });
+    expect(part).toMatchObject({
+      object: "refund",
+      amount: 500,
+      status: "succeeded",
+      reason: "requested_by_customer",
+      payment_intent: intent,
+    });
     expect(part.id).toMatch(/^re_/);
-    const tooMuch = await w.stripe.refunds.create({ charge: String(part.charge), amount: 1301 }).catch((e: unknown) => e);
+    const tooMuch = await w.stripe.refunds
+      .create({ charge: String(part.charge), amount: 1301 })
+      .catch((e: unknown) => e);
     // Stripe docs: "Error codes" — amount_too_large.
     expect(tooMuch).toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
     expect(tooMuch).toMatchObject({ statusCode: 400, code: "amount_too_large", param: "amount" });

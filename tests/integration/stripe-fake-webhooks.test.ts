@@ -2,7 +2,14 @@
 // the webhook signatures"), retried after a failed delivery, and carrying Stripe's event shape.
 import Stripe from "stripe";
 import { afterEach, describe, expect, it } from "vitest";
-import { FAKE_WEBHOOK_SECRET, monthlyPlan, startReceiver, startStripeWorld, subscribe, waitFor } from "./helpers/stripe-fake-world";
+import {
+  FAKE_WEBHOOK_SECRET,
+  monthlyPlan,
+  startReceiver,
+  startStripeWorld,
+  subscribe,
+  waitFor,
+} from "./helpers/stripe-fake-world";
 
 const cleanups: Array<() => Promise<void>> = [];
 afterEach(async () => {
@@ -31,10 +38,12 @@ describe("webhooks", () => {
     expect(event.api_version).toBe(Stripe.API_VERSION);
     expect((event.data.object as Stripe.Customer).id).toBe(customer.id);
     // Another secret, or a body changed in transit, must not verify.
-    expect(() => w.stripe.webhooks.constructEvent(got.body, got.signature, "whsec_someone_else")).toThrow(Stripe.errors.StripeSignatureVerificationError);
-    expect(() => w.stripe.webhooks.constructEvent(got.body.replace("signed@", "forged@"), got.signature, FAKE_WEBHOOK_SECRET)).toThrow(
+    expect(() => w.stripe.webhooks.constructEvent(got.body, got.signature, "whsec_someone_else")).toThrow(
       Stripe.errors.StripeSignatureVerificationError,
     );
+    expect(() =>
+      w.stripe.webhooks.constructEvent(got.body.replace("signed@", "forged@"), got.signature, FAKE_WEBHOOK_SECRET),
+    ).toThrow(Stripe.errors.StripeSignatureVerificationError);
   });
 
   it("retries after a 500 and a refused connection, then succeeds, with a fresh signature each time", async () => {
@@ -46,7 +55,8 @@ describe("webhooks", () => {
     // Back-off doubles: 100 ms, then 200 ms (the stand-in's 1 s, 2 s … scaled down for the test).
     expect((b?.at ?? 0) - (a?.at ?? 0)).toBeGreaterThanOrEqual(90);
     expect((c?.at ?? 0) - (b?.at ?? 0)).toBeGreaterThanOrEqual(190);
-    for (const r of receiver.received) expect(w.stripe.webhooks.constructEvent(r.body, r.signature, FAKE_WEBHOOK_SECRET).id).toBe(a?.id);
+    for (const r of receiver.received)
+      expect(w.stripe.webhooks.constructEvent(r.body, r.signature, FAKE_WEBHOOK_SECRET).id).toBe(a?.id);
     await waitFor(() => w.fake.events()[0]?.delivery.status === "delivered", 5000, "delivered status");
     expect(w.fake.events()[0]?.delivery).toMatchObject({ status: "delivered", attempts: 3, last_status: 200 });
 
@@ -70,7 +80,9 @@ describe("webhooks", () => {
     expect(object.cancel_at_period_end).toBe(true);
     expect(object.cancel_at).toBe(object.items.data[0]?.current_period_end);
     expect(event.data.previous_attributes).toMatchObject({ cancel_at_period_end: false, cancel_at: null });
-    const listed = (await (await fetch(`${w.fake.url}/_fake/events?type=customer.subscription.updated`)).json()) as { data: Array<{ id: string; delivery: { status: string } }> };
+    const listed = (await (await fetch(`${w.fake.url}/_fake/events?type=customer.subscription.updated`)).json()) as {
+      data: Array<{ id: string; delivery: { status: string } }>;
+    };
     expect(listed.data[0]).toMatchObject({ id: event.id, delivery: { status: "delivered" } });
   });
 });

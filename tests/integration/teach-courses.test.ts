@@ -31,11 +31,18 @@ async function course(title = "Jigs for starters", cookie = me): Promise<string>
   expect(res.status).toBe(201);
   return ((await res.json()) as { id: string }).id;
 }
-const view = async (courseId: string, cookie = me) => (await (await w.call(ONE, "GET", { cookie, params: { courseId } })).json()) as CourseView;
+const view = async (courseId: string, cookie = me) =>
+  (await (await w.call(ONE, "GET", { cookie, params: { courseId } })).json()) as CourseView;
 const grade = async (courseId: string, title: string) =>
-  ((await (await w.call(`${C}/[courseId]/grades`, "POST", { cookie: me, params: { courseId }, body: { title } })).json()) as { id: string }).id;
-const addRung = (courseId: string, body: Record<string, unknown>, cookie = me) => w.call(`${C}/[courseId]/rungs`, "POST", { cookie, params: { courseId }, body: { requiredStage: 1, ...body } });
-const patch = (courseId: string, body: Record<string, unknown>, cookie = me) => w.call(ONE, "PATCH", { cookie, params: { courseId }, body });
+  (
+    (await (
+      await w.call(`${C}/[courseId]/grades`, "POST", { cookie: me, params: { courseId }, body: { title } })
+    ).json()) as { id: string }
+  ).id;
+const addRung = (courseId: string, body: Record<string, unknown>, cookie = me) =>
+  w.call(`${C}/[courseId]/rungs`, "POST", { cookie, params: { courseId }, body: { requiredStage: 1, ...body } });
+const patch = (courseId: string, body: Record<string, unknown>, cookie = me) =>
+  w.call(ONE, "PATCH", { cookie, params: { courseId }, body });
 const errorOf = async (res: Response) => ((await res.json()) as { error: string }).error;
 
 beforeAll(async () => {
@@ -55,8 +62,18 @@ describe("building a course", () => {
     expect((await addRung(id, { gradeId: g1, tuneId: myTunes[0], requiredStage: 2, isTaster: true })).status).toBe(201);
     expect((await addRung(id, { gradeId: g1, tuneId: myTunes[1] })).status).toBe(201);
     const v = await view(id);
-    expect(v.grades.map((g) => g.rungs.map((r) => [r.tuneTitle, r.requiredStage, r.isTaster]))).toEqual([[["Wicker Gate", 2, true], ["Hollow Lane", 1, false]]]);
-    expect(v.grades[0].rungs[0].stageNames).toEqual(["Skeleton", "Bowing", "Ornaments, slides and fills", "Full setting"]);
+    expect(v.grades.map((g) => g.rungs.map((r) => [r.tuneTitle, r.requiredStage, r.isTaster]))).toEqual([
+      [
+        ["Wicker Gate", 2, true],
+        ["Hollow Lane", 1, false],
+      ],
+    ]);
+    expect(v.grades[0].rungs[0].stageNames).toEqual([
+      "Skeleton",
+      "Bowing",
+      "Ornaments, slides and fills",
+      "Full setting",
+    ]);
     expect(v.problems).toEqual([]);
   });
 
@@ -66,7 +83,9 @@ describe("building a course", () => {
     expect((await addRung(id, { gradeId: g1, tuneId: myTunes[0] })).status).toBe(201);
     const twice = await addRung(id, { gradeId: g2, tuneId: myTunes[0] });
     expect(twice.status).toBe(422);
-    expect(await errorOf(twice)).toBe("“Wicker Gate” is already on this ladder (Grade 1, rung 1); a tune appears once in a course.");
+    expect(await errorOf(twice)).toBe(
+      "“Wicker Gate” is already on this ladder (Grade 1, rung 1); a tune appears once in a course.",
+    );
     const deep = await addRung(id, { gradeId: g2, tuneId: myTunes[1], requiredStage: 6 });
     expect(await errorOf(deep)).toBe("Grade 2, rung 1 asks for stage 6, but “Hollow Lane” has 4 stages.");
     expect((await addRung(id, { gradeId: g2, tuneId: theirTune })).status).toBe(404);
@@ -84,11 +103,24 @@ describe("building a course", () => {
     expect((await patch(id, { published: true })).status).toBe(200);
     expect((await view(id)).published).toBe(true);
     const rungId = (await view(id)).grades[0].rungs[0].id;
-    const last = await w.call(`${C}/[courseId]/rungs/[rungId]`, "DELETE", { cookie: me, params: { courseId: id, rungId } });
+    const last = await w.call(`${C}/[courseId]/rungs/[rungId]`, "DELETE", {
+      cookie: me,
+      params: { courseId: id, rungId },
+    });
     expect(last.status).toBe(422);
-    expect((await w.call(`${C}/[courseId]/grades/[gradeId]`, "DELETE", { cookie: me, params: { courseId: id, gradeId: g1 } })).status).toBe(422);
+    expect(
+      (
+        await w.call(`${C}/[courseId]/grades/[gradeId]`, "DELETE", {
+          cookie: me,
+          params: { courseId: id, gradeId: g1 },
+        })
+      ).status,
+    ).toBe(422);
     expect((await patch(id, { published: false })).status).toBe(200);
-    expect((await w.call(`${C}/[courseId]/rungs/[rungId]`, "DELETE", { cookie: me, params: { courseId: id, rungId } })).status).toBe(204);
+    expect(
+      (await w.call(`${C}/[courseId]/rungs/[rungId]`, "DELETE", { cookie: me, params: { courseId: id, rungId } }))
+        .status,
+    ).toBe(204);
   });
 
   it("changes a rung's required stage and taster flag within the tune's stages", async () => {
@@ -97,9 +129,20 @@ describe("building a course", () => {
     await addRung(id, { gradeId: g1, tuneId: myTunes[0] });
     const rungId = (await view(id)).grades[0].rungs[0].id;
     const path = `${C}/[courseId]/rungs/[rungId]`;
-    expect((await w.call(path, "PATCH", { cookie: me, params: { courseId: id, rungId }, body: { requiredStage: 3, isTaster: true } })).status).toBe(200);
+    expect(
+      (
+        await w.call(path, "PATCH", {
+          cookie: me,
+          params: { courseId: id, rungId },
+          body: { requiredStage: 3, isTaster: true },
+        })
+      ).status,
+    ).toBe(200);
     expect((await view(id)).grades[0].rungs[0]).toMatchObject({ requiredStage: 3, isTaster: true });
-    expect((await w.call(path, "PATCH", { cookie: me, params: { courseId: id, rungId }, body: { requiredStage: 5 } })).status).toBe(422);
+    expect(
+      (await w.call(path, "PATCH", { cookie: me, params: { courseId: id, rungId }, body: { requiredStage: 5 } }))
+        .status,
+    ).toBe(422);
   });
 
   it("keeps a tune that a ladder uses from being deleted", async () => {
@@ -117,20 +160,44 @@ describe("reordering", () => {
     const [g1, g2] = [await grade(id, "Grade 1"), await grade(id, "Grade 2")];
     for (const t of myTunes) await addRung(id, { gradeId: g1, tuneId: t });
     const [a, b, c] = (await view(id)).grades[0].rungs.map((r) => r.id);
-    const order = { grades: [{ id: g2, rungs: [c, a] }, { id: g1, rungs: [b] }] };
-    expect((await w.call(`${C}/[courseId]/order`, "PUT", { cookie: me, params: { courseId: id }, body: order })).status).toBe(200);
-    expect((await view(id)).grades.map((g) => [g.id, g.rungs.map((r) => r.id)])).toEqual([[g2, [c, a]], [g1, [b]]]);
-    const rows = await w.db.select({ grade: rungs.gradeId, position: rungs.position }).from(rungs).where(eq(rungs.id, a));
+    const order = {
+      grades: [
+        { id: g2, rungs: [c, a] },
+        { id: g1, rungs: [b] },
+      ],
+    };
+    expect(
+      (await w.call(`${C}/[courseId]/order`, "PUT", { cookie: me, params: { courseId: id }, body: order })).status,
+    ).toBe(200);
+    expect((await view(id)).grades.map((g) => [g.id, g.rungs.map((r) => r.id)])).toEqual([
+      [g2, [c, a]],
+      [g1, [b]],
+    ]);
+    const rows = await w.db
+      .select({ grade: rungs.gradeId, position: rungs.position })
+      .from(rungs)
+      .where(eq(rungs.id, a));
     expect(rows).toEqual([{ grade: g2, position: 2 }]);
-    const gs = await w.db.select({ id: grades.id, position: grades.position }).from(grades).where(eq(grades.courseId, id)).orderBy(asc(grades.position));
-    expect(gs).toEqual([{ id: g2, position: 1 }, { id: g1, position: 2 }]);
+    const gs = await w.db
+      .select({ id: grades.id, position: grades.position })
+      .from(grades)
+      .where(eq(grades.courseId, id))
+      .orderBy(asc(grades.position));
+    expect(gs).toEqual([
+      { id: g2, position: 1 },
+      { id: g1, position: 2 },
+    ]);
   });
 
   it("refuses an order that leaves a rung out (the page was stale)", async () => {
     const id = await course();
     const g1 = await grade(id, "Grade 1");
     await addRung(id, { gradeId: g1, tuneId: myTunes[0] });
-    const res = await w.call(`${C}/[courseId]/order`, "PUT", { cookie: me, params: { courseId: id }, body: { grades: [{ id: g1, rungs: [] }] } });
+    const res = await w.call(`${C}/[courseId]/order`, "PUT", {
+      cookie: me,
+      params: { courseId: id },
+      body: { grades: [{ id: g1, rungs: [] }] },
+    });
     expect(res.status).toBe(409);
     expect((await view(id)).grades[0].rungs).toHaveLength(1);
   });

@@ -27,7 +27,13 @@ afterAll(async () => w?.close());
 
 const upload = (raw: BodyInit, name = "tunes.abc", who: string | null = cookie) =>
   w.call("teach/import", "POST", { cookie: who ?? undefined, raw, query: `?name=${encodeURIComponent(name)}` });
-const myTunes = async () => (await w.db.select({ n: sql<number>`count(*)::int` }).from(tunes).where(sql`${tunes.teacherId} = ${teacher.id}`))[0].n;
+const myTunes = async () =>
+  (
+    await w.db
+      .select({ n: sql<number>`count(*)::int` })
+      .from(tunes)
+      .where(sql`${tunes.teacherId} = ${teacher.id}`)
+  )[0].n;
 const lineOf = (text: string, needle: string) => text.slice(0, text.indexOf(needle)).split("\n").length;
 const columnOf = (text: string, needle: string) => text.indexOf(needle) - text.lastIndexOf("\n", text.indexOf(needle));
 
@@ -45,7 +51,11 @@ describe("bulk import", () => {
       [3, "Hollow Lane", "saved", lineOf(FILE, "X:2")],
     ]);
     const bad = results[1];
-    expect(bad.status === "problems" && bad.problems[0]).toMatchObject({ line: lineOf(FILE, "#A2"), column: columnOf(FILE, "#A2"), message: 'Unknown character ignored: "#"' });
+    expect(bad.status === "problems" && bad.problems[0]).toMatchObject({
+      line: lineOf(FILE, "#A2"),
+      column: columnOf(FILE, "#A2"),
+      message: 'Unknown character ignored: "#"',
+    });
     expect(lines[lines.length - 1]).toEqual({ type: "done", saved: 2, unchanged: 0, failed: 1 });
     expect(await myTunes()).toBe(2);
   });
@@ -91,16 +101,22 @@ describe("import limits and bad files", () => {
 
   it("refuses more tunes than the limit before storing any", async () => {
     const before = await myTunes();
-    const many = Array.from({ length: IMPORT_MAX_TUNES + 5 }, (_, i) => `X:${i}\nT:Many ${i}\nK:D\nDEFG ABcd|\n`).join("\n");
+    const many = Array.from({ length: IMPORT_MAX_TUNES + 5 }, (_, i) => `X:${i}\nT:Many ${i}\nK:D\nDEFG ABcd|\n`).join(
+      "\n",
+    );
     const res = await upload(many);
     expect(res.status).toBe(422);
-    expect(await errorOf(res)).toBe(`This file holds ${IMPORT_MAX_TUNES + 5} tunes; the most one import takes is ${IMPORT_MAX_TUNES}. Split it into smaller files.`);
+    expect(await errorOf(res)).toBe(
+      `This file holds ${IMPORT_MAX_TUNES + 5} tunes; the most one import takes is ${IMPORT_MAX_TUNES}. Split it into smaller files.`,
+    );
     expect(await myTunes()).toBe(before);
   });
 
   it("refuses files that are not ABC text", async () => {
     expect(await errorOf(await upload(WICKER, "tunes.pdf"))).toMatch(/not an ABC file/);
-    expect(await errorOf(await upload(new Uint8Array([0x25, 0x50, 0x44, 0x46, 0x00, 0x01])))).toMatch(/not a text file/);
+    expect(await errorOf(await upload(new Uint8Array([0x25, 0x50, 0x44, 0x46, 0x00, 0x01])))).toMatch(
+      /not a text file/,
+    );
     expect(await errorOf(await upload("A letter about fiddles, no tunes in it.\n"))).toMatch(/No tunes found/);
     expect((await upload("")).status).toBe(422);
   });

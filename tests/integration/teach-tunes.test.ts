@@ -37,7 +37,8 @@ async function load(tuneId: string, cookie = teacher): Promise<TuneView> {
   expect(res.status).toBe(200);
   return (await res.json()) as TuneView;
 }
-const put = (tuneId: string, body: Record<string, unknown>, cookie = teacher) => w.call(ONE, "PUT", { cookie, params: { tuneId }, body });
+const put = (tuneId: string, body: Record<string, unknown>, cookie = teacher) =>
+  w.call(ONE, "PUT", { cookie, params: { tuneId }, body });
 
 describe("saving a tune", () => {
   it("stores the tune with the facts its ABC states and its four stages", async () => {
@@ -46,7 +47,9 @@ describe("saving a tune", () => {
     expect([t.title, t.tuneType, t.key, t.meter]).toEqual(["Wicker Gate", "reel", "D", "4/4"]);
     expect(t.stages.map((s) => s.index)).toEqual([1, 2, 3, 4]);
     expect(t.stages[3].abc).toBe(WICKER); // PRODUCT.md §4: the last stage equals the source
-    const list = (await (await w.call(T, "GET", { cookie: teacher })).json()) as { tunes: { id: string; stageCount: number }[] };
+    const list = (await (await w.call(T, "GET", { cookie: teacher })).json()) as {
+      tunes: { id: string; stageCount: number }[];
+    };
     expect(list.tunes.find((x) => x.id === id)?.stageCount).toBe(4);
   });
 
@@ -63,14 +66,28 @@ describe("saving a tune", () => {
   });
 
   it("refuses a plan that leaves kinds out, with the plan's reasons", async () => {
-    const res = await w.call(T, "POST", { cookie: teacher, body: { abc: WICKER, stagePlan: { stages: [{ name: "Skeleton", adds: [] }] } } });
+    const res = await w.call(T, "POST", {
+      cookie: teacher,
+      body: { abc: WICKER, stagePlan: { stages: [{ name: "Skeleton", adds: [] }] } },
+    });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as ProblemsBody).planReasons).toContain('Kind "bowing" is never added back, so the last stage would not be the full setting.');
+    expect(((await res.json()) as ProblemsBody).planReasons).toContain(
+      'Kind "bowing" is never added back, so the last stage would not be the full setting.',
+    );
   });
 
   it("follows a shorter plan, dropping the stages past its end", async () => {
     const id = await create();
-    const plan = { stages: [{ name: "Core", adds: [] }, { name: "Bowed", adds: ["bowing"] }, { name: "All", adds: ["ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] }] };
+    const plan = {
+      stages: [
+        { name: "Core", adds: [] },
+        { name: "Bowed", adds: ["bowing"] },
+        {
+          name: "All",
+          adds: ["ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"],
+        },
+      ],
+    };
     expect((await put(id, { abc: WICKER, stagePlan: plan })).status).toBe(200);
     const t = await load(id);
     expect(t.stages.map((s) => s.name)).toEqual(["Core", "Bowed", "All"]);
@@ -93,12 +110,16 @@ describe("hand-edited stages", () => {
     const id = await create();
     const engine = (await load(id)).stages[1].abc;
     const mine = engine.replace("T:Wicker Gate", "T:Wicker Gate\nN:bow the first bar in one");
-    expect((await w.call(STAGE, "PUT", { cookie: teacher, params: { tuneId: id, index: "2" }, body: { abc: mine } })).status).toBe(200);
+    expect(
+      (await w.call(STAGE, "PUT", { cookie: teacher, params: { tuneId: id, index: "2" }, body: { abc: mine } })).status,
+    ).toBe(200);
     let s2 = (await load(id)).stages[1];
     expect([s2.abc, s2.handEdited, s2.sourceChanged]).toEqual([mine, true, false]);
 
     // Same source again (say, only a swap accepted): nothing to flag.
-    expect(((await (await put(id, { abc: WICKER, acceptedSwaps: ["A3"] })).json()) as SavedBody).flaggedStages).toEqual([]);
+    expect(((await (await put(id, { abc: WICKER, acceptedSwaps: ["A3"] })).json()) as SavedBody).flaggedStages).toEqual(
+      [],
+    );
     // A changed source: the stage stays as written and is flagged; the others follow the source.
     const changed = WICKER.replace("e2dc BAGF|\n(DF)", "e2dc BAGA|\n(DF)");
     expect(((await (await put(id, { abc: changed })).json()) as SavedBody).flaggedStages).toEqual([2]);
@@ -109,18 +130,37 @@ describe("hand-edited stages", () => {
 
     expect((await w.call(STAGE, "DELETE", { cookie: teacher, params: { tuneId: id, index: "2" } })).status).toBe(200);
     s2 = (await load(id)).stages[1];
-    expect([s2.handEdited, s2.sourceChanged, s2.abc.includes("BAGA"), s2.abc.includes("N:bow")]).toEqual([false, false, true, false]);
+    expect([s2.handEdited, s2.sourceChanged, s2.abc.includes("BAGA"), s2.abc.includes("N:bow")]).toEqual([
+      false,
+      false,
+      true,
+      false,
+    ]);
   });
 
   it("refuses a hand edit of the full setting, and one that does not read cleanly", async () => {
     const id = await create();
-    const last = await w.call(STAGE, "PUT", { cookie: teacher, params: { tuneId: id, index: "4" }, body: { abc: WICKER } });
+    const last = await w.call(STAGE, "PUT", {
+      cookie: teacher,
+      params: { tuneId: id, index: "4" },
+      body: { abc: WICKER },
+    });
     expect(last.status).toBe(422);
     expect(((await last.json()) as { error: string }).error).toMatch(/full setting itself/);
-    const bad = await w.call(STAGE, "PUT", { cookie: teacher, params: { tuneId: id, index: "2" }, body: { abc: WICKER.replace("dFAF|~G2", "dFAF|#G2") } });
+    const bad = await w.call(STAGE, "PUT", {
+      cookie: teacher,
+      params: { tuneId: id, index: "2" },
+      body: { abc: WICKER.replace("dFAF|~G2", "dFAF|#G2") },
+    });
     expect(bad.status).toBe(422);
-    expect(((await bad.json()) as ProblemsBody).problems[0]).toMatchObject({ line: 8, message: 'Unknown character ignored: "#"' });
-    expect((await w.call(STAGE, "PUT", { cookie: teacher, params: { tuneId: id, index: "9" }, body: { abc: WICKER } })).status).toBe(400);
+    expect(((await bad.json()) as ProblemsBody).problems[0]).toMatchObject({
+      line: 8,
+      message: 'Unknown character ignored: "#"',
+    });
+    expect(
+      (await w.call(STAGE, "PUT", { cookie: teacher, params: { tuneId: id, index: "9" }, body: { abc: WICKER } }))
+        .status,
+    ).toBe(400);
   });
 });
 

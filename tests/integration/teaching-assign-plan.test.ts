@@ -2,7 +2,16 @@
 // students' stages; a changed plan remakes them until someone checks in, and a plan change racing a
 // check-in never loses the check-in.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { assignBody, BARE_THEN_ALL, createAssignment, LIST, ONE, type Classroom, type Refusal, openClassroom } from "./helpers/assign-calls";
+import {
+  assignBody,
+  BARE_THEN_ALL,
+  createAssignment,
+  LIST,
+  ONE,
+  type Classroom,
+  type Refusal,
+  openClassroom,
+} from "./helpers/assign-calls";
 import type { TeachingWorld } from "./helpers/teaching-world";
 
 let w: TeachingWorld;
@@ -50,7 +59,10 @@ describe("changing the stage plan", () => {
   it("a plan change racing a check-in leaves one consistent result, never a lost check-in", async () => {
     const made = await create({ studentIds: [room.students[0].id] });
     const asId = made.assignmentStudentIds[0];
-    const [edit, checkIn] = await Promise.allSettled([w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: BARE_THEN_ALL } }), w.checkIn(asId)]);
+    const [edit, checkIn] = await Promise.allSettled([
+      w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: BARE_THEN_ALL } }),
+      w.checkIn(asId),
+    ]);
     const states = await w.states(asId);
     if (checkIn.status === "fulfilled") {
       // The check-in won: it stays, and the plan change was refused.
@@ -69,7 +81,11 @@ describe("changing the stage plan", () => {
     const made = await create({ stagePlan: BARE_THEN_ALL });
     await w.checkIn(made.assignmentStudentIds[0]);
     // jsonb stores its keys in its own order; the same plan must still read as the same.
-    const res = await w.call(ONE, "PATCH", { cookie, params: { id: made.id }, body: { stagePlan: BARE_THEN_ALL, note: "Same plan" } });
+    const res = await w.call(ONE, "PATCH", {
+      cookie,
+      params: { id: made.id },
+      body: { stagePlan: BARE_THEN_ALL, note: "Same plan" },
+    });
     expect(res.status).toBe(200);
     expect(await w.states(made.assignmentStudentIds[0])).toEqual(["checked_in", "locked"]);
   });

@@ -5,7 +5,15 @@ import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { assignmentStudents, checkIns, emailOutbox } from "@/db/schema";
 import type { AssignmentView } from "@/lib/teaching/teach-api-types";
-import { assignBody, createAssignment, LIST, ONE, type Classroom, type Refusal, openClassroom } from "./helpers/assign-calls";
+import {
+  assignBody,
+  createAssignment,
+  LIST,
+  ONE,
+  type Classroom,
+  type Refusal,
+  openClassroom,
+} from "./helpers/assign-calls";
 import { dueIn, type TeachingWorld } from "./helpers/teaching-world";
 
 let w: TeachingWorld;
@@ -22,20 +30,33 @@ describe("creating an assignment", () => {
   it("opens stage 1 for each student, locks the rest, and e-mails each student once", async () => {
     const made = await create();
     expect(made.assignmentStudentIds).toHaveLength(2);
-    for (const asId of made.assignmentStudentIds) expect(await w.states(asId)).toEqual(["open", "locked", "locked", "locked"]);
+    for (const asId of made.assignmentStudentIds)
+      expect(await w.states(asId)).toEqual(["open", "locked", "locked", "locked"]);
     for (const s of room.students) {
       const mails = (await w.mailsTo(s.email)).filter((m) => m.template === "assignment-new");
-      const forThis = mails.filter((m) => made.assignmentStudentIds.some((id) => m.dedupeKey === `assignment-new:${id}`));
+      const forThis = mails.filter((m) =>
+        made.assignmentStudentIds.some((id) => m.dedupeKey === `assignment-new:${id}`),
+      );
       expect(forThis).toHaveLength(1);
       // The e-mail names this student's own assignment row (the rows are inserted together).
       const asId = forThis[0].dedupeKey?.slice("assignment-new:".length) ?? "";
-      expect((await w.db.select({ s: assignmentStudents.studentId }).from(assignmentStudents).where(eq(assignmentStudents.id, asId)))[0]?.s).toBe(s.id);
+      expect(
+        (
+          await w.db
+            .select({ s: assignmentStudents.studentId })
+            .from(assignmentStudents)
+            .where(eq(assignmentStudents.id, asId))
+        )[0]?.s,
+      ).toBe(s.id);
       expect(forThis[0].payload).toMatchObject({
         studentName: s.name,
         note: "Mind the rolls.",
       });
     }
-    const keys = await w.db.select({ k: emailOutbox.dedupeKey }).from(emailOutbox).where(eq(emailOutbox.template, "assignment-new"));
+    const keys = await w.db
+      .select({ k: emailOutbox.dedupeKey })
+      .from(emailOutbox)
+      .where(eq(emailOutbox.template, "assignment-new"));
     expect(keys.filter((k) => made.assignmentStudentIds.some((id) => k.k === `assignment-new:${id}`))).toHaveLength(2);
   });
 
@@ -49,7 +70,9 @@ describe("creating an assignment", () => {
     // New York is UTC−5 in December (IANA time zone database).
     expect(view.dueAt).toBe("2099-12-11T23:00:00.000Z");
     expect([view.dueLocal, view.dueZone]).toEqual(["2099-12-11T18:00", "America/New_York"]);
-    const mail = (await w.mailsTo(room.students[0].email)).find((m) => m.dedupeKey === `assignment-new:${made.assignmentStudentIds[0]}`);
+    const mail = (await w.mailsTo(room.students[0].email)).find(
+      (m) => m.dedupeKey === `assignment-new:${made.assignmentStudentIds[0]}`,
+    );
     expect(mail?.payload).toMatchObject({
       dueLocal: "Friday 11 December, 18:00",
     });
@@ -72,7 +95,9 @@ describe("creating an assignment", () => {
       body: body({ studentIds: [room.students[0].id, stranger.id] }),
     });
     expect(res.status).toBe(422);
-    expect(((await res.json()) as Refusal).fieldErrors?.studentIds).toBe("One of the chosen students is not on your roster.");
+    expect(((await res.json()) as Refusal).fieldErrors?.studentIds).toBe(
+      "One of the chosen students is not on your roster.",
+    );
   });
 
   it("refuses another teacher's tune like a missing one", async () => {
@@ -155,7 +180,8 @@ describe("editing and withdrawing", () => {
     const elsewhere = await w.checkIn(other.assignmentStudentIds[0]);
     const gone = await w.call(ONE, "DELETE", { cookie, params: { id: made.id } });
     expect(gone.status).toBe(200);
-    const statusOf = async (id: string) => (await w.db.select({ status: checkIns.status }).from(checkIns).where(eq(checkIns.id, id)))[0]?.status;
+    const statusOf = async (id: string) =>
+      (await w.db.select({ status: checkIns.status }).from(checkIns).where(eq(checkIns.id, id)))[0]?.status;
     expect(await statusOf(waiting)).toBe("withdrawn");
     expect(await statusOf(elsewhere)).toBe("waiting"); // another assignment's check-in is untouched
   });
@@ -169,7 +195,10 @@ describe("editing and withdrawing", () => {
     const mine = await w.cookieFor(teacher.id);
     const made: string[] = [];
     for (let i = 1; i <= 23; i++) {
-      const res = await w.call(LIST, "POST", { cookie: mine, body: { tuneId: tune, studentIds: [student.id], dueLocal: dueIn(i) } });
+      const res = await w.call(LIST, "POST", {
+        cookie: mine,
+        body: { tuneId: tune, studentIds: [student.id], dueLocal: dueIn(i) },
+      });
       expect(res.status).toBe(201);
       made.push(((await res.json()) as { id: string }).id);
     }

@@ -43,7 +43,9 @@ describe("the review queue", () => {
     const second = await w.checkIn(a);
     const res = await w.call(QUEUE, "GET", { cookie });
     expect(res.status).toBe(200);
-    const items = ((await res.json()) as { checkIns: ReviewItem[] }).checkIns.filter((i) => [first, second].includes(i.checkInId));
+    const items = ((await res.json()) as { checkIns: ReviewItem[] }).checkIns.filter((i) =>
+      [first, second].includes(i.checkInId),
+    );
     expect(items.map((i) => i.checkInId)).toEqual([first, second]);
     expect(items[0].stage).toMatchObject({
       index: 1,
@@ -70,12 +72,18 @@ describe("a long review queue", () => {
     const made = await w.assign(big.teacher, { tuneId: big.tuneId, studentIds: big.students.map((s) => s.id) });
     const order: string[] = [];
     for (const id of made.assignmentStudentIds) order.push(await w.checkIn(id));
-    const body = (await (await w.call(QUEUE, "GET", { cookie: teacherCookie })).json()) as { checkIns: ReviewItem[]; waiting: number };
+    const body = (await (await w.call(QUEUE, "GET", { cookie: teacherCookie })).json()) as {
+      checkIns: ReviewItem[];
+      waiting: number;
+    };
     expect(body.waiting).toBe(REVIEW_BATCH + 3);
     expect(body.checkIns.map((i) => i.checkInId)).toEqual(order.slice(0, REVIEW_BATCH));
     // Reviewing the oldest brings the next one into the batch.
     expect((await review(order[0], "signed_off", "Good.", teacherCookie)).status).toBe(200);
-    const after = (await (await w.call(QUEUE, "GET", { cookie: teacherCookie })).json()) as { checkIns: ReviewItem[]; waiting: number };
+    const after = (await (await w.call(QUEUE, "GET", { cookie: teacherCookie })).json()) as {
+      checkIns: ReviewItem[];
+      waiting: number;
+    };
     expect(after.waiting).toBe(REVIEW_BATCH + 2);
     expect(after.checkIns.map((i) => i.checkInId)).toEqual(order.slice(1, REVIEW_BATCH + 1));
   }, 60_000);
@@ -105,7 +113,9 @@ describe("signing off", () => {
       .from(tuneProgress)
       .where(and(eq(tuneProgress.userId, room.students[0].id), eq(tuneProgress.tuneId, room.tuneId)));
     expect(progress.reachedStage).toBeGreaterThanOrEqual(1);
-    const mails = (await w.mailsTo(room.students[0].email)).filter((m) => m.dedupeKey === `checkin-feedback:${checkInId}`);
+    const mails = (await w.mailsTo(room.students[0].email)).filter(
+      (m) => m.dedupeKey === `checkin-feedback:${checkInId}`,
+    );
     expect(mails).toHaveLength(1);
     expect(mails[0].payload).toMatchObject({
       outcome: "signed_off",
@@ -133,7 +143,9 @@ describe("signing off", () => {
       checkInStatus: string;
     };
     expect((await w.checkInRow(checkInId)).status).toBe(winner.checkInStatus);
-    const mails = (await w.mailsTo(room.students[0].email)).filter((m) => m.dedupeKey === `checkin-feedback:${checkInId}`);
+    const mails = (await w.mailsTo(room.students[0].email)).filter(
+      (m) => m.dedupeKey === `checkin-feedback:${checkInId}`,
+    );
     expect(mails).toHaveLength(1);
   });
 
@@ -268,10 +280,13 @@ describe("the roster table", () => {
     ]);
     // An admin sees every student, with the same figures; another teacher sees none of them.
     const admin = await w.cookieFor((await w.person("admin")).id);
-    const all = ((await (await w.call("teach/roster", "GET", { cookie: admin })).json()) as { students: RosterRow[] }).students;
+    const all = ((await (await w.call("teach/roster", "GET", { cookie: admin })).json()) as { students: RosterRow[] })
+      .students;
     expect(all.find((r) => r.studentId === s.id)).toMatchObject({ openAssignments: 2, overdueAssignments: 1 });
     expect(all.length).toBeGreaterThan(1);
     const other = await w.cookieFor((await w.person("teacher")).id);
-    expect(((await (await w.call("teach/roster", "GET", { cookie: other })).json()) as { students: RosterRow[] }).students).toEqual([]);
+    expect(
+      ((await (await w.call("teach/roster", "GET", { cookie: other })).json()) as { students: RosterRow[] }).students,
+    ).toEqual([]);
   });
 });

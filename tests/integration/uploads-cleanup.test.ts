@@ -32,13 +32,26 @@ afterAll(async () => {
 });
 
 /** An upload row asked for `hoursAgo` hours before `now`, with its object in storage when `withObject`. */
-async function upload(ownerId: string, label: string, hoursAgo: number, status: "pending" | "stored", withObject: boolean) {
+async function upload(
+  ownerId: string,
+  label: string,
+  hoursAgo: number,
+  status: "pending" | "stored",
+  withObject: boolean,
+) {
   const key = `recordings/cleanup-test/${label}-${Date.now()}.wav`;
   const bytes = wavBytes(400);
   if (withObject) expect((await putTicket(await presignPut(key, "audio/wav", bytes.length), bytes)).status).toBe(200);
   const [row] = await w.db
     .insert(uploads)
-    .values({ ownerId, storageKey: key, contentType: "audio/wav", sizeBytes: bytes.length, status, createdAt: new Date(now.getTime() - hoursAgo * HOUR) })
+    .values({
+      ownerId,
+      storageKey: key,
+      contentType: "audio/wav",
+      sizeBytes: bytes.length,
+      status,
+      createdAt: new Date(now.getTime() - hoursAgo * HOUR),
+    })
     .returning({ id: uploads.id });
   return { id: row.id, key };
 }
@@ -62,7 +75,10 @@ describe("abandoned uploads", () => {
       log: () => {},
     }); // its start-up pass cleans
 
-    const left = await w.db.select({ id: uploads.id }).from(uploads).where(inArray(uploads.id, [abandoned.id, neverArrived.id, recent.id, stored.id]));
+    const left = await w.db
+      .select({ id: uploads.id })
+      .from(uploads)
+      .where(inArray(uploads.id, [abandoned.id, neverArrived.id, recent.id, stored.id]));
     expect(new Set(left.map((r) => r.id))).toEqual(new Set([recent.id, stored.id]));
     expect(await headObject(abandoned.key)).toBeNull();
     expect(await headObject(recent.key)).not.toBeNull();

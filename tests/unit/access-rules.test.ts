@@ -30,14 +30,29 @@ describe("decideLadder", () => {
   });
 
   it("crosses from one grade to the next by the last rung of the grade before", () => {
-    const d = decideLadder(LADDER, enrolled, progress([["t1", 1], ["t2", 2], ["t3", 1]]));
+    const d = decideLadder(
+      LADDER,
+      enrolled,
+      progress([
+        ["t1", 1],
+        ["t2", 2],
+        ["t3", 1],
+      ]),
+    );
     expect(d.map((r) => r.state)).toEqual(["done", "done", "inProgress", "locked"]);
     expect(d[2].open).toBe(true);
     expect(d[3].reason).toMatch(/stage 2 \(Bowing\) on “Tune 3” \(Grade 2, rung 1\)/);
   });
 
   it("counts a started tune with no stage reached as in progress only once the rung is open", () => {
-    const d = decideLadder(LADDER, enrolled, progress([["t1", 1], ["t2", 0]]));
+    const d = decideLadder(
+      LADDER,
+      enrolled,
+      progress([
+        ["t1", 1],
+        ["t2", 0],
+      ]),
+    );
     expect(d[1].state).toBe("inProgress");
     expect(d[1].reached).toBe(0);
   });
@@ -61,9 +76,13 @@ describe("decideLadder", () => {
 
 describe("decideStage", () => {
   it("opens stage k once stage k−1 is reached, and stage 1 at once", () => {
-    const allowed = [1, 2, 3, 4].map((k) => decideStage(k, NAMES, { staff: false, reached: 1, signedIn: true }).allowed);
+    const allowed = [1, 2, 3, 4].map(
+      (k) => decideStage(k, NAMES, { staff: false, reached: 1, signedIn: true }).allowed,
+    );
     expect(allowed).toEqual([true, true, false, false]);
-    expect(decideStage(3, NAMES, { staff: false, reached: 1, signedIn: true }).reason).toBe("Opens when you have reached stage 2 (Bowing) of this tune.");
+    expect(decideStage(3, NAMES, { staff: false, reached: 1, signedIn: true }).reason).toBe(
+      "Opens when you have reached stage 2 (Bowing) of this tune.",
+    );
   });
 
   it("opens only the skeleton to a visitor, and says how to go further", () => {

@@ -10,35 +10,123 @@ import { DEMO_COURSES, DEMO_TUNES } from "@/db/seed-data/catalogue";
 import { SCHOOL_NAME, STUDENTS, TEACHERS } from "@/db/seed-data/people";
 import { checkTune } from "./abc/invariants";
 
-const FILES = readdirSync(new URL("../../db/seed-data/tunes/", import.meta.url)).filter((f) => f.endsWith(".abc")).sort();
+const FILES = readdirSync(new URL("../../db/seed-data/tunes/", import.meta.url))
+  .filter((f) => f.endsWith(".abc"))
+  .sort();
 
 type Expect = [first: string, second: string, kind: "exact" | "near", differingNotes: number];
 // "phrase 1 = phrase 3", "last phrase of A = last phrase of B" (A4/2 is A's last phrase through its
 // second ending) and near twins of one or two notes, as designed when the tunes were written.
 const DESIGNED: Record<string, Expect[]> = {
-  "gatepost-wren.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "upturned-barrow.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "quenbys-crossing.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "frost-cold-frame.abc": [["A1", "A3", "exact", 0], ["A2", "A4", "near", 2], ["B1", "B3", "exact", 0], ["B4", "A4/2", "exact", 0]],
-  "slate-roof.abc": [["A1", "A3", "exact", 0], ["A2", "A4", "near", 1], ["A4", "B4", "exact", 0]],
-  "kettle-nobody-watched.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "pennywort-hill.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "exact", 0], ["B4", "A4/2", "exact", 0]],
-  "lamplighters-shortcut.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["A4", "B4", "exact", 0]],
-  "greaveys-goat.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "exact", 0], ["B4", "A4/2", "exact", 0]],
-  "tarred-ropewalk.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "brass-bedknob.abc": [["A1", "A3", "exact", 0], ["A2", "A4", "near", 1], ["B1", "B3", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "clockmakers-stairs.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "exact", 0], ["A4", "B4", "near", 1], ["B4", "A4/2", "exact", 0]],
-  "little-biscuit.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "exact", 0], ["A4", "B4", "near", 1]],
-  "hop-the-puddle.abc": [["A1", "A3", "exact", 0], ["A2", "A4", "near", 2], ["B1", "B3", "near", 1]],
-  "rattling-gate.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["A4", "B4", "exact", 0]],
-  "thornsby-weir.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "exact", 0], ["A4", "B4", "exact", 0]],
-  "lamp-in-the-attic.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 1], ["A4", "B4", "exact", 0]],
-  "slow-boats-marle.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "exact", 0], ["B4", "A4/2", "exact", 0]],
-  "herons-second-thought.abc": [["A1", "A3", "exact", 0], ["B1", "B3", "near", 2], ["A4", "B4", "exact", 0]],
+  "gatepost-wren.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "upturned-barrow.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "quenbys-crossing.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "frost-cold-frame.abc": [
+    ["A1", "A3", "exact", 0],
+    ["A2", "A4", "near", 2],
+    ["B1", "B3", "exact", 0],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "slate-roof.abc": [
+    ["A1", "A3", "exact", 0],
+    ["A2", "A4", "near", 1],
+    ["A4", "B4", "exact", 0],
+  ],
+  "kettle-nobody-watched.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "pennywort-hill.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "exact", 0],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "lamplighters-shortcut.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["A4", "B4", "exact", 0],
+  ],
+  "greaveys-goat.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "exact", 0],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "tarred-ropewalk.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "brass-bedknob.abc": [
+    ["A1", "A3", "exact", 0],
+    ["A2", "A4", "near", 1],
+    ["B1", "B3", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "clockmakers-stairs.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "exact", 0],
+    ["A4", "B4", "near", 1],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "little-biscuit.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "exact", 0],
+    ["A4", "B4", "near", 1],
+  ],
+  "hop-the-puddle.abc": [
+    ["A1", "A3", "exact", 0],
+    ["A2", "A4", "near", 2],
+    ["B1", "B3", "near", 1],
+  ],
+  "rattling-gate.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["A4", "B4", "exact", 0],
+  ],
+  "thornsby-weir.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "exact", 0],
+    ["A4", "B4", "exact", 0],
+  ],
+  "lamp-in-the-attic.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 1],
+    ["A4", "B4", "exact", 0],
+  ],
+  "slow-boats-marle.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "exact", 0],
+    ["B4", "A4/2", "exact", 0],
+  ],
+  "herons-second-thought.abc": [
+    ["A1", "A3", "exact", 0],
+    ["B1", "B3", "near", 2],
+    ["A4", "B4", "exact", 0],
+  ],
 };
 
 // Common practice: the meter each dance type is written in.
-const METER: Record<string, string> = { reel: "4/4", jig: "6/8", hornpipe: "4/4", polka: "2/4", waltz: "3/4", "slip jig": "9/8" };
+const METER: Record<string, string> = {
+  reel: "4/4",
+  jig: "6/8",
+  hornpipe: "4/4",
+  polka: "2/4",
+  waltz: "3/4",
+  "slip jig": "9/8",
+};
 
 const analyses = new Map<string, Analysis>();
 function analysed(file: string): Analysis {
@@ -84,7 +172,9 @@ describe("the demo tunes", () => {
   });
 
   it.each(FILES)("%s stays in first-position fiddle range, G3 to B5 (common practice)", (file) => {
-    const pitches = analysed(file).skeleton.bars.flatMap((b) => b.notes.map((n) => n.pitch)).filter((p): p is number => p !== null);
+    const pitches = analysed(file)
+      .skeleton.bars.flatMap((b) => b.notes.map((n) => n.pitch))
+      .filter((p): p is number => p !== null);
     expect(Math.min(...pitches)).toBeGreaterThanOrEqual(55);
     expect(Math.max(...pitches)).toBeLessThanOrEqual(83);
   });

@@ -15,6 +15,8 @@ describe("environment validation", () => {
 
   it("says what is wrong with a malformed value", () => {
     expect(() => parseEnv({ DATABASE_URL: "mysql://x" })).toThrow(/DATABASE_URL: must start with postgres:\/\//);
-    expect(() => parseEnv({ DATABASE_URL: "postgres://x", APP_URL: "not a url" })).toThrow(/APP_URL: must be the app's public address/);
+    expect(() => parseEnv({ DATABASE_URL: "postgres://x", APP_URL: "not a url" })).toThrow(
+      /APP_URL: must be the app's public address/,
+    );
   });
 });

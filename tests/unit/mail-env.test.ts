@@ -13,13 +13,21 @@ describe("e-mail settings", () => {
 
   it("accepts a bare address or Name <address> as the sender, and names anything else", () => {
     expect(parseEnv({ ...base, MAIL_FROM: "school@example.com" }).MAIL_FROM).toBe("school@example.com");
-    expect(parseEnv({ ...base, MAIL_FROM: "The School <school@example.com>" }).MAIL_FROM).toBe("The School <school@example.com>");
-    expect(() => parseEnv({ ...base, MAIL_FROM: "The School" })).toThrow(/MAIL_FROM: must be an address or "Name <address>"/);
+    expect(parseEnv({ ...base, MAIL_FROM: "The School <school@example.com>" }).MAIL_FROM).toBe(
+      "The School <school@example.com>",
+    );
+    expect(() => parseEnv({ ...base, MAIL_FROM: "The School" })).toThrow(
+      /MAIL_FROM: must be an address or "Name <address>"/,
+    );
   });
 
   it("names a malformed stand-in or API address", () => {
-    expect(() => parseEnv({ ...base, RESEND_FAKE_URL: "localhost" })).toThrow(/RESEND_FAKE_URL: must be the local Resend stand-in's address/);
-    expect(() => parseEnv({ ...base, RESEND_BASE_URL: "api.resend" })).toThrow(/RESEND_BASE_URL: must be the Resend API's address/);
+    expect(() => parseEnv({ ...base, RESEND_FAKE_URL: "localhost" })).toThrow(
+      /RESEND_FAKE_URL: must be the local Resend stand-in's address/,
+    );
+    expect(() => parseEnv({ ...base, RESEND_BASE_URL: "api.resend" })).toThrow(
+      /RESEND_BASE_URL: must be the Resend API's address/,
+    );
     expect(() => parseEnv({ ...base, RESEND_API_KEY: "" })).toThrow(/RESEND_API_KEY: must not be empty/);
   });
 });

@@ -7,7 +7,13 @@ import { startResendFake, type ResendFake } from "@/scripts/fakes/resend";
 const KEY = "re_test_key";
 let fake: ResendFake;
 let resend: Resend;
-const message = { from: "Rosinwood <hello@rosinwood.test>", to: "ann@example.com", subject: "Hello", html: "<p>Hi</p>", text: "Hi" };
+const message = {
+  from: "Rosinwood <hello@rosinwood.test>",
+  to: "ann@example.com",
+  subject: "Hello",
+  html: "<p>Hi</p>",
+  text: "Hi",
+};
 
 beforeAll(async () => {
   fake = await startResendFake({ port: 0, apiKey: KEY });
@@ -25,12 +31,22 @@ describe("the Resend stand-in", () => {
     expect(error).toBeNull();
     const stored = fake.emails();
     expect(stored).toHaveLength(1);
-    expect(stored[0]).toMatchObject({ id: data?.id, to: ["ann@example.com"], subject: "Hello", html: "<p>Hi</p>", text: "Hi" });
+    expect(stored[0]).toMatchObject({
+      id: data?.id,
+      to: ["ann@example.com"],
+      subject: "Hello",
+      html: "<p>Hi</p>",
+      text: "Hi",
+    });
   });
 
   it("refuses a request without a key (401) and with a wrong key (403)", async () => {
     // Resend API reference, "Errors": missing_api_key is 401, invalid_api_key is 403.
-    const bare = await fetch(`${fake.url}/emails`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(message) });
+    const bare = await fetch(`${fake.url}/emails`, {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify(message),
+    });
     expect(bare.status).toBe(401);
     expect(await bare.json()).toMatchObject({ statusCode: 401, name: "missing_api_key" });
     const wrong = await new Resend("re_other", { baseUrl: fake.url }).emails.send(message);
@@ -77,7 +93,9 @@ describe("the Resend stand-in", () => {
 
   it("fails about the set share of requests", async () => {
     fake.setFailRate(0.3);
-    const results = await Promise.all(Array.from({ length: 200 }, (_, i) => resend.emails.send({ ...message, subject: `n${i}` })));
+    const results = await Promise.all(
+      Array.from({ length: 200 }, (_, i) => resend.emails.send({ ...message, subject: `n${i}` })),
+    );
     const failed = results.filter((r) => r.error?.statusCode === 500).length;
     // Binomial(200, 0.3): mean 60, sd ≈ 6.5; ±30 is over four and a half standard deviations.
     expect(failed).toBeGreaterThan(30);
@@ -88,7 +106,9 @@ describe("the Resend stand-in", () => {
   it("lists messages newest first and serves one by id", async () => {
     await resend.emails.send({ ...message, subject: "older" });
     await resend.emails.send({ ...message, subject: "newer" });
-    const list = (await (await fetch(`${fake.url}/_fake/emails`)).json()) as { data: { id: string; subject: string }[] };
+    const list = (await (await fetch(`${fake.url}/_fake/emails`)).json()) as {
+      data: { id: string; subject: string }[];
+    };
     expect(list.data.map((e) => e.subject)).toEqual(["newer", "older"]);
     const one = await fetch(`${fake.url}/_fake/emails/${list.data[1]?.id}`);
     expect(((await one.json()) as { subject: string }).subject).toBe("older");

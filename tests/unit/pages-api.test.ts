@@ -24,18 +24,32 @@ const echo: GuardedRoute = async (req) => {
   headers.append("set-cookie", "a=1; Path=/; HttpOnly");
   headers.append("set-cookie", "b=2; Path=/");
   const url = new URL(req.url);
-  const body = JSON.stringify({ method: req.method, path: url.pathname, q: url.searchParams.get("q"), cookie: req.headers.get("cookie"), host: url.host });
+  const body = JSON.stringify({
+    method: req.method,
+    path: url.pathname,
+    q: url.searchParams.get("q"),
+    cookie: req.headers.get("cookie"),
+    host: url.host,
+  });
   return new Response(body, { status: 207, headers });
 };
 
 describe("pagesApi", () => {
   it("hands GET to the route as a web Request and writes its Response: status, headers, every cookie, body", async () => {
     const base = await serve(echo);
-    const res = await fetch(`${base}/api/admin/payments?q=Ivo%20Penrose&page=2`, { headers: { cookie: "rosinwood_session=abc" } });
+    const res = await fetch(`${base}/api/admin/payments?q=Ivo%20Penrose&page=2`, {
+      headers: { cookie: "rosinwood_session=abc" },
+    });
     expect(res.status).toBe(207);
     expect(res.headers.get("x-answer")).toBe("echo");
     expect(res.headers.getSetCookie()).toEqual(["a=1; Path=/; HttpOnly", "b=2; Path=/"]);
-    expect(await res.json()).toEqual({ method: "GET", path: "/api/admin/payments", q: "Ivo Penrose", cookie: "rosinwood_session=abc", host: new URL(base).host });
+    expect(await res.json()).toEqual({
+      method: "GET",
+      path: "/api/admin/payments",
+      q: "Ivo Penrose",
+      cookie: "rosinwood_session=abc",
+      host: new URL(base).host,
+    });
   });
 
   it("answers HEAD with GET's status and headers and no body", async () => {

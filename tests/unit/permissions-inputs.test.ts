@@ -48,7 +48,9 @@ describe("the client address for per-IP limits", () => {
 
 describe("pasted invitation addresses", () => {
   it("splits on commas, spaces and lines, drops repeats in any case and lists the bad ones", () => {
-    const { valid, invalid } = parseAddresses("a@one.example, B@two.example\n<c@three.example>; A@ONE.example not-an-address");
+    const { valid, invalid } = parseAddresses(
+      "a@one.example, B@two.example\n<c@three.example>; A@ONE.example not-an-address",
+    );
     expect(valid).toEqual(["a@one.example", "B@two.example", "c@three.example"]);
     expect(invalid).toEqual(["not-an-address"]);
   });

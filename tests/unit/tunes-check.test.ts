@@ -20,7 +20,12 @@ describe("checkTune", () => {
     if (!r.ok) throw new Error(JSON.stringify(r.problems));
     // ABC 2.1 §3.1.2 T: title, §3.1.9 R: rhythm, §3.1.14 K: key, §3.1.6 M: meter
     expect([r.value.title, r.value.tuneType, r.value.key, r.value.meter]).toEqual(["Wicker Gate", "reel", "D", "4/4"]);
-    expect(r.value.stages.map((s) => s.name)).toEqual(["Skeleton", "Bowing", "Ornaments, slides and fills", "Full setting"]);
+    expect(r.value.stages.map((s) => s.name)).toEqual([
+      "Skeleton",
+      "Bowing",
+      "Ornaments, slides and fills",
+      "Full setting",
+    ]);
     // PRODUCT.md §4 invariant: the last stage equals the source.
     expect(r.value.stages[3].abc).toBe(WICKER);
     expect(r.value.stagePlan).toBeNull();
@@ -34,7 +39,9 @@ describe("checkTune", () => {
     if (r.ok) return;
     expect(r.problems).toHaveLength(1);
     expect(r.problems[0]).toMatchObject({ ...where(bad, "#"), message: 'Unknown character ignored: "#"' });
-    expect(problemText(r.problems[0])).toBe(`Line ${where(bad, "#").line}, column ${where(bad, "#").column}: Unknown character ignored: "#"`);
+    expect(problemText(r.problems[0])).toBe(
+      `Line ${where(bad, "#").line}, column ${where(bad, "#").column}: Unknown character ignored: "#"`,
+    );
   });
 
   it("puts problems of a tune inside a file at the file's line", () => {
@@ -53,11 +60,20 @@ describe("checkTune", () => {
   });
 
   it("gives the plan's reasons apart from the ABC's problems", () => {
-    const r = checkTune(WICKER, { stagePlan: { stages: [{ name: "Skeleton", adds: [] }, { name: "Bowing", adds: ["bowing"] }] } });
+    const r = checkTune(WICKER, {
+      stagePlan: {
+        stages: [
+          { name: "Skeleton", adds: [] },
+          { name: "Bowing", adds: ["bowing"] },
+        ],
+      },
+    });
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.problems).toEqual([]);
-    expect(r.planReasons).toContain('Kind "ornaments" is never added back, so the last stage would not be the full setting.');
+    expect(r.planReasons).toContain(
+      'Kind "ornaments" is never added back, so the last stage would not be the full setting.',
+    );
   });
 
   it("follows a teacher's plan: three stages, the middle one with bowing and ornaments", () => {
@@ -65,7 +81,10 @@ describe("checkTune", () => {
       stages: [
         { name: "Bare tune", adds: [] },
         { name: "Bow and ornament", adds: ["bowing", "ornaments"] as const },
-        { name: "Everything", adds: ["slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] as const },
+        {
+          name: "Everything",
+          adds: ["slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] as const,
+        },
       ],
     };
     const r = checkTune(WICKER, { stagePlan: { stages: plan.stages.map((s) => ({ ...s, adds: [...s.adds] })) } });

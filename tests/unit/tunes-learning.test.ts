@@ -59,7 +59,9 @@ describe("import file checks", () => {
   it("refuses a file without tunes, and one with more than the limit", () => {
     expect(() => tunesOfFile("just some notes about fiddles\n")).toThrow(/No tunes found/);
     const many = Array.from({ length: IMPORT_MAX_TUNES + 1 }, (_, i) => `X:${i + 1}\nT:T${i}\nK:D\nDEFG|\n`).join("\n");
-    expect(() => tunesOfFile(many)).toThrow(`This file holds ${IMPORT_MAX_TUNES + 1} tunes; the most one import takes is ${IMPORT_MAX_TUNES}.`);
+    expect(() => tunesOfFile(many)).toThrow(
+      `This file holds ${IMPORT_MAX_TUNES + 1} tunes; the most one import takes is ${IMPORT_MAX_TUNES}.`,
+    );
     expect(tunesOfFile(many.split("\n\n").slice(0, IMPORT_MAX_TUNES).join("\n\n"))).toHaveLength(IMPORT_MAX_TUNES);
   });
 

@@ -3,7 +3,17 @@ import { PageContainer } from "@/components/layout/page-container";
 import { Card } from "@/components/ui/card";
 
 /** The narrow, centred card every sign-in style page sits in. */
-export function AuthCard({ title, intro, children, footer }: { title: string; intro?: ReactNode; children: ReactNode; footer?: ReactNode }) {
+export function AuthCard({
+  title,
+  intro,
+  children,
+  footer,
+}: {
+  title: string;
+  intro?: ReactNode;
+  children: ReactNode;
+  footer?: ReactNode;
+}) {
   return (
     <PageContainer className="flex justify-center">
       <div className="flex w-full max-w-md flex-col gap-5">

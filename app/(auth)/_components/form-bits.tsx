@@ -6,7 +6,13 @@ import { Button } from "@/components/ui/button";
 import type { ActionState } from "@/lib/auth/action-state";
 
 /** The submit button of a form: busy while the action runs so a double click sends once. */
-export function SubmitButton({ children, variant }: { children: React.ReactNode; variant?: "primary" | "secondary" | "danger" }) {
+export function SubmitButton({
+  children,
+  variant,
+}: {
+  children: React.ReactNode;
+  variant?: "primary" | "secondary" | "danger";
+}) {
   const { pending } = useFormStatus();
   return (
     <Button type="submit" variant={variant} disabled={pending} aria-disabled={pending}>

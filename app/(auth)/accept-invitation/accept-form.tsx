@@ -7,7 +7,15 @@ import { acceptInvitation } from "../actions";
 import { FormMessage, SubmitButton } from "../_components/form-bits";
 
 /** With `newAccount`, the invited person also chooses a name and password; otherwise one button links the signed-in account. */
-export function AcceptForm({ token, newAccount, minLength }: { token: string; newAccount: boolean; minLength: number }) {
+export function AcceptForm({
+  token,
+  newAccount,
+  minLength,
+}: {
+  token: string;
+  newAccount: boolean;
+  minLength: number;
+}) {
   const [state, action] = useActionState(acceptInvitation, INITIAL_STATE);
   return (
     <form action={action} className="flex flex-col gap-4" noValidate>
@@ -15,7 +23,14 @@ export function AcceptForm({ token, newAccount, minLength }: { token: string; ne
       <input type="hidden" name="token" value={token} />
       {newAccount ? (
         <>
-          <TextField name="name" label="Your name" autoComplete="name" required defaultValue={state.values?.name} error={state.fieldErrors?.name} />
+          <TextField
+            name="name"
+            label="Your name"
+            autoComplete="name"
+            required
+            defaultValue={state.values?.name}
+            error={state.fieldErrors?.name}
+          />
           <TextField
             name="password"
             type="password"

@@ -30,9 +30,13 @@ export default async function SignInPage({ searchParams }: { searchParams: Searc
       }
     >
       {params.reset === "done" ? (
-        <Alert tone="success">Your password has been changed and every other session signed out. Sign in with the new one.</Alert>
+        <Alert tone="success">
+          Your password has been changed and every other session signed out. Sign in with the new one.
+        </Alert>
       ) : null}
-      {params.confirmed ? <Alert tone="success">Thank you: your address is confirmed. Sign in to carry on.</Alert> : null}
+      {params.confirmed ? (
+        <Alert tone="success">Thank you: your address is confirmed. Sign in to carry on.</Alert>
+      ) : null}
       <SignInForm next={next} />
     </AuthCard>
   );

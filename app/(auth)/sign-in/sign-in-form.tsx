@@ -21,7 +21,14 @@ export function SignInForm({ next }: { next?: string }) {
         defaultValue={state.values?.email}
         error={state.fieldErrors?.email}
       />
-      <TextField name="password" type="password" label="Password" autoComplete="current-password" required error={state.fieldErrors?.password} />
+      <TextField
+        name="password"
+        type="password"
+        label="Password"
+        autoComplete="current-password"
+        required
+        error={state.fieldErrors?.password}
+      />
       <SubmitButton>Sign in</SubmitButton>
     </form>
   );

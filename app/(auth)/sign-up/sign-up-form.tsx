@@ -19,7 +19,14 @@ export function SignUpForm({ minLength }: { minLength: number }) {
   return (
     <form action={action} className="flex flex-col gap-4" noValidate>
       <FormMessage state={state} />
-      <TextField name="name" label="Your name" autoComplete="name" required defaultValue={state.values?.name} error={state.fieldErrors?.name} />
+      <TextField
+        name="name"
+        label="Your name"
+        autoComplete="name"
+        required
+        defaultValue={state.values?.name}
+        error={state.fieldErrors?.name}
+      />
       <TextField
         name="email"
         type="email"

@@ -58,7 +58,10 @@ export function TuneLayers() {
       <figcaption className="mb-3 font-serif text-h4 font-semibold">One tune, four versions</figcaption>
       <ol className="flex flex-col divide-y divide-line">
         {STAGES.map((s, i) => (
-          <li key={s.title} className="grid grid-cols-[2rem_1fr] items-center gap-x-3 gap-y-1 py-2.5 sm:grid-cols-[2rem_1fr_14rem]">
+          <li
+            key={s.title}
+            className="grid grid-cols-[2rem_1fr] items-center gap-x-3 gap-y-1 py-2.5 sm:grid-cols-[2rem_1fr_14rem]"
+          >
             <span
               aria-hidden="true"
               className="flex h-8 w-8 items-center justify-center rounded-full bg-walnut text-small font-semibold text-rosin"

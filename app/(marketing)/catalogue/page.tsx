@@ -6,7 +6,10 @@ import { LinkButton } from "@/components/ui/link-button";
 import { getCurrentUser } from "@/lib/auth/current-user";
 import { catalogueCourses } from "@/lib/catalogue/catalogue";
 
-export const metadata: Metadata = { title: "Catalogue", description: "Rosinwood's courses, grade by grade, with every tune on their ladders." };
+export const metadata: Metadata = {
+  title: "Catalogue",
+  description: "Rosinwood's courses, grade by grade, with every tune on their ladders.",
+};
 export const dynamic = "force-dynamic"; // the catalogue changes when a teacher publishes
 
 export default async function CataloguePage() {
@@ -22,7 +25,9 @@ export default async function CataloguePage() {
         </p>
         {user?.role === "student" ? (
           <div>
-            <LinkButton href="/learn/courses" variant="secondary">Go to my courses</LinkButton>
+            <LinkButton href="/learn/courses" variant="secondary">
+              Go to my courses
+            </LinkButton>
           </div>
         ) : null}
       </header>

@@ -22,8 +22,8 @@ export default async function PlansPage({ searchParams }: { searchParams: Promis
         <p className="text-small font-semibold tracking-widest text-cedar uppercase">Membership</p>
         <h1 className="text-h2 font-semibold">Choose a membership plan</h1>
         <p className="text-bark">
-          Taster tunes are open to everyone. A membership opens every course’s ladder, rung by rung, for as long as it runs. Cancel whenever you
-          like: it stays open to the end of the period you paid for.
+          Taster tunes are open to everyone. A membership opens every course’s ladder, rung by rung, for as long as it
+          runs. Cancel whenever you like: it stays open to the end of the period you paid for.
         </p>
         {course?.published ? <p className="text-bark">After paying you go straight to “{course.title}”.</p> : null}
       </header>
@@ -47,7 +47,9 @@ export default async function PlansPage({ searchParams }: { searchParams: Promis
             ) : user.role === "student" ? (
               <ChoosePlanButton planId={p.id} planName={p.name} courseId={course?.published ? course.id : undefined} />
             ) : (
-              <p className="text-small text-bark">Memberships are for students; teachers and admins open everything already.</p>
+              <p className="text-small text-bark">
+                Memberships are for students; teachers and admins open everything already.
+              </p>
             )}
           </Card>
         ))}

@@ -15,7 +15,10 @@ export default async function PaymentsPage() {
   return (
     <PageContainer className="flex flex-col gap-6">
       <h1 className="text-h2 font-semibold">Payments</h1>
-      <p className="text-bark">Every membership payment, refunds included. Sorting, filters and pages are worked out on the server; the CSV export carries the same filters.</p>
+      <p className="text-bark">
+        Every membership payment, refunds included. Sorting, filters and pages are worked out on the server; the CSV
+        export carries the same filters.
+      </p>
       <QueryProvider>
         <Suspense fallback={<p>Loading payments…</p>}>
           <PaymentsTable plans={plans} />

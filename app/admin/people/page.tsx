@@ -18,7 +18,11 @@ const Search = z.object({
   page: z.coerce.number().int().min(1).catch(1).default(1),
 });
 
-export default async function PeoplePage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+export default async function PeoplePage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const user = await requireArea("area:admin");
   const search = Search.parse(await searchParams);
   const { rows, total } = await listPeople(search);

@@ -32,7 +32,17 @@ export function InviteTeacherForm() {
 
 const ROLES = ["student", "teacher", "admin"] as const;
 
-export function RoleForm({ userId, name, role, self }: { userId: string; name: string; role: (typeof ROLES)[number]; self: boolean }) {
+export function RoleForm({
+  userId,
+  name,
+  role,
+  self,
+}: {
+  userId: string;
+  name: string;
+  role: (typeof ROLES)[number];
+  self: boolean;
+}) {
   const [state, action] = useActionState(changeRole, INITIAL_STATE);
   if (self) return <span className="capitalize">{role} (you)</span>;
   return (

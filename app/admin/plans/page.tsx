@@ -12,8 +12,8 @@ export default async function AdminPlansPage() {
     <PageContainer className="flex flex-col gap-6">
       <h1 className="text-h2 font-semibold">Membership plans</h1>
       <p className="max-w-prose text-bark">
-        Each plan is a product with one price in Stripe. A new price applies to new members; existing members keep the price they joined at. A plan
-        anyone has used can be retired (closed to new members) but not deleted.
+        Each plan is a product with one price in Stripe. A new price applies to new members; existing members keep the
+        price they joined at. A plan anyone has used can be retired (closed to new members) but not deleted.
       </p>
       <QueryProvider>
         <PlansAdmin />

@@ -15,7 +15,9 @@ export default async function RevenuePage() {
   return (
     <PageContainer className="flex flex-col gap-6">
       <h1 className="text-h2 font-semibold">Revenue</h1>
-      <p className="text-bark">The last twelve months (UTC), by the month money was taken or given back. Plan changes count with renewals.</p>
+      <p className="text-bark">
+        The last twelve months (UTC), by the month money was taken or given back. Plan changes count with renewals.
+      </p>
       {report.currencies.length === 0 ? <p>No payments in the last twelve months.</p> : null}
       {report.currencies.map((currency) => {
         const rows = report.rows.filter((r) => r.currency === currency);

@@ -7,4 +7,6 @@ import { json } from "@/lib/catalogue/respond";
 export const dynamic = "force-dynamic";
 
 /** The public catalogue: published courses with their grades and tune titles. */
-export const GET = guardRoute({ action: "catalogue:view", input: z.object({}) }, async () => json({ courses: await catalogueCourses(db()) }));
+export const GET = guardRoute({ action: "catalogue:view", input: z.object({}) }, async () =>
+  json({ courses: await catalogueCourses(db()) }),
+);

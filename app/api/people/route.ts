@@ -16,6 +16,9 @@ export const GET = guardRoute(
   },
   async (_ctx, input) => {
     const { rows, total } = await listPeople(input);
-    return Response.json({ rows, total, page: input.page, pageSize: PEOPLE_PAGE_SIZE }, { headers: { "cache-control": "no-store" } });
+    return Response.json(
+      { rows, total, page: input.page, pageSize: PEOPLE_PAGE_SIZE },
+      { headers: { "cache-control": "no-store" } },
+    );
   },
 );

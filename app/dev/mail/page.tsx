@@ -13,7 +13,11 @@ export function generateMetadata() {
 }
 
 // Present only while the local Resend stand-in is configured (npm start, npm test): a real deployment has no such page.
-export default async function CapturedMailPage({ searchParams }: { searchParams: Promise<{ id?: string | string[] }> }) {
+export default async function CapturedMailPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ id?: string | string[] }>;
+}) {
   const fakeUrl = env().RESEND_FAKE_URL;
   if (!fakeUrl) notFound();
   const { id } = await searchParams;
@@ -30,8 +34,8 @@ export default async function CapturedMailPage({ searchParams }: { searchParams:
       <header className="flex flex-col gap-2">
         <h1 className="text-h2 font-semibold">Captured e-mail</h1>
         <p className="max-w-prose text-bark">
-          This copy of Rosinwood sends its e-mail to a local stand-in, so nothing leaves this machine. Every message
-          it sends appears here, newest first, with its links ready to open.
+          This copy of Rosinwood sends its e-mail to a local stand-in, so nothing leaves this machine. Every message it
+          sends appears here, newest first, with its links ready to open.
         </p>
       </header>
       {emails === null ? (
@@ -55,7 +59,10 @@ export default async function CapturedMailPage({ searchParams }: { searchParams:
                 <tr key={email.id} className={email.id === selected?.id ? "bg-rosin-tint" : undefined}>
                   <Td className="break-all">{email.to.join(", ")}</Td>
                   <Td>
-                    <Link href={`/dev/mail?id=${email.id}`} aria-current={email.id === selected?.id ? "true" : undefined}>
+                    <Link
+                      href={`/dev/mail?id=${email.id}`}
+                      aria-current={email.id === selected?.id ? "true" : undefined}
+                    >
                       {email.subject}
                     </Link>
                   </Td>

@@ -5,7 +5,13 @@ import { useState } from "react";
 import type { PhraseMap } from "@/lib/abc/phrase-types";
 import { MemoryMode, Notation, StageSelector, TunePlayer, type StageChoice } from "@/components/notation";
 
-export function NotationDemo({ stages, phraseMap }: { stages: (StageChoice & { abc: string })[]; phraseMap: PhraseMap }) {
+export function NotationDemo({
+  stages,
+  phraseMap,
+}: {
+  stages: (StageChoice & { abc: string })[];
+  phraseMap: PhraseMap;
+}) {
   const [stage, setStage] = useState(1);
   const [loop, setLoop] = useState<string | null>(null);
   const [hidden, setHidden] = useState<string[]>([]);
@@ -17,8 +23,12 @@ export function NotationDemo({ stages, phraseMap }: { stages: (StageChoice & { a
       <TunePlayer abc={current.abc} phraseMap={phraseMap} onLoopChange={setLoop} />
       <MemoryMode phraseMap={phraseMap} hidden={hidden} onChange={setHidden} />
       <Notation
-        abc={current.abc} phraseMap={phraseMap} highlightPhrase={loop} hiddenPhrases={hidden}
-        onBarClick={setBar} label={`The Cedar Stair, stage ${current.index}: ${current.name}`}
+        abc={current.abc}
+        phraseMap={phraseMap}
+        highlightPhrase={loop}
+        hiddenPhrases={hidden}
+        onBarClick={setBar}
+        label={`The Cedar Stair, stage ${current.index}: ${current.name}`}
       />
       <p role="status" className="text-small text-bark" data-clicked-bar={bar ?? ""}>
         {bar === null ? "Click a note to choose its bar." : `Bar ${bar} chosen.`}

@@ -38,8 +38,8 @@ export default async function StripeClockPage({ searchParams }: { searchParams: 
         <h1 className="text-h2 font-semibold">Payment stand-in clock</h1>
         <p className="max-w-prose text-bark">
           This copy of Rosinwood takes payments through a local stand-in for Stripe. Its clock can be moved forward so
-          that renewals, failed renewals and the ends of grace periods happen now; the app hears of them through the same
-          signed webhooks a real Stripe sends.
+          that renewals, failed renewals and the ends of grace periods happen now; the app hears of them through the
+          same signed webhooks a real Stripe sends.
         </p>
       </header>
       {clock === null ? (
@@ -48,10 +48,16 @@ export default async function StripeClockPage({ searchParams }: { searchParams: 
         </Alert>
       ) : (
         <>
-          {moved ? <Alert>Moved the clock {moved} day{moved === "1" ? "" : "s"} on.</Alert> : null}
+          {moved ? (
+            <Alert>
+              Moved the clock {moved} day{moved === "1" ? "" : "s"} on.
+            </Alert>
+          ) : null}
           <p>
             The stand-in&rsquo;s time: <strong>{new Date(clock.iso).toUTCString()}</strong>
-            {clock.offset_seconds > 0 ? ` (${Math.round(clock.offset_seconds / 86_400)} days ahead of this machine)` : ""}
+            {clock.offset_seconds > 0
+              ? ` (${Math.round(clock.offset_seconds / 86_400)} days ahead of this machine)`
+              : ""}
           </p>
           <div className="flex flex-wrap gap-3">
             {STEPS.map((s) => (

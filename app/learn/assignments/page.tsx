@@ -19,7 +19,13 @@ export default async function LearnAssignmentsPage(props: { searchParams: Promis
   const asked = assignmentsPage.safeParse({ page: (await props.searchParams).page });
   const wanted = asked.success ? asked.data.page : 1;
   const zone = await userZone(db(), user.id);
-  const { items, total, page, pages } = await assignmentPage(db(), { id: user.id, role: user.role }, zone, new Date(), wanted);
+  const { items, total, page, pages } = await assignmentPage(
+    db(),
+    { id: user.id, role: user.role },
+    zone,
+    new Date(),
+    wanted,
+  );
   return (
     <PageContainer className="flex flex-col gap-6">
       <header className="flex flex-col gap-1">
@@ -33,8 +39,20 @@ export default async function LearnAssignmentsPage(props: { searchParams: Promis
           page={page}
           pages={pages}
           total={total}
-          previous={page > 1 ? <LinkButton href={`/learn/assignments?page=${page - 1}`} variant="secondary" size="sm">Previous</LinkButton> : null}
-          next={page < pages ? <LinkButton href={`/learn/assignments?page=${page + 1}`} variant="secondary" size="sm">Next</LinkButton> : null}
+          previous={
+            page > 1 ? (
+              <LinkButton href={`/learn/assignments?page=${page - 1}`} variant="secondary" size="sm">
+                Previous
+              </LinkButton>
+            ) : null
+          }
+          next={
+            page < pages ? (
+              <LinkButton href={`/learn/assignments?page=${page + 1}`} variant="secondary" size="sm">
+                Next
+              </LinkButton>
+            ) : null
+          }
         />
       ) : null}
     </PageContainer>

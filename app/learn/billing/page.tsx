@@ -6,10 +6,19 @@ import { requireArea } from "@/lib/auth/next-context";
 
 export const metadata: Metadata = { title: "Billing" };
 
-export default async function BillingPage({ searchParams }: { searchParams: Promise<{ card?: string; welcome?: string }> }) {
+export default async function BillingPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ card?: string; welcome?: string }>;
+}) {
   await requireArea("billing:manage");
   const q = await searchParams;
-  const notice = q.card === "updated" ? "Your new card is saved. Any unpaid invoice is being paid with it." : q.welcome ? "Welcome: your membership is active." : null;
+  const notice =
+    q.card === "updated"
+      ? "Your new card is saved. Any unpaid invoice is being paid with it."
+      : q.welcome
+        ? "Welcome: your membership is active."
+        : null;
   return (
     <PageContainer className="flex flex-col gap-6">
       <h1 className="text-h2 font-semibold">Billing</h1>

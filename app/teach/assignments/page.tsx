@@ -14,7 +14,9 @@ export default async function AssignmentsPage() {
       <header className="flex flex-wrap items-end justify-between gap-4">
         <div>
           <p className="text-small font-semibold tracking-widest text-cedar uppercase">Assignments</p>
-          <h1 className="text-h2 font-semibold">{user.role === "admin" ? "Every teacher's assignments" : "Your assignments"}</h1>
+          <h1 className="text-h2 font-semibold">
+            {user.role === "admin" ? "Every teacher's assignments" : "Your assignments"}
+          </h1>
         </div>
         <div className="flex flex-wrap gap-2">
           <LinkButton href="/teach/review" variant="secondary">

@@ -13,7 +13,9 @@ export default async function ImportPage() {
       <header>
         <p className="text-small font-semibold tracking-widest text-cedar uppercase">Import</p>
         <h1 className="text-h2 font-semibold">Import a file of tunes</h1>
-        <p className="mt-2 text-bark">Every tune is checked on its own: the good ones are saved even when others in the file have problems.</p>
+        <p className="mt-2 text-bark">
+          Every tune is checked on its own: the good ones are saved even when others in the file have problems.
+        </p>
       </header>
       <QueryProvider>
         <ImportForm />

@@ -21,7 +21,12 @@ export function InviteStudentsForm({ max }: { max: number }) {
       >
         {(control) => (
           // A successful send clears the box; a failed one keeps what was typed.
-          <Textarea name="addresses" rows={6} defaultValue={state.status === 200 ? "" : state.values?.addresses} {...control} />
+          <Textarea
+            name="addresses"
+            rows={6}
+            defaultValue={state.status === 200 ? "" : state.values?.addresses}
+            {...control}
+          />
         )}
       </Field>
       <div>

@@ -11,7 +11,11 @@ import { verifyEmail } from "../verify-email";
 // Every server action of the accounts area, each wrapped by the one guard. The `"use server"`
 // files next to the forms only pass the real request's context to these; tests pass their own.
 
-const email = z.string().trim().min(1, "Please enter your e-mail address.").pipe(z.email("That doesn't look like an e-mail address."));
+const email = z
+  .string()
+  .trim()
+  .min(1, "Please enter your e-mail address.")
+  .pipe(z.email("That doesn't look like an e-mail address."));
 const token = z.string().min(16, "This link is incomplete: open it again from the e-mail.");
 const role = z.enum(["student", "teacher", "admin"]);
 
@@ -55,4 +59,8 @@ export const inviteStudentsAction = guardAction(
 
 export const inviteTeacherAction = guardAction("people:invite-teacher", z.object({ email }), inviteTeacher);
 
-export const changeRoleAction = guardAction("people:change-role", z.object({ userId: z.uuid("Unknown person."), role }), changeRole);
+export const changeRoleAction = guardAction(
+  "people:change-role",
+  z.object({ userId: z.uuid("Unknown person."), role }),
+  changeRole,
+);

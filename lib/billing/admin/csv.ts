@@ -9,7 +9,10 @@ import type { Cursor } from "./sql";
 export type CsvColumn<R> = { header: string; value: (row: R) => string | number | null };
 
 /** Rows in the table's order, fetched `batch` at a time after the last row's sort key and id. */
-export async function* keysetRows<R extends { id: string; cursorKey: string }>(fetch: (after: Cursor | null, limit: number) => Promise<R[]>, batch = 500): AsyncGenerator<R> {
+export async function* keysetRows<R extends { id: string; cursorKey: string }>(
+  fetch: (after: Cursor | null, limit: number) => Promise<R[]>,
+  batch = 500,
+): AsyncGenerator<R> {
   let cursor: Cursor | null = null;
   for (;;) {
     const rows = await fetch(cursor, batch);
@@ -29,7 +32,8 @@ export function safeText(s: string | null | undefined): string {
 
 /** Minor units as a plain decimal in the currency's own exponent (1850 GBP → "18.50", 500 JPY → "500"). */
 export function decimalOf(minor: number, currency: string): string {
-  const digits = new Intl.NumberFormat("en", { style: "currency", currency }).resolvedOptions().maximumFractionDigits ?? 2;
+  const digits =
+    new Intl.NumberFormat("en", { style: "currency", currency }).resolvedOptions().maximumFractionDigits ?? 2;
   const sign = minor < 0 ? "-" : "";
   const abs = Math.abs(minor);
   if (digits === 0) return `${sign}${abs}`;
@@ -42,7 +46,9 @@ export function csvResponse<R>(filename: string, rows: AsyncIterable<R>, columns
   async function* records() {
     for await (const row of rows) yield columns.map((c) => c.value(row) ?? "");
   }
-  const csv = Readable.from(records()).pipe(stringify({ header: true, columns: columns.map((c) => c.header), record_delimiter: "windows" }));
+  const csv = Readable.from(records()).pipe(
+    stringify({ header: true, columns: columns.map((c) => c.header), record_delimiter: "windows" }),
+  );
   return new Response(Readable.toWeb(csv) as ReadableStream<Uint8Array>, {
     headers: {
       // RFC 4180 §3 (text/csv, with its "header" parameter); RFC 6266 (Content-Disposition).

@@ -56,8 +56,20 @@ export const ENROLMENT_CSV: CsvColumn<EnrolmentCsvRow>[] = [
 ];
 
 export const paymentsCsv = (db: Db, q: PaymentsQuery) =>
-  csvResponse(`payments-${stamp()}.csv`, keysetRows((c, n) => paymentsBatch(db, q, c, n)), PAYMENT_CSV);
+  csvResponse(
+    `payments-${stamp()}.csv`,
+    keysetRows((c, n) => paymentsBatch(db, q, c, n)),
+    PAYMENT_CSV,
+  );
 export const membershipsCsv = (db: Db, q: MembershipsQuery) =>
-  csvResponse(`memberships-${stamp()}.csv`, keysetRows((c, n) => membershipsBatch(db, q, c, n)), MEMBERSHIP_CSV);
+  csvResponse(
+    `memberships-${stamp()}.csv`,
+    keysetRows((c, n) => membershipsBatch(db, q, c, n)),
+    MEMBERSHIP_CSV,
+  );
 export const enrolmentsCsv = (db: Db, q: EnrolmentsQuery) =>
-  csvResponse(`enrolments-${stamp()}.csv`, keysetRows((c, n) => enrolmentsBatch(db, q, c, n)), ENROLMENT_CSV);
+  csvResponse(
+    `enrolments-${stamp()}.csv`,
+    keysetRows((c, n) => enrolmentsBatch(db, q, c, n)),
+    ENROLMENT_CSV,
+  );

@@ -16,9 +16,18 @@ const common = {
   to: day.optional(),
   // A name or address fragment. Line breaks and other control characters never occur in either, and
   // the payments' search column joins name and address with a line break (migration 0005).
-  q: z.string().trim().max(100, "must be at most 100 characters").regex(/^\P{Cc}*$/u, "must not contain line breaks or other control characters").optional(),
+  q: z
+    .string()
+    .trim()
+    .max(100, "must be at most 100 characters")
+    .regex(/^\P{Cc}*$/u, "must not contain line breaks or other control characters")
+    .optional(),
   dir: z.enum(["asc", "desc"], { error: "must be asc or desc" }).default("desc"),
-  page: z.coerce.number({ error: "must be a whole number from 1" }).int("must be a whole number from 1").min(1, "must be a whole number from 1").default(1),
+  page: z.coerce
+    .number({ error: "must be a whole number from 1" })
+    .int("must be a whole number from 1")
+    .min(1, "must be a whole number from 1")
+    .default(1),
   pageSize: z.coerce
     .number({ error: `must be a whole number from 1 to ${PAGE_SIZE_MAX}` })
     .int(`must be a whole number from 1 to ${PAGE_SIZE_MAX}`)
@@ -26,7 +35,8 @@ const common = {
     .max(PAGE_SIZE_MAX, `must be a whole number from 1 to ${PAGE_SIZE_MAX}`)
     .default(PAGE_SIZE_DEFAULT),
 };
-const oneOf = <T extends readonly [string, ...string[]]>(values: T) => z.enum(values, { error: `must be one of: ${values.join(", ")}` });
+const oneOf = <T extends readonly [string, ...string[]]>(values: T) =>
+  z.enum(values, { error: `must be one of: ${values.join(", ")}` });
 
 export const PAYMENT_SORTS = ["date", "amount", "status", "name"] as const;
 export const MEMBERSHIP_SORTS = ["date", "name", "status", "renews"] as const;
@@ -36,10 +46,18 @@ const inRange = (v: { from?: string; to?: string }) => !v.from || !v.to || v.fro
 const rangeError = { message: "must not be before from", path: ["to"] };
 
 export const paymentsQuery = z
-  .strictObject({ ...common, status: oneOf(paymentStatusEnum.enumValues).optional(), sort: oneOf(PAYMENT_SORTS).default("date") })
+  .strictObject({
+    ...common,
+    status: oneOf(paymentStatusEnum.enumValues).optional(),
+    sort: oneOf(PAYMENT_SORTS).default("date"),
+  })
   .refine(inRange, rangeError);
 export const membershipsQuery = z
-  .strictObject({ ...common, status: oneOf(subscriptionStatusEnum.enumValues).optional(), sort: oneOf(MEMBERSHIP_SORTS).default("date") })
+  .strictObject({
+    ...common,
+    status: oneOf(subscriptionStatusEnum.enumValues).optional(),
+    sort: oneOf(MEMBERSHIP_SORTS).default("date"),
+  })
   .refine(inRange, rangeError);
 export const enrolmentsQuery = z
   .strictObject({
@@ -65,7 +83,8 @@ export function parseQuery<S extends z.ZodType>(schema: S, raw: Record<string, u
   if (parsed.success) return parsed.data;
   const fields: Record<string, string> = {};
   for (const issue of parsed.error.issues) {
-    if (issue.code === "unrecognized_keys") for (const k of issue.keys) fields[k] ??= "is not a parameter of this table";
+    if (issue.code === "unrecognized_keys")
+      for (const k of issue.keys) fields[k] ??= "is not a parameter of this table";
     else fields[String(issue.path[0] ?? "query")] ??= issue.message;
   }
   const named = Object.entries(fields).map(([k, m]) => `${k} ${m}`);

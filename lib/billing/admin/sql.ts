@@ -14,7 +14,8 @@ export type Cursor = { key: string; id: string };
 export const contains = (q: string) => `%${q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /** A person whose name or address is like `pattern` (a value, or a placeholder filled on execution). */
-export const nameOrEmailLike = (pattern: string | Placeholder) => sql`(${users.name} ilike ${pattern} or ${users.email} ilike ${pattern})`;
+export const nameOrEmailLike = (pattern: string | Placeholder) =>
+  sql`(${users.name} ilike ${pattern} or ${users.email} ilike ${pattern})`;
 
 export function nameOrEmail(q: string | undefined): SQL | undefined {
   return q ? nameOrEmailLike(contains(q)) : undefined;
@@ -22,7 +23,10 @@ export function nameOrEmail(q: string | undefined): SQL | undefined {
 
 /** [from, to] as whole UTC days, both inclusive: the first instant of `from`, the first after `to`. */
 export function dayBounds(from?: string, to?: string): { from?: Date; to?: Date } {
-  return { from: from ? new Date(`${from}T00:00:00Z`) : undefined, to: to ? new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000) : undefined };
+  return {
+    from: from ? new Date(`${from}T00:00:00Z`) : undefined,
+    to: to ? new Date(Date.parse(`${to}T00:00:00Z`) + 86_400_000) : undefined,
+  };
 }
 
 export function dayRange(col: AnyPgColumn, from?: string, to?: string): SQL[] {

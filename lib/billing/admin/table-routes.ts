@@ -9,7 +9,10 @@ import { parseQuery, rawQuery, type ListQuery } from "./params";
 
 const noStore = { headers: { "cache-control": "no-store" } };
 
-export function pageRoute<S extends z.ZodType<ListQuery>, R>(schema: S, list: (db: Db, q: z.output<S>) => Promise<{ rows: R[]; hasMore: boolean }>) {
+export function pageRoute<S extends z.ZodType<ListQuery>, R>(
+  schema: S,
+  list: (db: Db, q: z.output<S>) => Promise<{ rows: R[]; hasMore: boolean }>,
+) {
   return guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => {
     const q = parseQuery(schema, raw);
     const { rows, hasMore } = await list(reportsDb(), q);
@@ -18,7 +21,10 @@ export function pageRoute<S extends z.ZodType<ListQuery>, R>(schema: S, list: (d
 }
 
 /** The same parameters as the page (page, size and order are accepted and play no part). */
-export function countRoute<S extends z.ZodType<ListQuery>>(schema: S, count: (db: Db, q: z.output<S>) => Promise<number>) {
+export function countRoute<S extends z.ZodType<ListQuery>>(
+  schema: S,
+  count: (db: Db, q: z.output<S>) => Promise<number>,
+) {
   return guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => {
     const total = await count(reportsDb(), parseQuery(schema, raw));
     return Response.json({ total }, noStore);

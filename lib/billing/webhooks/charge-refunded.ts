@@ -26,7 +26,14 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
     if (r.status && r.status !== "succeeded" && r.status !== "pending") continue;
     const reason = r.metadata?.reason ?? (r.reason ? r.reason.replaceAll("_", " ") : "Refunded");
     try {
-      await recordRefund(db, { ...ref, stripeRefundId: r.id, amount: r.amount, currency: r.currency.toUpperCase(), reason, createdAt: new Date(r.created * 1000) });
+      await recordRefund(db, {
+        ...ref,
+        stripeRefundId: r.id,
+        amount: r.amount,
+        currency: r.currency.toUpperCase(),
+        reason,
+        createdAt: new Date(r.created * 1000),
+      });
     } catch (e) {
       // Not one of our payments, or more than it took: nothing to record; the event stays stored for a look.
       if (e instanceof RefundError) {
@@ -36,7 +43,13 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
       throw e;
     }
     const [p] = await db
-      .select({ email: users.email, name: users.name, id: payments.id, receipt: payments.receiptNumber, invoice: payments.stripeInvoiceId })
+      .select({
+        email: users.email,
+        name: users.name,
+        id: payments.id,
+        receipt: payments.receiptNumber,
+        invoice: payments.stripeInvoiceId,
+      })
       .from(payments)
       .innerJoin(users, eq(users.id, payments.userId))
       .where(which)
@@ -45,7 +58,13 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
     await enqueueEmail(db, {
       to: p.email,
       template: "refund-issued",
-      data: { name: p.name, amount: formatMoney(r.amount, r.currency), receiptNumber: p.receipt ?? p.invoice, reason, receiptUrl: `/learn/billing/receipts/${p.id}` },
+      data: {
+        name: p.name,
+        amount: formatMoney(r.amount, r.currency),
+        receiptNumber: p.receipt ?? p.invoice,
+        reason,
+        receiptUrl: `/learn/billing/receipts/${p.id}`,
+      },
       dedupeKey: `refund-issued:${r.id}`,
     });
   }
@@ -55,7 +74,13 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
  * The refund overtook its invoice.paid event (webhooks arrive in any order): the invoice this payment
  * intent paid is read from Stripe and recorded first, exactly as invoice.paid would record it.
  */
-async function recordPaidInvoice(db: Parameters<Handler>[0], stripe: Stripe, created: number, customer: string, paymentIntent: string): Promise<void> {
+async function recordPaidInvoice(
+  db: Parameters<Handler>[0],
+  stripe: Stripe,
+  created: number,
+  customer: string,
+  paymentIntent: string,
+): Promise<void> {
   for await (const inv of stripe.invoices.list({ customer, limit: 100 })) {
     const pis = (inv.payments?.data ?? []).map((p) => p.payment.payment_intent);
     if (inv.status === "paid" && pis.some((x) => (typeof x === "string" ? x : x?.id) === paymentIntent)) {

@@ -18,6 +18,7 @@ export const checkoutSessionCompleted: Handler = async (db, event, stripe) => {
   if (s.subscription) await ensureSubscription(db, stripe, s.subscription, event.created);
   if (meta.courseId && /^[0-9a-f-]{36}$/i.test(meta.courseId)) {
     const [course] = await db.select({ id: courses.id }).from(courses).where(eq(courses.id, meta.courseId)).limit(1);
-    if (course) await db.insert(enrolments).values({ userId, courseId: meta.courseId, status: "active" }).onConflictDoNothing();
+    if (course)
+      await db.insert(enrolments).values({ userId, courseId: meta.courseId, status: "active" }).onConflictDoNothing();
   }
 };

@@ -28,13 +28,22 @@ export const HANDLERS: Record<string, Handler> = {
 export type WebhookOutcome = { status: 200 | 400; body: { received: boolean; duplicate?: boolean; error?: string } };
 
 /** Verifies and applies one delivery. `raw` must be the body exactly as received (the signature covers its bytes). */
-export async function receiveWebhook(db: Db, stripe: Stripe, raw: string, signature: string | null, secret: string): Promise<WebhookOutcome> {
+export async function receiveWebhook(
+  db: Db,
+  stripe: Stripe,
+  raw: string,
+  signature: string | null,
+  secret: string,
+): Promise<WebhookOutcome> {
   let event: EventIn;
   try {
     // Stripe docs: "Check the webhook signatures" — HMAC-SHA256 over "<t>.<payload>", with a timestamp tolerance.
     event = stripe.webhooks.constructEvent(raw, signature ?? "", secret) as EventIn;
   } catch (e) {
-    return { status: 400, body: { received: false, error: `Webhook signature not valid: ${e instanceof Error ? e.message : String(e)}` } };
+    return {
+      status: 400,
+      body: { received: false, error: `Webhook signature not valid: ${e instanceof Error ? e.message : String(e)}` },
+    };
   }
   return applyEvent(db, stripe, event);
 }

@@ -18,7 +18,14 @@ export const invoicePaid: Handler = async (db, event, stripe) => {
     .values(values)
     .onConflictDoUpdate({
       target: payments.stripeInvoiceId,
-      set: { status: "paid", amount: values.amount, failureMessage: null, stripePaymentIntentId: values.stripePaymentIntentId, receiptNumber: values.receiptNumber, subscriptionId: values.subscriptionId },
+      set: {
+        status: "paid",
+        amount: values.amount,
+        failureMessage: null,
+        stripePaymentIntentId: values.stripePaymentIntentId,
+        receiptNumber: values.receiptNumber,
+        subscriptionId: values.subscriptionId,
+      },
       setWhere: sql`${payments.status} = 'failed'`,
     });
   if (c.subscription) await recomputeGrace(db, c.subscription.id);

@@ -23,11 +23,16 @@ async function declineMessage(stripe: Stripe, paymentIntent: string | null): Pro
 export const invoicePaymentFailed: Handler = async (db, event, stripe) => {
   const c = await invoiceContext(db, stripe, event.data.object, event.created);
   if (!c) return;
-  const failureMessage = c.invoice.failureMessage ?? (await declineMessage(stripe, c.invoice.paymentIntent)) ?? "Your card was declined.";
+  const failureMessage =
+    c.invoice.failureMessage ?? (await declineMessage(stripe, c.invoice.paymentIntent)) ?? "Your card was declined.";
   await db
     .insert(payments)
     .values({ ...baseValues(c), amount: c.invoice.amountDue, status: "failed", failureMessage })
-    .onConflictDoUpdate({ target: payments.stripeInvoiceId, set: { failureMessage }, setWhere: sql`${payments.status} = 'failed'` });
+    .onConflictDoUpdate({
+      target: payments.stripeInvoiceId,
+      set: { failureMessage },
+      setWhere: sql`${payments.status} = 'failed'`,
+    });
   const row = await paymentByInvoice(db, c.invoice.id);
   if (!row || row.status !== "failed" || !c.subscription) return;
   await recomputeGrace(db, c.subscription.id);

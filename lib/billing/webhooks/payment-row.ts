@@ -21,14 +21,21 @@ export interface InvoiceContext {
 }
 
 /** Who and what an invoice is for; null when the customer is not one of ours. */
-export async function invoiceContext(db: Db, stripe: Stripe, object: unknown, eventCreated: number): Promise<InvoiceContext | null> {
+export async function invoiceContext(
+  db: Db,
+  stripe: Stripe,
+  object: unknown,
+  eventCreated: number,
+): Promise<InvoiceContext | null> {
   const invoice = invoiceObject.parse(object);
   const user = await userByCustomer(db, invoice.customer);
   if (!user) {
     console.warn(`[billing] invoice ${invoice.id}: customer ${invoice.customer} is not one of ours; ignored`);
     return null;
   }
-  const subscription = invoice.subscription ? await ensureSubscription(db, stripe, invoice.subscription, eventCreated) : null;
+  const subscription = invoice.subscription
+    ? await ensureSubscription(db, stripe, invoice.subscription, eventCreated)
+    : null;
   const plan = invoice.priceId ? await planByPrice(db, invoice.priceId) : null;
   return { invoice, userId: user.id, subscription, planId: plan?.id ?? subscription?.planId ?? null };
 }

@@ -8,18 +8,32 @@ import { freshSession } from "./objects/checkout";
 import { Params, parseForm } from "./params";
 import type { CheckoutSession } from "./types";
 
-export interface PageResult { status: number; html?: string; location?: string }
+export interface PageResult {
+  status: number;
+  html?: string;
+  location?: string;
+}
 
-interface FormState { number: string; expiry: string; cvc: string; name: string; errors: Partial<Record<"number" | "expiry" | "cvc" | "name", string>>; alert: string | null }
+interface FormState {
+  number: string;
+  expiry: string;
+  cvc: string;
+  name: string;
+  errors: Partial<Record<"number" | "expiry" | "cvc" | "name", string>>;
+  alert: string | null;
+}
 
 const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 function summary(fake: Fake, s: CheckoutSession): string {
-  if (s.mode === "setup") return "<p>Save a card for future payments. You will not be charged now unless a payment is overdue.</p>";
+  if (s.mode === "setup")
+    return "<p>Save a card for future payments. You will not be charged now unless a payment is overdue.</p>";
   const rows = s.line_items.map((li) => {
     const price = fake.store.get("price", li.price);
     const name = fake.store.find("product", price.product)?.name ?? price.id;
-    const per = price.recurring ? ` per ${price.recurring.interval_count > 1 ? `${price.recurring.interval_count} ` : ""}${price.recurring.interval}` : "";
+    const per = price.recurring
+      ? ` per ${price.recurring.interval_count > 1 ? `${price.recurring.interval_count} ` : ""}${price.recurring.interval}`
+      : "";
     return `<li>${esc(name)} — ${esc(money(price.unit_amount * li.quantity, price.currency))}${esc(per)}</li>`;
   });
   return `<ul class="items">${rows.join("")}</ul><p class="total">Total due today: <strong>${esc(money(s.amount_total ?? 0, s.currency ?? "gbp"))}</strong></p>`;
@@ -85,7 +99,8 @@ function check(fake: Fake, f: FormState): CardInput | null {
   const card = findTestCard(digits);
   if (!digits || !/^\d+$/.test(digits) || digits.length < 12) f.errors.number = "Your card number is incomplete.";
   else if (!luhnOk(digits)) f.errors.number = "Your card number is invalid.";
-  else if (!card) f.errors.number = "Your card was declined. This is a test page: use one of Stripe's test cards (see below).";
+  else if (!card)
+    f.errors.number = "Your card was declined. This is a test page: use one of Stripe's test cards (see below).";
   const exp = parseExpiry(f.expiry, fake.clock.now());
   if (typeof exp === "string") f.errors.expiry = exp;
   const cvcLength = card?.brand === "amex" ? 4 : 3;
@@ -105,7 +120,13 @@ export function payPage(fake: Fake, method: string, id: string, body: string): P
   const blank: FormState = { number: "", expiry: "", cvc: "", name: "", errors: {}, alert: null };
   if (method !== "POST" || s.status !== "open") return { status: 200, html: page(fake, s, blank) };
   const form = new Params(parseForm(body));
-  const f: FormState = { ...blank, number: form.str("number") ?? "", expiry: form.str("expiry") ?? "", cvc: form.str("cvc") ?? "", name: form.str("name") ?? "" };
+  const f: FormState = {
+    ...blank,
+    number: form.str("number") ?? "",
+    expiry: form.str("expiry") ?? "",
+    cvc: form.str("cvc") ?? "",
+    name: form.str("name") ?? "",
+  };
   const input = check(fake, f);
   if (!input) return { status: 422, html: page(fake, s, f) };
   const outcome = completeSession(fake, s, input);

@@ -56,7 +56,12 @@ function addMonthsClamped(anchor: number, months: number): number {
  * (Stripe docs: "Set the subscription billing renewal date": an anchor on the 31st bills on the last
  * day of shorter months, then on the 31st again).
  */
-export function periodEnd(anchor: number, start: number, interval: "day" | "week" | "month" | "year", count: number): number {
+export function periodEnd(
+  anchor: number,
+  start: number,
+  interval: "day" | "week" | "month" | "year",
+  count: number,
+): number {
   if (interval === "day") return start + count * DAY;
   if (interval === "week") return start + count * WEEK;
   const step = interval === "year" ? 12 * count : count;

@@ -16,7 +16,10 @@ export interface ErrorBody {
 }
 
 export class StripeFakeError extends Error {
-  constructor(readonly status: number, readonly body: ErrorBody) {
+  constructor(
+    readonly status: number,
+    readonly body: ErrorBody,
+  ) {
     super(body.message);
   }
 }
@@ -25,28 +28,40 @@ const docUrl = (code: string) => `https://stripe.com/docs/error-codes/${code.rep
 
 export function missingParam(param: string): StripeFakeError {
   return new StripeFakeError(400, {
-    type: "invalid_request_error", code: "parameter_missing", param,
-    message: `Missing required param: ${param}.`, doc_url: docUrl("parameter_missing"),
+    type: "invalid_request_error",
+    code: "parameter_missing",
+    param,
+    message: `Missing required param: ${param}.`,
+    doc_url: docUrl("parameter_missing"),
   });
 }
 
 /** A present but unacceptable value. Stripe names a specific code for some cases (integer, empty). */
 export function invalidParam(param: string, message: string, code?: string): StripeFakeError {
   return new StripeFakeError(400, {
-    type: "invalid_request_error", param, message, ...(code ? { code, doc_url: docUrl(code) } : {}),
+    type: "invalid_request_error",
+    param,
+    message,
+    ...(code ? { code, doc_url: docUrl(code) } : {}),
   });
 }
 
 export function requestError(message: string, code?: string, param?: string): StripeFakeError {
   return new StripeFakeError(400, {
-    type: "invalid_request_error", message, ...(code ? { code, doc_url: docUrl(code) } : {}), ...(param ? { param } : {}),
+    type: "invalid_request_error",
+    message,
+    ...(code ? { code, doc_url: docUrl(code) } : {}),
+    ...(param ? { param } : {}),
   });
 }
 
 export function notFound(noun: string, id: string, param = "id"): StripeFakeError {
   return new StripeFakeError(404, {
-    type: "invalid_request_error", code: "resource_missing", param,
-    message: `No such ${noun}: '${id}'`, doc_url: docUrl("resource_missing"),
+    type: "invalid_request_error",
+    code: "resource_missing",
+    param,
+    message: `No such ${noun}: '${id}'`,
+    doc_url: docUrl("resource_missing"),
   });
 }
 
@@ -67,7 +82,12 @@ export function badKey(given: string | null): StripeFakeError {
 
 export function cardError(err: CardError, charge?: string, paymentIntent?: string): StripeFakeError {
   return new StripeFakeError(402, {
-    type: "card_error", code: err.code, decline_code: err.decline_code, message: err.message,
-    doc_url: docUrl(err.code), ...(charge ? { charge } : {}), ...(paymentIntent ? { payment_intent: { id: paymentIntent } } : {}),
+    type: "card_error",
+    code: err.code,
+    decline_code: err.decline_code,
+    message: err.message,
+    doc_url: docUrl(err.code),
+    ...(charge ? { charge } : {}),
+    ...(paymentIntent ? { payment_intent: { id: paymentIntent } } : {}),
   });
 }

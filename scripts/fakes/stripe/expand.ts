@@ -16,7 +16,10 @@ function includable(store: Store, node: JsonObject, key: string): Json | undefin
     return s ? sessionLineItems(store, s) : undefined;
   }
   if (node.object === "charge" && key === "refunds") {
-    const refunds = store.all("refund").filter((r) => r.charge === id).map((r) => render(store, r));
+    const refunds = store
+      .all("refund")
+      .filter((r) => r.charge === id)
+      .map((r) => render(store, r));
     return listOf(`/v1/charges/${id}/refunds`, refunds);
   }
   return undefined;
@@ -55,7 +58,8 @@ export function expand(store: Store, obj: JsonObject, params: Params): JsonObjec
  */
 export function paginate<T extends { id: string }>(items: T[], params: Params): { data: T[]; hasMore: boolean } {
   const limit = params.int("limit") ?? 10;
-  if (limit < 1 || limit > 100) throw invalidParam("limit", "Invalid limit: must be between 1 and 100", "parameter_invalid_integer");
+  if (limit < 1 || limit > 100)
+    throw invalidParam("limit", "Invalid limit: must be between 1 and 100", "parameter_invalid_integer");
   const after = params.str("starting_after");
   const before = params.str("ending_before");
   let start = 0;

@@ -10,7 +10,14 @@ import { publicEvent } from "./webhooks";
 
 function bodyParams(body: string): Params {
   const text = body.trim();
-  if (text.startsWith("{")) return new Params(parseForm(new URLSearchParams(Object.entries(JSON.parse(text) as Record<string, string>).map(([k, v]) => [k, String(v)])).toString()));
+  if (text.startsWith("{"))
+    return new Params(
+      parseForm(
+        new URLSearchParams(
+          Object.entries(JSON.parse(text) as Record<string, string>).map(([k, v]) => [k, String(v)]),
+        ).toString(),
+      ),
+    );
   return new Params(parseForm(text));
 }
 
@@ -21,14 +28,21 @@ export function clockInfo(fake: Fake): JsonObject {
 
 /** Moves the clock forward and runs, in time order, what became due (renewals, retries, period ends). */
 export function advance(fake: Fake, seconds: number): JsonObject {
-  if (!Number.isInteger(seconds) || seconds < 0) throw invalidParam("seconds", "seconds must be a whole number, 0 or more (the clock only moves forward).");
+  if (!Number.isInteger(seconds) || seconds < 0)
+    throw invalidParam("seconds", "seconds must be a whole number, 0 or more (the clock only moves forward).");
   fake.clock.advance(seconds);
   const ran = runDue(fake, fake.clock.now());
   fake.store.save();
   return { ...clockInfo(fake), ran };
 }
 
-export async function fakeRoutes(fake: Fake, method: string, path: string, body: string, query: URLSearchParams): Promise<JsonObject | null> {
+export async function fakeRoutes(
+  fake: Fake,
+  method: string,
+  path: string,
+  body: string,
+  query: URLSearchParams,
+): Promise<JsonObject | null> {
   if (path === "/_fake/health") return { ok: true, now: fake.clock.now() };
   if (path === "/_fake/clock" && method === "GET") return clockInfo(fake);
   if (path === "/_fake/clock/advance" && method === "POST") {
@@ -41,7 +55,10 @@ export async function fakeRoutes(fake: Fake, method: string, path: string, body:
   if (path === "/_fake/events" && method === "GET") {
     const type = query.get("type");
     const events = fake.store.events.filter((e) => !type || e.type === type);
-    const data: Json[] = events.map((e) => ({ ...(publicEvent(e) as unknown as JsonObject), delivery: e.delivery as unknown as JsonObject }));
+    const data: Json[] = events.map((e) => ({
+      ...(publicEvent(e) as unknown as JsonObject),
+      delivery: e.delivery as unknown as JsonObject,
+    }));
     return { object: "list", data: data.reverse(), has_more: false, url: "/_fake/events" };
   }
   if (path === "/_fake/import" && method === "POST") {

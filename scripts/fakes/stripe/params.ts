@@ -15,7 +15,10 @@ export function parseForm(text: string): qs.ParsedQs {
 }
 
 export class Params {
-  constructor(readonly raw: qs.ParsedQs, private readonly prefix = "") {}
+  constructor(
+    readonly raw: qs.ParsedQs,
+    private readonly prefix = "",
+  ) {}
 
   private name(key: string): string {
     return this.prefix ? `${this.prefix}[${key}]` : key;
@@ -28,7 +31,8 @@ export class Params {
   str(key: string): string | undefined {
     const v = this.raw[key];
     if (v === undefined) return undefined;
-    if (typeof v !== "string") throw invalidParam(this.name(key), `Invalid string: ${this.name(key)} must be a string.`);
+    if (typeof v !== "string")
+      throw invalidParam(this.name(key), `Invalid string: ${this.name(key)} must be a string.`);
     return v;
   }
 
@@ -72,7 +76,8 @@ export class Params {
   obj(key: string): Params | undefined {
     const v = this.raw[key];
     if (v === undefined || v === "") return undefined;
-    if (typeof v !== "object" || Array.isArray(v)) throw invalidParam(this.name(key), `Invalid object: ${this.name(key)}`);
+    if (typeof v !== "object" || Array.isArray(v))
+      throw invalidParam(this.name(key), `Invalid object: ${this.name(key)}`);
     return new Params(v, this.name(key));
   }
 
@@ -82,7 +87,8 @@ export class Params {
     if (v === undefined || v === "") return [];
     const entries: unknown[] = Array.isArray(v) ? v : typeof v === "object" ? Object.values(v) : [v];
     return entries.map((e, i) => {
-      if (typeof e !== "object" || e === null) throw invalidParam(`${this.name(key)}[${i}]`, `Invalid object: ${this.name(key)}[${i}]`);
+      if (typeof e !== "object" || e === null)
+        throw invalidParam(`${this.name(key)}[${i}]`, `Invalid object: ${this.name(key)}[${i}]`);
       return new Params(e as qs.ParsedQs, `${this.name(key)}[${i}]`);
     });
   }

@@ -9,7 +9,13 @@ import { newId } from "./state";
 import type { JsonObject } from "./types";
 
 export type Route = [method: string, path: RegExp, handler: Handler];
-export type FakeRoute = (fake: Fake, method: string, path: string, body: string, query: URLSearchParams) => Promise<JsonObject | null>;
+export type FakeRoute = (
+  fake: Fake,
+  method: string,
+  path: string,
+  body: string,
+  query: URLSearchParams,
+) => Promise<JsonObject | null>;
 
 function readBody(req: IncomingMessage): Promise<string> {
   return new Promise((resolve, reject) => {
@@ -33,14 +39,25 @@ function send(res: ServerResponse, status: number, body: unknown, headers: Recor
   res.end(JSON.stringify(body, null, 2));
 }
 
-interface Replay { status: number; body: unknown; at: number; params: string }
+interface Replay {
+  status: number;
+  body: unknown;
+  at: number;
+  params: string;
+}
 
 export function createHandler(fake: Fake, apiKey: string, routes: Route[], fakeRoutes: FakeRoute) {
   // Idempotency-Key (Stripe docs: "Idempotent requests"): the SDK sends one with each POST and reuses it
   // when it retries, so a retried create answers with the first result instead of making a second object.
   const replays = new Map<string, Replay>();
 
-  async function api(req: IncomingMessage, res: ServerResponse, method: string, path: string, query: string): Promise<void> {
+  async function api(
+    req: IncomingMessage,
+    res: ServerResponse,
+    method: string,
+    path: string,
+    query: string,
+  ): Promise<void> {
     const key = keyOf(req);
     if (key !== apiKey) throw badKey(key);
     const idem = method === "POST" ? req.headers["idempotency-key"] : undefined;
@@ -86,7 +103,10 @@ export function createHandler(fake: Fake, apiKey: string, routes: Route[], fakeR
       if (pay) {
         const body = method === "POST" ? await readBody(req) : "";
         const out = payPage(fake, method, decodeURIComponent(pay[1] ?? ""), body);
-        res.writeHead(out.status, out.location ? { location: out.location } : { "content-type": "text/html; charset=utf-8" });
+        res.writeHead(
+          out.status,
+          out.location ? { location: out.location } : { "content-type": "text/html; charset=utf-8" },
+        );
         return void res.end(out.html ?? "");
       }
       if (url.pathname.startsWith("/_fake/")) {

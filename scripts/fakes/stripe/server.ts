@@ -58,9 +58,20 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   const store = new Store(opts.stateFile);
   const clock = new Clock(store);
   if (opts.startAt && !hadState) clock.setStart(opts.startAt);
-  const hooks = new Webhooks(store, clock, { url: opts.webhookUrl, secret: opts.webhookSecret, retryBaseMs: opts.retryBaseMs, onEvent: opts.onEvent });
+  const hooks = new Webhooks(store, clock, {
+    url: opts.webhookUrl,
+    secret: opts.webhookSecret,
+    retryBaseMs: opts.retryBaseMs,
+    onEvent: opts.onEvent,
+  });
   const fake: Fake = { store, clock, hooks, baseUrl: "" };
-  const routes: Route[] = [...customerRoutes(), ...catalogRoutes(), ...checkoutRoutes(), ...billingRoutes(), ...moneyRoutes()];
+  const routes: Route[] = [
+    ...customerRoutes(),
+    ...catalogRoutes(),
+    ...checkoutRoutes(),
+    ...billingRoutes(),
+    ...moneyRoutes(),
+  ];
   const server = createServer(createHandler(fake, opts.apiKey, routes, fakeRoutes));
   server.keepAliveTimeout = 5000;
   await new Promise<void>((resolve, reject) => {
@@ -72,14 +83,17 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   store.save();
   hooks.kick();
   const tickMs = opts.tickMs ?? 5000;
-  const tick = tickMs > 0 ? setInterval(() => {
-    try {
-      runDue(fake, clock.now());
-    } catch (err) {
-      // Bad imported data must not stop the stand-in; the log says what failed.
-      console.error("Stripe stand-in: due work failed:", err);
-    }
-  }, tickMs) : null;
+  const tick =
+    tickMs > 0
+      ? setInterval(() => {
+          try {
+            runDue(fake, clock.now());
+          } catch (err) {
+            // Bad imported data must not stop the stand-in; the log says what failed.
+            console.error("Stripe stand-in: due work failed:", err);
+          }
+        }, tickMs)
+      : null;
   tick?.unref();
   return {
     url: fake.baseUrl,

@@ -6,7 +6,13 @@ import { existsSync, readFileSync, renameSync, writeFileSync } from "node:fs";
 import type { EventRecord, Stored, StoredKind } from "./types";
 import { notFound } from "./errors";
 
-interface Saved { version: 1; clockOffset: number; objects: Record<string, Stored>; events: EventRecord[]; sequence: number }
+interface Saved {
+  version: 1;
+  clockOffset: number;
+  objects: Record<string, Stored>;
+  events: EventRecord[];
+  sequence: number;
+}
 
 type OfKind<K extends StoredKind> = Extract<Stored, { object: K }>;
 
@@ -22,9 +28,16 @@ export function newId(prefix: string): string {
 
 /** The names Stripe uses in "No such …" errors. */
 const NOUN: Record<StoredKind, string> = {
-  customer: "customer", product: "product", price: "price", payment_method: "PaymentMethod",
-  "checkout.session": "checkout.session", subscription: "subscription", invoice: "invoice",
-  payment_intent: "payment_intent", charge: "charge", refund: "refund",
+  customer: "customer",
+  product: "product",
+  price: "price",
+  payment_method: "PaymentMethod",
+  "checkout.session": "checkout.session",
+  subscription: "subscription",
+  invoice: "invoice",
+  payment_intent: "payment_intent",
+  charge: "charge",
+  refund: "refund",
 };
 
 export class Store {
@@ -77,7 +90,10 @@ export class Store {
   save(): void {
     if (!this.file) return;
     const saved: Saved = {
-      version: 1, clockOffset: this.clockOffset, sequence: this.sequence, events: this.events,
+      version: 1,
+      clockOffset: this.clockOffset,
+      sequence: this.sequence,
+      events: this.events,
       objects: Object.fromEntries(this.objects),
     };
     const tmp = `${this.file}.tmp`;

@@ -40,16 +40,30 @@ export class Webhooks {
   private stopped = false;
   private idle: Array<() => void> = [];
 
-  constructor(private readonly store: Store, private readonly clock: Clock, private readonly opts: WebhookOptions) {}
+  constructor(
+    private readonly store: Store,
+    private readonly clock: Clock,
+    private readonly opts: WebhookOptions,
+  ) {}
 
   emit(type: string, obj: Stored, previous?: JsonObject): EventRecord {
     const event: EventRecord = {
-      id: newId("evt"), object: "event", api_version: Stripe.API_VERSION, created: this.clock.now(), livemode: false,
-      pending_webhooks: this.opts.url ? 1 : 0, request: { id: null, idempotency_key: null }, type,
+      id: newId("evt"),
+      object: "event",
+      api_version: Stripe.API_VERSION,
+      created: this.clock.now(),
+      livemode: false,
+      pending_webhooks: this.opts.url ? 1 : 0,
+      request: { id: null, idempotency_key: null },
+      type,
       data: { object: render(this.store, obj), ...(previous ? { previous_attributes: previous } : {}) },
       delivery: {
-        status: this.opts.url ? "pending" : "not_sent", attempts: 0, next_attempt_at: this.opts.url ? Date.now() : null,
-        last_status: null, last_error: null, delivered_at: null,
+        status: this.opts.url ? "pending" : "not_sent",
+        attempts: 0,
+        next_attempt_at: this.opts.url ? Date.now() : null,
+        last_status: null,
+        last_error: null,
+        delivered_at: null,
       },
     };
     this.store.events.push(event);
@@ -130,7 +144,8 @@ export class Webhooks {
       }
     } catch (err) {
       d.last_status = null;
-      d.last_error = err instanceof Error ? (err.cause instanceof Error ? err.cause.message : err.message) : String(err);
+      d.last_error =
+        err instanceof Error ? (err.cause instanceof Error ? err.cause.message : err.message) : String(err);
     }
     if (d.status === "pending") {
       if (d.attempts >= MAX_ATTEMPTS) {

@@ -38,7 +38,12 @@ export async function screenshot(page: Page, name: string): Promise<string> {
  */
 export async function hydrated(locator: Locator): Promise<void> {
   await locator.waitFor();
-  await locator.page().waitForFunction((el) => el !== null && Object.keys(el).some((k) => k.startsWith("__reactFiber")), await locator.elementHandle());
+  await locator
+    .page()
+    .waitForFunction(
+      (el) => el !== null && Object.keys(el).some((k) => k.startsWith("__reactFiber")),
+      await locator.elementHandle(),
+    );
   await locator.page().waitForLoadState("networkidle");
 }
 
@@ -57,9 +62,17 @@ export async function follow(page: Page, link: Locator, address: RegExp, timeout
   await hydrated(link);
   for (let attempt = 1; ; attempt++) {
     await link.click();
-    if (await page.waitForURL(address, { timeout }).then(() => true, () => false)) return;
+    if (
+      await page.waitForURL(address, { timeout }).then(
+        () => true,
+        () => false,
+      )
+    )
+      return;
     if (attempt === 3) throw new Error(`still at ${page.url()} after clicking a link to ${address} three times`);
-    console.error(`a click on a link to ${address} did not navigate within ${timeout} ms (at ${page.url()}); clicking again`);
+    console.error(
+      `a click on a link to ${address} did not navigate within ${timeout} ms (at ${page.url()}); clicking again`,
+    );
   }
 }
 
@@ -75,8 +88,16 @@ export async function press(button: Locator, answer: Locator, timeout = 10_000):
   await hydrated(button);
   for (let attempt = 1; ; attempt++) {
     await button.click();
-    if (await answer.waitFor({ timeout }).then(() => true, () => false)) return attempt;
+    if (
+      await answer.waitFor({ timeout }).then(
+        () => true,
+        () => false,
+      )
+    )
+      return attempt;
     if (attempt === 3) throw new Error(`no answer after pressing the button three times (at ${button.page().url()})`);
-    console.error(`a press of a button showed no answer within ${timeout} ms (at ${button.page().url()}); pressing again`);
+    console.error(
+      `a press of a button showed no answer within ${timeout} ms (at ${button.page().url()}); pressing again`,
+    );
   }
 }

@@ -12,7 +12,20 @@ export type Classroom = Awaited<ReturnType<TeachingWorld["classroom"]>>;
 export const BARE_THEN_ALL = {
   stages: [
     { name: "Bare tune", adds: [] },
-    { name: "All", adds: ["bowing", "ornaments", "slides", "fills", "doubleStops", "dynamics", "articulation", "fingerings", "marks"] },
+    {
+      name: "All",
+      adds: [
+        "bowing",
+        "ornaments",
+        "slides",
+        "fills",
+        "doubleStops",
+        "dynamics",
+        "articulation",
+        "fingerings",
+        "marks",
+      ],
+    },
   ],
 };
 
@@ -25,7 +38,12 @@ export const assignBody = (room: Classroom, o: Record<string, unknown> = {}) => 
   ...o,
 });
 
-export async function createAssignment(w: TeachingWorld, cookie: string, room: Classroom, o: Record<string, unknown> = {}) {
+export async function createAssignment(
+  w: TeachingWorld,
+  cookie: string,
+  room: Classroom,
+  o: Record<string, unknown> = {},
+) {
   const res = await w.call(LIST, "POST", { cookie, body: assignBody(room, o) });
   expect(res.status).toBe(201);
   return (await res.json()) as { id: string; assignmentStudentIds: string[] };

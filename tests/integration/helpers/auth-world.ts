@@ -21,7 +21,10 @@ export async function authWorld() {
   let n = 0;
 
   /** A person straight in the database (verified unless told otherwise). */
-  async function person(role: "student" | "teacher" | "admin", o: { email?: string; name?: string; password?: string; verified?: boolean } = {}) {
+  async function person(
+    role: "student" | "teacher" | "admin",
+    o: { email?: string; name?: string; password?: string; verified?: boolean } = {},
+  ) {
     n += 1;
     const rows = await t.db
       .insert(users)
@@ -69,7 +72,14 @@ export async function authWorld() {
   }
 
   async function userByEmail(email: string) {
-    return (await t.db.select().from(users).where(sql`lower(${users.email}) = lower(${email})`))[0] ?? null;
+    return (
+      (
+        await t.db
+          .select()
+          .from(users)
+          .where(sql`lower(${users.email}) = lower(${email})`)
+      )[0] ?? null
+    );
   }
 
   /** A change written straight to the database; this process's session cache forgets the person

@@ -26,7 +26,13 @@ export async function billingWorld() {
       const headers = new Headers();
       for (const [k, v] of Object.entries(req.headers)) if (typeof v === "string") headers.set(k, v);
       route
-        .POST(new Request("http://127.0.0.1/api/webhooks/stripe", { method: "POST", headers, body: Buffer.concat(chunks).toString("utf8") }))
+        .POST(
+          new Request("http://127.0.0.1/api/webhooks/stripe", {
+            method: "POST",
+            headers,
+            body: Buffer.concat(chunks).toString("utf8"),
+          }),
+        )
         .then(async (r) => res.writeHead(r.status, { "content-type": "application/json" }).end(await r.text()))
         .catch((e: unknown) => {
           console.error(e);
@@ -37,7 +43,14 @@ export async function billingWorld() {
   await new Promise<void>((resolve) => hook.listen(0, "127.0.0.1", resolve));
   const hookUrl = `http://127.0.0.1:${(hook.address() as AddressInfo).port}/`;
   const { startStripeFake } = await import("@/scripts/fakes/stripe/server");
-  const fake = await startStripeFake({ port: 0, webhookUrl: hookUrl, webhookSecret: WEBHOOK_SECRET, apiKey: API_KEY, retryBaseMs: 20, tickMs: 0 });
+  const fake = await startStripeFake({
+    port: 0,
+    webhookUrl: hookUrl,
+    webhookSecret: WEBHOOK_SECRET,
+    apiKey: API_KEY,
+    retryBaseMs: 20,
+    tickMs: 0,
+  });
   process.env.STRIPE_API_BASE = fake.url;
   const { stripe } = await import("@/lib/billing/stripe");
 
@@ -45,7 +58,10 @@ export async function billingWorld() {
   const json = async <T>(res: Response): Promise<T> => (await res.json()) as T;
 
   /** A plan made through the admin route (Stripe product and price, then the row). */
-  async function plan(adminCookie: string, body: Record<string, unknown>): Promise<{ id: string; stripePriceId: string }> {
+  async function plan(
+    adminCookie: string,
+    body: Record<string, unknown>,
+  ): Promise<{ id: string; stripePriceId: string }> {
     const res = await call("admin/plans", "POST", { cookie: adminCookie, body });
     if (res.status !== 201) throw new Error(`plan not made: ${res.status} ${await res.text()}`);
     return (await json<{ plan: { id: string; stripePriceId: string } }>(res)).plan;
@@ -54,11 +70,21 @@ export async function billingWorld() {
   /** Types a card into the hosted checkout page as a person would submit its form. */
   async function pay(url: string, card: string): Promise<Response> {
     const form = new URLSearchParams({ number: card, expiry: "12 / 34", cvc: "123", name: "Test Member" });
-    return fetch(url, { method: "POST", body: form, redirect: "manual", headers: { "content-type": "application/x-www-form-urlencoded" } });
+    return fetch(url, {
+      method: "POST",
+      body: form,
+      redirect: "manual",
+      headers: { "content-type": "application/x-www-form-urlencoded" },
+    });
   }
 
   /** Checkout through the app's route, paid on the hosted page, webhooks delivered. */
-  async function subscribe(cookie: string, planId: string, card = "4242424242424242", courseId?: string): Promise<Response> {
+  async function subscribe(
+    cookie: string,
+    planId: string,
+    card = "4242424242424242",
+    courseId?: string,
+  ): Promise<Response> {
     const res = await call("billing/checkout", "POST", { cookie, body: { planId, ...(courseId ? { courseId } : {}) } });
     if (res.status !== 200) throw new Error(`checkout refused: ${res.status} ${await res.text()}`);
     const paid = await pay((await json<{ url: string }>(res)).url, card);

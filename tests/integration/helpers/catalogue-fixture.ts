@@ -36,12 +36,23 @@ async function addTune(db: Db, teacherId: string, title: string, shift: number):
   const abc = fixtureTune(title, shift);
   const result = analyze(abc);
   if (!result.ok) throw new Error(`fixture tune ${title}: ${result.problems.map((p) => p.message).join("; ")}`);
-  const [row] = await db.insert(tunes).values({ teacherId, title, tuneType: "polka", key: "D", meter: "2/4", abc }).returning({ id: tunes.id });
-  await db.insert(tuneStages).values(result.value.stages.map((s) => ({ tuneId: row.id, index: s.index, name: s.name, kinds: s.kinds, abc: s.abc })));
+  const [row] = await db
+    .insert(tunes)
+    .values({ teacherId, title, tuneType: "polka", key: "D", meter: "2/4", abc })
+    .returning({ id: tunes.id });
+  await db
+    .insert(tuneStages)
+    .values(
+      result.value.stages.map((s) => ({ tuneId: row.id, index: s.index, name: s.name, kinds: s.kinds, abc: s.abc })),
+    );
   return row.id;
 }
 
-export async function makeCatalogueFixture(db: Db, people: { teacher: { id: string }; student: { id: string } }, tag = ""): Promise<CatalogueFixture> {
+export async function makeCatalogueFixture(
+  db: Db,
+  people: { teacher: { id: string }; student: { id: string } },
+  tag = "",
+): Promise<CatalogueFixture> {
   const t = people.teacher.id;
   const ids = {
     A: await addTune(db, t, `Fixture Taster${tag}`, 0),
@@ -50,11 +61,26 @@ export async function makeCatalogueFixture(db: Db, people: { teacher: { id: stri
     D: await addTune(db, t, `Fixture Draft${tag}`, 3),
   };
   const slug = `fixture-${Math.random().toString(36).slice(2, 10)}`;
-  const [course] = await db.insert(courses).values({ teacherId: t, slug, title: `Fixture Course${tag}`, publishedAt: new Date() }).returning({ id: courses.id });
-  const [draft] = await db.insert(courses).values({ teacherId: t, slug: `${slug}-draft`, title: `Fixture Draft Course${tag}` }).returning({ id: courses.id });
-  const [g1] = await db.insert(grades).values({ courseId: course.id, position: 1, title: "Grade 1" }).returning({ id: grades.id });
-  const [g2] = await db.insert(grades).values({ courseId: course.id, position: 2, title: "Grade 2" }).returning({ id: grades.id });
-  const [gd] = await db.insert(grades).values({ courseId: draft.id, position: 1, title: "Grade 1" }).returning({ id: grades.id });
+  const [course] = await db
+    .insert(courses)
+    .values({ teacherId: t, slug, title: `Fixture Course${tag}`, publishedAt: new Date() })
+    .returning({ id: courses.id });
+  const [draft] = await db
+    .insert(courses)
+    .values({ teacherId: t, slug: `${slug}-draft`, title: `Fixture Draft Course${tag}` })
+    .returning({ id: courses.id });
+  const [g1] = await db
+    .insert(grades)
+    .values({ courseId: course.id, position: 1, title: "Grade 1" })
+    .returning({ id: grades.id });
+  const [g2] = await db
+    .insert(grades)
+    .values({ courseId: course.id, position: 2, title: "Grade 2" })
+    .returning({ id: grades.id });
+  const [gd] = await db
+    .insert(grades)
+    .values({ courseId: draft.id, position: 1, title: "Grade 1" })
+    .returning({ id: grades.id });
   const made = await db
     .insert(rungs)
     .values([
@@ -73,6 +99,15 @@ export async function makeCatalogueFixture(db: Db, people: { teacher: { id: stri
     { userId: people.student.id, tuneId: ids.A, reachedStage: 1 },
     { userId: people.student.id, tuneId: ids.B, reachedStage: 0 },
   ]);
-  const [note] = await db.insert(marginNotes).values({ userId: people.student.id, tuneId: ids.A, bar: 2, body: "Lift the bow here" }).returning({ id: marginNotes.id });
-  return { courseId: course.id, draftCourseId: draft.id, tunes: ids, rungs: { A: rungOf(ids.A), B: rungOf(ids.B), C: rungOf(ids.C) }, studentNoteId: note.id };
+  const [note] = await db
+    .insert(marginNotes)
+    .values({ userId: people.student.id, tuneId: ids.A, bar: 2, body: "Lift the bow here" })
+    .returning({ id: marginNotes.id });
+  return {
+    courseId: course.id,
+    draftCourseId: draft.id,
+    tunes: ids,
+    rungs: { A: rungOf(ids.A), B: rungOf(ids.B), C: rungOf(ids.C) },
+    studentNoteId: note.id,
+  };
 }

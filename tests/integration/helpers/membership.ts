@@ -11,12 +11,20 @@ type Status = (typeof subscriptions.$inferSelect)["status"];
 async function testPlan(db: Db): Promise<string> {
   const [found] = await db.select({ id: plans.id }).from(plans).where(eq(plans.name, "Test membership")).limit(1);
   if (found) return found.id;
-  const [row] = await db.insert(plans).values({ name: "Test membership", amount: 1800, currency: "GBP", interval: "month" }).returning({ id: plans.id });
+  const [row] = await db
+    .insert(plans)
+    .values({ name: "Test membership", amount: 1800, currency: "GBP", interval: "month" })
+    .returning({ id: plans.id });
   return row.id;
 }
 
 /** Gives the person a subscription with this status, its period running a month either side of now. */
-export async function giveMembership(db: Db, userId: string, status: Status = "active", o: { graceUntil?: Date | null } = {}): Promise<string> {
+export async function giveMembership(
+  db: Db,
+  userId: string,
+  status: Status = "active",
+  o: { graceUntil?: Date | null } = {},
+): Promise<string> {
   const now = Date.now();
   const [row] = await db
     .insert(subscriptions)

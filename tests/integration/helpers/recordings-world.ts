@@ -36,17 +36,36 @@ export async function makeTune(db: Db, teacherId: string, title?: string): Promi
   const name = title ?? `Fixture Reel ${tunesMade}`;
   const [row] = await db
     .insert(tunes)
-    .values({ teacherId, title: name, tuneType: "reel", key: "D", meter: "4/4", abc: `X:1\nT:${name}\nM:4/4\nL:1/8\nK:D\n|:DFAd fdAF:|\n` })
+    .values({
+      teacherId,
+      title: name,
+      tuneType: "reel",
+      key: "D",
+      meter: "4/4",
+      abc: `X:1\nT:${name}\nM:4/4\nL:1/8\nK:D\n|:DFAd fdAF:|\n`,
+    })
     .returning({ id: tunes.id, title: tunes.title });
   return row;
 }
 
-export type AssignmentFixture = { assignmentId: string; tuneId: string; tuneTitle: string; students: Record<string, string> };
+export type AssignmentFixture = {
+  assignmentId: string;
+  tuneId: string;
+  tuneTitle: string;
+  students: Record<string, string>;
+};
 
 /** An assignment of a fresh tune to students: stage 1 open, the rest locked. `students` maps studentId → assignmentStudentId. */
 export async function makeAssignment(
   db: Db,
-  o: { teacherId: string; studentIds: string[]; dueAt: Date; stages?: number; status?: "active" | "withdrawn"; title?: string },
+  o: {
+    teacherId: string;
+    studentIds: string[];
+    dueAt: Date;
+    stages?: number;
+    status?: "active" | "withdrawn";
+    title?: string;
+  },
 ): Promise<AssignmentFixture> {
   const tune = await makeTune(db, o.teacherId, o.title);
   const [a] = await db
@@ -55,7 +74,10 @@ export async function makeAssignment(
     .returning({ id: assignments.id });
   const students: Record<string, string> = {};
   for (const studentId of o.studentIds) {
-    const [as] = await db.insert(assignmentStudents).values({ assignmentId: a.id, studentId }).returning({ id: assignmentStudents.id });
+    const [as] = await db
+      .insert(assignmentStudents)
+      .values({ assignmentId: a.id, studentId })
+      .returning({ id: assignmentStudents.id });
     students[studentId] = as.id;
     const count = o.stages ?? 3;
     await db.insert(stageStates).values(
@@ -72,7 +94,10 @@ export async function makeAssignment(
 
 /** Every stage of one student's copy signed off (what a finished assignment looks like). */
 export async function signOffAll(db: Db, assignmentStudentId: string): Promise<void> {
-  await db.update(stageStates).set({ state: "signed_off", signedOffAt: new Date() }).where(eq(stageStates.assignmentStudentId, assignmentStudentId));
+  await db
+    .update(stageStates)
+    .set({ state: "signed_off", signedOffAt: new Date() })
+    .where(eq(stageStates.assignmentStudentId, assignmentStudentId));
 }
 
 /**
@@ -107,6 +132,9 @@ export function pngBytes(): Uint8Array<ArrayBuffer> {
 }
 
 /** The browser's part: PUT the bytes to the presigned address with the headers it was issued with. */
-export async function putTicket(ticket: { url: string; headers: Record<string, string> }, body: Uint8Array<ArrayBuffer>): Promise<Response> {
+export async function putTicket(
+  ticket: { url: string; headers: Record<string, string> },
+  body: Uint8Array<ArrayBuffer>,
+): Promise<Response> {
   return fetch(ticket.url, { method: "PUT", headers: ticket.headers, body });
 }

@@ -8,7 +8,11 @@ export type Handler = (r: Request, a: { params: Promise<Record<string, string>> 
 
 /** `file` is the path under /api with its [brackets], e.g. "teach/tunes/[tuneId]" or "admin/payments/count". */
 export async function routeModule(file: string): Promise<Record<string, Handler | undefined>> {
-  const places = [path.resolve("app/api", file, "route.ts"), path.resolve("pages/api", `${file}.ts`), path.resolve("pages/api", file, "index.ts")];
+  const places = [
+    path.resolve("app/api", file, "route.ts"),
+    path.resolve("pages/api", `${file}.ts`),
+    path.resolve("pages/api", file, "index.ts"),
+  ];
   const found = places.find((p) => existsSync(p));
   if (!found) throw new Error(`no route serves /api/${file} (looked in app/api and pages/api)`);
   return (await import(/* @vite-ignore */ found)) as Record<string, Handler | undefined>;

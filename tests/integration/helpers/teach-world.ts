@@ -22,8 +22,15 @@ export async function callRoute(file: string, method: string, c: TeachCall = {})
     headers.set("content-type", "application/json");
     body = JSON.stringify(c.body);
   }
-  const init: RequestInit & { duplex?: "half" } = { method, headers, body, duplex: body instanceof ReadableStream ? "half" : undefined };
-  return handler(new Request(`${TEST_APP_URL}/api/${file}${c.query ?? ""}`, init), { params: Promise.resolve(c.params ?? {}) });
+  const init: RequestInit & { duplex?: "half" } = {
+    method,
+    headers,
+    body,
+    duplex: body instanceof ReadableStream ? "half" : undefined,
+  };
+  return handler(new Request(`${TEST_APP_URL}/api/${file}${c.query ?? ""}`, init), {
+    params: Promise.resolve(c.params ?? {}),
+  });
 }
 
 export async function teachWorld(): Promise<AuthWorld & { call: typeof callRoute }> {

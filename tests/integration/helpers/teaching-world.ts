@@ -111,7 +111,10 @@ export async function teachingWorld() {
 
   /** The student checks in on stage `index` with a fresh stored recording; returns the check-in id. */
   async function checkIn(assignmentStudentId: string, index = 1): Promise<string> {
-    const [as] = await w.db.select({ studentId: assignmentStudents.studentId }).from(assignmentStudents).where(eq(assignmentStudents.id, assignmentStudentId));
+    const [as] = await w.db
+      .select({ studentId: assignmentStudents.studentId })
+      .from(assignmentStudents)
+      .where(eq(assignmentStudents.id, assignmentStudentId));
     const uploadId = await storedUpload(as.studentId, assignmentStudentId, index);
     const r = await applyTransition(w.db, {
       stageStateId: await stageId(assignmentStudentId, index),

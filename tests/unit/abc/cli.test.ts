@@ -14,17 +14,25 @@ const file = (name: string, text: string): string => {
 const run = (...args: string[]) => spawnSync("npx", ["tsx", "scripts/abc-cli.ts", ...args], { encoding: "utf8" });
 
 // An invented reel: phrase 3 repeats phrase 1 (common practice: a tune built that way).
-const reel = file("reel.abc", "X:1\nT:Hollow Gate\nM:4/4\nL:1/8\nK:G\n|:~G2 BG dGBG|A2 (AB) cBAG|G2 BG dGBG|A2 AB c2 BA:|\n");
+const reel = file(
+  "reel.abc",
+  "X:1\nT:Hollow Gate\nM:4/4\nL:1/8\nK:G\n|:~G2 BG dGBG|A2 (AB) cBAG|G2 BG dGBG|A2 AB c2 BA:|\n",
+);
 
 describe("abc CLI", () => {
   it("skeleton prints ABC; stages and phrases print the JSON shapes of issue 3 §8", () => {
     const sk = run("skeleton", reel);
     expect(sk.status).toBe(0);
     expect(sk.stdout).toContain("|:G2 BG dGBG|A2 AB cBAG|");
-    const stages = JSON.parse(run("stages", reel).stdout) as { stages: { index: number; name: string; kinds: string[]; abc: string }[] };
+    const stages = JSON.parse(run("stages", reel).stdout) as {
+      stages: { index: number; name: string; kinds: string[]; abc: string }[];
+    };
     expect(stages.stages.map((s) => s.index)).toEqual([1, 2, 3, 4]);
     expect(stages.stages[3].abc).toContain("~G2");
-    const phrases = JSON.parse(run("phrases", reel).stdout) as { parts: { label: string; phrases: { id: string }[] }[]; learningLoad: { distinct: number } };
+    const phrases = JSON.parse(run("phrases", reel).stdout) as {
+      parts: { label: string; phrases: { id: string }[] }[];
+      learningLoad: { distinct: number };
+    };
     expect(phrases.parts[0].label).toBe("A");
     expect(phrases.parts[0].phrases[0].id).toBe("A1");
     expect(typeof phrases.learningLoad.distinct).toBe("number");

@@ -4,7 +4,8 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { compareSettings, type Comparison } from "../../../lib/abc/compare";
 
-const fixture = (name: string): string => readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
+const fixture = (name: string): string =>
+  readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
 const rosin = fixture("rosin-box.abc");
 const lantern = fixture("lantern-hill.abc");
 
@@ -30,7 +31,12 @@ describe("compareSettings", () => {
         status: "different",
         lengthDiffers: false,
         differences: [
-          { beat: 4, kind: "pitch", first: { pitch: 64, note: "E4", duration: "1/8" }, second: { pitch: 69, note: "A4", duration: "1/8" } },
+          {
+            beat: 4,
+            kind: "pitch",
+            first: { pitch: 64, note: "E4", duration: "1/8" },
+            second: { pitch: 69, note: "A4", duration: "1/8" },
+          },
         ],
       },
     ]);

@@ -7,7 +7,9 @@ import { analyze } from "@/lib/abc/analyze";
 import { checkTune } from "./invariants";
 
 const ROOT = "../shared/datasets/nottingham/ABC_cleaned";
-const files = readdirSync(ROOT).filter((f) => f.endsWith(".abc")).sort();
+const files = readdirSync(ROOT)
+  .filter((f) => f.endsWith(".abc"))
+  .sort();
 
 describe("ABC_cleaned corpus (Nottingham Music Database, cleaned)", () => {
   it("has the tunes its README describes (about 1,000)", () => {

@@ -6,7 +6,9 @@ import { splitTunes } from "@/lib/abc/split";
 import { analyze } from "@/lib/abc/analyze";
 
 const ROOT = "../shared/datasets/nottingham/ABC_original";
-const files = readdirSync(ROOT).filter((f) => f.endsWith(".abc")).sort();
+const files = readdirSync(ROOT)
+  .filter((f) => f.endsWith(".abc"))
+  .sort();
 
 describe("ABC_original corpus", () => {
   for (const file of files) {

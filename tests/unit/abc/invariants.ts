@@ -62,12 +62,18 @@ export function checkTune(abc: string): string[] {
       continue;
     }
     if (stage.index === 1) skeleton = r.value;
-    for (const [k, c] of warningKeys(r.value.warnings)) if (c > (srcWarnings.get(k) ?? 0)) errs.push(`stage ${stage.index}: new warning "${k}"`);
+    for (const [k, c] of warningKeys(r.value.warnings))
+      if (c > (srcWarnings.get(k) ?? 0)) errs.push(`stage ${stage.index}: new warning "${k}"`);
     const bars = melodyBars(r.value);
-    if (bars.length !== srcBars.length) errs.push(`stage ${stage.index}: ${bars.length} bars, source ${srcBars.length}`);
-    else bars.forEach((b, i) => {
-      if (!eq(b.length, srcBars[i].length)) errs.push(`stage ${stage.index} bar ${i}: length ${toString(b.length)}, source ${toString(srcBars[i].length)}`);
-    });
+    if (bars.length !== srcBars.length)
+      errs.push(`stage ${stage.index}: ${bars.length} bars, source ${srcBars.length}`);
+    else
+      bars.forEach((b, i) => {
+        if (!eq(b.length, srcBars[i].length))
+          errs.push(
+            `stage ${stage.index} bar ${i}: length ${toString(b.length)}, source ${toString(srcBars[i].length)}`,
+          );
+      });
   }
   if (skeleton) {
     errs.push(...embellishedElements(stages[0].abc).map((e) => `skeleton keeps ${e}`));
@@ -80,7 +86,9 @@ export function checkTune(abc: string): string[] {
         const sk = soundingAt(bar, t)?.[0];
         const heard = soundingAt(source, t) ?? [];
         if (sk === undefined || !heard.includes(sk)) {
-          errs.push(`bar ${i} beat at ${toString(sub(t, bar.shift))}: skeleton ${String(sk)}, source sounds ${heard.join(",")}`);
+          errs.push(
+            `bar ${i} beat at ${toString(sub(t, bar.shift))}: skeleton ${String(sk)}, source sounds ${heard.join(",")}`,
+          );
         }
       }
     });

@@ -14,7 +14,8 @@ function saneProblems(m: PhraseMap, barNumbers: number[]): string[] {
   const owner = new Map<number, string>();
   const pickups = new Set(m.parts.flatMap((p) => p.pickup));
   for (const part of m.parts) {
-    if (part.grouping.phraseBars.reduce((a, b) => a + b, 0) !== part.countedBars) problems.push(`${part.label}: grouping does not add up`);
+    if (part.grouping.phraseBars.reduce((a, b) => a + b, 0) !== part.countedBars)
+      problems.push(`${part.label}: grouping does not add up`);
     for (const p of part.phrases) {
       for (const id of [p.id, ...p.alternatives.map((a) => a.id)]) {
         if (ids.has(id)) problems.push(`duplicate id ${id}`);
@@ -32,10 +33,12 @@ function saneProblems(m: PhraseMap, barNumbers: number[]): string[] {
   // every bar of the tune except pickups lies in a phrase (numbers repeat only for pickups, bar 0)
   for (const n of barNumbers) if (n > 0 && !pickups.has(n) && !owner.has(n)) problems.push(`bar ${n} in no phrase`);
   for (const t of m.twins) {
-    if (t.differingNotes > 2 || (t.kind === "exact") !== (t.differingNotes === 0)) problems.push(`bad twin ${t.first}/${t.second}`);
+    if (t.differingNotes > 2 || (t.kind === "exact") !== (t.differingNotes === 0))
+      problems.push(`bad twin ${t.first}/${t.second}`);
     if (!ids.has(t.first) || !ids.has(t.second)) problems.push(`twin of unknown phrase ${t.first}/${t.second}`);
   }
-  if (m.learningLoad.afterSwaps > m.learningLoad.distinct || m.learningLoad.afterSwaps < 1) problems.push("bad learning load");
+  if (m.learningLoad.afterSwaps > m.learningLoad.distinct || m.learningLoad.afterSwaps < 1)
+    problems.push("bad learning load");
   return problems;
 }
 
@@ -51,8 +54,13 @@ describe.runIf(existsSync(DIR))("phrase map over every tune in ABC_cleaned", () 
         const { bars, meter, unit } = sk.value;
         const m = phraseMap(bars, meter, unit);
         const title = /^T:(.*)$/m.exec(t.abc)?.[1] ?? file;
-        for (const p of saneProblems(m, bars.map((b) => b.number))) problems.push(`${title}: ${p}`);
-        if (JSON.stringify(phraseMap(bars, meter, unit)) !== JSON.stringify(m)) problems.push(`${title}: not deterministic`);
+        for (const p of saneProblems(
+          m,
+          bars.map((b) => b.number),
+        ))
+          problems.push(`${title}: ${p}`);
+        if (JSON.stringify(phraseMap(bars, meter, unit)) !== JSON.stringify(m))
+          problems.push(`${title}: not deterministic`);
       }
     }
     expect(problems).toEqual([]);

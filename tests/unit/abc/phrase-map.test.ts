@@ -5,7 +5,8 @@ import { describe, expect, it } from "vitest";
 import { phraseMap, type PhraseMap } from "../../../lib/abc/phrase-map";
 import { skeletonOf } from "../../../lib/abc/skeleton";
 
-const fixture = (name: string): string => readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
+const fixture = (name: string): string =>
+  readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
 // phrases are compared on the skeleton (issue 3 §5), so the map is built from skeletonOf's bars
 const mapOf = (abc: string): PhraseMap => {
   const sk = skeletonOf(abc);
@@ -70,7 +71,12 @@ describe("phrase map of a jig with a pickup and first/second endings (Lantern Hi
   it("keeps the pickup out of the bar count and runs the phrases through the first ending", () => {
     expect(a?.pickup).toEqual([0]);
     expect(a?.countedBars).toBe(8);
-    expect(a?.phrases.map((p) => p.barNumbers)).toEqual([[1, 2], [3, 4], [5, 6], [7, 8]]);
+    expect(a?.phrases.map((p) => p.barNumbers)).toEqual([
+      [1, 2],
+      [3, 4],
+      [5, 6],
+      [7, 8],
+    ]);
     expect(a?.endings).toContain("first ending");
   });
 
@@ -143,7 +149,8 @@ describe("counting notes, not grid points", () => {
   });
 
   it("a tie continues its note: c2-c2 equals c4", () => {
-    const abc = "X:1\nT:t\nM:4/4\nL:1/8\nK:C\n|:c4 GcEG|FAcA GECE|B2dB GBDG|ABcd e4|c2-c2 GcEG|FAcA GECE|B2dB GBDG|ABcd c4:|\n";
+    const abc =
+      "X:1\nT:t\nM:4/4\nL:1/8\nK:C\n|:c4 GcEG|FAcA GECE|B2dB GBDG|ABcd e4|c2-c2 GcEG|FAcA GECE|B2dB GBDG|ABcd c4:|\n";
     const m = mapOf(abc);
     expect(twin(m, "A1", "A3")?.kind).toBe("exact");
   });
@@ -152,10 +159,14 @@ describe("counting notes, not grid points", () => {
 describe("the comparison grid", () => {
   it("refines a quarter-note unit to eighths when eighths are written, so they are compared", () => {
     // L:1/4 with eighths written as d/2e/2, as many collections do
-    const abc = "X:1\nT:t\nM:4/4\nL:1/4\nK:D\n|:d/2e/2 fa g|fe d2|d/2f/2 fa g|fe d2|d/2e/2 fa g|fe d2|A B c d|e2 d2:|\n";
+    const abc =
+      "X:1\nT:t\nM:4/4\nL:1/4\nK:D\n|:d/2e/2 fa g|fe d2|d/2f/2 fa g|fe d2|d/2e/2 fa g|fe d2|A B c d|e2 d2:|\n";
     const m = mapOf(abc);
     expect(m.grid).toBe("1/8");
-    expect(twin(m, "A1", "A2")).toMatchObject({ differingNotes: 1, differences: [{ firstBar: 1, secondBar: 3, beat: 1.5 }] });
+    expect(twin(m, "A1", "A2")).toMatchObject({
+      differingNotes: 1,
+      differences: [{ firstBar: 1, secondBar: 3, beat: 1.5 }],
+    });
     expect(twin(m, "A1", "A3")?.kind).toBe("exact");
   });
 });
@@ -173,17 +184,29 @@ describe("finding parts without labels, and with a labelled lead-in", () => {
 
   it("halves a longer stretch without marks into strains (common practice: 8 or 16 bars)", () => {
     const m = mapOf(`${head}|${[...strain, ...strain, ...strain, ...strain].join("|")}|]\n`);
-    expect(m.parts.map((p) => [p.label, p.countedBars])).toEqual([["A", 16], ["B", 16]]);
+    expect(m.parts.map((p) => [p.label, p.countedBars])).toEqual([
+      ["A", 16],
+      ["B", 16],
+    ]);
     expect(m.parts[1]?.foundBy).toMatch(/halved/);
     expect(m.patterns.map((p) => p.pattern)).toContain("secondHalfShared");
   });
 
   it("splits at a double bar, and joins a labelled lead-in to the part it leads into", () => {
-    const m = mapOf(`${head}P:I\nA2|\nP:A\n|:${strain.join("|")}:|\nP:B\n|:${strain.slice(4).join("|")}|${strain.slice(0, 4).join("|")}:|\n`);
-    expect(m.parts.map((p) => [p.label, p.pickup, p.countedBars])).toEqual([["A", [0], 8], ["B", [], 8]]);
+    const m = mapOf(
+      `${head}P:I\nA2|\nP:A\n|:${strain.join("|")}:|\nP:B\n|:${strain.slice(4).join("|")}|${strain.slice(0, 4).join("|")}:|\n`,
+    );
+    expect(m.parts.map((p) => [p.label, p.pickup, p.countedBars])).toEqual([
+      ["A", [0], 8],
+      ["B", [], 8],
+    ]);
     expect(m.parts[1]?.phrases.map((p) => p.letter)).toEqual(["c", "d", "a", "b"]);
-    const twoStrains = mapOf(`${head}${strain.join("|")}||${strain.slice(4).join("|")}|${strain.slice(0, 4).join("|")}|]\n`);
-    expect(twoStrains.parts.map((p) => [p.label, p.foundBy])).toEqual([["A", "repeat marks and double bars"], ["B", "repeat marks and double bars"]]);
+    const twoStrains = mapOf(
+      `${head}${strain.join("|")}||${strain.slice(4).join("|")}|${strain.slice(0, 4).join("|")}|]\n`,
+    );
+    expect(twoStrains.parts.map((p) => [p.label, p.foundBy])).toEqual([
+      ["A", "repeat marks and double bars"],
+      ["B", "repeat marks and double bars"],
+    ]);
   });
 });
-

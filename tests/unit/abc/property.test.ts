@@ -19,23 +19,29 @@ const beat = fc.oneof(
   fc.tuple(pitch, pitch).map(([p, q]) => `${p}>${q}`),
 );
 const bar = fc.array(beat, { minLength: 4, maxLength: 4 }).map((b) => b.join(" "));
-const tuneArb = fc.array(bar, { minLength: 1, maxLength: 6 }).map(
-  (bars) => `X:1\nT:Generated\nM:4/4\nL:1/8\nK:D\n|:${bars.join("|")}:|\n`,
-);
+const tuneArb = fc
+  .array(bar, { minLength: 1, maxLength: 6 })
+  .map((bars) => `X:1\nT:Generated\nM:4/4\nL:1/8\nK:D\n|:${bars.join("|")}:|\n`);
 
 describe("generated tunes", () => {
   it("keep every invariant (PRODUCT.md §4)", () => {
-    fc.assert(fc.property(tuneArb, (abc) => {
-      expect(checkTune(abc)).toEqual([]);
-    }), { numRuns: 150, seed: 31 });
+    fc.assert(
+      fc.property(tuneArb, (abc) => {
+        expect(checkTune(abc)).toEqual([]);
+      }),
+      { numRuns: 150, seed: 31 },
+    );
   });
 
   it("the skeleton of a skeleton is itself", () => {
-    fc.assert(fc.property(tuneArb, (abc) => {
-      const once = skeletonOf(abc);
-      if (!once.ok) throw new Error("rejected");
-      const twice = skeletonOf(once.value.abc);
-      expect(twice.ok && twice.value.abc).toBe(once.value.abc);
-    }), { numRuns: 150, seed: 32 });
+    fc.assert(
+      fc.property(tuneArb, (abc) => {
+        const once = skeletonOf(abc);
+        if (!once.ok) throw new Error("rejected");
+        const twice = skeletonOf(once.value.abc);
+        expect(twice.ok && twice.value.abc).toBe(once.value.abc);
+      }),
+      { numRuns: 150, seed: 32 },
+    );
   });
 });

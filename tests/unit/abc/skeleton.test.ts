@@ -49,7 +49,13 @@ describe("skeleton (issue 3 §3)", () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     const { abc, bars } = r.value;
-    expect(bars.map((b) => [b.number, b.part])).toEqual([[0, "A"], [1, "A"], [2, "A"], [0, "B"], [3, "B"]]);
+    expect(bars.map((b) => [b.number, b.part])).toEqual([
+      [0, "A"],
+      [1, "A"],
+      [2, "A"],
+      [0, "B"],
+      [3, "B"],
+    ]);
     expect(abc.slice(bars[1].startChar, bars[1].endChar)).toBe("B2 dB A4|");
     const notes = bars[1].notes.map((n) => abc.slice(n.startChar, n.endChar).trim());
     expect(notes).toEqual(["B2", "dB", "A4"].flatMap((s) => (s === "dB" ? ["d", "B"] : [s])));

@@ -9,7 +9,10 @@ const abc = "X:1\nT:Stages\nM:4/4\nL:1/8\nK:G\n(GA) ~B2 !p![DB]2 d/c/B|\n";
 describe("stage plans", () => {
   it("the default plan is skeleton, + bowing, + ornaments/slides/fills, full setting (PRODUCT.md §4.4)", () => {
     expect(DEFAULT_PLAN.stages.map((s) => s.adds)).toEqual([
-      [], ["bowing"], ["ornaments", "slides", "fills"], ["doubleStops", "dynamics", "articulation", "fingerings", "marks"],
+      [],
+      ["bowing"],
+      ["ornaments", "slides", "fills"],
+      ["doubleStops", "dynamics", "articulation", "fingerings", "marks"],
     ]);
     expect(validatePlan(DEFAULT_PLAN)).toEqual({ ok: true });
   });
@@ -19,7 +22,10 @@ describe("stage plans", () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value.stages.map((s) => s.abc.split("\n")[5])).toEqual([
-      "GA B2 B2 dB|", "(GA) B2 B2 dB|", "(GA) ~B2 B2 d/c/B|", "(GA) ~B2 !p![DB]2 d/c/B|",
+      "GA B2 B2 dB|",
+      "(GA) B2 B2 dB|",
+      "(GA) ~B2 B2 d/c/B|",
+      "(GA) ~B2 !p![DB]2 d/c/B|",
     ]);
     expect(r.value.stages[3].kinds).toEqual([...KINDS]);
   });
@@ -29,7 +35,9 @@ describe("stage plans", () => {
       const r = validatePlan({ stages: adds.map((a, i) => ({ name: `S${i}`, adds: a })) });
       return r.ok ? [] : r.reasons;
     };
-    expect(bad([[], ["bowing", "sparkle"], KINDS.filter((k) => k !== "bowing")]).join()).toMatch(/unknown kind "sparkle"/);
+    expect(bad([[], ["bowing", "sparkle"], KINDS.filter((k) => k !== "bowing")]).join()).toMatch(
+      /unknown kind "sparkle"/,
+    );
     expect(bad([[], ["bowing"], [...KINDS]]).join()).toMatch(/"bowing" is added twice/);
     expect(bad([[], ["bowing"]]).join()).toMatch(/"ornaments" is never added back/);
     expect(bad([["bowing"], KINDS.filter((k) => k !== "bowing")]).join()).toMatch(/Stage 1 is the skeleton/);

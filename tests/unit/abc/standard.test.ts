@@ -22,21 +22,70 @@ const same = (a: Fraction[], b: Fraction[]): boolean => a.length === b.length &&
 describe("ABC 2.1 §4.14 decorations", () => {
   // Names from the §4.14 table (from memory); kinds from PRODUCT.md §3.
   const table: [string, Kind][] = [
-    ["trill", "ornaments"], ["lowermordent", "ornaments"], ["uppermordent", "ornaments"], ["mordent", "ornaments"],
-    ["pralltriller", "ornaments"], ["roll", "ornaments"], ["turn", "ornaments"], ["turnx", "ornaments"],
-    ["invertedturn", "ornaments"], ["invertedturnx", "ornaments"], ["arpeggio", "ornaments"], ["trill(", "ornaments"], ["trill)", "ornaments"],
-    ["slide", "slides"], ["upbow", "bowing"], ["downbow", "bowing"],
-    ["p", "dynamics"], ["pp", "dynamics"], ["ppp", "dynamics"], ["pppp", "dynamics"], ["mp", "dynamics"], ["mf", "dynamics"],
-    ["f", "dynamics"], ["ff", "dynamics"], ["fff", "dynamics"], ["ffff", "dynamics"], ["sfz", "dynamics"],
-    ["crescendo(", "dynamics"], ["<(", "dynamics"], ["crescendo)", "dynamics"], ["<)", "dynamics"],
-    ["diminuendo(", "dynamics"], [">(", "dynamics"], ["diminuendo)", "dynamics"], [">)", "dynamics"],
-    [">", "articulation"], ["accent", "articulation"], ["emphasis", "articulation"], ["fermata", "articulation"],
-    ["invertedfermata", "articulation"], ["tenuto", "articulation"], ["breath", "articulation"], ["wedge", "articulation"],
-    ["+", "articulation"], ["plus", "articulation"], ["snap", "articulation"],
-    ["0", "fingerings"], ["1", "fingerings"], ["2", "fingerings"], ["3", "fingerings"], ["4", "fingerings"], ["5", "fingerings"],
-    ["open", "fingerings"], ["thumb", "fingerings"],
-    ["segno", "marks"], ["coda", "marks"], ["D.S.", "marks"], ["D.C.", "marks"], ["dacoda", "marks"], ["dacapo", "marks"],
-    ["fine", "marks"], ["shortphrase", "marks"], ["mediumphrase", "marks"], ["longphrase", "marks"],
+    ["trill", "ornaments"],
+    ["lowermordent", "ornaments"],
+    ["uppermordent", "ornaments"],
+    ["mordent", "ornaments"],
+    ["pralltriller", "ornaments"],
+    ["roll", "ornaments"],
+    ["turn", "ornaments"],
+    ["turnx", "ornaments"],
+    ["invertedturn", "ornaments"],
+    ["invertedturnx", "ornaments"],
+    ["arpeggio", "ornaments"],
+    ["trill(", "ornaments"],
+    ["trill)", "ornaments"],
+    ["slide", "slides"],
+    ["upbow", "bowing"],
+    ["downbow", "bowing"],
+    ["p", "dynamics"],
+    ["pp", "dynamics"],
+    ["ppp", "dynamics"],
+    ["pppp", "dynamics"],
+    ["mp", "dynamics"],
+    ["mf", "dynamics"],
+    ["f", "dynamics"],
+    ["ff", "dynamics"],
+    ["fff", "dynamics"],
+    ["ffff", "dynamics"],
+    ["sfz", "dynamics"],
+    ["crescendo(", "dynamics"],
+    ["<(", "dynamics"],
+    ["crescendo)", "dynamics"],
+    ["<)", "dynamics"],
+    ["diminuendo(", "dynamics"],
+    [">(", "dynamics"],
+    ["diminuendo)", "dynamics"],
+    [">)", "dynamics"],
+    [">", "articulation"],
+    ["accent", "articulation"],
+    ["emphasis", "articulation"],
+    ["fermata", "articulation"],
+    ["invertedfermata", "articulation"],
+    ["tenuto", "articulation"],
+    ["breath", "articulation"],
+    ["wedge", "articulation"],
+    ["+", "articulation"],
+    ["plus", "articulation"],
+    ["snap", "articulation"],
+    ["0", "fingerings"],
+    ["1", "fingerings"],
+    ["2", "fingerings"],
+    ["3", "fingerings"],
+    ["4", "fingerings"],
+    ["5", "fingerings"],
+    ["open", "fingerings"],
+    ["thumb", "fingerings"],
+    ["segno", "marks"],
+    ["coda", "marks"],
+    ["D.S.", "marks"],
+    ["D.C.", "marks"],
+    ["dacoda", "marks"],
+    ["dacapo", "marks"],
+    ["fine", "marks"],
+    ["shortphrase", "marks"],
+    ["mediumphrase", "marks"],
+    ["longphrase", "marks"],
   ];
   it.each(table)("!%s! is %s", (name, kind) => {
     expect(kindOfDecoration(name)).toBe(kind);
@@ -46,8 +95,15 @@ describe("ABC 2.1 §4.14 decorations", () => {
     const abc = tune("!p!A !trill!B !slide!c !<(!d !<)!e !fermata!f !upbow!g !3!a !segno!|");
     const found = classify(prep(abc)).map((e) => [e.kind, e.source]);
     expect(found).toEqual([
-      ["dynamics", "!p!"], ["ornaments", "!trill!"], ["slides", "!slide!"], ["dynamics", "!<(!"], ["dynamics", "!<)!"],
-      ["articulation", "!fermata!"], ["bowing", "!upbow!"], ["fingerings", "!3!"], ["marks", "!segno!"],
+      ["dynamics", "!p!"],
+      ["ornaments", "!trill!"],
+      ["slides", "!slide!"],
+      ["dynamics", "!<(!"],
+      ["dynamics", "!<)!"],
+      ["articulation", "!fermata!"],
+      ["bowing", "!upbow!"],
+      ["fingerings", "!3!"],
+      ["marks", "!segno!"],
     ]);
     const sk = skeletonOf(abc);
     expect(sk.ok && sk.value.abc).toBe(tune("A B c d e f g a |"));
@@ -61,17 +117,27 @@ describe("ABC 2.1 §4.16 shorthand decorations", () => {
     const abc = tune(".A ~B Hc Ld Me Of Pg Sa | Tb uc vd e4 |");
     const found = classify(prep(abc)).map((e) => [e.source, e.what, e.kind]);
     expect(found).toEqual([
-      [".", "staccato", "articulation"], ["~", "roll", "ornaments"], ["H", "fermata", "articulation"],
-      ["L", "accent", "articulation"], ["M", "lowermordent", "ornaments"], ["O", "coda", "marks"],
-      ["P", "uppermordent", "ornaments"], ["S", "segno", "marks"], ["T", "trill", "ornaments"],
-      ["u", "upbow", "bowing"], ["v", "downbow", "bowing"],
+      [".", "staccato", "articulation"],
+      ["~", "roll", "ornaments"],
+      ["H", "fermata", "articulation"],
+      ["L", "accent", "articulation"],
+      ["M", "lowermordent", "ornaments"],
+      ["O", "coda", "marks"],
+      ["P", "uppermordent", "ornaments"],
+      ["S", "segno", "marks"],
+      ["T", "trill", "ornaments"],
+      ["u", "upbow", "bowing"],
+      ["v", "downbow", "bowing"],
     ]);
   });
 
   it("follows U: redefinitions (§4.16: U: assigns a decoration to a letter)", () => {
     const abc = tune("TA WB c2 d4|", "M:4/4\nL:1/8\nU:T=!fermata!\nU:W=!roll!");
     const found = classify(prep(abc)).map((e) => [e.source, e.what, e.kind]);
-    expect(found).toEqual([["T", "fermata", "articulation"], ["W", "roll", "ornaments"]]);
+    expect(found).toEqual([
+      ["T", "fermata", "articulation"],
+      ["W", "roll", "ornaments"],
+    ]);
   });
 });
 
@@ -82,9 +148,12 @@ describe("ABC 2.1 §4.13 tuplets", () => {
   };
   // (p: p notes in the time of q: (2 → 3, (3 → 2, (4 → 3, (5,(7,(9 → 3 in compound meter else 2.
   it("(3 is three notes in the time of two", () => expect(tupletTime(tune("(3ABc d2 e4|"))).toEqual(frac(2, 8)));
-  it("(2 is two notes in the time of three", () => expect(tupletTime(tune("(2AB c3|", "M:6/8\nL:1/8"))).toEqual(frac(3, 8)));
-  it("(5 in 6/8 is five notes in the time of three", () => expect(tupletTime(tune("(5ABcde f3|", "M:6/8\nL:1/8"))).toEqual(frac(3, 8)));
-  it("(5 in 2/4 is five notes in the time of two", () => expect(tupletTime(tune("(5ABcde f2|", "M:2/4\nL:1/8"))).toEqual(frac(2, 8)));
+  it("(2 is two notes in the time of three", () =>
+    expect(tupletTime(tune("(2AB c3|", "M:6/8\nL:1/8"))).toEqual(frac(3, 8)));
+  it("(5 in 6/8 is five notes in the time of three", () =>
+    expect(tupletTime(tune("(5ABcde f3|", "M:6/8\nL:1/8"))).toEqual(frac(3, 8)));
+  it("(5 in 2/4 is five notes in the time of two", () =>
+    expect(tupletTime(tune("(5ABcde f2|", "M:2/4\nL:1/8"))).toEqual(frac(2, 8)));
   it("(p:q:r puts p notes in the time of q for the next r notes", () => {
     // (3:2:4 with four sixteenths: each takes 2/3 of a sixteenth.
     expect(tupletTime(tune("(3:2:4A/B/c/d/ e2 f4|"))).toEqual(frac(4 * 2, 16 * 3));
@@ -98,8 +167,14 @@ describe("ABC 2.1 §4.13 tuplets", () => {
 describe("ABC 2.1 §3.1.7 default unit note length", () => {
   // Meter as a decimal below 0.75 → 1/16, else 1/8; M:C, M:C| and free meter → 1/8.
   it.each([
-    ["2/4", frac(1, 16)], ["3/8", frac(1, 16)], ["3/4", frac(1, 8)], ["6/8", frac(1, 8)], ["4/4", frac(1, 8)],
-    ["C", frac(1, 8)], ["C|", frac(1, 8)], ["none", frac(1, 8)],
+    ["2/4", frac(1, 16)],
+    ["3/8", frac(1, 16)],
+    ["3/4", frac(1, 8)],
+    ["6/8", frac(1, 8)],
+    ["4/4", frac(1, 8)],
+    ["C", frac(1, 8)],
+    ["C|", frac(1, 8)],
+    ["none", frac(1, 8)],
   ])("M:%s gives L:%o", (m, unit) => {
     expect(defaultUnit(parseMeter(m))).toEqual(unit);
     const r = skeletonOf(`X:1\nM:${m}\nK:C\nA|\n`);

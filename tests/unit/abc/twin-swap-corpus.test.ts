@@ -44,7 +44,8 @@ describe.runIf(existsSync(DIR))("twin swap over every tune in ABC_cleaned", () =
           const twin = after.twins.find(
             (x) => (x.first === s.model && x.second === s.phrase) || (x.first === s.phrase && x.second === s.model),
           );
-          if (twin?.kind !== "exact") problems.push(`${title}: ${s.phrase} is not an exact twin of ${s.model} after the swap`);
+          if (twin?.kind !== "exact")
+            problems.push(`${title}: ${s.phrase} is not an exact twin of ${s.model} after the swap`);
         }
       }
     }

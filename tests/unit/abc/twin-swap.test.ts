@@ -8,7 +8,8 @@ import { buildModel, skeletonOf } from "../../../lib/abc/skeleton";
 import { planSwaps, twinSwap } from "../../../lib/abc/twin-swap";
 import type { Bar } from "../../../lib/abc/types";
 
-const fixture = (name: string): string => readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
+const fixture = (name: string): string =>
+  readFileSync(new URL(`../../fixtures/abc/phrases/${name}`, import.meta.url), "utf8");
 
 function mapOf(abc: string): PhraseMap {
   const sk = skeletonOf(abc);
@@ -107,7 +108,9 @@ describe("swaps that cannot be made safely are left out, with the reason", () =>
   it("leaves a twin alone when a bar to copy or replace holds an inline field (ABC 2.1 §3.2: [K:…] in the body)", () => {
     const src = fixture("rosin-box.abc").replace('"G"gfed "A"cAcd:|\n|:', '[K:D]"G"gfed "A"cAcd:|\n|:');
     const plan = planSwaps(src, barsOf(src), mapOf(src));
-    expect(plan.skipped.map((s) => [s.swap.phrase, s.reason])).toEqual([["A4", "bar 8 or its model holds a field (K:, L:, M: …)"]]);
+    expect(plan.skipped.map((s) => [s.swap.phrase, s.reason])).toEqual([
+      ["A4", "bar 8 or its model holds a field (K:, L:, M: …)"],
+    ]);
     expect(plan.made.map((s) => s.phrase)).toEqual(["B3", "B4"]);
   });
 
@@ -116,7 +119,9 @@ describe("swaps that cannot be made safely are left out, with the reason", () =>
     const map = mapOf(src);
     const lastBar = map.parts[1]?.phrases[4]?.bars[1];
     const plan = planSwaps(src, barsOf(src), map);
-    expect(plan.skipped.map((s) => [s.swap.phrase, s.reason])).toEqual([["B5", `bar ${lastBar} differs from its model in length`]]);
+    expect(plan.skipped.map((s) => [s.swap.phrase, s.reason])).toEqual([
+      ["B5", `bar ${lastBar} differs from its model in length`],
+    ]);
     expect(lastBar).toBeGreaterThan(10);
   });
 });

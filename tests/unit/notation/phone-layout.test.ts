@@ -21,7 +21,10 @@ describe("phone layout: a line break after each phrase", () => {
   });
 
   it("splits a long phrase every two bars, and counts pairs of bars without a phrase map", () => {
-    const long = { ...map, parts: [{ ...map.parts[0], phrases: [{ ...map.parts[0].phrases[0], bars: [1, 8] as [number, number] }] }] };
+    const long = {
+      ...map,
+      parts: [{ ...map.parts[0], phrases: [{ ...map.parts[0].phrases[0], bars: [1, 8] as [number, number] }] }],
+    };
     expect([...phoneLineEnds(spans, long)].sort((a, b) => a - b)).toEqual([2, 4, 6, 8]);
     expect([...phoneLineEnds(spans, null)].sort((a, b) => a - b)).toEqual([2, 4, 6, 8, 10, 12, 14]);
   });

@@ -2,7 +2,14 @@ import { describe, expect, it } from "vitest";
 import { analyze } from "@/lib/abc";
 import type { PhraseMap } from "@/lib/abc/phrase-types";
 import { DEMO_TUNE } from "@/app/dev/notation/demo-tune";
-import { barsText, phraseLabel, phraseList, phraseOfBar, twinMark, twinWords } from "@/components/notation/phrase-words";
+import {
+  barsText,
+  phraseLabel,
+  phraseList,
+  phraseOfBar,
+  twinMark,
+  twinWords,
+} from "@/components/notation/phrase-words";
 
 function mapOf(abc: string): PhraseMap {
   const r = analyze(abc);
@@ -15,7 +22,16 @@ const demo = mapOf(DEMO_TUNE);
 
 describe("phrase words for the overlay", () => {
   it("labels each phrase with its id and form letter, in playing order", () => {
-    expect(phraseList(demo).map(phraseLabel)).toEqual(["A1 · a", "A2 · a′", "A3 · a", "A4 · b", "B1 · c", "B2 · d", "B3 · c", "B4 · b"]);
+    expect(phraseList(demo).map(phraseLabel)).toEqual([
+      "A1 · a",
+      "A2 · a′",
+      "A3 · a",
+      "A4 · b",
+      "B1 · c",
+      "B2 · d",
+      "B3 · c",
+      "B4 · b",
+    ]);
   });
 
   it("names the earlier twin a phrase repeats, exact before near", () => {
@@ -34,7 +50,10 @@ describe("phrase words for the overlay", () => {
   });
 
   it("counts several differing notes in the plural", () => {
-    const map: PhraseMap = { ...demo, twins: [{ first: "A1", second: "A2", kind: "near", differingNotes: 2, differences: [], partial: false }] };
+    const map: PhraseMap = {
+      ...demo,
+      twins: [{ first: "A1", second: "A2", kind: "near", differingNotes: 2, differences: [], partial: false }],
+    };
     expect(twinWords(map, "A2")).toBe("like A1 but 2 notes");
   });
 

@@ -33,7 +33,12 @@ describe("the ABC of one phrase, for looping it", () => {
       expect(tune.warnings ?? []).toEqual([]);
       const loop = model(abc);
       expect(loop.bars.map((b) => b.number)).toEqual(phrase.barNumbers.map((_, i) => i + 1));
-      expect(pitches(loop, loop.bars.map((b) => b.number))).toEqual(pitches(source, phrase.barNumbers));
+      expect(
+        pitches(
+          loop,
+          loop.bars.map((b) => b.number),
+        ),
+      ).toEqual(pitches(source, phrase.barNumbers));
       // Repeat signs are gone (ABC 2.1 §4.8), so the phrase plays once and the player repeats it.
       expect(abc.split("K:")[1]).not.toMatch(/:\||\|:/);
       expect(abc).toMatch(/^X:1\nT:The Cedar Stair[\s\S]*\nK:D\n/);
@@ -66,7 +71,10 @@ describe("the ABC of one phrase, for looping it", () => {
 describe("count-in clicks (common practice)", () => {
   it("clicks each beat of one bar, the first accented", () => {
     expect(countInClicks({ num: 4, den: 4 })).toEqual([
-      { start: 0, accent: true }, { start: 0.25, accent: false }, { start: 0.5, accent: false }, { start: 0.75, accent: false },
+      { start: 0, accent: true },
+      { start: 0.25, accent: false },
+      { start: 0.5, accent: false },
+      { start: 0.75, accent: false },
     ]);
     expect(countInClicks({ num: 3, den: 4 }).map((c) => c.start)).toEqual([0, 0.25, 0.5]);
     expect(countInClicks({ num: 2, den: 2 }).map((c) => c.start)).toEqual([0, 0.5]);

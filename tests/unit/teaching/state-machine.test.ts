@@ -1,5 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { decide, TRANSITIONS, type Actor, type DecideContext, type StageState, type Transition } from "@/lib/teaching/state-machine";
+import {
+  decide,
+  TRANSITIONS,
+  type Actor,
+  type DecideContext,
+  type StageState,
+  type Transition,
+} from "@/lib/teaching/state-machine";
 
 // Every transition × every state × every kind of person (issue 6 item 6, shared design's state machine).
 type Who = "owner" | "otherStudent" | "teacher" | "otherTeacher" | "admin";
@@ -68,7 +75,8 @@ describe("decide: the whole table", () => {
             expect(d.ok).toBe(false);
             // Strangers to the assignment learn nothing (404); the wrong person gets 403; the right person in the wrong state 409.
             const stranger = who === "otherStudent" || who === "otherTeacher";
-            const rightPerson = t === "checkIn" || t === "withdraw" ? who === "owner" : who === "teacher" || who === "admin";
+            const rightPerson =
+              t === "checkIn" || t === "withdraw" ? who === "owner" : who === "teacher" || who === "admin";
             if (!d.ok) expect(d.status).toBe(stranger ? 404 : rightPerson ? 409 : 403);
             if (!d.ok) expect(d.message.length).toBeGreaterThan(10);
           }
@@ -138,7 +146,10 @@ describe("decide: what opens", () => {
       opensNext: true,
       checkInStatus: "signed_off",
     });
-    expect(decide("signOff", ctx("checked_in", "teacher", { isLastStage: true }))).toMatchObject({ ok: true, opensNext: false });
+    expect(decide("signOff", ctx("checked_in", "teacher", { isLastStage: true }))).toMatchObject({
+      ok: true,
+      opensNext: false,
+    });
   });
   it("needs more time and withdraw open nothing and reopen the stage", () => {
     expect(decide("needsMoreTime", ctx("checked_in", "admin"))).toEqual({
@@ -170,6 +181,9 @@ describe("decide: what opens", () => {
     });
   });
   it("teacher sign-off rule: a check-in waits whatever the minutes", () => {
-    expect(decide("checkIn", ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }))).toMatchObject({ ok: true, next: "checked_in" });
+    expect(decide("checkIn", ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }))).toMatchObject({
+      ok: true,
+      next: "checked_in",
+    });
   });
 });

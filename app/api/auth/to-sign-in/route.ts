@@ -9,8 +9,11 @@ export const dynamic = "force-dynamic";
  * It answers with a relative Location, which Next passes on untouched; a redirect made in the
  * middleware itself gets its host rewritten to "localhost" when the app runs on 127.0.0.1.
  */
-export const GET = guardRoute({ action: "account:sign-in", input: z.object({ next: z.string().max(2000).optional() }) }, async (_ctx, input) => {
-  const next = safeNext(input.next);
-  const location = next ? `/sign-in?next=${encodeURIComponent(next)}` : "/sign-in";
-  return new Response(null, { status: 307, headers: { location, "cache-control": "no-store" } });
-});
+export const GET = guardRoute(
+  { action: "account:sign-in", input: z.object({ next: z.string().max(2000).optional() }) },
+  async (_ctx, input) => {
+    const next = safeNext(input.next);
+    const location = next ? `/sign-in?next=${encodeURIComponent(next)}` : "/sign-in";
+    return new Response(null, { status: 307, headers: { location, "cache-control": "no-store" } });
+  },
+);

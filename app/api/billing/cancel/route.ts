@@ -10,5 +10,7 @@ export const dynamic = "force-dynamic";
 export const POST = guardRoute({ action: "billing:manage", input: z.object({}) }, async (ctx) => {
   const user = ctx.user;
   if (!user) throw new Error("guarded route without a user");
-  return Response.json(await setCancelAtPeriodEnd(db(), stripe(), user.id, true), { headers: { "cache-control": "no-store" } });
+  return Response.json(await setCancelAtPeriodEnd(db(), stripe(), user.id, true), {
+    headers: { "cache-control": "no-store" },
+  });
 });

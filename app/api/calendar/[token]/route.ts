@@ -12,7 +12,11 @@ export async function GET(_req: Request, args: { params: Promise<{ token: string
   const { token } = await args.params;
   try {
     const body = await calendarFeed(db(), token);
-    if (body === null) return Response.json({ error: "There is no calendar at this address." }, { status: 404, headers: { "cache-control": "no-store" } });
+    if (body === null)
+      return Response.json(
+        { error: "There is no calendar at this address." },
+        { status: 404, headers: { "cache-control": "no-store" } },
+      );
     return new Response(body, {
       headers: {
         // RFC 5545 §8.1: the text/calendar media type.

@@ -19,7 +19,10 @@ export const GET = guardRoute({ action: "assignment:manage", input: assignmentsP
     countAssignments(db(), teacherId),
   ]);
   const assignments = rows.map((r) => assignmentView(r, now));
-  return Response.json({ assignments, total, page: input.page, pageSize: ASSIGNMENTS_PAGE_SIZE }, { headers: NO_STORE });
+  return Response.json(
+    { assignments, total, page: input.page, pageSize: ASSIGNMENTS_PAGE_SIZE },
+    { headers: NO_STORE },
+  );
 });
 
 /** One tune to one or more students of the roster; each student gets an e-mail. */

@@ -14,7 +14,10 @@ export const dynamic = "force-dynamic";
 export const GET = guardRoute({ action: "course:edit", input: z.object({}) }, async (ctx) => {
   const me = editorOf(ctx.user);
   const rows = await listCourses(db(), me.role === "admin" ? null : me.id);
-  const courses: CourseSummary[] = rows.map(({ publishedAt, updatedAt: _u, ...r }) => ({ ...r, published: publishedAt !== null }));
+  const courses: CourseSummary[] = rows.map(({ publishedAt, updatedAt: _u, ...r }) => ({
+    ...r,
+    published: publishedAt !== null,
+  }));
   return Response.json({ courses }, { headers: NO_STORE });
 });
 

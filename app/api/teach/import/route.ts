@@ -14,13 +14,22 @@ export const dynamic = "force-dynamic";
  * that the answer is 200 and streams one NDJSON line per tune (lib/tunes/import.ts).
  */
 export const POST = guardRoute(
-  { action: "tune:import", input: z.object({ name: z.string().trim().min(1, "Name the file.").max(255) }), from: "query" },
+  {
+    action: "tune:import",
+    input: z.object({ name: z.string().trim().min(1, "Name the file.").max(255) }),
+    from: "query",
+  },
   async (ctx, input, req) => {
     const me = editorOf(ctx.user);
-    if (!IMPORT_FILE_NAME.test(input.name)) throw unprocessable(`“${input.name}” is not an ABC file: choose a file whose name ends in .abc.`);
+    if (!IMPORT_FILE_NAME.test(input.name))
+      throw unprocessable(`“${input.name}” is not an ABC file: choose a file whose name ends in .abc.`);
     const tunes = tunesOfFile(await readUpload(req));
     return new Response(ndjson(importTunes(db(), me.id, tunes)), {
-      headers: { "content-type": "application/x-ndjson; charset=utf-8", "cache-control": "no-store", "x-content-type-options": "nosniff" },
+      headers: {
+        "content-type": "application/x-ndjson; charset=utf-8",
+        "cache-control": "no-store",
+        "x-content-type-options": "nosniff",
+      },
     });
   },
 );

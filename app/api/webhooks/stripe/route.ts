@@ -10,7 +10,11 @@ export const dynamic = "force-dynamic";
 // route outside guardRoute, and the matrix rows show it answers 400 to anyone without a signature.
 export async function POST(req: Request): Promise<Response> {
   const secret = webhookSecret();
-  if (!secret) return Response.json({ error: "Webhooks are not set up here (STRIPE_WEBHOOK_SECRET is missing)." }, { status: 400 });
+  if (!secret)
+    return Response.json(
+      { error: "Webhooks are not set up here (STRIPE_WEBHOOK_SECRET is missing)." },
+      { status: 400 },
+    );
   const raw = await req.text();
   let client;
   try {

@@ -13,25 +13,55 @@ import { cancelNow, currentPeriod, invoiceOutcome, updateSubscription } from "./
 import { planChange, previewLines, readItemChanges, type ProrationBehavior } from "./proration";
 
 const BEHAVIORS = ["create_prorations", "always_invoice", "none"] as const;
-const STATUSES = ["active", "past_due", "unpaid", "canceled", "incomplete", "incomplete_expired", "trialing", "paused", "all", "ended"] as const;
+const STATUSES = [
+  "active",
+  "past_due",
+  "unpaid",
+  "canceled",
+  "incomplete",
+  "incomplete_expired",
+  "trialing",
+  "paused",
+  "all",
+  "ended",
+] as const;
 
-const getSub: Handler = ({ fake, params, ids }) => expand(fake.store, render(fake.store, fake.store.get("subscription", ids[0] ?? "")), params);
+const getSub: Handler = ({ fake, params, ids }) =>
+  expand(fake.store, render(fake.store, fake.store.get("subscription", ids[0] ?? "")), params);
 
 const listSubs: Handler = ({ fake, params }) => {
   const customer = params.str("customer");
   const price = params.str("price");
   const status = params.oneOf("status", STATUSES);
-  const all = fake.store.all("subscription").filter((s) =>
-    (!customer || s.customer === customer) && (!price || s.items.some((i) => i.price === price)) &&
-    // Without status, Stripe lists every subscription that is not canceled.
-    (status === "all" || (status === undefined ? s.status !== "canceled" : status === "ended" ? s.status === "canceled" : s.status === status)));
+  const all = fake.store.all("subscription").filter(
+    (s) =>
+      (!customer || s.customer === customer) &&
+      (!price || s.items.some((i) => i.price === price)) &&
+      // Without status, Stripe lists every subscription that is not canceled.
+      (status === "all" ||
+        (status === undefined
+          ? s.status !== "canceled"
+          : status === "ended"
+            ? s.status === "canceled"
+            : s.status === status)),
+  );
   const page = paginate(all, params);
-  return expand(fake.store, listOf("/v1/subscriptions", page.data.map((s) => render(fake.store, s)), page.hasMore), params);
+  return expand(
+    fake.store,
+    listOf(
+      "/v1/subscriptions",
+      page.data.map((s) => render(fake.store, s)),
+      page.hasMore,
+    ),
+    params,
+  );
 };
 
 const updateSub: Handler = ({ fake, params, ids }) => {
   const sub = fake.store.get("subscription", ids[0] ?? "");
-  const onlyMeta = Object.keys(params.raw).every((k) => k === "metadata" || k === "cancellation_details" || k === "expand");
+  const onlyMeta = Object.keys(params.raw).every(
+    (k) => k === "metadata" || k === "cancellation_details" || k === "expand",
+  );
   if (sub.status === "canceled" && !onlyMeta) {
     throw requestError("A canceled subscription can only update its cancellation_details and metadata.");
   }
@@ -39,7 +69,7 @@ const updateSub: Handler = ({ fake, params, ids }) => {
   const now = fake.clock.now();
   const t = params.int("proration_date") ?? now;
   const changes = readItemChanges(fake, sub, params.list("items"), "items");
-  const pm = params.has("default_payment_method") ? params.nullableStr("default_payment_method") ?? null : undefined;
+  const pm = params.has("default_payment_method") ? (params.nullableStr("default_payment_method") ?? null) : undefined;
   if (pm) fake.store.get("payment_method", pm, "default_payment_method");
   let inv: Invoice | undefined;
   let failed = false;
@@ -47,7 +77,12 @@ const updateSub: Handler = ({ fake, params, ids }) => {
     sub.metadata = params.metadata(sub.metadata);
     if (pm !== undefined) sub.default_payment_method = pm;
     const cd = params.obj("cancellation_details");
-    if (cd) sub.cancellation_details = { ...sub.cancellation_details, comment: cd.nullableStr("comment") ?? sub.cancellation_details.comment, feedback: cd.nullableStr("feedback") ?? sub.cancellation_details.feedback };
+    if (cd)
+      sub.cancellation_details = {
+        ...sub.cancellation_details,
+        comment: cd.nullableStr("comment") ?? sub.cancellation_details.comment,
+        feedback: cd.nullableStr("feedback") ?? sub.cancellation_details.feedback,
+      };
     const atEnd = params.bool("cancel_at_period_end");
     if (atEnd !== undefined) {
       sub.cancel_at_period_end = atEnd;
@@ -57,7 +92,7 @@ const updateSub: Handler = ({ fake, params, ids }) => {
       sub.cancellation_details = { ...sub.cancellation_details, reason: atEnd ? "cancellation_requested" : null };
     }
     if (params.has("cancel_at")) {
-      const at = params.str("cancel_at") === "" ? null : params.int("cancel_at") ?? null;
+      const at = params.str("cancel_at") === "" ? null : (params.int("cancel_at") ?? null);
       sub.cancel_at = at;
       sub.canceled_at = at === null ? null : now;
     }
@@ -74,7 +109,11 @@ const updateSub: Handler = ({ fake, params, ids }) => {
     if (pc.reset) sub.billing_cycle_anchor = pc.reset.start;
     const pending = sub.pending_lines ?? [];
     if (pc.reset || (behavior === "always_invoice" && pc.prorations.length > 0)) {
-      inv = createInvoice(fake, { sub, lines: [...pending, ...pc.prorations, ...(pc.reset?.lines ?? [])], reason: "subscription_update" });
+      inv = createInvoice(fake, {
+        sub,
+        lines: [...pending, ...pc.prorations, ...(pc.reset?.lines ?? [])],
+        reason: "subscription_update",
+      });
       sub.pending_lines = [];
       failed = payInvoice(fake, inv, sub) !== null;
       if (failed && sub.status === "active") sub.status = "past_due";
@@ -94,22 +133,41 @@ const cancelSub: Handler = ({ fake, params, ids }) => {
   return expand(fake.store, render(fake.store, sub), params);
 };
 
-const getInvoice: Handler = ({ fake, params, ids }) => expand(fake.store, render(fake.store, fake.store.get("invoice", ids[0] ?? "")), params);
+const getInvoice: Handler = ({ fake, params, ids }) =>
+  expand(fake.store, render(fake.store, fake.store.get("invoice", ids[0] ?? "")), params);
 
 const listInvoices: Handler = ({ fake, params }) => {
   const customer = params.str("customer");
   const subscription = params.str("subscription");
   const status = params.str("status");
-  const all = fake.store.all("invoice").filter((i) =>
-    (!customer || i.customer === customer) && (!subscription || i.subscription === subscription) && (!status || i.status === status));
+  const all = fake.store
+    .all("invoice")
+    .filter(
+      (i) =>
+        (!customer || i.customer === customer) &&
+        (!subscription || i.subscription === subscription) &&
+        (!status || i.status === status),
+    );
   const page = paginate(all, params);
-  return expand(fake.store, listOf("/v1/invoices", page.data.map((i) => render(fake.store, i)), page.hasMore), params);
+  return expand(
+    fake.store,
+    listOf(
+      "/v1/invoices",
+      page.data.map((i) => render(fake.store, i)),
+      page.hasMore,
+    ),
+    params,
+  );
 };
 
 const invoiceLines: Handler = ({ fake, params, ids }) => {
   const inv = fake.store.get("invoice", ids[0] ?? "");
   const page = paginate(inv.lines, params);
-  return listOf(`/v1/invoices/${inv.id}/lines`, page.data.map((l) => line(fake.store, inv.id, l)), page.hasMore);
+  return listOf(
+    `/v1/invoices/${inv.id}/lines`,
+    page.data.map((l) => line(fake.store, inv.id, l)),
+    page.hasMore,
+  );
 };
 
 const payOpenInvoice: Handler = ({ fake, params, ids }) => {
@@ -132,10 +190,16 @@ const payOpenInvoice: Handler = ({ fake, params, ids }) => {
 
 const preview: Handler = ({ fake, params }) => {
   const subId = params.str("subscription");
-  if (!subId) throw requestError("The stand-in previews subscription invoices only: pass `subscription`.", "parameter_missing", "subscription");
+  if (!subId)
+    throw requestError(
+      "The stand-in previews subscription invoices only: pass `subscription`.",
+      "parameter_missing",
+      "subscription",
+    );
   const sub = fake.store.get("subscription", subId, "subscription");
   const customer = params.str("customer");
-  if (customer && customer !== sub.customer) throw requestError(`The subscription ${sub.id} does not belong to customer ${customer}.`, undefined, "customer");
+  if (customer && customer !== sub.customer)
+    throw requestError(`The subscription ${sub.id} does not belong to customer ${customer}.`, undefined, "customer");
   const details = params.obj("subscription_details");
   const behavior: ProrationBehavior = details?.oneOf("proration_behavior", BEHAVIORS) ?? "create_prorations";
   const t = details?.int("proration_date") ?? fake.clock.now();
@@ -146,7 +210,9 @@ const preview: Handler = ({ fake, params }) => {
   }
   const pc = planChange(fake, sub, changes, behavior, t);
   const draft = draftInvoice(fake, {
-    sub, lines: previewLines(fake, sub, pc, behavior), id: `upcoming_${newId("in")}`,
+    sub,
+    lines: previewLines(fake, sub, pc, behavior),
+    id: `upcoming_${newId("in")}`,
     reason: pc.reset || behavior === "always_invoice" ? "subscription_update" : "subscription_cycle",
   });
   if (pc.prorations.length > 0 || pc.reset) draft.proration_date = t;

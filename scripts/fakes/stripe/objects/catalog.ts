@@ -18,8 +18,15 @@ const createProduct: Handler = ({ fake, params }) => {
   if (fake.store.objects.has(id)) throw invalidParam("id", `Product already exists.`, "resource_already_exists");
   const now = fake.clock.now();
   const p = fake.store.put<Product>({
-    id, object: "product", created: now, updated: now, active: params.bool("active") ?? true, name,
-    description: params.str("description") ?? null, metadata: params.metadata(), default_price: null,
+    id,
+    object: "product",
+    created: now,
+    updated: now,
+    active: params.bool("active") ?? true,
+    name,
+    description: params.str("description") ?? null,
+    metadata: params.metadata(),
+    default_price: null,
   });
   fake.hooks.emit("product.created", p);
   return expand(fake.store, render(fake.store, p), params);
@@ -43,12 +50,24 @@ const updateProduct: Handler = ({ fake, params, ids }) => {
   return expand(fake.store, after, params);
 };
 
-const getProduct: Handler = ({ fake, params, ids }) => expand(fake.store, render(fake.store, fake.store.get("product", ids[0] ?? "")), params);
+const getProduct: Handler = ({ fake, params, ids }) =>
+  expand(fake.store, render(fake.store, fake.store.get("product", ids[0] ?? "")), params);
 
 const listProducts: Handler = ({ fake, params }) => {
   const active = params.bool("active");
-  const page = paginate(fake.store.all("product").filter((p) => active === undefined || p.active === active), params);
-  return expand(fake.store, listOf("/v1/products", page.data.map((p) => render(fake.store, p)), page.hasMore), params);
+  const page = paginate(
+    fake.store.all("product").filter((p) => active === undefined || p.active === active),
+    params,
+  );
+  return expand(
+    fake.store,
+    listOf(
+      "/v1/products",
+      page.data.map((p) => render(fake.store, p)),
+      page.hasMore,
+    ),
+    params,
+  );
 };
 
 const createPrice: Handler = ({ fake, params }) => {
@@ -73,15 +92,31 @@ const createPrice: Handler = ({ fake, params }) => {
   let product = productId ? fake.store.get("product", productId, "product") : undefined;
   if (!product) {
     product = fake.store.put<Product>({
-      id: newId("prod"), object: "product", created: now, updated: now, active: true,
-      name: productData?.reqStr("name") ?? "", description: null, metadata: productData?.metadata() ?? {}, default_price: null,
+      id: newId("prod"),
+      object: "product",
+      created: now,
+      updated: now,
+      active: true,
+      name: productData?.reqStr("name") ?? "",
+      description: null,
+      metadata: productData?.metadata() ?? {},
+      default_price: null,
     });
     fake.hooks.emit("product.created", product);
   }
   const price = fake.store.put<Price>({
-    id: newId("price"), object: "price", created: now, active: params.bool("active") ?? true,
-    currency: currency.toLowerCase(), unit_amount: unitAmount, product: product.id, nickname: params.str("nickname") ?? null,
-    lookup_key: params.str("lookup_key") ?? null, metadata: params.metadata(), type: recurring ? "recurring" : "one_time", recurring,
+    id: newId("price"),
+    object: "price",
+    created: now,
+    active: params.bool("active") ?? true,
+    currency: currency.toLowerCase(),
+    unit_amount: unitAmount,
+    product: product.id,
+    nickname: params.str("nickname") ?? null,
+    lookup_key: params.str("lookup_key") ?? null,
+    metadata: params.metadata(),
+    type: recurring ? "recurring" : "one_time",
+    recurring,
   });
   fake.hooks.emit("price.created", price);
   return expand(fake.store, render(fake.store, price), params);
@@ -102,16 +137,31 @@ const updatePrice: Handler = ({ fake, params, ids }) => {
   return expand(fake.store, after, params);
 };
 
-const getPrice: Handler = ({ fake, params, ids }) => expand(fake.store, render(fake.store, fake.store.get("price", ids[0] ?? "")), params);
+const getPrice: Handler = ({ fake, params, ids }) =>
+  expand(fake.store, render(fake.store, fake.store.get("price", ids[0] ?? "")), params);
 
 const listPrices: Handler = ({ fake, params }) => {
   const active = params.bool("active");
   const product = params.str("product");
   const keys = params.strings("lookup_keys");
-  const all = fake.store.all("price").filter((p) =>
-    (active === undefined || p.active === active) && (!product || p.product === product) && (keys.length === 0 || (p.lookup_key !== null && keys.includes(p.lookup_key))));
+  const all = fake.store
+    .all("price")
+    .filter(
+      (p) =>
+        (active === undefined || p.active === active) &&
+        (!product || p.product === product) &&
+        (keys.length === 0 || (p.lookup_key !== null && keys.includes(p.lookup_key))),
+    );
   const page = paginate(all, params);
-  return expand(fake.store, listOf("/v1/prices", page.data.map((p) => render(fake.store, p)), page.hasMore), params);
+  return expand(
+    fake.store,
+    listOf(
+      "/v1/prices",
+      page.data.map((p) => render(fake.store, p)),
+      page.hasMore,
+    ),
+    params,
+  );
 };
 
 export function catalogRoutes(): Array<[string, RegExp, Handler]> {

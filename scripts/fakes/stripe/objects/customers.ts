@@ -11,10 +11,19 @@ const create: Handler = ({ fake, params }) => {
   const pm = params.obj("invoice_settings")?.str("default_payment_method") ?? null;
   if (pm) fake.store.get("payment_method", pm, "invoice_settings[default_payment_method]");
   const c = fake.store.put<Customer>({
-    id: newId("cus"), object: "customer", created: fake.clock.now(), email: params.str("email") ?? null,
-    name: params.str("name") ?? null, description: params.str("description") ?? null, metadata: params.metadata(),
-    balance: params.int("balance") ?? 0, currency: null, invoice_prefix: newId("x").slice(2, 10).toUpperCase(),
-    next_invoice_sequence: 1, delinquent: false, invoice_settings: { default_payment_method: pm },
+    id: newId("cus"),
+    object: "customer",
+    created: fake.clock.now(),
+    email: params.str("email") ?? null,
+    name: params.str("name") ?? null,
+    description: params.str("description") ?? null,
+    metadata: params.metadata(),
+    balance: params.int("balance") ?? 0,
+    currency: null,
+    invoice_prefix: newId("x").slice(2, 10).toUpperCase(),
+    next_invoice_sequence: 1,
+    delinquent: false,
+    invoice_settings: { default_payment_method: pm },
   });
   fake.hooks.emit("customer.created", c);
   return expand(fake.store, render(fake.store, c), params);
@@ -46,13 +55,22 @@ const list: Handler = ({ fake, params }) => {
   const email = params.str("email");
   const all = fake.store.all("customer").filter((c) => email === undefined || c.email === email);
   const page = paginate(all, params);
-  return expand(fake.store, listOf("/v1/customers", page.data.map((c) => render(fake.store, c)), page.hasMore), params);
+  return expand(
+    fake.store,
+    listOf(
+      "/v1/customers",
+      page.data.map((c) => render(fake.store, c)),
+      page.hasMore,
+    ),
+    params,
+  );
 };
 
 const remove: Handler = ({ fake, ids }) => {
   const c = fake.store.get("customer", ids[0] ?? "");
   // Stripe docs: deleting a customer "immediately cancels any active subscriptions on the customer".
-  for (const sub of fake.store.all("subscription")) if (sub.customer === c.id && sub.status !== "canceled") cancelNow(fake, sub, "cancellation_requested");
+  for (const sub of fake.store.all("subscription"))
+    if (sub.customer === c.id && sub.status !== "canceled") cancelNow(fake, sub, "cancellation_requested");
   fake.store.objects.delete(c.id);
   fake.hooks.emit("customer.deleted", c);
   return { id: c.id, object: "customer", deleted: true };
@@ -63,8 +81,15 @@ const paymentMethod: Handler = ({ fake, params, ids }) =>
 
 const customerPaymentMethods: Handler = ({ fake, params, ids }) => {
   const c = fake.store.get("customer", ids[0] ?? "", "customer");
-  const page = paginate(fake.store.all("payment_method").filter((p) => p.customer === c.id), params);
-  return listOf(`/v1/customers/${c.id}/payment_methods`, page.data.map((p) => render(fake.store, p)), page.hasMore);
+  const page = paginate(
+    fake.store.all("payment_method").filter((p) => p.customer === c.id),
+    params,
+  );
+  return listOf(
+    `/v1/customers/${c.id}/payment_methods`,
+    page.data.map((p) => render(fake.store, p)),
+    page.hasMore,
+  );
 };
 
 export function customerRoutes(): Array<[string, RegExp, Handler]> {

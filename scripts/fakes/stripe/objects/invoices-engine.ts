@@ -13,19 +13,44 @@ import { chargeCard, type ChargeResult } from "./cards";
 export const RETRY_DELAYS_DAYS = [3, 5];
 const DAY = 86_400;
 
-export function itemLine(fake: Fake, sub: Subscription, itemId: string, price: Price, quantity: number, period: { start: number; end: number }): InvoiceLine {
+export function itemLine(
+  fake: Fake,
+  sub: Subscription,
+  itemId: string,
+  price: Price,
+  quantity: number,
+  period: { start: number; end: number },
+): InvoiceLine {
   const name = fake.store.find("product", price.product)?.name ?? price.nickname ?? price.id;
-  const per = price.recurring ? ` / ${price.recurring.interval_count > 1 ? `${price.recurring.interval_count} ` : ""}${price.recurring.interval}` : "";
+  const per = price.recurring
+    ? ` / ${price.recurring.interval_count > 1 ? `${price.recurring.interval_count} ` : ""}${price.recurring.interval}`
+    : "";
   return {
-    id: newId("il"), object: "line_item", amount: price.unit_amount * quantity, currency: price.currency,
-    description: `${quantity} × ${name} (at ${money(price.unit_amount, price.currency)}${per})`, quantity, period,
-    price: price.id, proration: false, subscription: sub.id, subscription_item: itemId, metadata: {},
+    id: newId("il"),
+    object: "line_item",
+    amount: price.unit_amount * quantity,
+    currency: price.currency,
+    description: `${quantity} × ${name} (at ${money(price.unit_amount, price.currency)}${per})`,
+    quantity,
+    period,
+    price: price.id,
+    proration: false,
+    subscription: sub.id,
+    subscription_item: itemId,
+    metadata: {},
   };
 }
 
 /** An invoice built but not stored: used as is by the preview, stored by createInvoice. */
 export function draftInvoice(
-  fake: Fake, args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason; id?: string; usage?: { start: number; end: number } },
+  fake: Fake,
+  args: {
+    sub: Subscription;
+    lines: InvoiceLine[];
+    reason: BillingReason;
+    id?: string;
+    usage?: { start: number; end: number };
+  },
 ): Invoice {
   const now = fake.clock.now();
   const customer = fake.store.get("customer", args.sub.customer);
@@ -33,19 +58,42 @@ export function draftInvoice(
   const starting = customer.balance;
   const amountDue = Math.max(0, total + starting);
   return {
-    id: args.id ?? newId("in"), object: "invoice", created: now, customer: customer.id, currency: args.sub.currency,
-    status: "draft", billing_reason: args.reason, number: null, receipt_number: null, subscription: args.sub.id,
-    lines: args.lines, subtotal: total, total, starting_balance: starting, ending_balance: null, amount_due: amountDue,
-    amount_paid: 0, amount_remaining: amountDue, attempt_count: 0, attempted: false, next_payment_attempt: null,
+    id: args.id ?? newId("in"),
+    object: "invoice",
+    created: now,
+    customer: customer.id,
+    currency: args.sub.currency,
+    status: "draft",
+    billing_reason: args.reason,
+    number: null,
+    receipt_number: null,
+    subscription: args.sub.id,
+    lines: args.lines,
+    subtotal: total,
+    total,
+    starting_balance: starting,
+    ending_balance: null,
+    amount_due: amountDue,
+    amount_paid: 0,
+    amount_remaining: amountDue,
+    attempt_count: 0,
+    attempted: false,
+    next_payment_attempt: null,
     // Stripe's invoice period is the usage period before the invoice (for a renewal, the period that just
     // ended; otherwise the moment it is made); the service period is on each line.
-    period_start: args.usage?.start ?? now, period_end: args.usage?.end ?? now, metadata: {}, payments: [],
+    period_start: args.usage?.start ?? now,
+    period_end: args.usage?.end ?? now,
+    metadata: {},
+    payments: [],
     status_transitions: { finalized_at: null, paid_at: null, voided_at: null, marked_uncollectible_at: null },
   };
 }
 
 /** Creates and finalizes the invoice; a zero amount due is paid on the spot, as Stripe does. */
-export function createInvoice(fake: Fake, args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason; usage?: { start: number; end: number } }): Invoice {
+export function createInvoice(
+  fake: Fake,
+  args: { sub: Subscription; lines: InvoiceLine[]; reason: BillingReason; usage?: { start: number; end: number } },
+): Invoice {
   const inv = draftInvoice(fake, args);
   const customer = fake.store.get("customer", inv.customer);
   const now = fake.clock.now();
@@ -64,7 +112,8 @@ export function createInvoice(fake: Fake, args: { sub: Subscription; lines: Invo
 }
 
 export function paymentMethodFor(fake: Fake, sub: Subscription): PaymentMethod | undefined {
-  const id = sub.default_payment_method ?? fake.store.find("customer", sub.customer)?.invoice_settings.default_payment_method;
+  const id =
+    sub.default_payment_method ?? fake.store.find("customer", sub.customer)?.invoice_settings.default_payment_method;
   return id ? fake.store.find("payment_method", id) : undefined;
 }
 
@@ -74,9 +123,16 @@ export function recordAttempt(fake: Fake, inv: Invoice, result: ChargeResult): C
   inv.attempt_count += 1;
   inv.attempted = true;
   inv.payments.push({
-    id: newId("inpay"), object: "invoice_payment", created: now, amount_paid: result.error ? null : inv.amount_due,
-    amount_requested: inv.amount_due, currency: inv.currency, invoice: inv.id, is_default: !result.error,
-    status: result.error ? "canceled" : "paid", payment: { type: "payment_intent", payment_intent: result.intent.id },
+    id: newId("inpay"),
+    object: "invoice_payment",
+    created: now,
+    amount_paid: result.error ? null : inv.amount_due,
+    amount_requested: inv.amount_due,
+    currency: inv.currency,
+    invoice: inv.id,
+    is_default: !result.error,
+    status: result.error ? "canceled" : "paid",
+    payment: { type: "payment_intent", payment_intent: result.intent.id },
     status_transitions: { canceled_at: result.error ? now : null, paid_at: result.error ? null : now },
   });
   if (result.error) {
@@ -97,8 +153,16 @@ export function recordAttempt(fake: Fake, inv: Invoice, result: ChargeResult): C
 export function payInvoice(fake: Fake, inv: Invoice, sub: Subscription, pm?: PaymentMethod): CardError | null {
   if (inv.status !== "open") return null;
   const result = chargeCard(fake, {
-    amount: inv.amount_due, currency: inv.currency, customer: inv.customer, paymentMethod: pm ?? paymentMethodFor(fake, sub),
-    description: inv.billing_reason === "subscription_create" ? "Subscription creation" : inv.billing_reason === "subscription_update" ? "Subscription update" : "Subscription cycle",
+    amount: inv.amount_due,
+    currency: inv.currency,
+    customer: inv.customer,
+    paymentMethod: pm ?? paymentMethodFor(fake, sub),
+    description:
+      inv.billing_reason === "subscription_create"
+        ? "Subscription creation"
+        : inv.billing_reason === "subscription_update"
+          ? "Subscription update"
+          : "Subscription cycle",
   });
   return recordAttempt(fake, inv, result);
 }

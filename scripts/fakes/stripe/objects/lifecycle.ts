@@ -84,7 +84,10 @@ export function retryInvoice(fake: Fake, inv: Invoice, sub: Subscription): boole
   return !failed;
 }
 
-interface Due { at: number; run: () => void }
+interface Due {
+  at: number;
+  run: () => void;
+}
 
 function nextDue(fake: Fake, upTo: number): Due | null {
   let best: Due | null = null;
@@ -94,8 +97,12 @@ function nextDue(fake: Fake, upTo: number): Due | null {
   for (const sub of fake.store.all("subscription")) {
     if (sub.status !== "active" && sub.status !== "past_due" && sub.status !== "trialing") continue;
     const { end } = currentPeriod(sub);
-    if (sub.cancel_at !== null && sub.cancel_at < end) consider(sub.cancel_at, () => cancelNow(fake, sub, "cancellation_requested"));
-    else consider(end, () => (sub.cancel_at_period_end ? cancelNow(fake, sub, "cancellation_requested") : renew(fake, sub)));
+    if (sub.cancel_at !== null && sub.cancel_at < end)
+      consider(sub.cancel_at, () => cancelNow(fake, sub, "cancellation_requested"));
+    else
+      consider(end, () =>
+        sub.cancel_at_period_end ? cancelNow(fake, sub, "cancellation_requested") : renew(fake, sub),
+      );
   }
   for (const inv of fake.store.all("invoice")) {
     if (inv.status !== "open" || inv.next_payment_attempt === null || !inv.subscription) continue;

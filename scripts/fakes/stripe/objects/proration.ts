@@ -16,7 +16,11 @@ import { itemLine } from "./invoices-engine";
 
 export type ProrationBehavior = "create_prorations" | "always_invoice" | "none";
 
-export interface ItemChange { item: SubscriptionItem; price: Price; quantity: number }
+export interface ItemChange {
+  item: SubscriptionItem;
+  price: Price;
+  quantity: number;
+}
 
 export interface PlanChange {
   changes: ItemChange[];
@@ -26,17 +30,38 @@ export interface PlanChange {
   reset: { start: number; end: number; lines: InvoiceLine[] } | null;
 }
 
-function prorationLine(fake: Fake, sub: Subscription, item: SubscriptionItem, price: Price, quantity: number, t: number, credit: boolean): InvoiceLine {
+function prorationLine(
+  fake: Fake,
+  sub: Subscription,
+  item: SubscriptionItem,
+  price: Price,
+  quantity: number,
+  t: number,
+  credit: boolean,
+): InvoiceLine {
   const { current_period_start: start, current_period_end: end } = item;
   const share = end > start ? (end - Math.min(Math.max(t, start), end)) / (end - start) : 0;
   const amount = Math.round(price.unit_amount * quantity * share) * (credit ? -1 : 1);
   const name = fake.store.find("product", price.product)?.name ?? price.id;
-  const when = new Date(t * 1000).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+  const when = new Date(t * 1000).toLocaleDateString("en-GB", {
+    day: "numeric",
+    month: "short",
+    year: "numeric",
+    timeZone: "UTC",
+  });
   return {
-    id: newId("il"), object: "line_item", amount, currency: price.currency,
+    id: newId("il"),
+    object: "line_item",
+    amount,
+    currency: price.currency,
     description: `${credit ? "Unused" : "Remaining"} time on ${quantity > 1 ? `${quantity} × ` : ""}${name} after ${when}`,
-    quantity, period: { start: Math.max(t, start), end }, price: price.id, proration: true, subscription: sub.id,
-    subscription_item: item.id, metadata: { proration_date: isoDate(t) },
+    quantity,
+    period: { start: Math.max(t, start), end },
+    price: price.id,
+    proration: true,
+    subscription: sub.id,
+    subscription_item: item.id,
+    metadata: { proration_date: isoDate(t) },
   };
 }
 
@@ -45,23 +70,44 @@ export function readItemChanges(fake: Fake, sub: Subscription, list: Params[], p
   return list.map((p, i) => {
     const id = p.str("id");
     const item = id ? sub.items.find((x) => x.id === id) : sub.items.length === 1 ? sub.items[0] : undefined;
-    if (!item) throw invalidParam(`${param}[${i}][id]`, id ? `No such subscription item: '${id}'` : `Missing required param: ${param}[${i}][id].`, id ? "resource_missing" : "parameter_missing");
+    if (!item)
+      throw invalidParam(
+        `${param}[${i}][id]`,
+        id ? `No such subscription item: '${id}'` : `Missing required param: ${param}[${i}][id].`,
+        id ? "resource_missing" : "parameter_missing",
+      );
     const priceId = p.str("price") ?? item.price;
     const price = fake.store.get("price", priceId, `${param}[${i}][price]`);
-    if (!price.active) throw invalidParam(`${param}[${i}][price]`, `The price specified (${price.id}) is inactive. This field only accepts active prices.`);
-    if (price.currency !== sub.currency) throw invalidParam(`${param}[${i}][price]`, `The price's currency (${price.currency}) must match the subscription's (${sub.currency}).`);
+    if (!price.active)
+      throw invalidParam(
+        `${param}[${i}][price]`,
+        `The price specified (${price.id}) is inactive. This field only accepts active prices.`,
+      );
+    if (price.currency !== sub.currency)
+      throw invalidParam(
+        `${param}[${i}][price]`,
+        `The price's currency (${price.currency}) must match the subscription's (${sub.currency}).`,
+      );
     const quantity = p.int("quantity") ?? item.quantity;
     return { item, price, quantity };
   });
 }
 
-export function planChange(fake: Fake, sub: Subscription, changes: ItemChange[], behavior: ProrationBehavior, t: number): PlanChange {
+export function planChange(
+  fake: Fake,
+  sub: Subscription,
+  changes: ItemChange[],
+  behavior: ProrationBehavior,
+  t: number,
+): PlanChange {
   const prorations: InvoiceLine[] = [];
   let reset: PlanChange["reset"] = null;
   for (const { item, price, quantity } of changes) {
     const old = fake.store.get("price", item.price);
     if (old.id === price.id && quantity === item.quantity) continue;
-    const intervalChanges = old.recurring?.interval !== price.recurring?.interval || old.recurring?.interval_count !== price.recurring?.interval_count;
+    const intervalChanges =
+      old.recurring?.interval !== price.recurring?.interval ||
+      old.recurring?.interval_count !== price.recurring?.interval_count;
     if (behavior !== "none" || intervalChanges) {
       if (behavior !== "none") prorations.push(prorationLine(fake, sub, item, old, item.quantity, t, true));
       if (!intervalChanges) prorations.push(prorationLine(fake, sub, item, price, quantity, t, false));
@@ -77,7 +123,12 @@ export function planChange(fake: Fake, sub: Subscription, changes: ItemChange[],
 }
 
 /** The lines of the invoice a change would bring, as invoices.createPreview shows them. */
-export function previewLines(fake: Fake, sub: Subscription, pc: PlanChange, behavior: ProrationBehavior): InvoiceLine[] {
+export function previewLines(
+  fake: Fake,
+  sub: Subscription,
+  pc: PlanChange,
+  behavior: ProrationBehavior,
+): InvoiceLine[] {
   // Prorations waiting from earlier changes are swept into whichever invoice comes next.
   const waiting = sub.pending_lines ?? [];
   if (pc.reset) return [...waiting, ...pc.prorations, ...pc.reset.lines];
@@ -89,7 +140,12 @@ export function previewLines(fake: Fake, sub: Subscription, pc: PlanChange, beha
     const price = change?.price ?? fake.store.get("price", item.price);
     const rec = price.recurring ?? { interval: "month" as const, interval_count: 1 };
     const start = item.current_period_end;
-    lines.push(itemLine(fake, sub, item.id, price, change?.quantity ?? item.quantity, { start, end: periodEnd(sub.billing_cycle_anchor, start, rec.interval, rec.interval_count) }));
+    lines.push(
+      itemLine(fake, sub, item.id, price, change?.quantity ?? item.quantity, {
+        start,
+        end: periodEnd(sub.billing_cycle_anchor, start, rec.interval, rec.interval_count),
+      }),
+    );
   }
   return lines;
 }

@@ -6,4 +6,6 @@ import { enrolmentsQuery, parseQuery, rawQuery } from "@/lib/billing/admin/param
 export const dynamic = "force-dynamic";
 
 /** Every enrolment row matching the table's filters, in its order, as streamed CSV (RFC 4180). */
-export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => enrolmentsCsv(db(), parseQuery(enrolmentsQuery, raw)));
+export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) =>
+  enrolmentsCsv(db(), parseQuery(enrolmentsQuery, raw)),
+);

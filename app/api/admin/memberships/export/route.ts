@@ -6,4 +6,6 @@ import { membershipsQuery, parseQuery, rawQuery } from "@/lib/billing/admin/para
 export const dynamic = "force-dynamic";
 
 /** Every membership row matching the table's filters, in its order, as streamed CSV (RFC 4180). */
-export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => membershipsCsv(db(), parseQuery(membershipsQuery, raw)));
+export const GET = guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) =>
+  membershipsCsv(db(), parseQuery(membershipsQuery, raw)),
+);

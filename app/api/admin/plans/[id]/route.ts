@@ -9,10 +9,13 @@ const NO_STORE = { "cache-control": "no-store" };
 const id = z.object({ id: z.string() });
 
 /** Rename, reword what it opens, or set a new price (a new Stripe price, for new members). */
-export const PATCH = guardRoute({ action: "plans:manage", input: planPatch.extend(id.shape) }, async (_ctx, { id: planId, ...patch }) => {
-  const row = await updatePlan(db(), stripe(), planId, patch);
-  return Response.json({ plan: planJson(row) }, { headers: NO_STORE });
-});
+export const PATCH = guardRoute(
+  { action: "plans:manage", input: planPatch.extend(id.shape) },
+  async (_ctx, { id: planId, ...patch }) => {
+    const row = await updatePlan(db(), stripe(), planId, patch);
+    return Response.json({ plan: planJson(row) }, { headers: NO_STORE });
+  },
+);
 
 /** Deletes a plan nobody used; 409 for one in use ("retire it instead"). */
 export const DELETE = guardRoute({ action: "plans:manage", input: id }, async (_ctx, input) => {
@@ -22,7 +25,10 @@ export const DELETE = guardRoute({ action: "plans:manage", input: id }, async (_
 
 /** { action: "retire" }: closes the plan to new members; existing members keep it. */
 export const POST = guardRoute(
-  { action: "plans:manage", input: id.extend({ action: z.literal("retire", { error: "The only action is “retire”." }) }) },
+  {
+    action: "plans:manage",
+    input: id.extend({ action: z.literal("retire", { error: "The only action is “retire”." }) }),
+  },
   async (_ctx, input) => {
     const row = await retirePlan(db(), stripe(), input.id);
     return Response.json({ plan: planJson(row) }, { headers: NO_STORE });

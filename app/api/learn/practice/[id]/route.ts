@@ -15,7 +15,10 @@ export const PATCH = guardRoute({ action: "practice:write", input }, async (ctx,
   return privateJson({ id });
 });
 
-export const DELETE = guardRoute({ action: "practice:write", input: z.object({ id: z.string().min(1).max(100) }) }, async (ctx, input) => {
-  await removePractice(db(), personOf(ctx), input.id);
-  return new Response(null, { status: 204, headers: { "cache-control": "private, no-store" } });
-});
+export const DELETE = guardRoute(
+  { action: "practice:write", input: z.object({ id: z.string().min(1).max(100) }) },
+  async (ctx, input) => {
+    await removePractice(db(), personOf(ctx), input.id);
+    return new Response(null, { status: 204, headers: { "cache-control": "private, no-store" } });
+  },
+);

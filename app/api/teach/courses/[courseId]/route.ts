@@ -16,7 +16,9 @@ export const GET = guardRoute({ action: "course:edit", input: courseId }, async 
 export const PATCH = guardRoute({ action: "course:edit", input: coursePatch }, async (ctx, input) => {
   const course = await editableCourse(db(), editorOf(ctx.user), input.courseId);
   await patchCourse(db(), course, input);
-  return Response.json(await courseView(db(), (await editableCourse(db(), editorOf(ctx.user), course.id))), { headers: NO_STORE });
+  return Response.json(await courseView(db(), await editableCourse(db(), editorOf(ctx.user), course.id)), {
+    headers: NO_STORE,
+  });
 });
 
 export const DELETE = guardRoute({ action: "course:edit", input: courseId }, async (ctx, input) => {

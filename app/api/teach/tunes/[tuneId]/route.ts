@@ -29,7 +29,10 @@ export const PUT = guardRoute({ action: "tune:edit", input: tuneInput.extend(tun
 export const DELETE = guardRoute({ action: "tune:edit", input: tuneId }, async (ctx, input) => {
   const tune = await editableTune(db(), editorOf(ctx.user), input.tuneId);
   const used = await coursesUsingTune(db(), tune.id);
-  if (used.length) throw conflict(`“${tune.title}” is on the ladder of ${used.map((c) => `“${c.title}”`).join(", ")}; take it off there first.`);
+  if (used.length)
+    throw conflict(
+      `“${tune.title}” is on the ladder of ${used.map((c) => `“${c.title}”`).join(", ")}; take it off there first.`,
+    );
   try {
     await deleteTune(db(), tune.id);
   } catch (e) {
@@ -41,6 +44,7 @@ export const DELETE = guardRoute({ action: "tune:edit", input: tuneId }, async (
 
 /** PostgreSQL's foreign_key_violation (SQLSTATE 23503), whether or not drizzle wrapped the error. */
 function isForeignKeyViolation(e: unknown): boolean {
-  for (let err: unknown = e; err instanceof Error; err = err.cause) if (Reflect.get(err, "code") === "23503") return true;
+  for (let err: unknown = e; err instanceof Error; err = err.cause)
+    if (Reflect.get(err, "code") === "23503") return true;
   return false;
 }

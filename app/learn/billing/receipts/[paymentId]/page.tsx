@@ -9,7 +9,11 @@ import { formatDay, formatMoney } from "@/lib/billing/money";
 
 export const metadata: Metadata = { title: "Receipt" };
 
-const KIND = { new: "Membership, first payment", renewal: "Membership renewal", plan_change: "Change of plan" } as const;
+const KIND = {
+  new: "Membership, first payment",
+  renewal: "Membership renewal",
+  plan_change: "Change of plan",
+} as const;
 
 /** One's own payment only: another person's, or none, is "not found". */
 export default async function ReceiptPage({ params }: { params: Promise<{ paymentId: string }> }) {
@@ -22,9 +26,13 @@ export default async function ReceiptPage({ params }: { params: Promise<{ paymen
   return (
     <PageContainer className="flex max-w-prose flex-col gap-6 print:py-0">
       <header className="flex flex-col gap-1">
-        <p className="text-small font-semibold tracking-widest text-cedar uppercase">Rosinwood · Larchmoor Fiddle School</p>
+        <p className="text-small font-semibold tracking-widest text-cedar uppercase">
+          Rosinwood · Larchmoor Fiddle School
+        </p>
         <h1 className="text-h2 font-semibold">Receipt {p.receiptNumber ?? p.stripeInvoiceId}</h1>
-        <p className="text-bark">Paid on {formatDay(p.createdAt)} by {user.name} ({user.email})</p>
+        <p className="text-bark">
+          Paid on {formatDay(p.createdAt)} by {user.name} ({user.email})
+        </p>
       </header>
       <dl className="grid grid-cols-[auto_1fr] gap-x-6 gap-y-2">
         <dt className="font-semibold">For</dt>

@@ -5,7 +5,10 @@ import { requireArea } from "@/lib/auth/next-context";
 
 export const metadata: Metadata = { title: "Print a stage" };
 
-export default async function LearnPrintPage(props: { params: Promise<{ tuneId: string }>; searchParams: Promise<{ stage?: string }> }) {
+export default async function LearnPrintPage(props: {
+  params: Promise<{ tuneId: string }>;
+  searchParams: Promise<{ stage?: string }>;
+}) {
   const user = await requireArea("area:learn");
   const { tuneId } = await props.params;
   const { stage } = await props.searchParams;

@@ -6,7 +6,10 @@ import { getCurrentUser } from "@/lib/auth/current-user";
 export const metadata: Metadata = { title: "Print a stage" };
 export const dynamic = "force-dynamic";
 
-export default async function TasterPrintPage(props: { params: Promise<{ tuneId: string }>; searchParams: Promise<{ stage?: string }> }) {
+export default async function TasterPrintPage(props: {
+  params: Promise<{ tuneId: string }>;
+  searchParams: Promise<{ stage?: string }>;
+}) {
   const [{ tuneId }, { stage }, user] = await Promise.all([props.params, props.searchParams, getCurrentUser()]);
   return (
     <PageContainer>

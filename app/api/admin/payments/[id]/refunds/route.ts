@@ -10,8 +10,16 @@ export const dynamic = "force-dynamic";
 
 const refundInput = z.strictObject({
   id: z.string(),
-  amount: z.number({ error: "must be a whole number of minor units (pence, cents)" }).int("must be a whole number of minor units (pence, cents)").positive("must be above zero").optional(),
-  reason: z.string({ error: "is required: say why the payment is refunded" }).trim().min(1, "is required: say why the payment is refunded").max(500, "must be at most 500 characters"),
+  amount: z
+    .number({ error: "must be a whole number of minor units (pence, cents)" })
+    .int("must be a whole number of minor units (pence, cents)")
+    .positive("must be above zero")
+    .optional(),
+  reason: z
+    .string({ error: "is required: say why the payment is refunded" })
+    .trim()
+    .min(1, "is required: say why the payment is refunded")
+    .max(500, "must be at most 500 characters"),
 });
 
 /** A full (no amount) or partial refund of one payment, through Stripe, with the admin's reason. */
@@ -19,7 +27,11 @@ export const POST = guardRoute({ action: "payments:refund", input: rawBody }, as
   const input = parseQuery(refundInput, raw);
   if (!z.uuid().safeParse(input.id).success) throw notFound("We couldn't find that payment.");
   try {
-    const result = await refundPayment(db(), { id: ctx.user?.id ?? "" }, { paymentId: input.id, amount: input.amount, reason: input.reason });
+    const result = await refundPayment(
+      db(),
+      { id: ctx.user?.id ?? "" },
+      { paymentId: input.id, amount: input.amount, reason: input.reason },
+    );
     return Response.json(result, { status: 201, headers: { "cache-control": "no-store" } });
   } catch (e) {
     if (e instanceof RefundError) {
@@ -30,7 +42,8 @@ export const POST = guardRoute({ action: "payments:refund", input: rawBody }, as
     if (e instanceof Stripe.errors.StripeInvalidRequestError || e instanceof Stripe.errors.StripeCardError) {
       throw unprocessable(`Stripe refused the refund: ${e.message}`, { amount: e.message });
     }
-    if (e instanceof Stripe.errors.StripeError) throw new HttpError(502, "Stripe could not be reached; nothing was refunded. Please try again.");
+    if (e instanceof Stripe.errors.StripeError)
+      throw new HttpError(502, "Stripe could not be reached; nothing was refunded. Please try again.");
     throw e;
   }
 });

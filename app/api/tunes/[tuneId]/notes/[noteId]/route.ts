@@ -9,7 +9,9 @@ import { noteInput } from "@/lib/catalogue/schemas";
 export const dynamic = "force-dynamic";
 
 const ids = z.object({ tuneId: z.string().min(1).max(100), noteId: z.string().min(1).max(100) });
-const patch = ids.extend(noteInput.partial().shape).refine((v) => v.bar !== undefined || v.body !== undefined, { message: "Nothing to change." });
+const patch = ids
+  .extend(noteInput.partial().shape)
+  .refine((v) => v.bar !== undefined || v.body !== undefined, { message: "Nothing to change." });
 
 /** Change one of your own notes; anyone else's note id answers 404. */
 export const PATCH = guardRoute({ action: "notes:write", input: patch }, async (ctx, v) => {
