@@ -1,4 +1,4 @@
-// SQL for the course builder (issue 5 item 1). Who may change which course and what the ladder
+// SQL for the ladder bench (issue 5 item 1). Who may change which course and what the ladder
 // must keep are decided in lib/courses/*; these only read and write rows.
 import { and, asc, desc, eq, inArray, sql } from "drizzle-orm";
 import type { Tx as Db } from "./auth";

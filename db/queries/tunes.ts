@@ -106,7 +106,7 @@ export async function dropStagesAfter(db: Db, tuneId: string, count: number): Pr
   await db.delete(tuneStages).where(and(eq(tuneStages.tuneId, tuneId), gt(tuneStages.index, count)));
 }
 
-/** The courses whose ladders hold this tune, for the editor ("used in") and the course builder. */
+/** The courses whose ladders hold this tune, for the editor ("used in") and the ladder bench. */
 export async function coursesUsingTune(db: Db, tuneId: string) {
   return db
     .selectDistinct({ id: courses.id, title: courses.title })

@@ -1,4 +1,4 @@
-// What the course builder's routes answer, as plain types the browser can import.
+// What the ladder bench's routes answer, as plain types the browser can import.
 import type { RuleProblem } from "./rules";
 
 export interface CourseSummary {

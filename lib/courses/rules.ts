@@ -1,4 +1,4 @@
-// The course builder's rules (issue 5 item 1), pure so they can be tested alone and shown in the
+// The ladder bench's rules (issue 5 item 1), pure so they can be tested alone and shown in the
 // browser as the teacher works:
 // - a published course is never empty: it has at least one rung (an empty grade is only a hint,
 //   so a teacher can add a grade to a published course and then fill it);
@@ -85,7 +85,7 @@ export function courseHints(grades: readonly GradeFacts[]): string[] {
   return out;
 }
 
-/** The ladder's order as the builder sends it: every grade with its rungs, top to bottom. */
+/** The ladder's order as the ladder bench sends it: every grade with its rungs, top to bottom. */
 export interface LadderOrder {
   grades: { id: string; rungs: string[] }[];
 }

@@ -1,4 +1,4 @@
-// Inputs of the course builder's forms and routes, the same schemas in the browser and the route
+// Inputs of the ladder bench's forms and routes, the same schemas in the browser and the route
 // handlers (ENGINEERING.md: zod on both sides).
 import { z } from "zod";
 

@@ -66,11 +66,9 @@ describe("a teacher writes a tune and puts it on a course", () => {
     // The template has no notes yet: the first check's answer shows the engine runs in the page.
     await page.getByText("The tune has no notes.").waitFor({ timeout: 30_000 });
     await source().fill(MISTAKE);
-    const problem = page
-      .getByTestId("abc-problems")
-      .getByRole("button", {
-        name: new RegExp(`Line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`),
-      });
+    const problem = page.getByTestId("abc-problems").getByRole("button", {
+      name: new RegExp(`Line ${MISTAKE_AT.line}, column ${MISTAKE_AT.column}: Unknown character ignored: "#"`),
+    });
     await problem.waitFor({ timeout: 30_000 });
     // Choosing the problem puts the caret on it.
     await problem.click();
@@ -180,7 +178,7 @@ describe("a teacher writes a tune and puts it on a course", () => {
       .getByTestId("publish-state")
       .filter({ hasText: /^Published$/ })
       .waitFor();
-    await screenshot(page, "teacher-course-builder");
+    await screenshot(page, "teacher-ladder-bench");
     const courseId = page.url().split("/").pop();
     const stored = await page.evaluate(async (id) => (await fetch(`/api/teach/courses/${id}`)).json(), courseId);
     expect(stored.published).toBe(true);

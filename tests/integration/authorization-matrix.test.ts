@@ -181,7 +181,7 @@ const ROWS: Row[] = [
   },
   // Catalogue, ladders, tune pages and margin notes (issue 5): rows in helpers/catalogue-routes.ts.
   ...catalogueRows(),
-  // The teacher's tune editor, bulk import and course builder (issue 5): rows in helpers/teach-matrix-rows.ts.
+  // The teacher's tune editor, bulk import and ladder bench (issue 5): rows in helpers/teach-matrix-rows.ts.
   ...teachRows(),
   // Issue 6: the teacher's side, the student's side, recordings and the calendar feed.
   ...teachingRows(),

@@ -1,4 +1,4 @@
-// The course builder's routes against a real database: grades and rungs, the rules (no empty
+// The ladder bench's routes against a real database: grades and rungs, the rules (no empty
 // published course, a tune once per ladder, a required stage the tune has), reordering through
 // the unique positions, publish and unpublish, and whose course is whose.
 import { readFileSync } from "node:fs";

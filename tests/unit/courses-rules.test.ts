@@ -1,4 +1,4 @@
-// The course builder's rules (lib/courses/rules.ts): no empty published course, no rung without a
+// The ladder bench's rules (lib/courses/rules.ts): no empty published course, no rung without a
 // tune, no cycle (a tune once per ladder, a required stage the tune has), and moving rungs.
 import { describe, expect, it } from "vitest";
 import {

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { CourseList } from "@/components/course-builder/course-list";
+import { CourseList } from "@/components/ladder-bench/course-list";
 import { PageContainer } from "@/components/layout/page-container";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { requireArea } from "@/lib/auth/next-context";

@@ -30,7 +30,7 @@ const owner = (s: number): Record<Who, number> => ({
 /** A fresh tune and course of the matrix's teacher: tune → grade → rung, one of each. */
 async function fixture(c: CallLike) {
   const { createTune } = await import("@/lib/tunes/save");
-  const { createCourse, addGrade, addRung, editableCourse } = await import("@/lib/courses/builder");
+  const { createCourse, addGrade, addRung, editableCourse } = await import("@/lib/courses/bench");
   const me = { id: c.people.teacher.id, role: "teacher" as const };
   const saved = await createTune(c.w.db, me.id, { abc: WICKER });
   if (!saved.ok) throw new Error("matrix tune refused");

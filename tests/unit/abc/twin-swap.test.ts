@@ -82,9 +82,9 @@ describe("twin swap of a second ending (Lantern Hill)", () => {
   });
 });
 
-describe("twin swap copies the model's embellishments with its notes (Harbour Lights)", () => {
+describe("twin swap copies the model's embellishments with its notes (The Tarred Jetty)", () => {
   it("swaps a two-note near twin whose model has a slur, after a P: line", () => {
-    const { src, out, before, after } = swapped("harbour-lights.abc");
+    const { src, out, before, after } = swapped("tarred-jetty.abc");
     expect(before.swaps).toEqual([{ phrase: "B3", model: "B1", differingNotes: 2 }]);
     expect(barText(out, barsOf(out), 14)).toBe('"C"(ce)gc "G"B2AG|');
     expect(out).toContain("P:B\n");

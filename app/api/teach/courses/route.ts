@@ -3,7 +3,7 @@ import { db } from "@/db/client";
 import { listCourses } from "@/db/queries/courses";
 import { guardRoute } from "@/lib/auth/guard";
 import type { CourseSummary } from "@/lib/courses/api-types";
-import { createCourse } from "@/lib/courses/builder";
+import { createCourse } from "@/lib/courses/bench";
 import { courseInput } from "@/lib/courses/schemas";
 import { editorOf } from "@/lib/tunes/access";
 import { NO_STORE } from "@/lib/tunes/respond";

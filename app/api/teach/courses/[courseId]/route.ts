@@ -1,6 +1,6 @@
 import { db } from "@/db/client";
 import { guardRoute } from "@/lib/auth/guard";
-import { courseView, editableCourse, patchCourse, removeCourse } from "@/lib/courses/builder";
+import { courseView, editableCourse, patchCourse, removeCourse } from "@/lib/courses/bench";
 import { courseId, coursePatch } from "@/lib/courses/schemas";
 import { editorOf } from "@/lib/tunes/access";
 import { NO_STORE } from "@/lib/tunes/respond";

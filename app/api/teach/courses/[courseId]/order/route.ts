@@ -1,6 +1,6 @@
 import { db } from "@/db/client";
 import { guardRoute } from "@/lib/auth/guard";
-import { editableCourse, reorderLadder } from "@/lib/courses/builder";
+import { editableCourse, reorderLadder } from "@/lib/courses/bench";
 import { orderInput } from "@/lib/courses/schemas";
 import { editorOf } from "@/lib/tunes/access";
 import { NO_STORE } from "@/lib/tunes/respond";

@@ -1,6 +1,6 @@
 import { db } from "@/db/client";
 import { guardRoute } from "@/lib/auth/guard";
-import { addRung, editableCourse } from "@/lib/courses/builder";
+import { addRung, editableCourse } from "@/lib/courses/bench";
 import { rungInput } from "@/lib/courses/schemas";
 import { editorOf } from "@/lib/tunes/access";
 import { NO_STORE } from "@/lib/tunes/respond";

@@ -1,6 +1,6 @@
 import { db } from "@/db/client";
 import { guardRoute } from "@/lib/auth/guard";
-import { editableCourse, removeGrade, renameGrade } from "@/lib/courses/builder";
+import { editableCourse, removeGrade, renameGrade } from "@/lib/courses/bench";
 import { gradePatch, gradeRef } from "@/lib/courses/schemas";
 import { editorOf } from "@/lib/tunes/access";
 import { NO_STORE } from "@/lib/tunes/respond";

@@ -1,6 +1,6 @@
 import { db } from "@/db/client";
 import { guardRoute } from "@/lib/auth/guard";
-import { editableCourse, patchRung, removeRung } from "@/lib/courses/builder";
+import { editableCourse, patchRung, removeRung } from "@/lib/courses/bench";
 import { rungPatch, rungRef } from "@/lib/courses/schemas";
 import { editorOf } from "@/lib/tunes/access";
 import { NO_STORE } from "@/lib/tunes/respond";

@@ -1,5 +1,5 @@
 "use client";
-// The course builder's data: the course through its route, and every change as a mutation that
+// The ladder bench's data: the course through its route, and every change as a mutation that
 // reloads it. A reorder is shown at once (optimistic) and put back if the server refuses it.
 import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import type { CourseView } from "@/lib/courses/api-types";

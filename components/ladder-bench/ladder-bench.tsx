@@ -1,5 +1,5 @@
 "use client";
-// The course builder (issue 5 item 1): grades and rungs, reordered by drag or by Move up/down,
+// The ladder bench (issue 5 item 1): grades and rungs, reordered by drag or by Move up/down,
 // each rung with the stage that opens the next; publish and unpublish; the rules' messages.
 import { useState, type FormEvent } from "react";
 import { Alert } from "@/components/ui/alert";
@@ -12,7 +12,7 @@ import { GradeCard } from "./grade-card";
 import { SortableList } from "./sortable-list";
 import { useCourse, useCourseAction, useReorder } from "./use-course";
 
-export function CourseBuilder({ courseId }: { courseId: string }) {
+export function LadderBench({ courseId }: { courseId: string }) {
   const query = useCourse(courseId);
   const action = useCourseAction(courseId);
   const reorder = useReorder(courseId);

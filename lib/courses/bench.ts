@@ -1,4 +1,4 @@
-// The course builder's changes (issue 5 item 1). Each change runs in one transaction and is
+// The ladder bench's changes (issue 5 item 1). Each change runs in one transaction and is
 // checked against the rules afterwards (lib/courses/rules.ts): a change that would bring in a new
 // problem — or leave a published course empty — is rolled back with the rule's words.
 import type { Db } from "@/db/client";

@@ -30,7 +30,7 @@ export function CourseHeader({ course, busy, onSave, onPublish }: CourseHeaderPr
   return (
     <header className="flex flex-col gap-4">
       <div className="flex flex-wrap items-center gap-3">
-        <p className="text-small font-semibold tracking-widest text-cedar uppercase">Course builder</p>
+        <p className="text-small font-semibold tracking-widest text-cedar uppercase">Ladder bench</p>
         <span
           className={
             course.published
