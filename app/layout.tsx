@@ -7,6 +7,7 @@ import "@fontsource/source-serif-4/700.css";
 import "./globals.css";
 import { SiteFooter } from "@/components/layout/site-footer";
 import { SiteHeader } from "@/components/layout/site-header";
+import { HydrationMark } from "@/components/providers/hydration-mark";
 import { getCurrentUser } from "@/lib/auth/current-user";
 
 export const metadata: Metadata = {
@@ -39,6 +40,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
           {children}
         </main>
         <SiteFooter />
+        <HydrationMark />
       </body>
     </html>
   );

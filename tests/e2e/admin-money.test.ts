@@ -1,8 +1,8 @@
 // In the browser (issue 7): the demo admin filters and sorts payments, exports the filtered rows as
 // CSV, refunds part of a payment with a reason, and the student's billing page shows that refund.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { Browser, Page } from "playwright-core";
-import { BASE_URL, launch, screenshot } from "./helpers/browser";
+import type { Browser, Locator, Page } from "playwright-core";
+import { BASE_URL, hydrated, launch, screenshot } from "./helpers/browser";
 import { ADMIN, DEMO_PASSWORD, STUDENTS } from "@/db/seed-data/people";
 
 let browser: Browser;
@@ -21,22 +21,10 @@ async function signIn(page: Page, email: string) {
   await page.waitForURL((u) => u.pathname !== "/sign-in");
 }
 
-/**
- * Does something that should change the address (the table writes its filters and sort there), again if a
- * re-render swallowed it: the table re-renders as answers land, and a click on a control being replaced is lost.
- */
-async function untilAddress(page: Page, act: () => Promise<void>, address: RegExp) {
-  for (let attempt = 1; ; attempt++) {
-    await act();
-    if (
-      await page.waitForURL(address, { timeout: 10_000 }).then(
-        () => true,
-        () => false,
-      )
-    )
-      return;
-    if (attempt === 3) throw new Error(`the address did not become ${address}: ${page.url()}`);
-  }
+/** Acts once on a control of the table, when it has hydrated, and waits for the address the table writes. */
+async function toAddress(page: Page, control: Locator, act: () => Promise<void>, address: RegExp) {
+  await hydrated(control);
+  await Promise.all([page.waitForURL(address), act()]);
 }
 
 /** The table's total: its own request, so "Counting…" (NaN here) until it lands. */
@@ -64,7 +52,8 @@ describe("admin payments in a real browser", () => {
     // The pager follows the total (25 to a page) and stops at the last page.
     const pages = Math.ceil(everything / 25);
     await page.getByText(`Page 1 of ${pages}`).waitFor();
-    await untilAddress(page, () => page.getByRole("button", { name: "Next" }).click(), /page=2/);
+    const next = page.getByRole("button", { name: "Next" });
+    await toAddress(page, next, () => next.click(), /page=2/);
     await page.getByText(`Page 2 of ${pages}`).waitFor();
     await page.goto(`${BASE_URL}/admin/payments?page=${pages}`);
     await page.getByText(`Page ${pages} of ${pages}`).waitFor();
@@ -73,8 +62,9 @@ describe("admin payments in a real browser", () => {
     await page.goto(`${BASE_URL}/admin/payments`);
     await page.getByRole("cell").first().waitFor();
 
-    await untilAddress(
+    await toAddress(
       page,
+      page.getByRole("search", { name: "Filter the table" }),
       async () => {
         await page.getByLabel("Status").selectOption("paid");
         await page.getByLabel("Name or e-mail").fill(first.toLowerCase());
@@ -89,10 +79,11 @@ describe("admin payments in a real browser", () => {
 
     // A new order changes the address without rebuilding the table: the same elements stay in the page.
     const form = await page.getByRole("search", { name: "Filter the table" }).elementHandle();
-    await untilAddress(page, () => page.getByRole("button", { name: /^Amount/ }).click(), /sort=amount/);
+    const amount = page.getByRole("button", { name: /^Amount/ });
+    await toAddress(page, amount, () => amount.click(), /sort=amount/);
     await page.getByText(/^\d+ rows? match/).waitFor();
     expect(await form?.evaluate((el) => el.isConnected)).toBe(true);
-    await untilAddress(page, () => page.getByRole("button", { name: /^Amount/ }).click(), /dir=asc/);
+    await toAddress(page, amount, () => amount.click(), /dir=asc/);
     // A reload keeps the filters (they live in the URL).
     await page.reload();
     await page.getByText(/^\d+ rows? match/).waitFor();
@@ -127,8 +118,9 @@ describe("admin payments in a real browser", () => {
     await dialog.waitFor({ state: "hidden" });
     // Now partly refunded, the payment leaves the "paid" view and shows under its new status.
     await expect.poll(() => totalOf(page)).toBe(filtered - 1);
-    await untilAddress(
+    await toAddress(
       page,
+      page.getByRole("search", { name: "Filter the table" }),
       async () => {
         await page.getByLabel("Status").selectOption("partially_refunded");
         await page.getByRole("button", { name: "Apply filters" }).click();

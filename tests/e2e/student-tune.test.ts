@@ -30,7 +30,7 @@ afterAll(async () => {
   await browser?.close();
 });
 // When a step fails, keep where the page was, what it showed, the requests still unanswered and a
-// screenshot, so the failure says why (this is how the stalled link clicks, see follow(), were read).
+// screenshot, so the failure says why.
 beforeEach(({ task, onTestFailed }) => {
   onTestFailed(async () => {
     const shown = await page
