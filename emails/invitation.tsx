@@ -15,9 +15,16 @@ const asRole: Record<Data["role"], string> = {
 
 export const subject = subjects.invitation;
 
-export default function InvitationEmail({ inviterName, role, acceptUrl, expiresInDays, appUrl }: Data & MailFrame) {
+export default function InvitationEmail({
+  inviterName,
+  role,
+  acceptUrl,
+  expiresInDays,
+  appUrl,
+  schoolName,
+}: Data & MailFrame) {
   return (
-    <MailLayout preview={`${inviterName} invited you ${asRole[role]}.`} appUrl={appUrl}>
+    <MailLayout preview={`${inviterName} invited you ${asRole[role]}.`} appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         You are invited
       </Heading>

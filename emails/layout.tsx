@@ -2,9 +2,10 @@
 import { Body, Button, Container, Head, Hr, Html, Link, Preview, Section, Text } from "@react-email/components";
 import type { ReactNode } from "react";
 
-/** Every template gets the app's public address so each link it prints is absolute. */
+/** Every template gets the app's public address so each link it prints is absolute, and the school's name (SCHOOL_NAME). */
 export interface MailFrame {
   appUrl: string;
+  schoolName: string;
 }
 
 /** Mail readers open links outside the app, so a relative link would lead nowhere. */
@@ -40,18 +41,23 @@ const button = {
 
 export const paragraph = { color: "#24190F", fontSize: "16px", lineHeight: "26px", margin: "0 0 16px" };
 
-export function MailLayout({ preview, appUrl, children }: MailFrame & { preview: string; children: ReactNode }) {
+export function MailLayout({
+  preview,
+  appUrl,
+  schoolName,
+  children,
+}: MailFrame & { preview: string; children: ReactNode }) {
   return (
     <Html lang="en">
       <Head />
       <Preview>{preview}</Preview>
       <Body style={page}>
         <Container style={card}>
-          <Text style={brand}>Rosinwood</Text>
+          <Text style={brand}>{schoolName}</Text>
           {children}
           <Hr style={{ borderColor: "#D9C8B0", margin: "24px 0 16px" }} />
           <Text style={footer}>
-            Rosinwood, an online fiddle school ·{" "}
+            {schoolName}, an online fiddle school on Rosinwood ·{" "}
             <Link href={absoluteUrl("/", appUrl)} style={{ color: "#8A3B12" }}>
               {new URL(appUrl).host}
             </Link>

@@ -9,10 +9,10 @@ type Data = MailTemplates["password-changed"];
 
 export const subject = subjects["password-changed"];
 
-export default function PasswordChangedEmail({ name, appUrl }: Data & MailFrame) {
+export default function PasswordChangedEmail({ name, appUrl, schoolName }: Data & MailFrame) {
   const forgot = absoluteUrl("/forgot-password", appUrl);
   return (
-    <MailLayout preview="Your password was just changed." appUrl={appUrl}>
+    <MailLayout preview="Your password was just changed." appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

@@ -9,9 +9,9 @@ type Data = MailTemplates["password-reset"];
 
 export const subject = subjects["password-reset"];
 
-export default function PasswordResetEmail({ name, resetUrl, expiresInMinutes, appUrl }: Data & MailFrame) {
+export default function PasswordResetEmail({ name, resetUrl, expiresInMinutes, appUrl, schoolName }: Data & MailFrame) {
   return (
-    <MailLayout preview="A link to choose a new password." appUrl={appUrl}>
+    <MailLayout preview="A link to choose a new password." appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

@@ -9,9 +9,13 @@ type Data = MailTemplates["verify-email"];
 
 export const subject = subjects["verify-email"];
 
-export default function VerifyEmail({ name, verifyUrl, appUrl }: Data & MailFrame) {
+export default function VerifyEmail({ name, verifyUrl, appUrl, schoolName }: Data & MailFrame) {
   return (
-    <MailLayout preview="Confirm your address so your teacher's messages reach you." appUrl={appUrl}>
+    <MailLayout
+      preview="Confirm your address so your teacher's messages reach you."
+      appUrl={appUrl}
+      schoolName={schoolName}
+    >
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

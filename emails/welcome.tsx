@@ -9,9 +9,13 @@ type Data = MailTemplates["welcome"];
 
 export const subject = subjects.welcome;
 
-export default function WelcomeEmail({ name, verifyUrl, appUrl }: Data & MailFrame) {
+export default function WelcomeEmail({ name, verifyUrl, appUrl, schoolName }: Data & MailFrame) {
   return (
-    <MailLayout preview="One small step before your first tune: confirm your address." appUrl={appUrl}>
+    <MailLayout
+      preview="One small step before your first tune: confirm your address."
+      appUrl={appUrl}
+      schoolName={schoolName}
+    >
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Welcome, {name}
       </Heading>

@@ -47,6 +47,13 @@ const schema = z.object({
     .string()
     .regex(/^whsec_/, "must be a webhook signing secret (whsec_…)")
     .optional(),
+  // The school's name on receipts and e-mails; the default is the invented demo school's.
+  SCHOOL_NAME: z
+    .string()
+    .trim()
+    .min(1, "must not be empty (the school's name, e.g. Larchmoor Fiddle School)")
+    .max(80, "must be at most 80 characters")
+    .default("Larchmoor Fiddle School"),
   // Set only while the local Stripe stand-in runs: turns on the /dev/stripe page (its clock) for the demo.
   STRIPE_FAKE_URL: z
     .url({ error: "must be the local Stripe stand-in's address, e.g. http://127.0.0.1:4020" })

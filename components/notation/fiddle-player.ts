@@ -1,5 +1,5 @@
-// Playback through abcjs's own synth (CreateSynth) with the app's fiddle samples
-// (public/soundfonts, scripts/make-soundfont.sh): nothing is fetched from beyond the app.
+// Playback through abcjs's own synth (CreateSynth) with fiddle samples rendered from the FluidR3 GM
+// soundfont (public/soundfonts, scripts/make-soundfont.sh): nothing is fetched from beyond the app.
 import type { MidiBuffer, NoteMapTrack, TuneObject } from "abcjs";
 import { loadAbcjs } from "./loaders";
 import { countInClicks, practiceBeatsPerMinute, type Click } from "./playback-abc";

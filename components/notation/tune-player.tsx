@@ -1,11 +1,11 @@
 "use client";
-// Play, pause, speed, loop one phrase and a count-in, through abcjs's synth with the app's own
-// fiddle samples. Nothing loads until the first press of Play (no audio before a gesture).
+// Play, pause, speed, loop one phrase and a count-in, through abcjs's synth with fiddle samples
+// rendered from the FluidR3 GM soundfont (scripts/make-soundfont.sh; its licence ships beside them). Nothing loads until the first press of Play (no audio before a gesture).
 import { useEffect, useId, useRef, useState } from "react";
 import type { PhraseMap } from "@/lib/abc/phrase-types";
 import { Button } from "@/components/ui/button";
 import { cx } from "@/components/ui/cx";
-import { FiddlePlayer, type PlayerStatus } from "./fiddle-player";
+import { FiddlePlayer, SOUND_FONT_URL, type PlayerStatus } from "./fiddle-player";
 import { loadBarSpans } from "./loaders";
 import { phraseAbc } from "./playback-abc";
 import { barsText, phraseLabel, phraseList } from "./phrase-words";
@@ -169,6 +169,10 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
           Count in one bar
         </label>
       </div>
+      <p className="text-caption text-bark">
+        Fiddle sound rendered from the FluidR3 GM soundfont by Frank Wen (
+        <a href={`${SOUND_FONT_URL}LICENSE-FluidR3_GM.txt`}>MIT licence</a>).
+      </p>
     </section>
   );
 }

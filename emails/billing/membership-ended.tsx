@@ -5,10 +5,17 @@ import { MailAction, MailLayout, absoluteUrl, paragraph, type MailFrame } from "
 
 type Data = BillingMail["membership-ended"];
 
-export default function MembershipEndedEmail({ name, planName, endedOn, plansUrl, appUrl }: Data & MailFrame) {
+export default function MembershipEndedEmail({
+  name,
+  planName,
+  endedOn,
+  plansUrl,
+  appUrl,
+  schoolName,
+}: Data & MailFrame) {
   const line = `Your ${planName} ended on ${endedOn}.`;
   return (
-    <MailLayout preview={line} appUrl={appUrl}>
+    <MailLayout preview={line} appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

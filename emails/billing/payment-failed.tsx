@@ -13,10 +13,11 @@ export default function PaymentFailedEmail({
   graceUntil,
   billingUrl,
   appUrl,
+  schoolName,
 }: Data & MailFrame) {
   const line = `We could not take ${amount} for your ${planName}. The bank said: “${failureMessage}”`;
   return (
-    <MailLayout preview={line} appUrl={appUrl}>
+    <MailLayout preview={line} appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

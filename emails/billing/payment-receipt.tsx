@@ -14,10 +14,11 @@ export default function PaymentReceiptEmail({
   period,
   receiptUrl,
   appUrl,
+  schoolName,
 }: Data & MailFrame) {
-  const line = `Thank you: we received ${amount} for your ${planName} on ${paidOn}.`;
+  const line = `Thank you: ${schoolName} received ${amount} for your ${planName} on ${paidOn}.`;
   return (
-    <MailLayout preview={line} appUrl={appUrl}>
+    <MailLayout preview={line} appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

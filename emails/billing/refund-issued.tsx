@@ -12,10 +12,11 @@ export default function RefundIssuedEmail({
   reason,
   receiptUrl,
   appUrl,
+  schoolName,
 }: Data & MailFrame) {
   const line = `We have refunded ${amount} on receipt ${receiptNumber}.`;
   return (
-    <MailLayout preview={line} appUrl={appUrl}>
+    <MailLayout preview={line} appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {name},
       </Heading>

@@ -13,9 +13,14 @@ export default function AssignmentNewEmail({
   note,
   assignmentUrl,
   appUrl,
+  schoolName,
 }: Data & MailFrame) {
   return (
-    <MailLayout preview={`${teacherName} gave you “${tuneTitle}”, due ${dueLocal}.`} appUrl={appUrl}>
+    <MailLayout
+      preview={`${teacherName} gave you “${tuneTitle}”, due ${dueLocal}.`}
+      appUrl={appUrl}
+      schoolName={schoolName}
+    >
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {studentName},
       </Heading>

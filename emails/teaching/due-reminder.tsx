@@ -19,10 +19,11 @@ export default function DueReminderEmail({
   when,
   assignmentUrl,
   appUrl,
+  schoolName,
 }: Data & MailFrame) {
   const line = lines[when](tuneTitle, dueLocal);
   return (
-    <MailLayout preview={line} appUrl={appUrl}>
+    <MailLayout preview={line} appUrl={appUrl} schoolName={schoolName}>
       <Heading as="h1" style={{ ...paragraph, fontSize: "24px", lineHeight: "32px" }}>
         Hello {studentName},
       </Heading>

@@ -13,6 +13,8 @@ export interface MailerConfig {
   from: string;
   /** The app's public address, for absolute links. */
   appUrl: string;
+  /** The school's name, shown in every message. */
+  schoolName: string;
   /** A send that takes longer is treated as failed and retried (the idempotency key makes that safe). */
   timeoutMs?: number;
 }
@@ -30,7 +32,13 @@ export function mailerFromEnv(): Mailer {
   const e = env();
   if (!e.RESEND_API_KEY)
     throw new EnvError("Rosinwood cannot send e-mail: RESEND_API_KEY is missing. See .env.example.");
-  return createMailer({ apiKey: e.RESEND_API_KEY, baseUrl: e.RESEND_BASE_URL, from: e.MAIL_FROM, appUrl: e.APP_URL });
+  return createMailer({
+    apiKey: e.RESEND_API_KEY,
+    baseUrl: e.RESEND_BASE_URL,
+    from: e.MAIL_FROM,
+    appUrl: e.APP_URL,
+    schoolName: e.SCHOOL_NAME,
+  });
 }
 
 /** Thrown when a send may succeed later (provider down, network, rate limit): the job queue retries it. */

@@ -30,8 +30,8 @@ async function payWith(card: string) {
   await page.getByRole("button", { name: "Choose Monthly membership" }).click();
   await page.waitForURL(/\/pay\/cs_/);
   await page.getByLabel("Card number").fill(card);
-  await page.getByLabel("Expiry").fill("12 / 34");
-  await page.getByLabel("CVC").fill("123");
+  await page.getByLabel("Expiry date").fill("12 / 34");
+  await page.getByLabel("Security code (CVC)").fill("123");
   await page.getByLabel("Name on card").fill(newcomer.name);
   await page.getByRole("button", { name: "Pay" }).click();
 }
@@ -82,9 +82,9 @@ describe("subscribing in a real browser", () => {
   it("shows a clear message for a declined card and opens nothing", async () => {
     await page.goto(`${BASE_URL}/plans?course=first-steps`);
     await payWith("4000 0000 0000 0002");
-    await page.getByRole("alert").getByText("Your card was declined.").waitFor();
+    await page.getByRole("alert").getByText("That card was turned down by its bank.").waitFor();
     await screenshot(page, "billing-declined");
-    await page.getByRole("link", { name: "Cancel and go back" }).click();
+    await page.getByRole("link", { name: "Leave without paying" }).click();
     await page.waitForURL(/\/plans\?course=first-steps/);
     expect(await membership()).toBeNull();
     await page.goto(`${BASE_URL}/learn/courses/first-steps`);

@@ -86,6 +86,12 @@ describe("the music components in a real browser", () => {
     expect(requests.some((u) => u.includes("/soundfonts/violin-mp3/"))).toBe(true);
     expect(requests.some((u) => u.includes("/soundfonts/percussion-mp3/"))).toBe(true);
     expect(failedSamples).toEqual([]);
+    // The samples are FluidR3 GM's, credited beside the player with its licence (Debian's fluid-soundfont-gm: MIT).
+    const credit = page.getByRole("link", { name: "MIT licence" });
+    expect(await page.getByText("Fiddle sound rendered from the FluidR3 GM soundfont").isVisible()).toBe(true);
+    const licence = await page.request.get(new URL((await credit.getAttribute("href")) ?? "", BASE_URL).toString());
+    expect(licence.status()).toBe(200);
+    expect(await licence.text()).toContain("I hereby release Fluid under the MIT license");
     await screenshot(page, "notation-playing");
   });
 

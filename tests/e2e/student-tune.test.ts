@@ -100,7 +100,7 @@ describe("a student's ladder and tune page in a real browser", () => {
     expect(await page.locator("text.rw-phrase-label").count()).toBeGreaterThan(0);
   });
 
-  it("plays it with the app's own fiddle sound, then slows it down", async () => {
+  it("plays it with the fiddle samples the app serves, then slows it down", async () => {
     await page.getByRole("button", { name: "Play" }).click();
     await page.waitForSelector('section[data-player-status="playing"]', { timeout: 60_000 });
     expect(await attr("data-audio")).toBe("running");

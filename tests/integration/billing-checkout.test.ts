@@ -134,7 +134,8 @@ describe("checkout → webhook → gate", () => {
     });
     const page = await w.pay((await w.json<{ url: string }>(res)).url, "4000 0000 0000 0002");
     expect(page.status).toBe(402);
-    expect(await page.text()).toContain("Your card was declined."); // Stripe docs: Testing — generic decline
+    // Stripe docs: Testing — 4000 0000 0000 0002 is a generic decline; the stand-in's page says so in its own words.
+    expect(await page.text()).toContain("That card was turned down by its bank.");
     await w.fake.settled();
     expect(await w.db.select().from(subscriptions).where(eq(subscriptions.userId, student.id))).toEqual([]);
     expect(await w.db.select().from(payments).where(eq(payments.userId, student.id))).toEqual([]);

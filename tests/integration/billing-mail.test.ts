@@ -22,7 +22,7 @@ const cases: { mail: AnyOutgoingMail; link: string; subject: RegExp; words: stri
     },
     link: `${appUrl}/learn/billing/receipts/p1`,
     subject: /receipt RW-0001 \(£18\.00\)/,
-    words: ["£18.00", "RW-0001", "2 December 2026 to 2 January 2027"],
+    words: ["Hollin Bank Fiddle School received £18.00", "RW-0001", "2 December 2026 to 2 January 2027"],
   },
   {
     mail: {
@@ -73,7 +73,7 @@ describe("billing e-mails", () => {
   it.each(cases)(
     "$mail.template: subject, facts and the absolute link in HTML and text",
     async ({ mail, link, subject, words }) => {
-      const r = await renderMail(mail.template, mail.data, { appUrl });
+      const r = await renderMail(mail.template, mail.data, { appUrl, schoolName: "Hollin Bank Fiddle School" });
       expect(r.subject).toMatch(subject);
       expect(r.html).toContain(`href="${link}"`);
       expect(r.text).toContain(link);

@@ -34,9 +34,11 @@ describe("hosted checkout page", () => {
       success_url: "http://app.test/ok",
     });
     const html = await (await fetch(session.url ?? "")).text();
-    for (const label of ["Card number", "Expiry", "CVC", "Name on card"]) expect(html).toContain(`>${label}</label>`);
-    expect(html).toContain(">Pay</button>");
-    expect(html).toContain("Monthly membership — £18.00 per month");
+    for (const label of ["Card number", "Expiry date (month / year)", "Security code (CVC)", "Name on card"])
+      expect(html).toContain(`>${label}</label>`);
+    expect(html).toContain(">Pay £18.00 now</button>");
+    expect(html).toContain("Monthly membership: £18.00, then every month");
+    expect(html).toContain("<h1>Local payment stand-in</h1>");
   });
 
   it("4242 4242 4242 4242 succeeds: redirect with the session id, subscription active, first invoice paid", async () => {
@@ -72,11 +74,13 @@ describe("hosted checkout page", () => {
     ]);
   });
 
-  it("4000 0000 0000 0002 is declined with Stripe's message and creates no subscription", async () => {
+  it("4000 0000 0000 0002 is declined, said in the page's own words, and creates no subscription", async () => {
     const { session, paid, sub } = await subscribe(world, price.id, CARDS.declined, "no@example.test");
     expect(paid.status).toBe(402);
     // Stripe docs: "Testing" — generic decline, card_declined / generic_decline.
-    expect(paid.html).toContain('role="alert" class="alert">Your card was declined.</p>');
+    expect(paid.html).toContain(
+      'role="alert" class="alert">That card was turned down by its bank. Try another card.</p>',
+    );
     expect(sub).toBeNull();
     const again = await world.stripe.checkout.sessions.retrieve(session.id);
     expect(again.status).toBe("open");
@@ -90,14 +94,14 @@ describe("hosted checkout page", () => {
     const { paid, sub } = await subscribe(world, price.id, CARDS.insufficientFunds, "poor@example.test");
     expect(paid.status).toBe(402);
     // Stripe docs: "Testing" — decline code insufficient_funds.
-    expect(paid.html).toContain("Your card has insufficient funds.");
+    expect(paid.html).toContain("That card does not have enough money on it for this payment.");
     expect(sub).toBeNull();
   });
 
   it("4000 0000 0000 0341 attaches but its charge fails, so a first payment is declined", async () => {
     const { paid, sub } = await subscribe(world, price.id, CARDS.chargeFails, "later@example.test");
     expect(paid.status).toBe(402);
-    expect(paid.html).toContain("Your card was declined.");
+    expect(paid.html).toContain("That card was turned down by its bank.");
     expect(sub).toBeNull();
   });
 
@@ -114,12 +118,12 @@ describe("hosted checkout page", () => {
       name: " ",
     });
     expect(bad.status).toBe(422);
-    expect(bad.html).toContain('id="number-error">Your card number is invalid.');
+    expect(bad.html).toContain('id="number-error">That card number has a typo somewhere');
     expect(bad.html).toContain('id="expiry-error">');
-    expect(bad.html).toContain('id="cvc-error">Your card&#39;s security code is incomplete.');
+    expect(bad.html).toContain('id="cvc-error">The security code is 3 digits: on the back of the card.');
     expect(bad.html).toContain('id="name-error">');
     const past = await payOnHostedPage(session.url ?? "", CARDS.visa, { expiry: "01/26" });
-    expect(past.html).toContain("Your card&#39;s expiration date is in the past.");
+    expect(past.html).toContain('id="expiry-error">That card has expired.');
     expect((await world.stripe.checkout.sessions.retrieve(session.id)).status).toBe("open");
   });
 
@@ -127,7 +131,7 @@ describe("hosted checkout page", () => {
     const { session } = await subscribe(world, price.id, CARDS.visa, "twice@example.test");
     const second = await payOnHostedPage(session.url ?? "", CARDS.visa);
     expect(second.status).toBe(200);
-    expect(second.html).toContain("This checkout is already complete.");
+    expect(second.html).toContain("This payment has already gone through.");
     const other = await world.stripe.checkout.sessions.create({
       mode: "subscription",
       customer_email: "late@example.test",
@@ -136,6 +140,6 @@ describe("hosted checkout page", () => {
     });
     await world.fake.advanceClock(25 * 3600); // Stripe docs: Checkout Sessions expire after 24 hours by default.
     expect((await world.stripe.checkout.sessions.retrieve(other.id)).status).toBe("expired");
-    expect((await payOnHostedPage(other.url ?? "", CARDS.visa)).html).toContain("This checkout has expired.");
+    expect((await payOnHostedPage(other.url ?? "", CARDS.visa)).html).toContain("This payment page has timed out.");
   });
 });

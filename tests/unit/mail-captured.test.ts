@@ -7,7 +7,7 @@ describe("reading captured e-mail on the /dev/mail page", () => {
     const { html } = await renderMail(
       "password-reset",
       { name: "Ann", resetUrl: "/reset-password?token=abc&from=mail", expiresInMinutes: 60 },
-      { appUrl: "http://127.0.0.1:3000" },
+      { appUrl: "http://127.0.0.1:3000", schoolName: "Test Fiddle School" },
     );
     const links = linksIn(html);
     // The button and the written-out address are the same link: listed once. React writes & as &amp; in attributes.

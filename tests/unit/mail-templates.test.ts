@@ -4,6 +4,7 @@ import { renderMail } from "@/lib/mail/templates";
 import type { AnyOutgoingMail } from "@/lib/mail/outbox";
 
 const appUrl = "https://school.example";
+const schoolName = "Hollin Bank Fiddle School";
 
 // One message per template, each with the link the reader must be able to follow.
 const cases: { mail: AnyOutgoingMail; link: string; subject: RegExp }[] = [
@@ -48,7 +49,7 @@ const cases: { mail: AnyOutgoingMail; link: string; subject: RegExp }[] = [
 
 describe("e-mail templates", () => {
   it.each(cases)("$mail.template: HTML and text carry the absolute link", async ({ mail, link, subject }) => {
-    const rendered = await renderMail(mail.template, mail.data, { appUrl });
+    const rendered = await renderMail(mail.template, mail.data, { appUrl, schoolName });
     expect(rendered.subject).toMatch(subject);
     expect(renderSubject(mail.template, mail.data)).toBe(rendered.subject);
     expect(rendered.html).toContain(`href="${link}"`);
@@ -59,22 +60,36 @@ describe("e-mail templates", () => {
   });
 
   it("puts the facts the reader needs in the words", async () => {
-    const reset = await renderMail("password-reset", { name: "Ann", resetUrl: "/r", expiresInMinutes: 45 }, { appUrl });
+    const reset = await renderMail(
+      "password-reset",
+      { name: "Ann", resetUrl: "/r", expiresInMinutes: 45 },
+      { appUrl, schoolName },
+    );
     expect(reset.text).toMatch(/45 minutes/);
     const invite = await renderMail(
       "invitation",
       { inviterName: "Morag", role: "teacher", acceptUrl: "/i", expiresInDays: 1 },
-      { appUrl },
+      { appUrl, schoolName },
     );
     expect(invite.text).toMatch(/to teach/);
     expect(invite.text).toMatch(/1 day\b/);
+  });
+
+  it("names the school from the frame, not the demo school", async () => {
+    const reset = await renderMail(
+      "password-reset",
+      { name: "Ann", resetUrl: "/r", expiresInMinutes: 45 },
+      { appUrl, schoolName },
+    );
+    expect(reset.text).toContain("Hollin Bank Fiddle School");
+    expect(reset.html).not.toContain("Larchmoor");
   });
 
   it("escapes what people typed (a name is text, never markup)", async () => {
     const rendered = await renderMail(
       "welcome",
       { name: '<img src=x onerror="alert(1)">', verifyUrl: "/v" },
-      { appUrl },
+      { appUrl, schoolName },
     );
     expect(rendered.html).not.toContain("<img src=x");
     expect(rendered.html).toContain("&lt;img");

@@ -5,7 +5,13 @@ import { startResendFake, type ResendFake } from "@/scripts/fakes/resend";
 export const FAKE_KEY = "re_test_integration";
 
 export function testMailer(fakeUrl: string, from = "Rosinwood <hello@rosinwood.test>") {
-  return createMailer({ apiKey: FAKE_KEY, baseUrl: fakeUrl, from, appUrl: "http://127.0.0.1:3000" });
+  return createMailer({
+    apiKey: FAKE_KEY,
+    baseUrl: fakeUrl,
+    from,
+    appUrl: "http://127.0.0.1:3000",
+    schoolName: "Test Fiddle School",
+  });
 }
 
 /** The Resend stand-in on a free port, and the real worker sending to it from this process. */

@@ -6,6 +6,7 @@ import { PrintButton } from "@/components/billing/print-button";
 import { PageContainer } from "@/components/layout/page-container";
 import { requireArea } from "@/lib/auth/next-context";
 import { formatDay, formatMoney } from "@/lib/billing/money";
+import { env } from "@/lib/env";
 
 export const metadata: Metadata = { title: "Receipt" };
 
@@ -26,9 +27,7 @@ export default async function ReceiptPage({ params }: { params: Promise<{ paymen
   return (
     <PageContainer className="flex max-w-prose flex-col gap-6 print:py-0">
       <header className="flex flex-col gap-1">
-        <p className="text-small font-semibold tracking-widest text-cedar uppercase">
-          Rosinwood · Larchmoor Fiddle School
-        </p>
+        <p className="text-small font-semibold tracking-widest text-cedar uppercase">{env().SCHOOL_NAME} · Rosinwood</p>
         <h1 className="text-h2 font-semibold">Receipt {p.receiptNumber ?? p.stripeInvoiceId}</h1>
         <p className="text-bark">
           Paid on {formatDay(p.createdAt)} by {user.name} ({user.email})
