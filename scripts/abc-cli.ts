@@ -1,15 +1,18 @@
 // Command line for teachers' bulk work and for checking the tune engine (issue 3 §8):
 //   npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--lowest] [--skeleton]
 //   npm run -s abc -- compare <file> <file2>
+//   npm run -s abc -- listen <tune.abc> <recording> [--stage N] [--tempo BPM]   (./abc-cli-listen.ts)
 // One tune in the file prints the shapes of issue 3 §8; several print one result per tune.
 // Bad input: the problems on stderr as file:line:column: message, exit code 2.
 import { readFileSync } from "node:fs";
 import { analyze, splitTunes, type Analysis, type Problem } from "../lib/abc/index";
 import { runCompare } from "./abc-cli-compare";
+import { runListen } from "./abc-cli-listen";
 
 const USAGE =
   "usage: npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--lowest] [--skeleton]\n" +
-  "       npm run -s abc -- compare <file> <file2>";
+  "       npm run -s abc -- compare <file> <file2>\n" +
+  "       npm run -s abc -- listen <tune.abc> <recording> [--stage N] [--tempo BPM]";
 
 function fail(lines: string[]): never {
   process.stderr.write(lines.join("\n") + "\n");
@@ -35,6 +38,7 @@ const JSON_SHAPES: Record<string, Shape> = {
 };
 
 function main(argv: string[]): void {
+  if (argv[0] === "listen") return void runListen(argv.slice(1));
   const flags = new Set(argv.filter((a) => a.startsWith("--")));
   const [command, file, file2] = argv.filter((a) => !a.startsWith("--"));
   if (!command || !file) fail([USAGE]);

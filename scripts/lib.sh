@@ -33,6 +33,12 @@ ensure_chromium() {
   command -v chromium >/dev/null 2>&1 || die "chromium is not installed"
 }
 
+ensure_ffmpeg() {
+  # The listening aid decodes recordings with Debian's ffmpeg (never a downloaded static build).
+  command -v ffmpeg >/dev/null 2>&1 || apt_install ffmpeg
+  command -v ffmpeg >/dev/null 2>&1 || die "ffmpeg is not installed"
+}
+
 ensure_node_modules() {
   # npm ci when node_modules is missing or older than the lock file.
   local marker="$ROOT/node_modules/.package-lock.json"

@@ -13,6 +13,7 @@ trap 'cleanup' EXIT
 trap 'say "stopping"; exit 130' INT TERM
 
 ensure_postgres
+ensure_ffmpeg
 ensure_node_modules
 require_port PORT "$PORT"
 

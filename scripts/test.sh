@@ -17,6 +17,7 @@ trap finish EXIT
 trap 'exit 130' INT TERM
 
 ensure_postgres
+ensure_ffmpeg
 ensure_node_modules
 ensure_chromium
 
