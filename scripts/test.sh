@@ -56,7 +56,9 @@ export RESEND_API_KEY=re_test RESEND_BASE_URL="http://127.0.0.1:$MAIL_PORT" RESE
 start_mail_fake "$MAIL_PORT" "$RUN"
 APP_ENV=(DATABASE_URL="$BASE/rosinwood_e2e" APP_URL="http://127.0.0.1:$APP_PORT" INSECURE_COOKIES=true NODE_ENV=production
   DEMO_DEV_PAGES=true) # DEMO_DEV_PAGES: the development pages (notation playground) the browser tests use
-env "${APP_ENV[@]}" node scripts/serve.mjs -p "$APP_PORT" -H 127.0.0.1 >"$RUN/app.log" 2>&1 &
+# Two web processes whatever the CPU count: tests/e2e/sessions-everywhere.test.ts checks that a change
+# holds in both at once.
+env "${APP_ENV[@]}" WEB_CONCURRENCY=2 node scripts/serve.mjs -p "$APP_PORT" -H 127.0.0.1 >"$RUN/app.log" 2>&1 &
 PIDS+=("$!")
 export "${APP_ENV[@]}"
 start_worker "$RUN"

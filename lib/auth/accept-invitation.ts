@@ -7,7 +7,6 @@ import { badRequest, conflict, forbidden, notFound } from "./errors";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { HOME, type Role } from "./permissions";
-import { forgetUserEverywhere } from "./session-notices";
 import { hashToken } from "./tokens";
 
 export const INVITATION_DEAD =
@@ -66,7 +65,6 @@ export async function acceptInvitation(
     if (inv.role === "student" && inv.inviterRole === "teacher") await addToRoster(tx, inv.invitedBy, person.id);
     return updated ?? person;
   });
-  await forgetUserEverywhere(user.id); // a signed-in person's cached session carries the role before this invitation
   if (!ctx.user) await startSession(ctx, user.id);
   return { status: 200, redirectTo: HOME[user.role] };
 }

@@ -5,7 +5,6 @@ import type { ActionState } from "./action-state";
 import type { RequestContext } from "./context";
 import type { CurrentUser } from "./current-user";
 import { conflict, notFound, unauthorized } from "./errors";
-import { forgetUserEverywhere } from "./session-notices";
 
 export const PEOPLE_PAGE_SIZE = 20;
 
@@ -42,6 +41,5 @@ export async function changeRole(ctx: RequestContext, input: { userId: string; r
   if (person.role === input.role)
     return { status: 200, message: `${person.name} is already ${ROLE_WORD[input.role]}.` };
   await updateUser(db(), person.id, { role: input.role });
-  await forgetUserEverywhere(person.id); // cached sessions carry the old role (./session-notices.ts)
   return { status: 200, message: `${person.name} is now ${ROLE_WORD[input.role]}.` };
 }

@@ -1,5 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { request } from "node:http";
 import type { Browser, Page } from "playwright-core";
 import { BASE_URL, follow, hydrated, launch, press, screenshot } from "./helpers/browser";
 import { mailedLink } from "./helpers/mail-link";
@@ -174,42 +173,8 @@ describe("accounts in a real browser", () => {
     await admin.getByLabel(`Role of ${newcomer.name}`).selectOption("teacher");
     await press(admin.getByRole("button", { name: "Save" }), admin.getByText(`${newcomer.name} is now a teacher.`));
 
-    // A server action made the change; the person's pages are rendered by other server code of the
-    // same process, which must not answer from the session as it was (lib/auth/session-cache.ts), nor
-    // may another web process (lib/auth/session-notices.ts).
     await person.goto(`${BASE_URL}/teach`);
     expect(await person.getByRole("heading", { level: 1 }).first().textContent()).toBe("Your students");
     await Promise.all([person.context().close(), admin.context().close()]);
-  });
-
-  it("signs out in every web process at once (npm start runs one per CPU)", async () => {
-    const page = await signedIn(STUDENTS[5].email, DEMO_PASSWORD, "/learn");
-    const session = (await page.context().cookies()).find((c) => c.name === "rosinwood_session")?.value;
-    expect(session).toBeTruthy();
-    // Each request on a connection of its own: node:cluster hands new connections to the processes
-    // in turn, so every process looks the session up and keeps it (lib/auth/session-cache.ts).
-    const ask = (path: string, method = "GET") =>
-      new Promise<number>((resolve, reject) => {
-        request(
-          `${BASE_URL}${path}`,
-          { method, agent: false, headers: { cookie: `rosinwood_session=${session}` } },
-          (res) => {
-            res.resume();
-            resolve(res.statusCode ?? 0);
-          },
-        )
-          .on("error", reject)
-          .end();
-      });
-    const eight = async () => {
-      const out: number[] = [];
-      for (let i = 0; i < 8; i++) out.push(await ask("/api/courses/mine"));
-      return out;
-    };
-    expect(await eight()).toEqual(Array(8).fill(200));
-    expect(await ask("/api/auth/sign-out", "POST")).toBe(303);
-    // The old cookie, sent again: no process may still answer from the session it kept.
-    expect(await eight()).toEqual(Array(8).fill(401));
-    await page.context().close();
   });
 });

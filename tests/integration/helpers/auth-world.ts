@@ -82,11 +82,9 @@ export async function authWorld() {
     );
   }
 
-  /** A change written straight to the database; this process's session cache forgets the person
-   * (as the app's own writers do), so the next request sees it at once. */
+  /** A change written straight to the database. */
   async function setUser(id: string, v: Partial<typeof users.$inferInsert>) {
     await t.db.update(users).set(v).where(eq(users.id, id));
-    (await import("@/lib/auth/session-cache")).forgetUser(id);
   }
 
   async function close() {
