@@ -8,6 +8,7 @@ import { payments, plans, refunds, subscriptions, users } from "../schema";
 import { ADMIN } from "./people";
 import { DEMO_PLANS, demoBillingHistory, type DemoMembership } from "./billing-history";
 import { stripeImportOf } from "./billing-stripe";
+import { dateDemoEnrolments } from "./enrolment-dates";
 
 export { DEMO_PLANS, demoBillingHistory };
 
@@ -181,7 +182,10 @@ export async function seedBilling(
     throw new Error(`the Stripe stand-in at ${base} is not ready (GET /_fake/health answered ${health.status}).`);
   const anchor = await anchorOf(db);
   const history = demoBillingHistory(anchor);
-  await db.transaction((tx) => writeDatabase(tx, history, anchor));
+  await db.transaction(async (tx) => {
+    await writeDatabase(tx, history, anchor);
+    await dateDemoEnrolments(tx, history, anchor);
+  });
   let imported = false;
   if (!(await standInHasDemo(base, key, history))) {
     const res = await standInFetch(base, key, "/_fake/import", {

@@ -78,6 +78,36 @@ describe("demo billing history", () => {
     expect(expectBack).toBeGreaterThan(0);
   });
 
+  it("dates the demo enrolments across the year, each from its student's membership", async () => {
+    const rows = await w.db
+      .select({
+        email: users.email,
+        status: enrolments.status,
+        enrolledAt: enrolments.enrolledAt,
+        endedAt: enrolments.endedAt,
+        startedAt: subscriptions.startedAt,
+        subEnded: subscriptions.endedAt,
+      })
+      .from(enrolments)
+      .innerJoin(users, eq(users.id, enrolments.userId))
+      .leftJoin(subscriptions, eq(subscriptions.userId, users.id));
+    expect(rows.length).toBeGreaterThanOrEqual(18); // db/seed-data/catalogue.ts: six per course
+    const months = new Set(rows.map((r) => r.enrolledAt.toISOString().slice(0, 7)));
+    expect(months.size).toBeGreaterThanOrEqual(8);
+    const anchor = (await anchorOf()) * 1000;
+    for (const r of rows) {
+      expect(r.enrolledAt.getTime(), r.email).toBeLessThan(anchor);
+      if (r.startedAt) expect(r.enrolledAt.getTime(), r.email).toBeGreaterThan(r.startedAt.getTime());
+      if (r.status === "ended") expect(r.endedAt?.getTime(), r.email).toBe(r.subEnded?.getTime());
+      else expect(r.endedAt, r.email).toBeNull();
+    }
+    // Seeding again writes the same dates.
+    const { seed } = await import("@/db/seed");
+    await seed(w.db);
+    const again = await w.db.select({ at: enrolments.enrolledAt }).from(enrolments);
+    expect(again.map((r) => r.at.getTime()).sort()).toEqual(rows.map((r) => r.enrolledAt.getTime()).sort());
+  }, 120_000);
+
   it("never refunds more than a payment took, and each payment's refunded amount is its refunds' sum", async () => {
     const rows = await w.db
       .select({

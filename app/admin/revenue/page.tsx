@@ -16,7 +16,8 @@ export default async function RevenuePage() {
     <PageContainer className="flex flex-col gap-6">
       <h1 className="text-h2 font-semibold">Revenue</h1>
       <p className="text-bark">
-        The last twelve months (UTC), by the month money was taken or given back. Plan changes count with renewals.
+        The last twelve months (UTC), and any later month the payment service has already dated money to, by the month
+        money was taken or given back. Plan changes count with renewals.
       </p>
       {report.currencies.length === 0 ? <p>No payments in the last twelve months.</p> : null}
       {report.currencies.map((currency) => {
