@@ -3,3 +3,4 @@ export * from "./catalogue";
 export * from "./teaching";
 export * from "./billing";
 export * from "./system";
+export * from "./listening";

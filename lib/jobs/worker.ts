@@ -7,6 +7,7 @@ import { sweepOutbox } from "./sweeper";
 import { sendDueReminders } from "./reminders";
 import { cleanAbandonedUploads } from "@/lib/storage/cleanup";
 import { storageConfigured } from "@/lib/storage/s3";
+import { hearCheckIn, LISTEN_QUEUE, sweepUnheard, type ListenJob } from "./listen";
 
 export interface RetryPolicy {
   /** Retries after the first attempt. */
@@ -29,6 +30,8 @@ export interface WorkerOptions {
   reminders?: { intervalSeconds: number };
   /** Abandoned uploads (lib/storage/cleanup.ts): how often to look; once at start too. */
   uploads?: { intervalSeconds: number };
+  /** The listening aid (lib/jobs/listen.ts): how often check-ins never heard are queued again, and how old they must be. */
+  listening?: { intervalSeconds: number; minAgeSeconds: number };
   /** The time reminders are judged at; tests pass a clock they can move. */
   clock?: () => Date;
 }
@@ -39,6 +42,8 @@ export interface RunningWorker {
   sweepNow: () => Promise<number>;
   /** One clean-up of abandoned uploads now, at the worker's clock; returns how many were deleted. */
   cleanUploadsNow: () => Promise<number>;
+  /** One sweep of check-ins never heard now, whatever their age; returns how many were queued. */
+  sweepUnheardNow: () => Promise<number>;
   /** One reminder pass now, at the worker's clock; returns the dedupe keys it queued. */
   remindNow: () => Promise<string[]>;
 }
@@ -91,6 +96,32 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
     );
   }
 
+  // The listening aid: one recording at a time (the analysis keeps a CPU busy for about a second a
+  // minute of audio); two retries for a storage or ffmpeg failure, then the failure is kept.
+  const listenQueue = { name: LISTEN_QUEUE, retryLimit: 2, retryDelay: 30, retryBackoff: false, expireInSeconds: 600 };
+  if (await boss.getQueue(LISTEN_QUEUE)) await boss.updateQueue(LISTEN_QUEUE, listenQueue);
+  else await boss.createQueue(LISTEN_QUEUE, listenQueue);
+  await boss.work<ListenJob>(
+    LISTEN_QUEUE,
+    { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: options.pollingIntervalSeconds ?? 1 },
+    async ([job]) => {
+      if (!job) return;
+      const heard = await hearCheckIn(db, job.data.checkInId, job.retryCount >= listenQueue.retryLimit);
+      if (heard === "failed") log(`check-in ${job.data.checkInId}: the recording could not be heard (kept as failed)`);
+    },
+  );
+  const listening = options.listening ?? { intervalSeconds: 60, minAgeSeconds: 120 };
+  const sweepListening = (minAgeSeconds: number) => sweepUnheard(db, boss, minAgeSeconds);
+  const listenTimer = setInterval(() => {
+    sweepListening(listening.minAgeSeconds).catch((error: unknown) => log(`listening sweep failed: ${String(error)}`));
+  }, listening.intervalSeconds * 1000);
+  listenTimer.unref();
+  const unheard = await sweepListening(0).catch((error: unknown) => {
+    log(`listening sweep failed: ${String(error)}`);
+    return 0;
+  });
+  if (unheard) log(`${unheard} check-in recording(s) queued for the listening aid`);
+
   const sweepWith = (minAgeSeconds: number) =>
     sweepOutbox(db, boss, { minAgeSeconds, slotSeconds: Math.max(sweep.minAgeSeconds, 60) });
   const timer = setInterval(() => {
@@ -136,6 +167,7 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
   let stopping: Promise<void> | undefined;
   const running: RunningWorker = {
     sweepNow: () => sweepWith(0),
+    sweepUnheardNow: () => sweepListening(0),
     remindNow: remind,
     cleanUploadsNow: tidy,
     stop: () => {
@@ -143,6 +175,7 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
         clearInterval(timer);
         clearInterval(reminderTimer);
         clearInterval(tidyTimer);
+        clearInterval(listenTimer);
         // Graceful: jobs in hand finish (or time out and are retried later), no new ones are fetched.
         await boss.stop({ graceful: true, wait: true, timeout: 20_000 });
         await close();

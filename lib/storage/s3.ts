@@ -113,6 +113,13 @@ export async function readStart(key: string, count: number): Promise<Uint8Array>
   return bytes.length > count ? bytes.subarray(0, count) : bytes;
 }
 
+/** The whole object (a recording, at most 25 MB), for the listening aid's job. */
+export async function readObject(key: string): Promise<Uint8Array> {
+  const { client, bucket } = storage();
+  const res = await client.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+  return res.Body ? res.Body.transformToByteArray() : new Uint8Array();
+}
+
 export async function deleteObject(key: string): Promise<void> {
   const { client, bucket } = storage();
   await client.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));

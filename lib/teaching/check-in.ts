@@ -10,6 +10,7 @@ import { stageStates } from "@/db/schema";
 import { forbidden, notFound, unprocessable } from "@/lib/auth/errors";
 import { musicGate, ownAssignment, type Person } from "./learn-assignment";
 import { applyTransition, type ApplyResult } from "./transitions";
+import { scheduleListeningSafely } from "@/lib/jobs/listen";
 
 export type CheckInRequest = {
   assignmentStudentId: string;
@@ -66,13 +67,17 @@ export async function checkIn(db: Db, actor: Person, req: CheckInRequest, now = 
   if (!stageStateId) throw notFound(`This assignment has no stage ${req.stageIndex}.`);
   const gate = await musicGate(db, actor, row.tuneId, now);
   if (!gate.open) throw forbidden(gate.why);
-  return applyTransition(db, {
+  const result = await applyTransition(db, {
     stageStateId,
     transition: "checkIn",
     actor,
     checkInInput: { uploadId: req.uploadId, selfRating: req.selfRating, fromMemory: req.fromMemory },
     now,
   });
+  // The listening aid hears the recording on the worker; it is queued after the check-in is saved and
+  // can never undo it (lib/jobs/listen.ts).
+  await scheduleListeningSafely(result.checkInId, db);
+  return result;
 }
 
 /** Takes back one's own check-in while it still waits for review; the stage is open again. */

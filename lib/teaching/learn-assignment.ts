@@ -17,6 +17,7 @@ import type { PhraseMap } from "@/lib/abc/phrase-types";
 import { dueWords } from "./learn-dates";
 import type { CheckInStatus, StageState } from "./state-machine";
 import { assignmentStages } from "./teach-stages";
+import { selfCheckOf, type SelfCheck } from "./learn-self-check";
 
 export type Person = { id: string; role: "student" | "teacher" | "admin" };
 
@@ -58,6 +59,8 @@ export type LearnAssignment = {
   current: number | null;
   /** The current stage's music, only when the music is open. */
   music: { index: number; name: string; abc: string; phraseMap: PhraseMap | null } | null;
+  /** The listening aid's hearing of the latest recording checked in, only when the music is open. */
+  selfCheck: SelfCheck | null;
 };
 
 const NOT_FOUND = "We couldn't find that assignment.";
@@ -123,6 +126,8 @@ export async function learnAssignment(
   const current = stages.find((s) => s.state === "open" || s.state === "checked_in")?.index ?? null;
   const currentStage = planned.find((p) => p.index === current);
   const allDone = stages.length > 0 && stages.every((s) => s.state === "signed_off");
+  const indexOf = new Map(states.map((s) => [s.id, s.index]));
+  const selfCheck = gate.open ? await selfCheckOf(db, checks, (id) => indexOf.get(id), planned) : null;
   return {
     assignmentStudentId: row.assignmentStudentId,
     status: row.status,
@@ -148,5 +153,6 @@ export async function learnAssignment(
             phraseMap: phraseMapOf(planned[0]?.abc ?? currentStage.abc),
           }
         : null,
+    selfCheck,
   };
 }

@@ -2,6 +2,8 @@
 // oldest first, and the review itself through the state machine (transitions.ts).
 import type { Tx } from "@/db/queries/auth";
 import { countWaiting, findCheckIn, waitingForReview } from "@/db/queries/teaching-review";
+import { listeningsOf } from "@/db/queries/listening";
+import { listeningView } from "@/lib/listen/view";
 import type { StagePlanJson } from "@/db/schema";
 import { notFound } from "@/lib/auth/errors";
 import type { Manager } from "./assignments";
@@ -25,6 +27,14 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: Revi
     if (!stagesOf.has(assignmentId)) stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
     return stagesOf.get(assignmentId) as Promise<AssignmentStage[]>;
   };
+  const heard = new Map(
+    (
+      await listeningsOf(
+        db,
+        rows.map((r) => r.checkInId),
+      )
+    ).map((l) => [l.checkInId, l]),
+  );
   const out: ReviewItem[] = [];
   for (const r of rows) {
     const all = await stages(r.assignmentId, r.tuneId, r.stagePlan);
@@ -44,6 +54,7 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: Revi
       selfRating: r.selfRating,
       fromMemory: r.fromMemory,
       uploadId: r.uploadId,
+      listening: listeningView(r.uploadId !== null, heard.get(r.checkInId)),
     });
   }
   return { checkIns: out, waiting };

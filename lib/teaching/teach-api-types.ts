@@ -1,6 +1,7 @@
 // The JSON the teacher's assignment, review and roster routes answer with; shared by the routes and
 // the pages' client components (no server imports here).
 import type { StagePlanJson } from "@/db/schema/catalogue";
+import type { ListeningView } from "@/lib/listen/view";
 
 export type AssignmentStudentView = {
   assignmentStudentId: string;
@@ -42,6 +43,8 @@ export type ReviewItem = {
   selfRating: number;
   fromMemory: boolean;
   uploadId: string | null;
+  /** The listening aid's hearing of the recording (lib/listen): a suggestion beside it, never the decision. */
+  listening: ListeningView | null;
 };
 
 export type RosterRow = {
