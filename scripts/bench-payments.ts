@@ -1,6 +1,6 @@
 // Benchmark of the admin payments table (issue 7, performance): 200,000 payments over 20,000
 // invented people in a database of its own, then filtered, sorted pages asked of the real route
-// handler (pages/api/admin/payments/index.ts's GET, with an admin's session: guard, validation, query and
+// handler (app/api/admin/payments/route.ts GET, with an admin's session: guard, validation, query and
 // JSON) by 20 callers at once, in this process; the database is on loopback. Prints p50/p95/p99 in ms
 // for four filtered pages (without a name search, and with one matching one person, 200 people and
 // 800) and for two totals (./count), in rounds (BENCH_ROUNDS, BENCH_REQUESTS per case each round);
@@ -189,8 +189,8 @@ async function main() {
     );
 
     // In this process: the route handlers called directly (guard, validation, queries, JSON).
-    const { GET: page } = await import("@/pages/api/admin/payments/index");
-    const { GET: count } = await import("@/pages/api/admin/payments/count");
+    const { GET: page } = await import("@/app/api/admin/payments/route");
+    const { GET: count } = await import("@/app/api/admin/payments/count/route");
     console.log("\n== the route handlers in this process (database on loopback)");
     await measure(
       cases.map((c) => {

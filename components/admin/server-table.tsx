@@ -35,9 +35,8 @@ export type ServerTableProps<R> = {
 };
 
 export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSort, getRowId }: ServerTableProps<R>) {
-  const pathname = usePathname() ?? "";
-  // Never null under the App Router; typed nullable because the app also has pages/api routes.
-  const params = useSearchParams() ?? new URLSearchParams();
+  const pathname = usePathname();
+  const params = useSearchParams();
   const query = params.toString();
   const sort = params.get("sort") ?? defaultSort;
   const dir = params.get("dir") === "asc" ? "asc" : "desc";
