@@ -11,6 +11,15 @@ const schema = z.object({
     .default("http://127.0.0.1:3000"),
   // When true the session cookie is sent over plain http (local development and tests only).
   INSECURE_COOKIES: z.enum(["true", "false"]).default("false"),
+  // How many proxies in front of the app append to X-Forwarded-For; the client's address is the entry that
+  // many places before the last (the last is the socket's, added by scripts/serve-worker.mjs). 0: no proxy,
+  // the socket's address; anything the client wrote itself is never trusted.
+  TRUSTED_PROXIES: z.coerce
+    .number({ error: "must be a whole number of proxies from 0 to 10" })
+    .int("must be a whole number of proxies from 0 to 10")
+    .min(0, "must be a whole number of proxies from 0 to 10")
+    .max(10, "must be a whole number of proxies from 0 to 10")
+    .default(0),
   // E-mail. Only the worker sends, so the key may be absent for the web app; the worker checks it at start.
   RESEND_API_KEY: z.string().min(1, "must not be empty (a Resend API key, re_…)").optional(),
   RESEND_BASE_URL: z.url({ error: "must be the Resend API's address, e.g. https://api.resend.com" }).optional(),

@@ -1,16 +1,17 @@
-// Runs the built app: `next start` in one worker process per CPU (WEB_CONCURRENCY to choose), all on
+// Runs the built app: Next.js's server in one worker process per CPU (WEB_CONCURRENCY to choose), all on
 // one port. Next.js serves every request of a process on its one JavaScript thread, so one process
 // uses one CPU at most; on the two-CPU machine bench-payments runs on, a second process raised the
 // admin payments page from ~230 to ~330 requests a second at 20 in flight (scripts/bench-payments.ts).
 // node:cluster shares the listening socket between the workers (Node.js docs: "Cluster"). The app
 // keeps no state of its own in a process — sessions, rate limits, jobs and e-mail live in PostgreSQL
 // and the build is the same for every worker — so any worker may answer any request.
-// Usage: node scripts/serve.mjs -p PORT -H HOST (the arguments go to `next start`).
+// Each worker is scripts/serve-worker.mjs: Next.js's request handler behind a server that adds the socket's
+// address to X-Forwarded-For, so a client cannot choose the address per-IP limits see.
+// Usage: node scripts/serve.mjs -p PORT -H HOST (the arguments go to serve-worker.mjs).
 import cluster from "node:cluster";
-import { createRequire } from "node:module";
 import { availableParallelism } from "node:os";
+import { fileURLToPath } from "node:url";
 
-const require = createRequire(import.meta.url);
 const asked = process.env.WEB_CONCURRENCY?.trim();
 const workers = asked ? Number(asked) : availableParallelism();
 if (!Number.isInteger(workers) || workers < 1 || workers > 64) {
@@ -18,7 +19,10 @@ if (!Number.isInteger(workers) || workers < 1 || workers > 64) {
   process.exit(1);
 }
 
-cluster.setupPrimary({ exec: require.resolve("next/dist/bin/next"), args: ["start", ...process.argv.slice(2)] });
+cluster.setupPrimary({
+  exec: fileURLToPath(new URL("./serve-worker.mjs", import.meta.url)),
+  args: process.argv.slice(2),
+});
 
 const STEADY_MS = 15_000; // a worker that stops sooner than this after starting is not restarted
 const startedAt = new Map();

@@ -3,7 +3,7 @@ import { addToRoster, findInvitation, findUserById, markInvitationAccepted, upda
 import { createUser, findUserByEmail } from "@/db/queries/people";
 import type { ActionState } from "./action-state";
 import { startSession, type RequestContext } from "./context";
-import { badRequest, conflict, forbidden, notFound } from "./errors";
+import { badRequest, conflict, forbidden, notFound, raceConflict } from "./errors";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { HOME, type Role } from "./permissions";
@@ -13,6 +13,8 @@ export const INVITATION_DEAD =
   "This invitation has expired or has already been used. Ask whoever invited you for a new one.";
 export const INVITATION_OTHER_ADDRESS =
   "This invitation was sent to another address. Sign out, then open the link again.";
+export const INVITATION_JUST_ACCEPTED =
+  "This invitation was just accepted in another window or tab. Sign in to carry on.";
 export const INVITATION_SIGN_IN_FIRST =
   "This address already has an account: sign in, then open the invitation link again.";
 
@@ -53,18 +55,23 @@ export async function acceptInvitation(
     newAccount = { name, passwordHash: await hashPassword(input.password ?? "") };
   }
 
-  const user = await db().transaction(async (tx) => {
-    const now = new Date();
-    let person = existing;
-    if (!person && newAccount) person = await createUser(tx, { email: inv.email, role: inv.role, ...newAccount });
-    else if (person && newAccount) person = await updateUser(tx, person.id, newAccount);
-    if (!person) throw notFound(INVITATION_DEAD);
-    if (!(await markInvitationAccepted(tx, inv.id, person.id, now))) throw notFound(INVITATION_DEAD);
-    const role = RANK[inv.role] > RANK[person.role] ? inv.role : person.role;
-    const updated = await updateUser(tx, person.id, { role, emailVerifiedAt: person.emailVerifiedAt ?? now });
-    if (inv.role === "student" && inv.inviterRole === "teacher") await addToRoster(tx, inv.invitedBy, person.id);
-    return updated ?? person;
-  });
+  const user = await db()
+    .transaction(async (tx) => {
+      const now = new Date();
+      let person = existing;
+      if (!person && newAccount) person = await createUser(tx, { email: inv.email, role: inv.role, ...newAccount });
+      else if (person && newAccount) person = await updateUser(tx, person.id, newAccount);
+      if (!person) throw notFound(INVITATION_DEAD);
+      if (!(await markInvitationAccepted(tx, inv.id, person.id, now))) throw notFound(INVITATION_DEAD);
+      const role = RANK[inv.role] > RANK[person.role] ? inv.role : person.role;
+      const updated = await updateUser(tx, person.id, { role, emailVerifiedAt: person.emailVerifiedAt ?? now });
+      if (inv.role === "student" && inv.inviterRole === "teacher") await addToRoster(tx, inv.invitedBy, person.id);
+      return updated ?? person;
+    })
+    .catch((e: unknown) => {
+      // Several acceptances at once: the first made the account; the others meet its unique address.
+      throw raceConflict(e, INVITATION_JUST_ACCEPTED) ?? e;
+    });
   if (!ctx.user) await startSession(ctx, user.id);
   return { status: 200, redirectTo: HOME[user.role] };
 }

@@ -1,4 +1,5 @@
 import type { Cookie } from "lucia";
+import { env } from "@/lib/env";
 import { lucia } from "./lucia";
 import type { CurrentUser } from "./current-user";
 
@@ -12,19 +13,17 @@ export type RequestContext = {
 };
 
 /**
- * The client's address for per-IP limits: the right-most X-Forwarded-For entry, i.e. the one the
- * nearest proxy appended (`next start` itself fills the header from the socket when it is absent).
- * Without a proxy in front a client can write that header itself, which is why every limit that
- * matters is also kept per address.
+ * The client's address for per-IP limits. scripts/serve-worker.mjs appends the socket's address to
+ * X-Forwarded-For, and each of `trusted` proxies in front appended the address it was reached from, so
+ * the client is the entry `trusted` places before the last; entries further left are the client's own
+ * words and never used. Without the serve script's entry (`next dev`) the last entry is taken.
  */
-export function clientIp(headers: Headers): string {
-  const forwarded = headers.get("x-forwarded-for");
-  const last = forwarded
-    ?.split(",")
+export function clientIp(headers: Headers, trusted: number = env().TRUSTED_PROXIES): string {
+  const chain = (headers.get("x-forwarded-for") ?? "")
+    .split(",")
     .map((s) => s.trim())
-    .filter(Boolean)
-    .pop();
-  return last || headers.get("x-real-ip") || "unknown";
+    .filter(Boolean);
+  return chain[Math.max(0, chain.length - 1 - trusted)] ?? "unknown";
 }
 
 export async function loadContext(headers: Headers, setCookie: (cookie: Cookie) => void): Promise<RequestContext> {

@@ -3,7 +3,7 @@ import type { Cookie } from "lucia";
 import { env } from "@/lib/env";
 import type { ActionState } from "./action-state";
 import { loadContext, type RequestContext } from "./context";
-import { HttpError, RateLimitedError, UNEXPECTED_FAILURE } from "./errors";
+import { HttpError, raceConflict, RateLimitedError, UNEXPECTED_FAILURE } from "./errors";
 import { can, type Action } from "./permissions";
 
 // The one server-side check (ENGINEERING.md): every server action and route handler is wrapped
@@ -46,6 +46,8 @@ function permissionFailure(ctx: RequestContext): HttpError {
 }
 
 function unexpected(error: unknown): HttpError {
+  const race = raceConflict(error);
+  if (race) return race;
   console.error(error);
   return new HttpError(500, UNEXPECTED_FAILURE);
 }

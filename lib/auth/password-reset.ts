@@ -13,6 +13,7 @@ import type { ActionState } from "./action-state";
 import type { RequestContext } from "./context";
 import { badRequest, notFound } from "./errors";
 import { appLink } from "./links";
+import { mailedRecently } from "./mail-throttle";
 import { lucia } from "./lucia";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
@@ -24,8 +25,12 @@ export const resetSentMessage = (email: string) =>
 
 export const RESET_LINK_DEAD = "This reset link has expired or has already been used. Ask for a new one below.";
 
-/** A new single-use reset link (stored hashed, expiring within the hour); earlier links stop working. */
+/**
+ * A new single-use reset link (stored hashed, expiring within the hour); earlier links stop working.
+ * Nothing is sent when one went out within the last few minutes (./mail-throttle.ts).
+ */
 export async function sendResetLink(tx: Tx, user: { id: string; name: string; email: string }) {
+  if (await mailedRecently(tx, user.id, "reset_password")) return;
   const { token, hash } = newToken();
   await retireEmailTokens(tx, user.id, "reset_password");
   await insertEmailToken(tx, {

@@ -9,7 +9,8 @@ import { RateLimitedError } from "./errors";
 export type Limit = { max: number; windowSeconds: number };
 
 export const LIMITS = {
-  signInAddress: { max: 10, windowSeconds: 15 * 60 },
+  // Failures on one account before an address that failed on it must back off (./sign-in-backoff.ts).
+  signInAddress: { max: 5, windowSeconds: 15 * 60 },
   signInIp: { max: 100, windowSeconds: 15 * 60 },
   signUpAddress: { max: 5, windowSeconds: 60 * 60 },
   signUpIp: { max: 30, windowSeconds: 60 * 60 },

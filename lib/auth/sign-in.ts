@@ -7,7 +7,8 @@ import { safeNext } from "./links";
 import { lucia } from "./lucia";
 import { hashPassword, verifyPassword } from "./password";
 import { HOME } from "./permissions";
-import { addressKey, hitAll, ipKey, LIMITS } from "./rate-limit";
+import { hit, ipKey, LIMITS } from "./rate-limit";
+import { reserveSignInAttempt, signInSucceeded } from "./sign-in-backoff";
 import { sendVerifyLink } from "./sign-up";
 
 // One message for an unknown address, a wrong password and a closed account (issue 4 §3).
@@ -25,13 +26,12 @@ export async function signIn(
   input: { email: string; password: string; next?: string },
 ): Promise<ActionState> {
   const email = input.email.trim();
-  await hitAll(db(), [
-    [addressKey("sign-in", email), LIMITS.signInAddress],
-    [ipKey("sign-in", ctx.ip), LIMITS.signInIp],
-  ]);
+  await hit(db(), ipKey("sign-in", ctx.ip), LIMITS.signInIp);
+  const attempt = await reserveSignInAttempt(db(), email, ctx.ip);
   const user = await findUserByEmail(db(), email);
   const matches = await verifyPassword(user?.passwordHash ?? (await decoyHash()), input.password);
   if (!user || !user.passwordHash || !matches || user.disabled) throw new HttpError(401, SIGN_IN_FAILED);
+  await signInSucceeded(db(), attempt);
   if (!user.emailVerifiedAt) {
     // Only someone who knows the password gets here, so saying so reveals nothing new.
     await db().transaction((tx) => sendVerifyLink(tx, user, "verify-email"));

@@ -1,11 +1,12 @@
 import { db } from "@/db/client";
 import { createUser, findUserByEmail } from "@/db/queries/people";
-import { insertEmailToken, retireEmailTokens, updateUser, type Tx } from "@/db/queries/auth";
+import { insertEmailToken, retireEmailTokens, type Tx } from "@/db/queries/auth";
 import { enqueueEmail } from "@/lib/mail/outbox";
 import type { ActionState } from "./action-state";
 import type { RequestContext } from "./context";
-import { badRequest } from "./errors";
+import { badRequest, sqlState } from "./errors";
 import { appLink } from "./links";
+import { mailedRecently } from "./mail-throttle";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { addressKey, hitAll, ipKey, LIMITS } from "./rate-limit";
@@ -20,12 +21,16 @@ export const signUpSentMessage = (email: string) =>
   `Nearly there: we've sent a message to ${email}. Open the link in it to confirm your address, then sign in. ` +
   "(If that address already has an account, the message explains how to get back into it.)";
 
-/** Sends the confirmation link that makes a new account usable; older links stop working. */
+/**
+ * Sends the confirmation link that makes a new account usable; older links stop working. Nothing is
+ * sent when one went out within the last few minutes (./mail-throttle.ts).
+ */
 export async function sendVerifyLink(
   tx: Tx,
   user: { id: string; name: string; email: string },
   template: "welcome" | "verify-email",
 ) {
+  if (await mailedRecently(tx, user.id, "verify_email")) return;
   const { token, hash } = newToken();
   await retireEmailTokens(tx, user.id, "verify_email");
   await insertEmailToken(tx, {
@@ -49,21 +54,27 @@ export async function signUp(ctx: RequestContext, input: SignUpInput): Promise<A
     [addressKey("sign-up", email), LIMITS.signUpAddress],
     [ipKey("sign-up", ctx.ip), LIMITS.signUpIp],
   ]);
+  // Hashed whatever happens next, so a taken address answers as slowly as a new one.
   const passwordHash = await hashPassword(input.password);
-  await db().transaction(async (tx) => {
-    const existing = await findUserByEmail(tx, email);
-    if (!existing) {
-      const user = await createUser(tx, { email, name: input.name.trim(), role: "student", passwordHash });
-      await sendVerifyLink(tx, user, "welcome");
-    } else if (existing.disabled) {
-      // A closed account gets nothing; the visitor still sees the same answer.
-    } else if (!existing.emailVerifiedAt) {
-      // Nobody has proved they own this address yet: the newest sign-up's details win.
-      const user = await updateUser(tx, existing.id, { name: input.name.trim(), passwordHash });
-      if (user) await sendVerifyLink(tx, user, "welcome");
-    } else {
-      await sendResetLink(tx, existing);
-    }
-  });
+  try {
+    await db().transaction(async (tx) => {
+      const existing = await findUserByEmail(tx, email);
+      if (!existing) {
+        const user = await createUser(tx, { email, name: input.name.trim(), role: "student", passwordHash });
+        await sendVerifyLink(tx, user, "welcome");
+      } else if (existing.disabled) {
+        // A closed account gets nothing; the visitor still sees the same answer.
+      } else if (!existing.emailVerifiedAt) {
+        // The first sign-up may well be the address's owner: nothing of the account changes, and
+        // whoever reads that mailbox gets a fresh link to confirm it (with the first password).
+        await sendVerifyLink(tx, existing, "verify-email");
+      } else {
+        await sendResetLink(tx, existing);
+      }
+    });
+  } catch (e) {
+    // Another sign-up for the same new address won the race: its link is on its way; answer alike.
+    if (sqlState(e) !== "23505") throw e;
+  }
   return { status: 200, message: signUpSentMessage(email) };
 }

@@ -108,20 +108,21 @@ describe("rate limits", () => {
     }
   });
 
-  it("stop sign-in guessing per address (429) even from many addresses, and per IP across many accounts", async () => {
+  it("slow guessing without locking the owner out, and limit per IP across many accounts", async () => {
     const p = await w.person("student", { email: "guessed@people.example" });
-    let last = 0;
-    for (let i = 0; i <= RL.LIMITS.signInAddress.max; i++) {
+    const statuses: number[] = [];
+    for (let i = 0; i <= RL.LIMITS.signInAddress.max + 2; i++) {
       const { ctx } = await w.context(undefined, `198.51.100.${i + 1}`);
-      last = (await A.signInAction(ctx, { email: p.email, password: `guess-number-${i}` })).status;
+      statuses.push((await A.signInAction(ctx, { email: p.email, password: `guess-number-${i}` })).status);
     }
-    expect(last).toBe(429);
+    // Each address that has not failed on the account has its password checked (tests/integration/auth-abuse
+    // shows an address that keeps guessing being made to wait).
+    expect(statuses.every((s) => s === 401)).toBe(true);
     const res = await A.signInAction((await w.context(undefined, "203.0.113.250")).ctx, {
       email: p.email,
       password: "spruce-and-maple-top",
     });
-    expect(res.status).toBe(429); // even the right password waits: the limit is per address
-    expect(res.message).toMatch(/try again in \d+ minutes?/);
+    expect(res.status).toBe(200); // the right password from the owner's own address is never locked out
 
     const ip = "203.0.113.77";
     await w.db.insert(rateLimits).values({
