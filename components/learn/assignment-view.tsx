@@ -14,6 +14,7 @@ import { StageList } from "./stage-list";
 
 // abcjs and the player load only when there is music to show.
 const AssignmentMusic = lazy(() => import("./assignment-music"));
+const SelfCheckView = lazy(() => import("@/components/listening/self-check"));
 
 function Withdraw({ checkInId, onDone }: { checkInId: string; onDone: () => void }) {
   const [busy, setBusy] = useState(false);
@@ -53,6 +54,8 @@ export function AssignmentView({ assignmentStudentId }: { assignmentStudentId: s
   const q = useQuery({
     queryKey: key,
     queryFn: () => fetchJson<LearnAssignment>(`/api/learn/assignments/${assignmentStudentId}`),
+    // While the listening aid is still hearing the last recording, ask again now and then.
+    refetchInterval: (query) => (query.state.data?.selfCheck?.listening?.state === "listening" ? 4000 : false),
   });
   const refresh = () => void client.invalidateQueries({ queryKey: key });
 
@@ -139,6 +142,22 @@ export function AssignmentView({ assignmentStudentId }: { assignmentStudentId: s
           ) : current.checkIn?.status === "waiting" ? (
             <Withdraw checkInId={current.checkIn.id} onDone={refresh} />
           ) : null}
+        </Card>
+      ) : null}
+      {a.selfCheck ? (
+        <Card as="section" aria-labelledby="selfcheck-h" className="flex flex-col gap-3">
+          <CardTitle level={2}>
+            <span id="selfcheck-h">{`Your last recording: stage ${a.selfCheck.stageIndex}, as the app heard it`}</span>
+          </CardTitle>
+          <Suspense
+            fallback={
+              <p role="status" className="text-bark">
+                Getting the recording ready…
+              </p>
+            }
+          >
+            <SelfCheckView selfCheck={a.selfCheck} title={a.tune.title} />
+          </Suspense>
         </Card>
       ) : null}
       {active && a.current === null && a.stages.length > 0 ? (

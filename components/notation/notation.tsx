@@ -8,6 +8,7 @@ import { cx } from "@/components/ui/cx";
 import { barAt, loadAbcjs, loadBarSpans, type BarSpan } from "./loaders";
 import { phoneLineBreaks, phoneLineEnds } from "./phone-layout";
 import { drawOverlay } from "./phrase-overlay";
+import { drawBarHighlight } from "./bar-highlight";
 import { barsText, phraseLabel, phraseList, twinWords } from "./phrase-words";
 
 export interface NotationProps {
@@ -18,6 +19,8 @@ export interface NotationProps {
   hiddenPhrases?: readonly string[];
   /** Called with the phrase map's bar number (pickup = 0) of a clicked note or bar line. */
   onBarClick?: (bar: number) => void;
+  /** Bars (phrase-map numbers) outlined in the music, e.g. the bar a recording is playing from. */
+  highlightBars?: readonly number[];
   /** Accessible name of the drawing, e.g. the tune's title and stage. */
   label?: string;
   className?: string;
@@ -49,6 +52,7 @@ export function Notation({
   highlightPhrase,
   hiddenPhrases,
   onBarClick,
+  highlightBars,
   label,
   className,
 }: NotationProps) {
@@ -120,6 +124,12 @@ export function Notation({
     drawOverlay(svg, drawn.tune, drawn.spans, phraseMap, { highlight: highlightPhrase, hidden: hiddenPhrases });
   }, [drawn, phraseMap, highlightPhrase, hiddenPhrases]);
 
+  const barsKey = highlightBars?.join(",") ?? "";
+  useEffect(() => {
+    const svg = paper.current?.querySelector("svg");
+    if (drawn && svg) drawBarHighlight(svg, drawn.tune, drawn.spans, barsKey ? barsKey.split(",").map(Number) : []);
+  }, [drawn, barsKey]);
+
   // abcjs makes clickable notes focusable but answers keys only in its note-dragging mode, so
   // Enter or Space on a focused note picks its bar here.
   const onKeyDown = (e: KeyboardEvent<HTMLDivElement>): void => {
@@ -137,6 +147,7 @@ export function Notation({
     <figure
       className={cx("rounded-knot border border-line bg-paper p-3 sm:p-4", className)}
       data-notation-state={state}
+      data-highlight-bars={barsKey || undefined}
     >
       {state === "loading" ? <p className="text-small text-bark">Drawing the music…</p> : null}
       {state === "error" ? <p className="text-small font-semibold text-berry">This music could not be drawn.</p> : null}

@@ -1,7 +1,7 @@
 "use client";
 // Plays a check-in recording through a short-lived presigned address from the playback route. When
 // the address has expired (the browser's request fails) or is about to, a fresh one is fetched.
-import { useCallback, useEffect, useRef, useState } from "react";
+import { useCallback, useEffect, useRef, useState, type RefObject } from "react";
 import { Alert } from "@/components/ui/alert";
 import { ApiError, fetchJson } from "@/lib/catalogue/fetch-json";
 
@@ -9,7 +9,16 @@ type Playback = { url: string; expiresInSeconds: number };
 // Ask again a little before the address runs out, so pressing play never meets an expired one.
 const MARGIN_MS = 30_000;
 
-export function RecordingPlayer({ uploadId, label = "Check-in recording" }: { uploadId: string; label?: string }) {
+export function RecordingPlayer({
+  uploadId,
+  label = "Check-in recording",
+  audioRef,
+}: {
+  uploadId: string;
+  label?: string;
+  /** Also given the audio element, for a caller that moves the playback (the listening aid's bar strip). */
+  audioRef?: RefObject<HTMLAudioElement | null>;
+}) {
   const [src, setSrc] = useState<string | null>(null);
   const [problem, setProblem] = useState<string | null>(null);
   const expiresAt = useRef(0);
@@ -57,7 +66,10 @@ export function RecordingPlayer({ uploadId, label = "Check-in recording" }: { up
   if (!src) return <p className="text-bark">Loading the recording…</p>;
   return (
     <audio
-      ref={audio}
+      ref={(el) => {
+        audio.current = el;
+        if (audioRef) audioRef.current = el;
+      }}
       controls
       preload="metadata"
       src={src}

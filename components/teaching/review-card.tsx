@@ -1,5 +1,6 @@
 "use client";
-// One check-in waiting for review: the recording, the stage's notation, feedback and the two outcomes.
+// One check-in waiting for review: the recording with the listening aid's bar strip, the stage's notation,
+// feedback and the two outcomes (the aid suggests; the sign-off is the teacher's).
 import { useMutation, useQueryClient } from "@tanstack/react-query";
 import { useId, useState } from "react";
 import { Notation } from "@/components/notation";
@@ -11,7 +12,7 @@ import { Textarea } from "@/components/ui/input";
 import { ApiError, errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import type { ReviewItem } from "@/lib/teaching/teach-api-types";
 import { REVIEW_KEY, ROSTER_KEY } from "./query-keys";
-import { RecordingPlayer } from "@/components/recording/recording-player";
+import { ListeningPanel } from "@/components/listening/listening-panel";
 
 type Outcome = "signed_off" | "needs_more_time";
 type Result = { openedStage: number | null };
@@ -56,17 +57,26 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
         </p>
       </div>
       {item.uploadId ? (
-        <RecordingPlayer uploadId={item.uploadId} label={`Recording by ${item.student.name}`} />
-      ) : (
-        <p className="text-small text-bark">No recording with this check-in.</p>
-      )}
-      {item.stage.abc ? (
-        <Notation
+        <ListeningPanel
+          listening={item.listening}
+          uploadId={item.uploadId}
           abc={item.stage.abc}
-          label={`${item.tune.title}, ${item.stage.name}`}
-          className="rounded-knot border border-line p-2"
+          recordingLabel={`Recording by ${item.student.name}`}
+          musicLabel={`${item.tune.title}, ${item.stage.name}`}
+          audience="teacher"
         />
-      ) : null}
+      ) : (
+        <>
+          <p className="text-small text-bark">No recording with this check-in.</p>
+          {item.stage.abc ? (
+            <Notation
+              abc={item.stage.abc}
+              label={`${item.tune.title}, ${item.stage.name}`}
+              className="rounded-knot border border-line p-2"
+            />
+          ) : null}
+        </>
+      )}
       <Field
         id={`${id}-feedback`}
         label="Feedback"

@@ -15,6 +15,9 @@ export function ReviewQueue() {
     queryKey: REVIEW_KEY,
     queryFn: () => fetchJson<{ checkIns: ReviewItem[]; waiting: number }>("/api/teach/review"),
     staleTime: 0,
+    // While a recording is still being heard, ask again now and then so its strip appears by itself.
+    refetchInterval: (query) =>
+      query.state.data?.checkIns.some((c) => c.listening?.state === "listening") ? 4000 : false,
   });
   return (
     <div className="flex flex-col gap-4">

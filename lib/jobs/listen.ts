@@ -44,9 +44,8 @@ export async function scheduleListeningSafely(
   try {
     await scheduleListening(checkInId, db);
   } catch (error) {
-    log(
-      `listening aid: check-in ${checkInId} not queued now (${String(error).split("\n")[0]}); the worker's sweep will`,
-    );
+    const why = error instanceof Error && error.cause instanceof Error ? error.cause.message : String(error);
+    log(`listening aid: check-in ${checkInId} not queued now (${why.split("\n")[0]}); the worker's sweep will`);
   }
 }
 

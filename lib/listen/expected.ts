@@ -1,7 +1,7 @@
 // The notes a stage asks for, in written order, from the tune engine's bars: pitches as MIDI numbers
 // in equal temperament (A4 = 440 Hz, ISO 16), times in beats from the meter and the unit note length,
 // and the places where the music may go back (a repeat) or over (a first ending) without a fault.
-import { buildModel, type Fraction, type Problem } from "@/lib/abc";
+import { buildModel, classify, prepareTune, type Fraction, type Problem } from "@/lib/abc";
 
 export interface ExpectedNote {
   index: number;
@@ -11,6 +11,8 @@ export interface ExpectedNote {
   beat: number; // onset in beats from the start of the written music
   beats: number; // its length in beats, ties included
   span: number; // beats until the next written note starts (a rest after it counts)
+  /** Carries an ornament (a roll, a cut, grace notes, a slide): the short notes around it are not extra. */
+  ornament: boolean;
 }
 
 export interface ScoreBar {
@@ -90,6 +92,15 @@ export function readScore(abc: string): { ok: true; score: Score } | { ok: false
   if (!model.ok) return { ok: false, problems: model.problems };
   const { bars, meter, key } = model.value;
   const flats = keyHasFlats(key);
+  // Where ornaments sit in the text: each belongs to the first melody note at or after it.
+  const prepared = prepareTune(abc);
+  const ornamentAt = prepared.ok
+    ? classify(prepared.value)
+        .filter((e) => e.kind === "ornaments" || e.kind === "slides")
+        .map((e) => e.startChar)
+        .sort((a, b) => a - b)
+    : [];
+  let nextOrnament = 0;
   const beat = beatOf(meter);
   const notes: ExpectedNote[] = [];
   const scoreBars: ScoreBar[] = [];
@@ -104,8 +115,14 @@ export function readScore(abc: string): { ok: true; score: Score } | { ok: false
         prev.beats += length; // a tie continues the sounding note
         continue;
       }
+      let ornament = false;
+      while (nextOrnament < ornamentAt.length && ornamentAt[nextOrnament] < n.endChar) {
+        ornament = true;
+        nextOrnament++;
+      }
       if (n.pitch === null) continue;
       notes.push({
+        ornament,
         index: notes.length,
         bar: b.number,
         midi: n.pitch,

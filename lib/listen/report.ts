@@ -30,7 +30,7 @@ function median(values: number[]): number | null {
 /** Walks the alignment: the visits to written notes in playing order, extras, and where it stopped. */
 function walk(steps: Step[], score: Score, heard: HeardNote[]) {
   const visits: Visit[] = [];
-  const extras: { heard: number; bar: number | null }[] = [];
+  const extras: { heard: number; bar: number | null; ornament: boolean; after: number }[] = [];
   const stops: StopReport[] = [];
   let beat = 0;
   let segment = 0;
@@ -55,7 +55,14 @@ function walk(steps: Step[], score: Score, heard: HeardNote[]) {
     }
     if (s.kind === "extra") {
       const last = visits[visits.length - 1];
-      extras.push({ heard: s.heard, bar: last && position < score.notes.length ? score.notes[last.note].bar : null });
+      // short notes around an ornamented note are the ornament's own (a roll, a cut, grace notes)
+      const ornament = Boolean((last && score.notes[last.note].ornament) || score.notes[position]?.ornament);
+      extras.push({
+        heard: s.heard,
+        bar: last && position < score.notes.length ? score.notes[last.note].bar : null,
+        ornament,
+        after: visits.length, // the visits before it
+      });
       continue;
     }
     const note = score.notes[s.note];
@@ -65,6 +72,14 @@ function walk(steps: Step[], score: Score, heard: HeardNote[]) {
     visits.push({ note: s.note, heard: h, bar: note.bar, pass, beat, at: h === null ? null : heard[h].start, segment });
     beat += note.span;
     position = s.note + 1;
+  }
+  // An extra note late in the time between two notes of different bars, just before the bar line, is
+  // the next bar's (a note added on the way into a bar).
+  for (const x of extras) {
+    const before = visits[x.after - 1];
+    const next = visits.slice(x.after).find((v) => v.at !== null);
+    if (before?.at == null || next?.at == null || before.bar === next.bar || before.segment !== next.segment) continue;
+    if (heard[x.heard].start >= before.at + 0.75 * (next.at - before.at)) x.bar = next.bar;
   }
   return { visits, extras, stops, position };
 }
@@ -154,7 +169,7 @@ export function buildReport(
     for (let k = b.first; k < b.end; k++)
       if (!visited.has(k)) notes.push({ expected: score.notes[k].name, heard: null, cents: null, at: null, off: null });
     const passes = new Set(mine.filter((v) => v.heard !== null).map((v) => v.pass));
-    for (const x of walked.extras.filter((x) => x.bar === b.number))
+    for (const x of walked.extras.filter((x) => x.bar === b.number && !x.ornament))
       reasons.push(`an extra ${pitchName(Math.round(heard[x.heard].midi), flats)}`);
     const heardOnce = passes.size > 0;
     if (heardOnce && visited.size < b.end - b.first) reasons.push("stopped in this bar");
@@ -173,7 +188,13 @@ export function buildReport(
 
   const extra: ExtraNote[] = walked.extras.map((x) => {
     const h = heard[x.heard];
-    return { heard: pitchName(Math.round(h.midi), flats), cents: cents(h.midi), at: round2(h.start), bar: x.bar };
+    return {
+      heard: pitchName(Math.round(h.midi), flats),
+      cents: cents(h.midi),
+      at: round2(h.start),
+      bar: x.bar,
+      ornament: x.ornament,
+    };
   });
   const beatsOf = new Map(score.bars.map((b) => [b.number, b.beats]));
   const tempo = tempoOf(

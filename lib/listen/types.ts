@@ -38,6 +38,8 @@ export interface ExtraNote {
   at: number;
   /** The bar it was played in, or null before the tune started or after it ended. */
   bar: number | null;
+  /** Beside a note written with an ornament: likely part of the ornament, so not a fault. */
+  ornament: boolean;
 }
 
 export interface TempoPoint {

@@ -77,7 +77,7 @@ describe("npm run -s abc -- listen", () => {
       expect(bar?.verdict).toBe("check");
       expect(bar?.notes.some((n) => n.heard === null && n.at !== null && Math.abs(n.at - m.at) < 0.4)).toBe(true);
     }
-  });
+  }, 240_000); // a fresh tsx process and the fiddle samples' decoding: slow on a busy two-CPU machine
   it("exits 2 with a clear message for audio it cannot read", async () => {
     const file = path.join(dir, "notes.txt");
     writeFileSync(file, "not a recording");
@@ -87,5 +87,5 @@ describe("npm run -s abc -- listen", () => {
     );
     expect(failed?.code).toBe(2);
     expect(failed?.stderr).toContain("could not be read as audio");
-  });
+  }, 240_000);
 });

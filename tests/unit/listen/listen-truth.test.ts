@@ -153,3 +153,35 @@ describe("how the piece was played", () => {
     expect(result.summary).toMatch(/not played/);
   });
 });
+
+describe("ornaments", () => {
+  it("takes the short notes of a roll or grace notes as the ornament's own, and the same notes elsewhere as extra", async () => {
+    const { perform } = await import("@/lib/listen/perform");
+    const { renderNotes } = await import("@/lib/listen/render");
+    const { listen } = await import("@/lib/listen");
+    const abc = stageOf("rattling-gate.abc", 3);
+    const perf = perform(abc, { bpm: 80, seed: 1 });
+    const ornamented = perf.truth.flatMap((t, i) => (perf.score.notes[t.note].ornament ? [i] : []));
+    expect(ornamented.length).toBeGreaterThan(0);
+    // A cut: 70 ms a tone above, just before the ornamented note, which starts that much later.
+    const withCuts = (chosen: number[]) =>
+      perf.notes.flatMap((n, i) =>
+        chosen.includes(i)
+          ? [
+              { midi: n.midi + 2, start: n.start, duration: 0.07 },
+              { ...n, start: n.start + 0.07, duration: n.duration - 0.07 },
+            ]
+          : [n],
+      );
+    const heard = listen(abc, { samples: await renderNotes(withCuts(ornamented), "tone", 16_000), sampleRate: 16_000 });
+    expect(heard.bars.filter((b) => b.verdict !== "clean").map((b) => `${b.bar}: ${b.reasons}`)).toEqual([]);
+    expect(heard.extra.filter((e) => !e.ornament)).toEqual([]);
+    // The same cuts on plain notes are extra notes, worth a listen.
+    const plain = perf.truth.flatMap((t, i) =>
+      !perf.score.notes[t.note].ornament && i > 2 && perf.notes[i].duration > 0.3 && i % 9 === 0 ? [i] : [],
+    );
+    const flagged = listen(abc, { samples: await renderNotes(withCuts(plain), "tone", 16_000), sampleRate: 16_000 });
+    const bars = new Set(plain.map((i) => perf.truth[i].bar));
+    for (const bar of bars) expect(flagged.bars.find((b) => b.bar === bar)?.reasons.join()).toMatch(/an extra/);
+  });
+});
