@@ -36,12 +36,12 @@ describe("abc CLI", () => {
     expect(phrases.parts[0].label).toBe("A");
     expect(phrases.parts[0].phrases[0].id).toBe("A1");
     expect(typeof phrases.learningLoad.distinct).toBe("number");
-  }, 60_000);
+  }, 180_000);
 
   it("exits with code 2 and the problems on stderr for bad input", () => {
     const bad = file("bad.abc", "X:1\nT:Nothing\nK:G\n");
     const r = run("skeleton", bad);
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/bad\.abc:\d+:\d+: The tune has no notes/);
-  }, 60_000);
+  }, 180_000);
 });
