@@ -125,7 +125,9 @@ describe("a student's ladder and tune page in a real browser", () => {
   });
 
   it("adds a margin note pinned to the bar of a clicked note, kept after a reload", async () => {
-    const box = await page.locator("svg .abcjs-note.abcjs-l0").first().boundingBox();
+    const first = page.locator("svg .abcjs-note.abcjs-l0").first();
+    await first.scrollIntoViewIfNeeded(); // the mouse clicks where the note is on screen, as a person scrolls to it
+    const box = await first.boundingBox();
     if (!box) throw new Error("the first note has no box");
     await page.mouse.click(box.x + box.width / 2, box.y + box.height - 4);
     await waitFor(`document.querySelector("form[aria-label='Add note'] input[type=number]")?.value === "1"`);
