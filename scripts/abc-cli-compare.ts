@@ -3,9 +3,10 @@
 import { compareSettings } from "../lib/abc/compare";
 import { prepareTune, splitTunes, type Problem } from "../lib/abc/index";
 
-export type CompareOutcome = { ok: true; value: unknown } | { ok: false; problems: { a: Problem[]; b: Problem[] } };
+type Sides = { a: Problem[]; b: Problem[] };
+export type CompareOutcome = ({ ok: true; value: unknown } | { ok: false; problems: Sides }) & { notes: Sides };
 
-function firstTune(text: string): { abc: string; problems: Problem[] } {
+function firstTune(text: string): { abc: string; problems: Problem[]; notes: Problem[] } {
   const t = splitTunes(text)[0];
   if (!t)
     return {
@@ -13,16 +14,18 @@ function firstTune(text: string): { abc: string; problems: Problem[] } {
       problems: [
         { line: 1, column: 1, message: "No tune found: a tune starts with an X: field and needs a K: field." },
       ],
+      notes: [],
     };
   const r = prepareTune(t.abc, t.lineOffset);
-  return { abc: t.abc, problems: r.ok ? [] : r.problems };
+  return { abc: t.abc, problems: r.ok ? [] : r.problems, notes: r.notes };
 }
 
 export function runCompare(a: string, b: string): CompareOutcome {
   const first = firstTune(a);
   const second = firstTune(b);
+  const notes = { a: first.notes, b: second.notes };
   if (first.problems.length || second.problems.length)
-    return { ok: false, problems: { a: first.problems, b: second.problems } };
+    return { ok: false, problems: { a: first.problems, b: second.problems }, notes };
   const r = compareSettings(first.abc, second.abc);
-  return r.ok ? { ok: true, value: r.value } : { ok: false, problems: { a: r.problems, b: [] } };
+  return r.ok ? { ok: true, value: r.value, notes } : { ok: false, problems: { a: r.problems, b: [] }, notes };
 }

@@ -1,84 +1,119 @@
-// Command line for teachers' bulk work and for checking the tune engine (issue 3 §8):
-//   npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--lowest] [--skeleton]
+// Command line for teachers' bulk work and for checking the tune engine:
+//   npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--highest|--lowest] [--skeleton]
 //   npm run -s abc -- compare <file> <file2>
 //   npm run -s abc -- listen <tune.abc> <recording> [--stage N] [--tempo BPM]   (./abc-cli-listen.ts)
-// One tune in the file prints the shapes of issue 3 §8; several print one result per tune.
-// Bad input: the problems on stderr as file:line:column: message, exit code 2.
+// One tune in the file prints its result; several print one result per tune. A tune the engine
+// refuses prints its problems on stderr as file:line:column: message and the exit code is 2;
+// notes (the tune is read, but something deserves a look) go to stderr as file:line:column: note:
+// message, with exit code 0. Each command is one entry of COMMANDS.
 import { readFileSync } from "node:fs";
 import { analyze, splitTunes, type Analysis, type Problem } from "../lib/abc/index";
 import { runCompare } from "./abc-cli-compare";
 import { runListen } from "./abc-cli-listen";
 
-const USAGE =
-  "usage: npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--lowest] [--skeleton]\n" +
-  "       npm run -s abc -- compare <file> <file2>\n" +
-  "       npm run -s abc -- listen <tune.abc> <recording> [--stage N] [--tempo BPM]";
+type Command =
+  | {
+      usage: string;
+      /** Runs on the non-flag arguments; returns the problems and notes, already as file:line:column lines. */
+      run: (args: string[], flags: ReadonlySet<string>) => { problems: string[]; notes: string[] } | null;
+    }
+  | {
+      usage: string;
+      /** Reads its own arguments (options with values) and does its own output and exit code. */
+      raw: (argv: string[]) => void | Promise<void>;
+    };
+
+const report = (file: string, list: readonly Problem[], kind = ""): string[] =>
+  list.map((p) => `${file}:${p.line}:${p.column}: ${kind}${p.message}`);
+
+function read(file: string): string {
+  try {
+    return readFileSync(file, "utf8");
+  } catch (e) {
+    fail([`${file}: cannot read the file (${e instanceof Error ? e.message : String(e)})`]);
+  }
+}
 
 function fail(lines: string[]): never {
   process.stderr.write(lines.join("\n") + "\n");
   process.exit(2);
 }
 
-function read(file: string): string {
-  try {
-    return readFileSync(file, "utf8");
-  } catch (e) {
-    return fail([`${file}: cannot read the file (${e instanceof Error ? e.message : String(e)})`]);
-  }
+type Shape = (a: Analysis) => unknown;
+
+/** Every tune of a file analysed; `shape` prints one result (JSON), or `text` prints ABC. */
+function perTune(shape: Shape | null, text: ((a: Analysis, flags: ReadonlySet<string>) => string) | null): Command {
+  return {
+    usage: "<file>",
+    run: ([file], flags) => {
+      if (!file) return null;
+      const tunes = splitTunes(read(file));
+      if (tunes.length === 0)
+        return {
+          problems: [`${file}:1:1: No tune found: a tune starts with an X: field and needs a K: field.`],
+          notes: [],
+        };
+      const problems: string[] = [];
+      const notes: string[] = [];
+      const results: { index: number; title: string; analysis: Analysis }[] = [];
+      const doubleStop = flags.has("--lowest") ? "lowest" : flags.has("--highest") ? "highest" : undefined;
+      tunes.forEach((t, i) => {
+        const r = analyze(t.abc, { lineOffset: t.lineOffset, doubleStop });
+        notes.push(...report(file, r.notes, "note: "));
+        if (r.ok) results.push({ index: i + 1, title: r.value.title, analysis: r.value });
+        else problems.push(...report(file, r.problems));
+      });
+      if (shape && results.length) {
+        const value =
+          tunes.length === 1 && results[0]
+            ? shape(results[0].analysis)
+            : { tunes: results.map((r) => ({ index: r.index, title: r.title, ...Object(shape(r.analysis)) })) };
+        process.stdout.write(JSON.stringify(value, null, 2) + "\n");
+      }
+      if (text && results.length) process.stdout.write(results.map((r) => text(r.analysis, flags)).join("\n"));
+      return { problems, notes };
+    },
+  };
 }
 
-const report = (file: string, problems: Problem[]): string[] =>
-  problems.map((p) => `${file}:${p.line}:${p.column}: ${p.message}`);
-
-type Shape = (a: Analysis) => unknown;
-const JSON_SHAPES: Record<string, Shape> = {
-  stages: (a) => ({ stages: a.stages.map(({ index, name, kinds, abc }) => ({ index, name, kinds, abc })) }),
-  phrases: (a) => a.phraseMap,
-  embellishments: (a) => ({ embellishments: a.embellishments }),
+const COMMANDS: Record<string, Command> = {
+  skeleton: perTune(null, (a) => a.skeleton.abc),
+  stages: perTune(
+    (a) => ({ stages: a.stages.map(({ index, name, kinds, abc }) => ({ index, name, kinds, abc })) }),
+    null,
+  ),
+  phrases: perTune((a) => a.phraseMap, null),
+  embellishments: perTune((a) => ({ embellishments: a.embellishments }), null),
+  swap: perTune(null, (a, flags) => (flags.has("--skeleton") ? a.learningSkeleton : a.learning)),
+  compare: {
+    usage: "<file> <file2>",
+    run: ([file, file2]) => {
+      if (!file || !file2) return null;
+      const out = runCompare(read(file), read(file2));
+      const notes = [...report(file, out.notes.a, "note: "), ...report(file2, out.notes.b, "note: ")];
+      if (!out.ok) return { problems: [...report(file, out.problems.a), ...report(file2, out.problems.b)], notes };
+      process.stdout.write(JSON.stringify(out.value, null, 2) + "\n");
+      return { problems: [], notes };
+    },
+  },
+  listen: { usage: "<tune.abc> <recording> [--stage N] [--tempo BPM]", raw: runListen },
 };
 
+const usage = (): string =>
+  Object.entries(COMMANDS)
+    .map(([name, c], i) => `${i === 0 ? "usage:" : "      "} npm run -s abc -- ${name} ${c.usage}`)
+    .join("\n") + "\n       options: --highest | --lowest (melody note of every double stop), --skeleton (swap)";
+
 function main(argv: string[]): void {
-  if (argv[0] === "listen") return void runListen(argv.slice(1));
   const flags = new Set(argv.filter((a) => a.startsWith("--")));
-  const [command, file, file2] = argv.filter((a) => !a.startsWith("--"));
-  if (!command || !file) fail([USAGE]);
-  if (command === "compare") {
-    if (!file2) fail([USAGE]);
-    const out = runCompare(read(file), read(file2));
-    if (!out.ok) fail([...report(file, out.problems.a), ...report(file2, out.problems.b)]);
-    process.stdout.write(JSON.stringify(out.value, null, 2) + "\n");
-    return;
-  }
-  const text = read(file);
-  if (!(command in JSON_SHAPES) && command !== "skeleton" && command !== "swap")
-    fail([`unknown command "${command}"`, USAGE]);
-  const tunes = splitTunes(text);
-  if (tunes.length === 0) fail([`${file}:1:1: No tune found: a tune starts with an X: field and needs a K: field.`]);
-  const problems: string[] = [];
-  const results: { index: number; title: string; analysis: Analysis }[] = [];
-  tunes.forEach((t, i) => {
-    const r = analyze(t.abc, { lineOffset: t.lineOffset, doubleStop: flags.has("--lowest") ? "lowest" : "highest" });
-    if (r.ok) results.push({ index: i + 1, title: r.value.title, analysis: r.value });
-    else problems.push(...report(file, r.problems));
-  });
-  const shape = JSON_SHAPES[command];
-  if (shape) {
-    const value =
-      tunes.length === 1 && results[0]
-        ? shape(results[0].analysis)
-        : { tunes: results.map((r) => ({ index: r.index, title: r.title, ...Object(shape(r.analysis)) })) };
-    if (results.length) process.stdout.write(JSON.stringify(value, null, 2) + "\n");
-  } else {
-    const abc = results.map((r) =>
-      command === "skeleton"
-        ? r.analysis.skeleton.abc
-        : flags.has("--skeleton")
-          ? r.analysis.learningSkeleton
-          : r.analysis.learning,
-    );
-    if (abc.length) process.stdout.write(abc.join("\n"));
-  }
-  if (problems.length) fail(problems);
+  const [name, ...args] = argv.filter((a) => !a.startsWith("--"));
+  const command = name === undefined ? undefined : COMMANDS[name];
+  if (!command) fail([name ? `unknown command "${name}"` : "no command given", usage()]);
+  if ("raw" in command) return void command.raw(argv.slice(argv.indexOf(name as string) + 1));
+  const out = command.run(args, flags);
+  if (out === null) fail([usage()]);
+  if (out.notes.length) process.stderr.write(out.notes.join("\n") + "\n");
+  if (out.problems.length) fail(out.problems);
 }
 
 main(process.argv.slice(2));

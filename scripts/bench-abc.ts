@@ -1,10 +1,12 @@
-// Benchmark of the tune engine (issue 3 §9) over the open corpus. Prints the median time of each
-// step, the corpus total, and last the median over tunes of (full analysis / one abcjs parse).
+// Benchmark of the tune engine over the open corpus. Prints the median time of each step, the
+// corpus total, the median over tunes of (full analysis / one abcjs parse), then how analysis time
+// grows with a tune's length (bench-abc-scaling.ts) and the slowest of the fuzz test's inputs.
 import { readdirSync, readFileSync } from "node:fs";
 import { performance } from "node:perf_hooks";
 import abcjs from "abcjs";
 import { analyze, classify, buildStages, phraseMap, prepareTune, splitTunes, twinSwap } from "../lib/abc/index";
 import { shapeOf, skeletonFrom } from "../lib/abc/skeleton";
+import { benchScaling } from "./bench-abc-scaling";
 
 const ROOT = "../shared/datasets/nottingham/ABC_cleaned";
 const REPS = 3; // best of three per tune for each step: a stray GC pause is not the engine's cost
@@ -116,3 +118,4 @@ for (const [step, xs] of Object.entries(steps)) {
 console.log(`corpus wall time (all measurements): ${(corpusMs / 1000).toFixed(1)} s`);
 console.log(`(for comparison, timed back to back instead of alternating: ${median(backToBack).toFixed(2)})`);
 console.log(`analysis/parse ratio: ${median(ratios).toFixed(2)}`);
+benchScaling();

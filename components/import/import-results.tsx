@@ -1,5 +1,5 @@
 // One result per tune of the file: saved (with a link to it), already there, or its problems at
-// line and column in the file.
+// line and column in the file; and its notes, which did not stop the save.
 import Link from "next/link";
 import type { ImportEvent } from "@/lib/tunes/import";
 
@@ -32,9 +32,16 @@ export function ImportResults({ results }: { results: readonly TuneResult[] }) {
             </span>
           </p>
           {r.status === "problems" ? (
-            <ul className="mt-1 list-disc pl-5 text-small">
+            <ul className="mt-1 list-disc pl-5 text-small" data-testid="import-problems">
               {r.problems.map((p, i) => (
                 <li key={i}>{`Line ${p.line}, column ${p.column}: ${p.message}`}</li>
+              ))}
+            </ul>
+          ) : null}
+          {r.notes.length ? (
+            <ul className="mt-1 list-disc pl-5 text-small text-slate" data-testid="import-notes">
+              {r.notes.map((p, i) => (
+                <li key={i}>{`Note, line ${p.line}, column ${p.column}: ${p.message}`}</li>
               ))}
             </ul>
           ) : null}

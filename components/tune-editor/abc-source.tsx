@@ -1,6 +1,7 @@
 "use client";
-// The ABC text and, under it, every problem at its line and column; choosing a problem puts the
-// caret there, so the teacher goes straight to the mistake.
+// The ABC text and, under it, every problem and note at its line and column; choosing one puts the
+// caret there, so the teacher goes straight to the mistake. Problems stop a save (the music could
+// not be read as written); notes do not (a bar longer than the meter, a field ABC does not define).
 import { useRef, useState } from "react";
 import { controlClasses } from "@/components/ui/input";
 import { cx } from "@/components/ui/cx";
@@ -10,6 +11,7 @@ export interface AbcSourceProps {
   value: string;
   onChange: (abc: string) => void;
   problems: readonly Problem[];
+  notes: readonly Problem[];
   checking: boolean;
 }
 
@@ -26,7 +28,9 @@ function caretAt(text: string, offset: number): { line: number; column: number }
   return { line: before.length, column: (before[before.length - 1]?.length ?? 0) + 1 };
 }
 
-export function AbcSource({ value, onChange, problems, checking }: AbcSourceProps) {
+const plural = (n: number, word: string): string => `${n} ${word}${n === 1 ? "" : "s"}`;
+
+export function AbcSource({ value, onChange, problems, notes, checking }: AbcSourceProps) {
   const area = useRef<HTMLTextAreaElement>(null);
   const [caret, setCaret] = useState({ line: 1, column: 1 });
   const track = (): void => {
@@ -71,33 +75,61 @@ export function AbcSource({ value, onChange, problems, checking }: AbcSourceProp
       </p>
       <div id="abc-problems" role="status" aria-live="polite" className="flex flex-col gap-1">
         {checking ? <p className="text-small text-bark">Reading the tune…</p> : null}
-        {!checking && problems.length === 0 ? (
+        {!checking && problems.length === 0 && notes.length === 0 ? (
           <p className="text-small font-semibold text-spruce">No problems found in the ABC.</p>
         ) : null}
         {problems.length ? (
           <>
             <p className="text-small font-semibold text-berry">
-              {problems.length} problem{problems.length === 1 ? "" : "s"} in the ABC:
+              {plural(problems.length, "problem")} in the ABC: the tune cannot be saved until{" "}
+              {problems.length === 1 ? "it is" : "they are"} fixed.
             </p>
-            <ul className="flex flex-col gap-1" data-testid="abc-problems">
-              {problems.map((p, i) => (
-                <li key={`${p.line}:${p.column}:${i}`}>
-                  <button
-                    type="button"
-                    onClick={() => goTo(p)}
-                    className="w-full rounded-knot border-l-4 border-berry bg-berry-tint px-3 py-1.5 text-left text-small hover:underline"
-                  >
-                    <span className="font-semibold">
-                      Line {p.line}, column {p.column}:
-                    </span>{" "}
-                    {p.message}
-                  </button>
-                </li>
-              ))}
-            </ul>
+            <ProblemList list={problems} testId="abc-problems" tone="problem" onChoose={goTo} />
+          </>
+        ) : null}
+        {notes.length ? (
+          <>
+            <p className="text-small font-semibold text-slate">
+              {plural(notes.length, "note")} on the ABC{problems.length ? "" : ": the tune can be saved as it is"}.
+            </p>
+            <ProblemList list={notes} testId="abc-notes" tone="note" onChoose={goTo} />
           </>
         ) : null}
       </div>
     </div>
+  );
+}
+
+function ProblemList({
+  list,
+  testId,
+  tone,
+  onChoose,
+}: {
+  list: readonly Problem[];
+  testId: string;
+  tone: "problem" | "note";
+  onChoose: (p: Problem) => void;
+}) {
+  return (
+    <ul className="flex flex-col gap-1" data-testid={testId}>
+      {list.map((p, i) => (
+        <li key={`${p.line}:${p.column}:${i}`}>
+          <button
+            type="button"
+            onClick={() => onChoose(p)}
+            className={cx(
+              "w-full rounded-knot border-l-4 px-3 py-1.5 text-left text-small hover:underline",
+              tone === "problem" ? "border-berry bg-berry-tint" : "border-slate bg-slate-tint",
+            )}
+          >
+            <span className="font-semibold">
+              {tone === "note" ? "Note, line" : "Line"} {p.line}, column {p.column}:
+            </span>{" "}
+            {p.message}
+          </button>
+        </li>
+      ))}
+    </ul>
   );
 }

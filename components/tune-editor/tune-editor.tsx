@@ -54,6 +54,8 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
         ? live.fallback.problems
         : live.check.problems
       : [];
+  const notes =
+    live.check?.ok || !live.check?.planReasons.length ? (live.check?.notes ?? []) : (live.fallback?.notes ?? []);
   const planReasons = live.check && !live.check.ok ? live.check.planReasons : [];
   const sourceDirty = saved ? abc !== saved.abc : true;
   const dirty =
@@ -115,7 +117,7 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
         ) : null}
       </header>
       <div className="grid gap-6 lg:grid-cols-2">
-        <AbcSource value={abc} onChange={setAbc} problems={problems} checking={live.checking} />
+        <AbcSource value={abc} onChange={setAbc} problems={problems} notes={notes} checking={live.checking} />
         <div className="flex flex-col gap-2">
           <p className="font-semibold">Full setting, as written</p>
           <Notation abc={abc} phraseMap={tune?.analysis.phraseMap ?? null} label="The tune as written" />

@@ -2,9 +2,10 @@
 // phrase map and the twin-swapped learning version.
 import { classify } from "./classify";
 import type { DoubleStop } from "./emit";
-import { phraseMap, type PhraseMap } from "./phrase-map";
+import { phraseMapWithParts, type PhraseMap } from "./phrase-map";
 import { shapeOf, skeletonFrom, type TuneShape } from "./skeleton";
 import { buildStages, DEFAULT_PLAN, validatePlan } from "./stages";
+import { Locator } from "./locate";
 import { guard, prepareTune } from "./tune";
 import { twinSwap } from "./twin-swap";
 import type { Embellishment, Result, Stage, StagePlan } from "./types";
@@ -33,24 +34,32 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
   const plan = opts.plan ?? DEFAULT_PLAN;
   const check = validatePlan(plan);
   if (!check.ok)
-    return { ok: false, problems: check.reasons.map((message) => ({ line: 1 + lineOffset, column: 1, message })) };
+    return {
+      ok: false,
+      problems: check.reasons.map((message) => ({ line: 1 + lineOffset, column: 1, message })),
+      notes: [],
+    };
   const prepared = prepareTune(abc, lineOffset);
   if (!prepared.ok) return prepared;
   const p = prepared.value;
-  return guard(lineOffset, () => {
+  return guard(new Locator(abc, lineOffset), () => {
     const skeleton = skeletonFrom(p, { doubleStop: opts.doubleStop });
-    const map = phraseMap(skeleton.bars, skeleton.meter, skeleton.unit);
+    const { map, partOf } = phraseMapWithParts(skeleton.bars, skeleton.meter, skeleton.unit);
     const source = shapeOf(p, null, opts.doubleStop ?? "highest");
     const value: Analysis = {
       title: skeleton.title,
       key: skeleton.key,
-      embellishments: classify(p),
+      // the skeleton has one bar for each melody bar, in order
+      embellishments: classify(p, (vb) => {
+        const b = skeleton.bars[vb.index];
+        return b === undefined ? undefined : partOf.get(b);
+      }),
       skeleton,
       stages: buildStages(p, plan, opts.doubleStop, skeleton.abc),
       phraseMap: map,
       learning: twinSwap(source.abc, source.bars, map),
       learningSkeleton: twinSwap(skeleton.abc, skeleton.bars, map),
     };
-    return { ok: true, value, warnings: p.warnings };
+    return { ok: true, value, notes: p.notes };
   });
 }

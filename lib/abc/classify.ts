@@ -1,9 +1,10 @@
-// Every embellishment of a tune with its kind and position (issue 3 §2).
+// Every embellishment of a tune with its kind and position: part (as the phrase map labels it),
+// bar and beat.
 import { add, div, toNumber } from "./fraction";
 import { beatOf } from "./header";
 import { tokKind } from "./decorations";
 import type { VBar } from "./bars";
-import type { NoteEl } from "./model";
+import type { BarEl, NoteEl } from "./model";
 import type { Prepared } from "./tune";
 import type { Embellishment, Fraction, Kind, Position } from "./types";
 
@@ -22,22 +23,30 @@ const NAMES: Record<string, string> = {
   pralltriller: "uppermordent",
 };
 
-function position(bar: VBar | null, grid: Fraction): Position {
-  if (!bar) return { part: "A", bar: 0, beat: 1 };
-  const beat = 1 + toNumber(div(grid, beatOf(bar.meter)));
-  return { part: bar.part, bar: bar.number, beat: Math.round(beat * 1000) / 1000 };
-}
+/** The part label of a melody bar (by its index); the P: label in force when none is given. */
+export type PartOf = (bar: VBar) => string | undefined;
 
-export function classify(p: Prepared): Embellishment[] {
+export function classify(p: Prepared, partOf: PartOf = () => undefined): Embellishment[] {
   const { model } = p;
   const abc = model.abc;
   const found: Embellishment[] = [];
+  const melody = model.bars.get(model.melody) ?? [];
+  const position = (bar: VBar | null, grid: Fraction): Position => {
+    if (!bar) return { part: partOf(melody[0] as VBar) ?? "A", bar: 0, beat: 1 };
+    const beat = 1 + toNumber(div(grid, beatOf(bar.meter)));
+    // another voice's bar takes the part of the melody's bar in the same place
+    const label = partOf(melody[bar.index] ?? bar) ?? bar.part;
+    return { part: label, bar: bar.number, beat: Math.round(beat * 1000) / 1000 };
+  };
+  // which bar each bar line closes, read once (a decoration on a bar line belongs to that bar)
+  const closes = new Map<BarEl, VBar>();
+  for (const bars of model.bars.values()) for (const b of bars) if (b.right) closes.set(b.right, b);
   for (const el of model.edits) {
     if (el.type === "bar") {
       if (!el.toks.some((t) => t.kind === "deco")) continue;
       // A decoration on a bar line belongs to the end of the bar it closes.
       const bars = model.bars.get(el.voice) ?? [];
-      const closed = bars.find((b) => b.right === el) ?? null;
+      const closed = closes.get(el) ?? null;
       const pos = closed
         ? position(closed, add(closed.length, closed.shift))
         : position(bars[0] ?? null, { num: 0, den: 1 });
@@ -75,7 +84,7 @@ export function classify(p: Prepared): Embellishment[] {
         found1(
           abc,
           "fills",
-          "tuplet across a beat (kept in every stage)",
+          "tuplet kept in every stage (it crosses a beat, or its notes cannot become one)",
           first.start,
           t.els[t.els.length - 1].end,
           position(first.bar, first.grid),

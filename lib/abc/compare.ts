@@ -54,12 +54,12 @@ export function compareSettings(a: string, b: string, opts: CompareOptions = {})
   const problems: Problem[] = [];
   if (!ra.ok) problems.push(...ra.problems.map((p) => ({ ...p, message: `first setting: ${p.message}` })));
   if (!rb.ok) problems.push(...rb.problems.map((p) => ({ ...p, message: `second setting: ${p.message}` })));
-  if (!ra.ok || !rb.ok) return { ok: false, problems };
-  const warnings = [
-    ...ra.warnings.map((p) => ({ ...p, message: `first setting: ${p.message}` })),
-    ...rb.warnings.map((p) => ({ ...p, message: `second setting: ${p.message}` })),
+  const notes = [
+    ...ra.notes.map((p) => ({ ...p, message: `first setting: ${p.message}` })),
+    ...rb.notes.map((p) => ({ ...p, message: `second setting: ${p.message}` })),
   ];
-  return { ok: true, value: compareBars(ra.value, rb.value), warnings };
+  if (!ra.ok || !rb.ok) return { ok: false, problems, notes };
+  return { ok: true, value: compareBars(ra.value, rb.value), notes };
 }
 
 /**
@@ -77,7 +77,7 @@ function groups(plan: PartPlan | undefined): { pickups: Bar[]; main: Bar[]; endi
 }
 
 /** Share of a bar's onsets that differ: 0 for equal bars, about 1 for unrelated ones. */
-function distance(x: Bar, y: Bar, meter: Fraction): number {
+function barDistance(x: Bar, y: Bar, meter: Fraction): number {
   const d = diffNotes(x.notes, y.notes, meter).length;
   return d / Math.max(1, x.notes.length, y.notes.length);
 }
@@ -85,36 +85,71 @@ function distance(x: Bar, y: Bar, meter: Fraction): number {
 // Two gaps cost more than one wholly different pair, so bars pair up unless a bar was really added.
 const GAP_COST = 0.55;
 
-/** Needleman–Wunsch alignment of two bar sequences: pairs of indices, null where one side has no bar. */
+/**
+ * Needleman–Wunsch alignment of two bar sequences: pairs of indices, null where one side has no
+ * bar. Two settings of one tune have about the same bars, so only a band around the diagonal is
+ * filled (wide enough for the difference in length and a few bars added or missing): the cost
+ * grows with the bar count, not with its square.
+ */
 function align(xs: Bar[], ys: Bar[], meter: Fraction): [number | null, number | null][] {
   const n = xs.length;
   const m = ys.length;
-  const cost: number[][] = Array.from({ length: n + 1 }, (_, i) =>
-    Array.from({ length: m + 1 }, (_, j) => (i + j) * GAP_COST),
-  );
-  const row = (i: number): number[] => cost[i] as number[];
-  for (let i = 1; i <= n; i++) {
-    for (let j = 1; j <= m; j++) {
-      const match = (row(i - 1)[j - 1] as number) + distance(xs[i - 1] as Bar, ys[j - 1] as Bar, meter);
-      row(i)[j] = Math.min(match, (row(i - 1)[j] as number) + GAP_COST, (row(i)[j - 1] as number) + GAP_COST);
+  const width = BAND + Math.ceil(n === 0 ? m : m / n) + Math.ceil(m === 0 ? n : n / m);
+  const lo: number[] = [];
+  const rows: Float64Array[] = [];
+  for (let i = 0; i <= n; i++) {
+    const centre = n === 0 ? 0 : Math.round((i * m) / n);
+    const from = i === 0 ? 0 : Math.max(0, centre - width);
+    const to = i === n ? m : Math.min(m, centre + width);
+    lo.push(from);
+    rows.push(new Float64Array(to - from + 1).fill(Infinity));
+  }
+  const at = (i: number, j: number): number => {
+    const k = j - (lo[i] as number);
+    const row = rows[i] as Float64Array;
+    return k >= 0 && k < row.length ? (row[k] as number) : Infinity;
+  };
+  const dist = new Map<number, number>();
+  const distance = (i: number, j: number): number => {
+    const key = i * (m + 1) + j;
+    let d = dist.get(key);
+    if (d === undefined) {
+      d = barDistance(xs[i] as Bar, ys[j] as Bar, meter);
+      dist.set(key, d);
+    }
+    return d;
+  };
+  for (let i = 0; i <= n; i++) {
+    const row = rows[i] as Float64Array;
+    const from = lo[i] as number;
+    for (let k = 0; k < row.length; k++) {
+      const j = from + k;
+      if (i === 0 || j === 0) {
+        row[k] = (i + j) * GAP_COST;
+        continue;
+      }
+      row[k] = Math.min(
+        at(i - 1, j - 1) + distance(i - 1, j - 1),
+        at(i - 1, j) + GAP_COST,
+        (k > 0 ? (row[k - 1] as number) : Infinity) + GAP_COST,
+      );
     }
   }
   const out: [number | null, number | null][] = [];
   let i = n;
   let j = m;
   while (i > 0 || j > 0) {
-    const here = row(i)[j] as number;
-    if (
-      i > 0 &&
-      j > 0 &&
-      Math.abs(here - ((row(i - 1)[j - 1] as number) + distance(xs[i - 1] as Bar, ys[j - 1] as Bar, meter))) < 1e-9
-    ) {
+    const here = at(i, j);
+    if (i > 0 && j > 0 && Math.abs(here - (at(i - 1, j - 1) + distance(i - 1, j - 1))) < 1e-9) {
       out.push([--i, --j]);
-    } else if (i > 0 && Math.abs(here - ((row(i - 1)[j] as number) + GAP_COST)) < 1e-9) out.push([--i, null]);
+    } else if (i > 0 && Math.abs(here - (at(i - 1, j) + GAP_COST)) < 1e-9) out.push([--i, null]);
     else out.push([null, --j]);
   }
   return out.reverse();
 }
+
+/** Bars either side of the diagonal that the alignment looks at. */
+const BAND = 8;
 
 export function compareBars(a: Shape, b: Shape): Comparison {
   const pa = findParts(a.bars, fullBarLength(a.bars, a.meter));
@@ -186,31 +221,47 @@ const side = (n: MelodyNote | undefined): NoteSide | null =>
     ? null
     : { pitch: n.pitch, note: pitchName(n.pitch), duration: `${n.duration.num}/${n.duration.den}` };
 
-/** The note attacked at each onset (a tied continuation is no new attack) and the note sounding there. */
+/**
+ * The note attacked at each onset (a tied continuation is no new attack) and the note sounding
+ * there. A bar's notes come in time order, so the note sounding at each onset is found by walking
+ * each bar once.
+ */
 function diffNotes(x: MelodyNote[], y: MelodyNote[], meter: Fraction): NoteDifference[] {
   const key = (n: MelodyNote): number => Math.round(toNumber(n.onset) * 1e9);
-  const attacks = (ns: MelodyNote[]): Map<number, MelodyNote> =>
-    new Map(ns.filter((n) => !n.tiedFromPrevious).map((n) => [key(n), n]));
-  const sounding = (ns: MelodyNote[], t: number): MelodyNote | undefined =>
-    ns.find((n) => key(n) <= t && t < Math.round((toNumber(n.onset) + toNumber(n.duration)) * 1e9));
+  const end = (n: MelodyNote): number => Math.round((toNumber(n.onset) + toNumber(n.duration)) * 1e9);
+  const attacks = (ns: MelodyNote[]): Map<number, MelodyNote> => {
+    const out = new Map<number, MelodyNote>();
+    for (const n of ns) if (!n.tiedFromPrevious) out.set(key(n), n);
+    return out;
+  };
+  const walker = (ns: MelodyNote[]): ((t: number) => MelodyNote | undefined) => {
+    let k = 0;
+    return (t) => {
+      while (k < ns.length && end(ns[k] as MelodyNote) <= t) k++;
+      const n = ns[k];
+      return n !== undefined && key(n) <= t ? n : undefined;
+    };
+  };
   const ax = attacks(x);
   const ay = attacks(y);
+  const soundingX = walker(x);
+  const soundingY = walker(y);
   const onsets = [...new Set([...ax.keys(), ...ay.keys()])].sort((p, q) => p - q);
   const out: NoteDifference[] = [];
   for (const t of onsets) {
     const nx = ax.get(t);
     const ny = ay.get(t);
+    const heldX = soundingX(t);
+    const heldY = soundingY(t);
     const beat = beatNumber(t / 1e9, meter);
     if (nx !== undefined && ny !== undefined) {
       if (nx.pitch !== ny.pitch) out.push({ beat, kind: "pitch", first: side(nx), second: side(ny) });
       else if (toNumber(nx.duration) !== toNumber(ny.duration))
         out.push({ beat, kind: "duration", first: side(nx), second: side(ny) });
     } else if (nx !== undefined) {
-      const held = sounding(y, t);
-      if (held?.pitch !== nx.pitch) out.push({ beat, kind: "onlyInFirst", first: side(nx), second: side(held) });
+      if (heldY?.pitch !== nx.pitch) out.push({ beat, kind: "onlyInFirst", first: side(nx), second: side(heldY) });
     } else if (ny !== undefined) {
-      const held = sounding(x, t);
-      if (held?.pitch !== ny.pitch) out.push({ beat, kind: "onlyInSecond", first: side(held), second: side(ny) });
+      if (heldX?.pitch !== ny.pitch) out.push({ beat, kind: "onlyInSecond", first: side(heldX), second: side(ny) });
     }
   }
   return out;

@@ -68,7 +68,14 @@ export function emit(
   const collapse = removed.has("fills") && groupOf.size > 0;
   for (const el of model.edits) {
     if (el.start < pos) continue;
-    if (el.start > pos) out.write(abc.slice(pos, el.start));
+    if (el.start > pos) {
+      // a collapsed tuplet's marker outside its first note goes with the tuplet
+      const g = collapse && el.type === "note" ? groupOf.get(el) : undefined;
+      const marker = g?.els[0] === el ? g.tuplet?.marker : null;
+      if (marker && marker.start >= pos && marker.end <= el.start)
+        out.write(abc.slice(pos, marker.start) + abc.slice(marker.end, el.start));
+      else out.write(abc.slice(pos, el.start));
+    }
     if (track) offsets.set(el.start, out.text.length);
     let state = states.get(el.voice);
     if (!state) {

@@ -90,12 +90,15 @@ export function abcLength(f: Fraction): string {
   return `${f.num === 1 ? "" : f.num}/${f.den}`;
 }
 
-/** Parse an ABC length suffix ("", "2", "/", "//", "3/2", "/4", "3/") into a multiple of L (§4.3). */
-const LENGTHS = new Map<string, Fraction>();
-export function parseAbcLength(s: string): Fraction {
+/**
+ * Parse an ABC length suffix ("", "2", "/", "//", "3/2", "/4", "3/") into a multiple of L (§4.3);
+ * null for a length of nothing ("0", "/0"), which no note can have.
+ */
+const LENGTHS = new Map<string, Fraction | null>();
+export function parseAbcLength(s: string): Fraction | null {
   if (s === "") return ONE;
   let f = LENGTHS.get(s);
-  if (!f) {
+  if (f === undefined) {
     f = readAbcLength(s);
     // Tunes use a handful of length suffixes; the bound only guards against odd input.
     if (LENGTHS.size < 1000) LENGTHS.set(s, f);
@@ -103,12 +106,11 @@ export function parseAbcLength(s: string): Fraction {
   return f;
 }
 
-function readAbcLength(s: string): Fraction {
+function readAbcLength(s: string): Fraction | null {
   const m = /^(\d*)(\/*)(\d*)$/.exec(s);
   if (!m) return frac(1);
   const num = m[1] ? Number(m[1]) : 1;
   const slashes = m[2].length;
-  if (slashes === 0) return frac(num);
-  const den = m[3] ? Number(m[3]) * 2 ** (slashes - 1) : 2 ** slashes;
-  return frac(num, den);
+  const den = slashes === 0 ? 1 : m[3] ? Number(m[3]) * 2 ** (slashes - 1) : 2 ** slashes;
+  return num > 0 && den > 0 && Number.isFinite(num) && Number.isFinite(den) ? frac(num, den) : null;
 }

@@ -1,5 +1,5 @@
 // Rhythmic fills: the note groups the skeleton turns into one note (issue 3 §3).
-import { add, cmp, div, frac, isInteger, lt, sum, ZERO } from "./fraction";
+import { add, cmp, div, frac, isInteger, lt, mul, sum, ZERO } from "./fraction";
 import { beatOf } from "./header";
 import type { NoteEl, TuneModel, Tuplet } from "./model";
 import type { Fraction } from "./types";
@@ -35,7 +35,11 @@ export function findGroups(model: TuneModel): { groups: FillGroup[]; crossing: T
   const crossing: Tuplet[] = [];
   for (const t of model.tuplets) {
     const first = t.els[0];
-    if (!first?.bar || t.els.some((e) => e.bar !== first.bar)) {
+    if (
+      !first?.bar ||
+      t.els.some((e) => e.bar !== first.bar) ||
+      !collapsible(model.abc, t.els, sum(t.els.map((e) => e.duration)))
+    ) {
       crossing.push(t);
       continue;
     }
@@ -68,7 +72,8 @@ export function findGroups(model: TuneModel): { groups: FillGroup[]; crossing: T
         total = add(total, el.duration);
         const c = cmp(total, EIGHTH);
         if (c === 0) {
-          if (run.length > 1 && !el.brokenOut) groups.push({ what: "sixteenth fill", els: run, total, tuplet: null });
+          if (run.length > 1 && !el.brokenOut && collapsible(model.abc, run, total))
+            groups.push({ what: "sixteenth fill", els: run, total, tuplet: null });
           run = [];
           total = ZERO;
         } else if (c > 0) {
@@ -79,4 +84,30 @@ export function findGroups(model: TuneModel): { groups: FillGroup[]; crossing: T
     }
   }
   return { groups, crossing };
+}
+
+/**
+ * A group can become one note only if abcjs can write that note (a plain or dotted value, ABC 2.1
+ * §4.3; abcjs warns "Duration not representable" for any other length under a whole note: three
+ * eighths-in-a-triplet written D/EF last 5/3 of an eighth) and the group is on one line (its
+ * members' line break, or a line continuation between them, would go with them).
+ */
+function collapsible(abc: string, els: NoteEl[], total: Fraction): boolean {
+  const first = els[0];
+  const last = els[els.length - 1];
+  if (!first || !last) return false;
+  for (let i = first.start; i < last.end; i++) if (abc.charCodeAt(i) === 10) return false;
+  const written = div(total, first.unit);
+  return representable(mul(written, first.unit));
+}
+
+/** abcjs's note values (abc_parse_settings.js): 1/2 to 1/64 with up to five dots, or a whole note or more. */
+export function representable(d: Fraction): boolean {
+  if (d.num >= d.den) return true;
+  const den = d.den;
+  if ((den & (den - 1)) !== 0) return false; // not a power of two
+  const dots = Math.log2(d.num + 1) - 1; // num = 2^(dots+1) - 1
+  if (!Number.isInteger(dots) || dots < 0 || dots > 5) return false;
+  const n = Math.log2(den) - dots; // den = 2^(n + dots), the undotted value 1/2^n
+  return n >= 1 && n <= 6;
 }

@@ -3,7 +3,16 @@
 // sits inside it; editing by offsets needs those, so this reads the span again. It only ever runs
 // on text abcjs already accepted as one element, which keeps it small.
 import { parseAbcLength } from "./fraction";
+import { AbcInputError } from "./locate";
 import type { Fraction } from "./types";
+
+/** The length written in t[from, to) after a note or rest, or a located error for a length of nothing. */
+function lengthAt(t: string, note: number, from: number, to: number): Fraction {
+  const len = parseAbcLength(from === to ? "" : t.slice(from, to));
+  if (len === null)
+    throw new AbcInputError(note, `"${t.slice(note, to)}" has no length: a note or rest lasts more than 0`);
+  return len;
+}
 
 export type TokKind =
   | "ws"
@@ -49,6 +58,8 @@ export interface Body {
 export interface Lexed {
   toks: Tok[];
   body: Body | null;
+  /** Text abcjs read as part of the element that is not ABC this lexer knows (a "]" with no "["). */
+  odd: Tok | null;
 }
 
 // Scanners over the whole tune text at an index, returning where the match ends: no substring
@@ -129,7 +140,7 @@ function readNote(t: string, i: number, end: number): WrittenNote | null {
     end: j,
     acc,
     name: t.slice(a, n),
-    len: parseAbcLength(j === n ? "" : t.slice(n, j)),
+    len: lengthAt(t, i, n, j),
     tie: "",
   };
 }
@@ -147,6 +158,7 @@ const isNoteStart = (c: string): boolean =>
 export function lexSpan(t: string, start: number, end: number, shorthands: Record<string, string>): Lexed {
   const toks: Tok[] = [];
   let body: Body | null = null;
+  let odd: Tok | null = null;
   let i = start;
   while (i < end) {
     const c = t[i];
@@ -160,9 +172,12 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
       kind = "gchord";
       j = closing(t, i, '"', end);
     } else if ((c === "!" || c === "+") && !body) {
-      kind = "deco";
+      // a decoration is !name! (ABC 2.1 §4.14); a lone "!" (abc 2.0's line break) is not one
       j = closing(t, i, c, end);
-      name = t.slice(i + 1, j - 1);
+      const closed = j > i + 1 && t[j - 1] === c;
+      kind = closed ? "deco" : "other";
+      if (!closed) j = i + 1;
+      name = closed ? t.slice(i + 1, j - 1) : "";
     } else if (c === "{") {
       kind = "grace";
       j = closing(t, i, "}", end);
@@ -195,7 +210,7 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
         end: j,
         acc: "",
         name: c,
-        len: parseAbcLength(j === i + 1 ? "" : t.slice(i + 1, j)),
+        len: lengthAt(t, i, i + 1, j),
         tie: "",
       };
       body = { start: i, end: j, chord: false, rest: c, notes: [note], outerLen: ONE };
@@ -215,13 +230,15 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
       kind = "short";
       name = shorthands[c];
     }
-    toks.push({ kind, start: i, end: j, name });
+    const tok: Tok = { kind, start: i, end: j, name };
+    if (kind === "other" && c !== "\\" && odd === null) odd = tok;
+    toks.push(tok);
     i = j;
   }
-  return { toks, body };
+  return { toks, body, odd };
 }
 
-const ONE = parseAbcLength("");
+const ONE: Fraction = parseAbcLength("") ?? { num: 1, den: 1 };
 
 function lexChord(t: string, i: number, end: number): Body {
   const notes: WrittenNote[] = [];
@@ -239,5 +256,5 @@ function lexChord(t: string, i: number, end: number): Body {
   }
   j = Math.min(end, j + 1);
   const e = scanLen(t, j, end);
-  return { start: i, end: e, chord: true, rest: null, notes, outerLen: parseAbcLength(e === j ? "" : t.slice(j, e)) };
+  return { start: i, end: e, chord: true, rest: null, notes, outerLen: lengthAt(t, i, j, e) };
 }

@@ -14,9 +14,13 @@ const ONE = frac(1);
 
 export interface Tuplet {
   spec: string; // "3", "3:2:4" …
+  /** The marker's text when abcjs left it outside the first note's element ("(3" before a chord symbol). */
+  marker: { start: number; end: number } | null;
   p: number;
   mult: Fraction; // time factor, e.g. 2/3 for (3
   els: NoteEl[];
+  /** abcjs counted all its notes (a tuplet cut short by the end of its line or of the tune is not). */
+  complete: boolean;
 }
 
 export interface NoteEl {
@@ -188,25 +192,52 @@ function readVoice(
       const el = noteEl(num(item.duration), voice, start, end, lex, lex.body, state, header, v.last);
       const tStart = num(item.startTriplet);
       if (tStart !== undefined) {
-        const spec = lex.toks.find((t) => t.kind === "tuplet")?.name ?? String(tStart);
+        const inner = lex.toks.find((t) => t.kind === "tuplet");
+        const marker = inner ? null : markerBefore(abc, start, v.last?.end ?? header.headerEnd);
+        const spec = inner?.name ?? (marker ? abc.slice(marker.start + 1, marker.end) : String(tStart));
         const mult =
           tupletMultiplier(spec, valueAt(header.meters, start)) ?? fromNumber(num(item.tripletMultiplier) ?? 1);
-        const t: Tuplet = { spec, p: tStart, mult, els: [] };
+        const t: Tuplet = { spec, marker, p: tStart, mult, els: [], complete: false };
         tuplets.push(t);
         v.tuplet = t;
       }
-      const t = v.tuplet;
+      let t = v.tuplet;
+      // abcjs counts a tuplet's notes within one line of text: a line break ends it, complete or not
+      const lastOfTuplet = t?.els[t.els.length - 1];
+      if (t && tStart === undefined && lastOfTuplet && lineBreakIn(abc, lastOfTuplet.end, start)) {
+        v.tuplet = null;
+        t = null;
+      }
       if (t) {
         el.tuplet = t;
         t.els.push(el);
         el.duration = mul(el.duration, t.mult);
-        if (item.endTriplet === true) v.tuplet = null;
+        if (item.endTriplet === true) {
+          t.complete = true;
+          v.tuplet = null;
+        }
       }
       if (v.last) v.last.next = el;
       v.last = el;
       els.push(el);
     }
   }
+}
+
+function lineBreakIn(abc: string, from: number, to: number): boolean {
+  for (let i = from; i < to; i++) if (abc.charCodeAt(i) === 10) return true;
+  return false;
+}
+
+/**
+ * A tuplet marker abcjs read before a note's element rather than in it: "(3" then a chord symbol
+ * or a space, then the notes. Found between the previous element and the note.
+ */
+function markerBefore(abc: string, start: number, after: number): { start: number; end: number } | null {
+  const at = abc.lastIndexOf("(", start - 1);
+  if (at < after) return null;
+  const m = /^\((\d+)(:\d*)?(:\d*)?/.exec(abc.slice(at, at + 12));
+  return m ? { start: at, end: at + m[0].length } : null;
 }
 
 // Elements already read, by offset (abcjs may list one element in several voices). One array

@@ -1,5 +1,6 @@
 // The patterns teachers look for across a tune (PRODUCT.md §4.5): phrase 1 = phrase 3 of a part,
-// last phrase of one part = last phrase of another, second half of one part = second half of another.
+// last phrase of one part = last phrase of an earlier one, second half of one part = second half of
+// an earlier one.
 import type { Pattern } from "./phrase-types";
 import type { Unit } from "./phrase-units";
 import type { Comparison } from "./phrase-grid";
@@ -47,27 +48,34 @@ export function findPatterns(parts: PartPhrases[], compare: Comparer, maxNotes: 
       description: `phrase 1 of part ${part.label} comes back as phrase 3, ${says(c.differingNotes)}`,
     });
   }
-  for (let i = 0; i < parts.length; i++) {
-    for (let j = i + 1; j < parts.length; j++) {
+  // Each part is paired with the first earlier part that shares the pattern: a long tune that
+  // repeats its parts would otherwise list every pair of repeats.
+  for (let j = 1; j < parts.length; j++) {
+    const b = parts[j] as PartPhrases;
+    const lastB = b.phrases[b.phrases.length - 1];
+    let lastFound = false;
+    let halfFound = false;
+    for (let i = 0; i < j && !(lastFound && halfFound); i++) {
       const a = parts[i] as PartPhrases;
-      const b = parts[j] as PartPhrases;
       const lastA = a.phrases[a.phrases.length - 1];
-      const lastB = b.phrases[b.phrases.length - 1];
-      if (lastA === undefined || lastB === undefined || a.phrases.length < 2 || b.phrases.length < 2) continue;
-      const last = best(lastA, lastB, compare);
-      if (last !== null && last.n <= maxNotes) {
-        out.push({
-          pattern: "lastPhraseShared",
-          parts: [a.label, b.label],
-          first: [last.a.id],
-          second: [last.b.id],
-          kind: kindOf(last.n),
-          differingNotes: last.n,
-          description: `parts ${a.label} and ${b.label} end with the same phrase, ${says(last.n)}`,
-        });
+      if (!lastFound && lastA !== undefined && lastB !== undefined && a.phrases.length >= 2 && b.phrases.length >= 2) {
+        const last = best(lastA, lastB, compare);
+        if (last !== null && last.n <= maxNotes) {
+          lastFound = true;
+          out.push({
+            pattern: "lastPhraseShared",
+            parts: [a.label, b.label],
+            first: [last.a.id],
+            second: [last.b.id],
+            kind: kindOf(last.n),
+            differingNotes: last.n,
+            description: `parts ${a.label} and ${b.label} end with the same phrase, ${says(last.n)}`,
+          });
+        }
       }
-      const half = secondHalf(a, b, compare);
+      const half = halfFound ? null : secondHalf(a, b, compare);
       if (half !== null && half.n <= maxNotes) {
+        halfFound = true;
         out.push({
           pattern: "secondHalfShared",
           parts: [a.label, b.label],

@@ -2,6 +2,7 @@
 import { lineKind } from "./bars";
 import type { NoteEl } from "./model";
 import { emit, melodyIndex, type DoubleStop, type Emitted } from "./emit";
+import { Locator } from "./locate";
 import { prepareTune, guard, type Prepared } from "./tune";
 import { KINDS, type Bar, type Fraction, type MelodyNote, type Result } from "./types";
 
@@ -24,7 +25,11 @@ const ALL = new Set(KINDS);
 export function skeletonOf(abc: string, opts: SkeletonOptions = {}): Result<TuneShape> {
   const prepared = prepareTune(abc);
   if (!prepared.ok) return prepared;
-  return guard(0, () => ({ ok: true, value: skeletonFrom(prepared.value, opts), warnings: prepared.warnings }));
+  return guard(new Locator(abc), () => ({
+    ok: true,
+    value: skeletonFrom(prepared.value, opts),
+    notes: prepared.notes,
+  }));
 }
 
 export function skeletonFrom(p: Prepared, opts: SkeletonOptions = {}): TuneShape {
@@ -37,10 +42,10 @@ export function skeletonFrom(p: Prepared, opts: SkeletonOptions = {}): TuneShape
 export function buildModel(abc: string, opts: SkeletonOptions = {}): Result<TuneShape> {
   const prepared = prepareTune(abc);
   if (!prepared.ok) return prepared;
-  return guard(0, () => ({
+  return guard(new Locator(abc), () => ({
     ok: true,
     value: shapeOf(prepared.value, null, opts.doubleStop ?? "highest"),
-    warnings: prepared.warnings,
+    notes: prepared.notes,
   }));
 }
 

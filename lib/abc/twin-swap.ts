@@ -1,9 +1,9 @@
 // Twin swap (issue 3 §6): the learning version of a tune in which each chosen near twin is played
 // exactly like its model, made by copying the model's bar text over the twin's, bar by bar.
 import type { Bar } from "./types";
-import type { PhraseMap, Swap } from "./phrase-types";
+import type { PhraseMap, Swap, Twin } from "./phrase-types";
 import { toNumber } from "./phrase-time";
-import { barContent, fieldsAt } from "./twin-text";
+import { barContent, fieldsIndex } from "./twin-text";
 
 const FIELD = /\[[A-Za-z]:[^\]]*\]|(?:^|\n)[A-Za-z]:/;
 
@@ -14,16 +14,16 @@ export interface SwapPlan {
   edits: { start: number; end: number; text: string }[];
 }
 
-/** Bars of a phrase id ("A3", or "A4/2" for A4 played with ending 2), in order. */
-export function phraseBars(map: PhraseMap, id: string): number[] | null {
+/** Bars of every phrase id ("A3", or "A4/2" for A4 played with ending 2), in order. */
+function phraseBarsIndex(map: PhraseMap): Map<string, number[]> {
+  const out = new Map<string, number[]>();
   for (const part of map.parts) {
     for (const p of part.phrases) {
-      if (p.id === id) return p.barNumbers;
-      const alt = p.alternatives.find((a) => a.id === id);
-      if (alt !== undefined) return alt.barNumbers;
+      out.set(p.id, p.barNumbers);
+      for (const alt of p.alternatives) out.set(alt.id, alt.barNumbers);
     }
   }
-  return null;
+  return out;
 }
 
 /**
@@ -37,17 +37,21 @@ export function phraseBars(map: PhraseMap, id: string): number[] | null {
 export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: string[]): SwapPlan {
   const byNumber = new Map<number, Bar>();
   for (const b of bars) if (b.number > 0 && !byNumber.has(b.number)) byNumber.set(b.number, b);
-  const chosen = which === undefined ? map.swaps : map.swaps.filter((s) => which.includes(s.phrase));
+  const wanted = which === undefined ? null : new Set(which);
+  const chosen = wanted === null ? map.swaps : map.swaps.filter((s) => wanted.has(s.phrase));
   const plan: SwapPlan = { made: [], skipped: [], edits: [] };
   const changed = new Set<number>();
+  const barsOf = phraseBarsIndex(map);
+  const differences = differencesIndex(map);
+  const fieldsAt = fieldsIndex(abc);
   for (const swap of chosen) {
-    const mine = phraseBars(map, swap.phrase);
-    const model = phraseBars(map, swap.model);
+    const mine = barsOf.get(swap.phrase) ?? null;
+    const model = barsOf.get(swap.model) ?? null;
     if (mine === null || model === null || mine.length !== model.length) {
       plan.skipped.push({ swap, reason: "the phrases have different numbers of bars" });
       continue;
     }
-    const differing = barsWithDifferences(map, swap);
+    const differing = barsWithDifferences(differences, swap);
     const edits: SwapPlan["edits"] = [];
     let reason: string | null = null;
     for (let k = 0; k < mine.length && reason === null; k++) {
@@ -58,7 +62,7 @@ export function planSwaps(abc: string, bars: Bar[], map: PhraseMap, which?: stri
       else if (changed.has(target.number)) reason = `bar ${target.number} is already changed by another swap`;
       else if (toNumber(target.length) !== toNumber(source.length)) {
         if (differing.has(target.number)) reason = `bar ${target.number} differs from its model in length`;
-      } else if (fieldsAt(abc, target.startChar) !== fieldsAt(abc, source.startChar)) {
+      } else if (fieldsAt(target.startChar) !== fieldsAt(source.startChar)) {
         reason = `bar ${target.number} is in a different key, unit length or meter from its model`;
       } else {
         const [ts, te] = barContent(abc, target);
@@ -95,25 +99,39 @@ function sameNotes(a: Bar, b: Bar): boolean {
   });
 }
 
-/** Bars (of the twin) in which the map found a difference from the model. */
-function barsWithDifferences(map: PhraseMap, swap: Swap): Set<number> {
-  const out = new Set<number>();
+/** The map's twins by their pair of phrase ids, read once. */
+function differencesIndex(map: PhraseMap): Map<string, Twin> {
+  const out = new Map<string, Twin>();
   for (const t of map.twins) {
-    if (!((t.first === swap.model && t.second === swap.phrase) || (t.second === swap.model && t.first === swap.phrase)))
-      continue;
-    for (const d of t.differences) {
-      const [from, to] = t.second === swap.phrase ? [d.secondBar, d.lastSecondBar] : [d.firstBar, d.lastFirstBar];
-      for (let n = from; n <= to; n++) out.add(n);
-    }
+    out.set(`${t.first} ${t.second}`, t);
+    out.set(`${t.second} ${t.first}`, t);
   }
   return out;
 }
 
-/** Applies edits (non-overlapping offsets into `abc`) from the end, so earlier offsets stay valid. */
-export function applyEdits(abc: string, edits: SwapPlan["edits"]): string {
-  let out = abc;
-  for (const e of [...edits].sort((a, b) => b.start - a.start)) out = out.slice(0, e.start) + e.text + out.slice(e.end);
+/** Bars (of the twin) in which the map found a difference from the model. */
+function barsWithDifferences(twins: Map<string, Twin>, swap: Swap): Set<number> {
+  const out = new Set<number>();
+  const t = twins.get(`${swap.model} ${swap.phrase}`);
+  if (t === undefined) return out;
+  for (const d of t.differences) {
+    const [from, to] = t.second === swap.phrase ? [d.secondBar, d.lastSecondBar] : [d.firstBar, d.lastFirstBar];
+    for (let n = from; n <= to; n++) out.add(n);
+  }
   return out;
+}
+
+/** Applies edits (non-overlapping offsets into `abc`) in one pass over the text. */
+export function applyEdits(abc: string, edits: SwapPlan["edits"]): string {
+  const sorted = [...edits].sort((a, b) => a.start - b.start);
+  const parts: string[] = [];
+  let at = 0;
+  for (const e of sorted) {
+    parts.push(abc.slice(at, e.start), e.text);
+    at = e.end;
+  }
+  parts.push(abc.slice(at));
+  return parts.join("");
 }
 
 /**

@@ -22,7 +22,11 @@ export interface Problem {
   message: string; // plain text, no HTML
 }
 
-export type Result<T> = { ok: true; value: T; warnings: Problem[] } | { ok: false; problems: Problem[] };
+/**
+ * What the engine says about a tune: `problems` refuse it (the music could not be read as
+ * written), `notes` are shown beside it and the tune is kept (e.g. a bar longer than the meter).
+ */
+export type Result<T> = { ok: true; value: T; notes: Problem[] } | { ok: false; problems: Problem[]; notes: Problem[] };
 
 /** Where something is in the tune. Bars are numbered from 1; a pickup is bar 0. */
 export interface Position {

@@ -42,6 +42,8 @@ export interface ProblemsBody {
   error: string;
   problems: Problem[];
   planReasons: string[];
+  /** Shown beside the problems; they alone would not have stopped the save. */
+  notes: Problem[];
 }
 
 export interface SavedBody {
@@ -51,4 +53,6 @@ export interface SavedBody {
   droppedSwaps: string[];
   /** Hand-edited stages flagged by this save because the source changed under them. */
   flaggedStages: number[];
+  /** What the engine noted about the tune (a bar longer than its meter …); the tune was saved. */
+  notes: Problem[];
 }

@@ -1,7 +1,8 @@
-// One tune checked before it is stored (issue 5 item 2): the same function runs in the editor as
-// the teacher types and in the route that saves, so the browser and the server refuse a tune with
-// the same messages at the same line and column. Pure: no database, no framework.
+// One tune checked before it is stored: the same function runs in the editor as the teacher types,
+// in the route that saves and in the import, so all three refuse a tune with the same problems and
+// show the same notes at the same line and column. Pure: no database, no framework.
 import { analyze, type Analysis } from "@/lib/abc/analyze";
+import { sortProblems } from "@/lib/abc/tune";
 import { DEFAULT_PLAN, validatePlan } from "@/lib/abc/stages";
 import type { Problem, Stage, StagePlan } from "@/lib/abc/types";
 import { headerField, tuneTypeOf, type TuneType } from "./header";
@@ -22,7 +23,13 @@ export interface CheckedTune {
   analysis: Analysis;
 }
 
-export type TuneCheck = { ok: true; value: CheckedTune } | { ok: false; problems: Problem[]; planReasons: string[] };
+/**
+ * `problems` refuse the tune (the music could not be read as written); `notes` go with it either
+ * way and do not stop a save (a field ABC 2.1 does not define, a bar longer than the meter …).
+ */
+export type TuneCheck =
+  | { ok: true; value: CheckedTune; notes: Problem[] }
+  | { ok: false; problems: Problem[]; planReasons: string[]; notes: Problem[] };
 
 export interface CheckOptions {
   stagePlan?: StagePlan | null;
@@ -44,22 +51,24 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
   const lineOffset = opts.lineOffset ?? 0;
   const plan = opts.stagePlan ?? DEFAULT_PLAN;
   const planCheck = validatePlan(plan);
-  if (!planCheck.ok) return { ok: false, problems: [], planReasons: planCheck.reasons };
+  if (!planCheck.ok) return { ok: false, problems: [], planReasons: planCheck.reasons, notes: [] };
 
-  const result = analyze(abc, { plan, lineOffset });
-  if (!result.ok) return { ok: false, problems: result.problems, planReasons: [] };
-  // abcjs warnings mean it ignored or guessed at something the teacher wrote: a tune is stored
-  // only when it reads cleanly, so every stage and the phrase map come from what was meant.
-  const problems: Problem[] = [...result.warnings];
+  // A problem means abcjs ignored or guessed at something the teacher wrote: a tune is stored only
+  // when its music reads as written, so every stage and the phrase map come from what was meant.
+  const analysed = analyze(abc, { plan, lineOffset });
+  const result = analysed.ok
+    ? { ...analysed, notes: listed(analysed.notes, "note") }
+    : { ...analysed, problems: listed(analysed.problems, "problem"), notes: listed(analysed.notes, "note") };
+  if (!result.ok) return { ok: false, problems: result.problems, planReasons: [], notes: result.notes };
   const a = result.value;
   if (a.title.trim() === "") {
-    problems.push({
+    const problem = {
       line: fieldLine(abc, "X") + lineOffset,
       column: 1,
       message: "The tune needs a title: add a T: line under X:.",
-    });
+    };
+    return { ok: false, problems: [problem], planReasons: [], notes: result.notes };
   }
-  if (problems.length) return { ok: false, problems: sortProblems(problems), planReasons: [] };
 
   const swaps = offeredSwaps(a.phraseMap, opts.acceptedSwaps ?? []);
   return {
@@ -76,11 +85,27 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
       droppedSwaps: swaps.dropped,
       analysis: a,
     },
+    notes: result.notes,
   };
 }
 
-export function sortProblems(problems: Problem[]): Problem[] {
-  return [...problems].sort((x, y) => x.line - y.line || x.column - y.column);
+export { sortProblems };
+
+/** Past this many of one kind, one more line says how many were left out (a pasted file of noise). */
+const MAX_LISTED = 50;
+
+function listed(list: Problem[], word: string): Problem[] {
+  if (list.length <= MAX_LISTED) return list;
+  const rest = list.length - MAX_LISTED;
+  const next = list[MAX_LISTED] as Problem;
+  return [
+    ...list.slice(0, MAX_LISTED),
+    {
+      line: next.line,
+      column: next.column,
+      message: `… and ${rest} more ${word}${rest === 1 ? "" : "s"} after this one`,
+    },
+  ];
 }
 
 /** "Line 7, column 12: Unknown character ignored: "#"" — one wording for the editor, the import and the API. */

@@ -1,6 +1,7 @@
-// Bulk import (issue 5 item 3): every tune of a file checked and saved on its own, one result per
-// tune, so a bad tune never stops the good ones. The route streams these results as NDJSON, one
-// line per tune, and the page moves its progress bar as each line arrives.
+// Bulk import: every tune of a file checked (checkTune, with the engine's limits per tune) and
+// saved on its own, one result per tune, so a bad tune never stops the good ones. The route streams
+// these results as NDJSON, one line per tune, and the page moves its progress bar as each arrives.
+// Each result carries the tune's notes, which do not stop a save.
 import type { Db } from "@/db/client";
 import { findTuneByAbc } from "@/db/queries/tunes";
 import type { TuneText } from "@/lib/abc/split";
@@ -11,20 +12,29 @@ import { storeNewTune } from "./save";
 
 export type ImportEvent =
   | { type: "start"; total: number }
-  | { type: "tune"; n: number; line: number; title: string; status: "saved" | "unchanged"; tuneId: string }
-  | { type: "tune"; n: number; line: number; title: string; status: "problems"; problems: Problem[] }
+  | {
+      type: "tune";
+      n: number;
+      line: number;
+      title: string;
+      status: "saved" | "unchanged";
+      tuneId: string;
+      notes: Problem[];
+    }
+  | { type: "tune"; n: number; line: number; title: string; status: "problems"; problems: Problem[]; notes: Problem[] }
   | { type: "done"; saved: number; unchanged: number; failed: number };
 
 async function importOne(db: Db, teacherId: string, t: TuneText, n: number): Promise<ImportEvent> {
   const line = t.lineOffset + 1;
   const title = headerField(t.abc, "T") || `Tune ${n} (no title)`;
   const check = checkTune(t.abc, { lineOffset: t.lineOffset });
-  if (!check.ok) return { type: "tune", n, line, title, status: "problems", problems: check.problems };
+  const notes = check.notes;
+  if (!check.ok) return { type: "tune", n, line, title, status: "problems", problems: check.problems, notes };
   // The same text again (a file imported twice) is reported, not stored twice.
   const same = await findTuneByAbc(db, teacherId, check.value.abc);
-  if (same) return { type: "tune", n, line, title: check.value.title, status: "unchanged", tuneId: same.id };
+  if (same) return { type: "tune", n, line, title: check.value.title, status: "unchanged", tuneId: same.id, notes };
   const tuneId = await storeNewTune(db, teacherId, check.value);
-  return { type: "tune", n, line, title: check.value.title, status: "saved", tuneId };
+  return { type: "tune", n, line, title: check.value.title, status: "saved", tuneId, notes };
 }
 
 export async function* importTunes(db: Db, teacherId: string, tunes: readonly TuneText[]): AsyncGenerator<ImportEvent> {
@@ -45,6 +55,7 @@ export async function* importTunes(db: Db, teacherId: string, tunes: readonly Tu
         title: headerField(t.abc, "T") || `Tune ${i + 1}`,
         status: "problems",
         problems: [{ line: t.lineOffset + 1, column: 1, message }],
+        notes: [],
       };
     }
     if (event.type === "tune") count[event.status === "problems" ? "failed" : event.status] += 1;

@@ -18,8 +18,8 @@ import { checkTune, type CheckedTune } from "./check";
 import type { TuneInput } from "./schemas";
 
 export type SaveOutcome =
-  | { ok: true; tuneId: string; title: string; droppedSwaps: string[]; flaggedStages: number[] }
-  | { ok: false; problems: Problem[]; planReasons: string[] };
+  | { ok: true; tuneId: string; title: string; droppedSwaps: string[]; flaggedStages: number[]; notes: Problem[] }
+  | { ok: false; problems: Problem[]; planReasons: string[]; notes: Problem[] };
 
 type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
@@ -71,7 +71,14 @@ export async function createTune(db: Db, teacherId: string, input: TuneInput): P
   const check = checkTune(input.abc, parsed(input));
   if (!check.ok) return check;
   const tuneId = await storeNewTune(db, teacherId, check.value);
-  return { ok: true, tuneId, title: check.value.title, droppedSwaps: check.value.droppedSwaps, flaggedStages: [] };
+  return {
+    ok: true,
+    tuneId,
+    title: check.value.title,
+    droppedSwaps: check.value.droppedSwaps,
+    flaggedStages: [],
+    notes: check.notes,
+  };
 }
 
 /** A tune that has passed checkTune, with its stages, in one transaction. */
@@ -91,5 +98,5 @@ export async function saveTune(db: Db, tune: TuneRow, input: TuneInput): Promise
     await updateTune(tx, tune.id, fieldsOf(t));
     return writeStages(tx, tune.id, t.stages, tune.abc !== t.abc);
   });
-  return { ok: true, tuneId: tune.id, title: t.title, droppedSwaps: t.droppedSwaps, flaggedStages };
+  return { ok: true, tuneId: tune.id, title: t.title, droppedSwaps: t.droppedSwaps, flaggedStages, notes: check.notes };
 }

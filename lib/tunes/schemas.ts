@@ -2,10 +2,14 @@
 // handlers (ENGINEERING.md: zod on both sides). Shape only: what the engine thinks of the music
 // (problems with line and column, plan reasons) is lib/tunes/check.ts.
 import { z } from "zod";
+import { MAX_ABC_BYTES } from "@/lib/abc/limits";
 import { KINDS } from "@/lib/abc/types";
 
-/** One tune's ABC; a long medley is a few thousand characters, so this only stops a pasted file. */
-export const MAX_TUNE_CHARS = 50_000;
+/**
+ * One tune's ABC: the engine's own limit (200 kB, lib/abc/limits.ts), counted here in characters
+ * so a request is refused before it is read; the engine counts bytes and says where the text passes.
+ */
+export const MAX_TUNE_CHARS = MAX_ABC_BYTES;
 export const MAX_STAGES = 8;
 
 export const stagePlanInput = z.object({

@@ -15,14 +15,13 @@ async function stageCount(db: Db, tuneId: string, index: number): Promise<number
   return count;
 }
 
-/** Kept exactly as written, as long as it reads cleanly; the flag from an earlier source change is cleared. */
+/** Kept exactly as written, as long as its music reads as written; the flag from an earlier source change is cleared. */
 export async function editStage(db: Db, tune: TuneRow, index: number, rawAbc: string): Promise<StageOutcome> {
   const count = await stageCount(db, tune.id, index);
   if (index === count) throw unprocessable("The last stage is the full setting itself: change the tune's ABC instead.");
   const abc = rawAbc.replace(/\r\n?/g, "\n");
   const result = analyze(abc);
-  const problems = result.ok ? result.warnings : result.problems;
-  if (problems.length) return { ok: false, problems: sortProblems(problems) };
+  if (!result.ok) return { ok: false, problems: sortProblems(result.problems) };
   await updateStage(db, tune.id, index, { abc, handEdited: true, sourceChanged: false });
   return { ok: true };
 }

@@ -86,6 +86,23 @@ describe("a teacher writes a tune and puts it on a course", () => {
     expect(new URL(page.url()).pathname).toBe("/teach/tunes/new"); // nothing was saved
   });
 
+  it("names a missing K: line as such, and a bar of ten eighths as a note by its bar number", async () => {
+    await source().fill(TUNE.replace("K:G\n", ""));
+    await page
+      .getByTestId("abc-problems")
+      .getByRole("button", { name: /Line 6, column 1: The tune has no K: line/ })
+      .waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId("abc-problems").textContent()).not.toMatch(/title/);
+    // bar 3 gets two more eighths: a note with its bar number, and the tune can still be saved
+    await source().fill(TUNE.replace("|(GA)Bd gdBd|c2AF G4|", "|(GA)Bd gdBdBd|c2AF G4|"));
+    const note = page.getByTestId("abc-notes").getByRole("button", {
+      name: /Note, line 7, column \d+: Bar 3 lasts 10 eighths, but M:4\/4 makes a bar of 8 eighths/,
+    });
+    await note.waitFor({ timeout: 30_000 });
+    expect(await page.getByTestId("abc-problems").count()).toBe(0);
+    await page.getByText("1 note on the ABC: the tune can be saved as it is.").waitFor();
+  });
+
   it("clears the problem once fixed and reads the facts from the ABC", async () => {
     await source().fill(TUNE);
     await page.getByText("No problems found in the ABC.").waitFor({ timeout: 30_000 });

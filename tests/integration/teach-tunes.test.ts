@@ -65,6 +65,22 @@ describe("saving a tune", () => {
     expect(body.problems.every((p) => p.line === 9)).toBe(true); // the line holding the mistake
   });
 
+  it("saves a tune with a note (a bar of ten eighths in 4/4) and answers the note the editor shows", async () => {
+    // the first bar of the B part gets two more eighths: a slip, noted by bar number, not refused
+    const long = WICKER.replace("|:fa", "|:fafa");
+    const browser = checkTune(long);
+    expect(browser.ok).toBe(true);
+    const res = await w.call(T, "POST", { cookie: teacher, body: { abc: long } });
+    expect(res.status).toBe(201);
+    const body = (await res.json()) as SavedBody;
+    expect(body.notes).toEqual(browser.notes);
+    expect(body.notes).toEqual([
+      expect.objectContaining({
+        message: expect.stringMatching(/^Bar 9 lasts 10 eighths, but M:4\/4 makes a bar of 8 eighths$/),
+      }),
+    ]);
+  });
+
   it("refuses a plan that leaves kinds out, with the plan's reasons", async () => {
     const res = await w.call(T, "POST", {
       cookie: teacher,

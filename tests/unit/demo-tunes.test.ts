@@ -160,7 +160,7 @@ describe("the demo tunes", () => {
 
   it.each(FILES)("%s parses with no problems or abcjs warnings and keeps the engine's invariants", (file) => {
     const r = analyze(demoTuneAbc(file));
-    expect(r.ok && r.warnings).toEqual([]);
+    expect(r.ok && r.notes).toEqual([]);
     // PRODUCT.md §4: stages re-parse without new warnings, bars keep their length, the last stage is the source
     expect(checkTune(demoTuneAbc(file))).toEqual([]);
   });

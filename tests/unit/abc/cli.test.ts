@@ -1,4 +1,4 @@
-// The command line (issue 3 §8), run as a teacher would run it.
+// The command line, run as a teacher would run it.
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -43,5 +43,32 @@ describe("abc CLI", () => {
     const r = run("skeleton", bad);
     expect(r.status).toBe(2);
     expect(r.stderr).toMatch(/bad\.abc:\d+:\d+: The tune has no notes/);
+  }, 180_000);
+
+  it("refuses broken ABC with every problem at file:line:column, and prints no skeleton", () => {
+    // an unclosed chord symbol, an unclosed grace group and a stray bracket (ABC 2.1 §4.18, §4.12, §4.17)
+    const broken = file(
+      "broken.abc",
+      'X:1\nT:Broken Gate\nM:4/4\nL:1/8\nK:G\n|:"G GABc dBGB|\n{g A2 AB cBAG|\nGABc d]BGB|A2 AB c2 BA:|\n',
+    );
+    const r = run("skeleton", broken);
+    expect(r.status).toBe(2);
+    expect(r.stdout).toBe("");
+    expect(r.stderr.trim().split("\n")).toEqual([
+      `${broken}:6:3: The chord symbol "G GABc dBGB… has no closing quote (")`,
+      `${broken}:7:1: The grace notes {g A2 AB cBA… have no closing brace (})`,
+      `${broken}:8:7: This "]" closes nothing: no chord [ or inline field [K:… was opened before it`,
+    ]);
+  }, 180_000);
+
+  it("prints notes on stderr and still the skeleton, with exit code 0", () => {
+    const long = file("long.abc", "X:1\nT:Long Bar\nY:AB\nM:4/4\nL:1/8\nK:G\nGABc dBGB|A2 AB cBAGAB|GABc dBGB|\n");
+    const r = run("skeleton", long);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toContain("GABc dBGB|A2 AB cBAGAB|");
+    expect(r.stderr.trim().split("\n")).toEqual([
+      `${long}:3:1: note: Y: is not a field of ABC 2.1, so the line is left out`,
+      `${long}:7:11: note: Bar 2 lasts 10 eighths, but M:4/4 makes a bar of 8 eighths`,
+    ]);
   }, 180_000);
 });

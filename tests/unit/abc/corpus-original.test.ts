@@ -17,7 +17,7 @@ describe("ABC_original corpus", () => {
       const lines = text.split("\n").length;
       for (const t of splitTunes(text)) {
         const r = analyze(t.abc, { lineOffset: t.lineOffset });
-        const problems = r.ok ? r.warnings : r.problems;
+        const problems = r.ok ? r.notes : r.problems;
         for (const p of problems) {
           expect(p.line).toBeGreaterThanOrEqual(t.lineOffset + 1);
           expect(p.line).toBeLessThanOrEqual(lines);

@@ -4,10 +4,11 @@ import abcjs from "abcjs";
 import { eq, sub, add, cmp, frac, toString } from "@/lib/abc/fraction";
 import { beatOf, readHeader } from "@/lib/abc/header";
 import { warningKeys } from "@/lib/abc/parse";
+import { analyze } from "@/lib/abc/analyze";
 import { buildStages } from "@/lib/abc/stages";
 import { prepareTune, type Prepared } from "@/lib/abc/tune";
 import type { VBar } from "@/lib/abc/bars";
-import type { Fraction } from "@/lib/abc/types";
+import type { Fraction, Problem } from "@/lib/abc/types";
 
 export function melodyBars(p: Prepared): VBar[] {
   return p.model.bars.get(p.model.melody) ?? [];
@@ -52,7 +53,7 @@ export function checkTune(abc: string): string[] {
   if (!src.ok) return [`rejected: ${src.problems.map((p) => p.message).join("; ")}`];
   const stages = buildStages(src.value);
   if (stages[stages.length - 1].abc !== abc) errs.push("the last stage is not the source");
-  const srcWarnings = warningKeys(src.value.warnings);
+  const srcWarnings = warningKeys(src.value.notes);
   const srcBars = melodyBars(src.value);
   let skeleton: Prepared | null = null;
   for (const stage of stages.slice(0, -1)) {
@@ -62,7 +63,7 @@ export function checkTune(abc: string): string[] {
       continue;
     }
     if (stage.index === 1) skeleton = r.value;
-    for (const [k, c] of warningKeys(r.value.warnings))
+    for (const [k, c] of warningKeys(r.value.notes))
       if (c > (srcWarnings.get(k) ?? 0)) errs.push(`stage ${stage.index}: new warning "${k}"`);
     const bars = melodyBars(r.value);
     if (bars.length !== srcBars.length)
@@ -94,4 +95,68 @@ export function checkTune(abc: string): string[] {
     });
   }
   return errs;
+}
+
+/**
+ * What every tune the engine accepts must give: each version it writes (the stages, the skeleton,
+ * the two learning versions) reads again with no problem and no note the source lacks, with the
+ * same bars of the same lengths. A refused tune must be refused with located, plain problems.
+ */
+export function checkOutputs(abc: string): { refused: boolean; errors: string[] } {
+  const r = analyze(abc);
+  if (!r.ok) return { refused: true, errors: checkRefusal(abc, r.problems) };
+  return { refused: false, errors: checkVersions(abc, r) };
+}
+
+function checkRefusal(abc: string, problems: Problem[]): string[] {
+  const errs: string[] = [];
+  const lines = abc.split("\n").length;
+  for (const p of problems) {
+    if (/Internal error/.test(p.message)) errs.push(`internal error: ${p.message}`);
+    if (p.line < 1 || p.line > lines + 1 || p.column < 1)
+      errs.push(`problem outside the text at ${p.line}:${p.column}`);
+    if (/<\/?(span|br|b|i|div)\b/i.test(p.message) || p.message.trim() === "")
+      errs.push(`unplain problem: ${p.message}`);
+  }
+  return errs;
+}
+
+function checkVersions(abc: string, r: Extract<ReturnType<typeof analyze>, { ok: true }>): string[] {
+  const a = r.value;
+  // the skeleton's bars are the source's bars, with the source's lengths
+  const srcLengths = a.skeleton.bars.map((b) => b.length);
+  const srcNotes = noteKinds(r.notes);
+  const outputs = new Map<string, string>();
+  const put = (name: string, text: string): void => {
+    if (text !== abc && !outputs.has(text)) outputs.set(text, name);
+  };
+  put("skeleton", a.skeleton.abc);
+  for (const s of a.stages) put(`stage ${s.index}`, s.abc);
+  put("learning version", a.learning);
+  put("learning skeleton", a.learningSkeleton);
+  const errs: string[] = [];
+  for (const [text, name] of outputs) {
+    const out = prepareTune(text);
+    if (!out.ok) {
+      errs.push(`${name} refused: ${out.problems.map((p) => p.message).join("; ")}`);
+      continue;
+    }
+    // a learning version copies whole bars of the source, with what the source's notes are about
+    const learning = name.startsWith("learning");
+    for (const [k, c] of noteKinds(out.value.notes))
+      if (learning ? !srcNotes.has(k) : c > (srcNotes.get(k) ?? 0)) errs.push(`${name}: new note "${k}"`);
+    const bars = melodyBars(out.value);
+    if (bars.length !== srcLengths.length) errs.push(`${name}: ${bars.length} bars, source ${srcLengths.length}`);
+    else
+      bars.forEach((b, i) => {
+        if (!eq(b.length, srcLengths[i]))
+          errs.push(`${name} bar ${i}: length ${toString(b.length)}, source ${toString(srcLengths[i])}`);
+      });
+  }
+  return errs;
+}
+
+/** Notes by what they say, without the text they quote (a version may write a note differently). */
+function noteKinds(notes: { message: string }[]): Map<string, number> {
+  return warningKeys(notes.map((n) => ({ line: 0, column: 0, message: n.message.split('"')[0] ?? n.message })));
 }

@@ -1,4 +1,4 @@
-// Bad input (issue 3 §1): problems with line, column and a plain message; nothing throws.
+// Bad input: problems with line, column and a plain message; nothing throws.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { analyze } from "@/lib/abc/analyze";
@@ -17,7 +17,7 @@ describe("problems", () => {
     const tunes = splitTunes(file);
     expect(tunes.map((t) => t.lineOffset)).toEqual([2, 7]);
     const r = analyze(tunes[1].abc, { lineOffset: tunes[1].lineOffset });
-    expect(r.ok && r.warnings).toEqual([{ line: 11, column: 3, message: 'Unknown character ignored: "@"' }]);
+    expect(!r.ok && r.problems).toEqual([{ line: 11, column: 3, message: 'Unknown character ignored: "@"' }]);
   });
 
   it("rejects a text with no music with a plain reason", () => {
@@ -67,7 +67,7 @@ describe("problems", () => {
     fc.assert(
       fc.property(fc.array(piece, { maxLength: 40 }), (parts) => {
         const r = analyze(parts.join(""));
-        const problems = r.ok ? r.warnings : r.problems;
+        const problems = r.ok ? r.notes : r.problems;
         for (const p of problems) {
           expect(p.line).toBeGreaterThanOrEqual(1);
           expect(p.message).not.toMatch(/<span/);

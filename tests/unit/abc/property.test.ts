@@ -1,9 +1,11 @@
-// Property tests (fast-check) on generated tunes: the invariants of PRODUCT.md §4 hold, and the
-// skeleton of a skeleton is itself.
+// Property tests (fast-check) on generated tunes: the invariants of PRODUCT.md §4 hold, the
+// skeleton of a skeleton is itself, and the same tunes mutated (scripts/abc-mutate.ts) are either
+// refused at a place or give versions that read again with every bar's length kept.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { skeletonOf } from "@/lib/abc/skeleton";
-import { checkTune } from "./invariants";
+import { mutants } from "../../../scripts/abc-mutate";
+import { checkOutputs, checkTune } from "./invariants";
 
 const pitch = fc.constantFrom("D", "E", "F", "G", "A", "B", "c", "d", "e", "f", "g", "a", "^c", "=F", "_B");
 const deco = fc.constantFrom("", "", "", "~", ".", "T", "!p!", "!slide!", "{g}", "{/a}", "u", "v", "!accent!", '"G"');
@@ -42,6 +44,16 @@ describe("generated tunes", () => {
         expect(twice.ok && twice.value.abc).toBe(once.value.abc);
       }),
       { numRuns: 150, seed: 32 },
+    );
+  });
+
+  it("mutated, are refused with located problems or keep their bars in every version", () => {
+    fc.assert(
+      fc.property(tuneArb, fc.integer(), (abc, seed) => {
+        const [mutant] = mutants([abc], 1, seed);
+        expect(checkOutputs(mutant ?? abc).errors).toEqual([]);
+      }),
+      { numRuns: 400, seed: 33 },
     );
   });
 });

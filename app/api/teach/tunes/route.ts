@@ -22,7 +22,7 @@ export const GET = guardRoute({ action: "tune:edit", input: z.object({}) }, asyn
 export const POST = guardRoute({ action: "tune:edit", input: tuneInput }, async (ctx, input) => {
   const me = editorOf(ctx.user);
   const saved = await createTune(db(), me.id, input);
-  if (!saved.ok) return problemsResponse(saved.problems, saved.planReasons);
+  if (!saved.ok) return problemsResponse(saved.problems, saved.planReasons, saved.notes);
   const { ok: _ok, ...body } = saved;
   return Response.json(body satisfies SavedBody, { status: 201, headers: NO_STORE });
 });

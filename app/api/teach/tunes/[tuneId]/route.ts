@@ -20,7 +20,7 @@ export const GET = guardRoute({ action: "tune:edit", input: tuneId }, async (ctx
 export const PUT = guardRoute({ action: "tune:edit", input: tuneInput.extend(tuneId.shape) }, async (ctx, input) => {
   const tune = await editableTune(db(), editorOf(ctx.user), input.tuneId);
   const saved = await saveTune(db(), tune, input);
-  if (!saved.ok) return problemsResponse(saved.problems, saved.planReasons);
+  if (!saved.ok) return problemsResponse(saved.problems, saved.planReasons, saved.notes);
   const { ok: _ok, ...body } = saved;
   return Response.json(body satisfies SavedBody, { headers: NO_STORE });
 });
