@@ -52,12 +52,10 @@ function wrk(url: string, headers: Record<string, string>, seconds: number, scri
 }
 
 /**
- * Over HTTP: the last build served as `npm start` serves it (scripts/serve.mjs), asked by wrk, a load generator in C. The benchmark's
- * own node:http client cost ~0.8 ms of CPU a request (measured in the fourth session, /proc CPU
- * ticks), a fifth of this two-CPU machine taken from the server it measures; wrk's cost is a small
- * fraction of that. Each case one at a time first (node:http, also the warm-up and the check of
- * every answer), then ROUNDS interleaved rounds of BENCH_SECONDS per case with CONCURRENCY
- * connections each keeping one request in flight.
+ * Over HTTP: the last build served as `npm start` serves it (scripts/serve.mjs), asked by wrk, a load
+ * generator in C that leaves the two CPUs to the server (a node:http client took a fifth of them).
+ * Each case one at a time first (node:http, also the check of every answer), then ROUNDS interleaved
+ * rounds of BENCH_SECONDS per case with CONCURRENCY connections each keeping one request in flight.
  */
 export async function overHttp(cases: Case[], cookie: string) {
   if (!existsSync(".next/BUILD_ID"))
@@ -70,8 +68,7 @@ export async function overHttp(cases: Case[], cookie: string) {
     });
   });
   const base = `http://127.0.0.1:${port}`;
-  // The app as `npm start` runs it (scripts/serve.mjs: `next start` in one process per CPU, unless
-  // WEB_CONCURRENCY says otherwise).
+  // The app as `npm start` runs it (scripts/serve.mjs: one process per CPU unless WEB_CONCURRENCY says).
   const server = spawn("node", ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(port)], {
     env: { ...process.env, NODE_ENV: "production", APP_URL: base, INSECURE_COOKIES: "true" },
     stdio: "ignore",

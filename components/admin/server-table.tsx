@@ -1,5 +1,5 @@
 "use client";
-// The admin money tables' one table (issue 7 item 6): TanStack Table in manual mode — the route
+// The admin money tables' one table: TanStack Table in manual mode — the route
 // handler sorts, filters and pages; this draws what it answers. Filters, sort and page live in the
 // URL query, so a reload, a shared link and "Export CSV" all carry the same view. The page and the
 // number of matching rows are two requests: the count is asked once per set of filters (its query key

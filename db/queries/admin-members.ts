@@ -1,13 +1,17 @@
-// The admin memberships and enrolments tables (issue 7 item 6): a page each, its total apart, and
-// keyset batches for the streamed CSV export, sorted, filtered and paged here in SQL. Each table's
-// select and joins are written once (membershipsFrom, enrolmentsFrom) for its page and its batches.
-
-/** A page's rows go to the browser without the batches' cursor text. */
-const withoutCursor = <R extends { cursorKey: string }>({ cursorKey: _cursor, ...row }: R): Omit<R, "cursorKey"> => row;
+// The admin memberships and enrolments tables: a page each, its total apart, and keyset batches for
+// the streamed CSV export, sorted, filtered and paged in SQL. Each table's select and joins are
+// written once (membershipsFrom, enrolmentsFrom) for its page and its batches.
 import { and, eq, sql, type SQL } from "drizzle-orm";
 import type { Tx as Db } from "./auth";
-import { courses, enrolments, plans, subscriptions, users } from "../schema";
-import type { EnrolmentsQuery, MembershipsQuery } from "@/lib/billing/admin/params";
+import {
+  courses,
+  enrolments,
+  type enrolmentStatusEnum,
+  plans,
+  subscriptions,
+  type subscriptionStatusEnum,
+  users,
+} from "../schema";
 import {
   after,
   countOf,
@@ -18,8 +22,21 @@ import {
   pageOf,
   textOf,
   type Cursor,
+  type ListParams,
   type SortKey,
-} from "@/lib/billing/admin/sql";
+} from "./admin-sql";
+
+export const MEMBERSHIP_SORTS = ["date", "name", "status", "renews"] as const;
+export type MembershipsQuery = ListParams & {
+  status?: (typeof subscriptionStatusEnum.enumValues)[number];
+  sort: (typeof MEMBERSHIP_SORTS)[number];
+};
+export const ENROLMENT_SORTS = ["date", "name", "status", "course"] as const;
+export type EnrolmentsQuery = ListParams & {
+  status?: (typeof enrolmentStatusEnum.enumValues)[number];
+  course?: string;
+  sort: (typeof ENROLMENT_SORTS)[number];
+};
 
 // A membership without a period end (incomplete) sorts as "renews last".
 const periodEnd = sql`coalesce(${subscriptions.currentPeriodEnd}, 'infinity'::timestamptz)`;
@@ -74,10 +91,8 @@ export async function listMemberships(db: Db, q: MembershipsQuery) {
     .where(membershipsWhere(q))
     .orderBy(...ordering(MEMBERSHIP_SORT[q.sort], subscriptions.id, q.dir))
     .limit(q.pageSize + 1)
-    .offset(offsetOf(q))
-    .prepare("admin_table_page")
-    .execute();
-  return pageOf(found.map(withoutCursor), q.pageSize);
+    .offset(offsetOf(q));
+  return pageOf(found, q.pageSize);
 }
 
 export async function countMemberships(db: Db, q: MembershipsQuery): Promise<number> {
@@ -85,9 +100,7 @@ export async function countMemberships(db: Db, q: MembershipsQuery): Promise<num
     .select({ n: countOf })
     .from(subscriptions)
     .innerJoin(users, eq(users.id, subscriptions.userId))
-    .where(membershipsWhere(q))
-    .prepare("admin_table_count")
-    .execute();
+    .where(membershipsWhere(q));
   return n;
 }
 
@@ -154,10 +167,8 @@ export async function listEnrolments(db: Db, q: EnrolmentsQuery) {
     .where(enrolmentsWhere(q))
     .orderBy(...ordering(ENROLMENT_SORT[q.sort], enrolments.id, q.dir))
     .limit(q.pageSize + 1)
-    .offset(offsetOf(q))
-    .prepare("admin_table_page")
-    .execute();
-  return pageOf(found.map(withoutCursor), q.pageSize);
+    .offset(offsetOf(q));
+  return pageOf(found, q.pageSize);
 }
 
 export async function countEnrolments(db: Db, q: EnrolmentsQuery): Promise<number> {
@@ -165,9 +176,7 @@ export async function countEnrolments(db: Db, q: EnrolmentsQuery): Promise<numbe
     .select({ n: countOf })
     .from(enrolments)
     .innerJoin(users, eq(users.id, enrolments.userId))
-    .where(enrolmentsWhere(q))
-    .prepare("admin_table_count")
-    .execute();
+    .where(enrolmentsWhere(q));
   return n;
 }
 

@@ -96,14 +96,15 @@ export const payments = pgTable(
     periodStart: timestamp("period_start", { withTimezone: true }),
     periodEnd: timestamp("period_end", { withTimezone: true }),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull(),
-    // The payer's name and address, lower-cased, for the admin table's search; filled and kept in step
-    // by triggers from users (migration 0005), never written by the app.
-    payerSearch: text("payer_search").notNull().default(""),
   },
   (t) => [
     index("payments_created_idx").on(t.createdAt),
     index("payments_status_created_idx").on(t.status, t.createdAt),
     index("payments_plan_created_idx").on(t.planId, t.createdAt),
+    // The admin table's usual filters (status, plan) then its sort, so a page is read in order from
+    // one index and stops after the page; the date last in the amount one lets a range be tested inside it.
+    index("payments_status_plan_created_idx").on(t.status, t.planId, t.createdAt, t.id),
+    index("payments_status_plan_amount_idx").on(t.status, t.planId, t.amount, t.id, t.createdAt),
     // No index on user_id alone: payments_user_created_idx (user_id, created_at, migration 0003) serves
     // every lookup by person, and each index more costs the planner time on every admin-table page.
     check("payments_refund_within_amount", sql`${t.refundedAmount} between 0 and ${t.amount}`),

@@ -4,7 +4,7 @@
 // does the quoting; record_delimiter "windows" gives the CRLF).
 import { Readable } from "node:stream";
 import { stringify } from "csv-stringify";
-import type { Cursor } from "./sql";
+import type { Cursor } from "@/db/queries/admin-sql";
 
 export type CsvColumn<R> = { header: string; value: (row: R) => string | number | null };
 

@@ -1,10 +1,17 @@
-// The admin money tables' query parameters (issue 7 item 6). The same parameters drive the table
+// The admin money tables' query parameters. The same parameters drive the table
 // route, its CSV export and the page's URL, so a reload or an export shows exactly what was filtered.
 // Unknown parameters and values are refused with 422 naming the parameter, never ignored: a typo in a
 // filter must not silently widen what an admin exports.
 import { z } from "zod";
 import { unprocessable } from "@/lib/auth/errors";
 import { enrolmentStatusEnum, paymentStatusEnum, subscriptionStatusEnum } from "@/db/schema";
+import { PAYMENT_SORTS, type PaymentsQuery } from "@/db/queries/admin-payments";
+import {
+  ENROLMENT_SORTS,
+  MEMBERSHIP_SORTS,
+  type EnrolmentsQuery,
+  type MembershipsQuery,
+} from "@/db/queries/admin-members";
 
 export const PAGE_SIZE_MAX = 100;
 export const PAGE_SIZE_DEFAULT = 25;
@@ -14,8 +21,7 @@ const common = {
   plan: z.uuid({ error: "must be a plan id" }).optional(),
   from: day.optional(),
   to: day.optional(),
-  // A name or address fragment. Line breaks and other control characters never occur in either, and
-  // the payments' search column joins name and address with a line break (migration 0005).
+  // A name or address fragment: line breaks and other control characters never occur in either.
   q: z
     .string()
     .trim()
@@ -37,10 +43,6 @@ const common = {
 };
 const oneOf = <T extends readonly [string, ...string[]]>(values: T) =>
   z.enum(values, { error: `must be one of: ${values.join(", ")}` });
-
-export const PAYMENT_SORTS = ["date", "amount", "status", "name"] as const;
-export const MEMBERSHIP_SORTS = ["date", "name", "status", "renews"] as const;
-export const ENROLMENT_SORTS = ["date", "name", "status", "course"] as const;
 
 const inRange = (v: { from?: string; to?: string }) => !v.from || !v.to || v.from <= v.to;
 const rangeError = { message: "must not be before from", path: ["to"] };
@@ -68,9 +70,7 @@ export const enrolmentsQuery = z
   })
   .refine(inRange, rangeError);
 
-export type PaymentsQuery = z.output<typeof paymentsQuery>;
-export type MembershipsQuery = z.output<typeof membershipsQuery>;
-export type EnrolmentsQuery = z.output<typeof enrolmentsQuery>;
+export type { EnrolmentsQuery, MembershipsQuery, PaymentsQuery };
 export type ListQuery = PaymentsQuery | MembershipsQuery | EnrolmentsQuery;
 
 /** What the guard hands over: every query parameter as given (checked below, with 422s). */

@@ -1,9 +1,9 @@
-// The admin money tables' route handlers (issue 7 item 6), one pair per table: a page (its rows and
+// The admin money tables' route handlers, one pair per table: a page (its rows and
 // whether another follows) and, apart, the exact number of rows the filters match. The table asks
 // for the count once per set of filters and keeps it while the admin pages or re-sorts, so paging
 // never waits for a count over every match.
 import type { z } from "zod";
-import { reportsDb, type Db } from "@/db/client";
+import { db, type Db } from "@/db/client";
 import { guardRoute } from "@/lib/auth/guard";
 import { parseQuery, rawQuery, type ListQuery } from "./params";
 
@@ -15,7 +15,7 @@ export function pageRoute<S extends z.ZodType<ListQuery>, R>(
 ) {
   return guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => {
     const q = parseQuery(schema, raw);
-    const { rows, hasMore } = await list(reportsDb(), q);
+    const { rows, hasMore } = await list(db(), q);
     return Response.json({ rows, hasMore, page: q.page, pageSize: q.pageSize }, noStore);
   });
 }
@@ -26,7 +26,7 @@ export function countRoute<S extends z.ZodType<ListQuery>>(
   count: (db: Db, q: z.output<S>) => Promise<number>,
 ) {
   return guardRoute({ action: "money:view", input: rawQuery }, async (_ctx, raw) => {
-    const total = await count(reportsDb(), parseQuery(schema, raw));
+    const total = await count(db(), parseQuery(schema, raw));
     return Response.json({ total }, noStore);
   });
 }
