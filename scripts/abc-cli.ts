@@ -79,7 +79,8 @@ function perTune(shape: Shape | null, text: ((a: Analysis, flags: ReadonlySet<st
 const COMMANDS: Record<string, Command> = {
   skeleton: perTune(null, (a) => a.skeleton.abc),
   stages: perTune(
-    (a) => ({ stages: a.stages.map(({ index, name, kinds, abc }) => ({ index, name, kinds, abc })) }),
+    // merged: the default plan's stages taken into this one (the tune has none of their kinds)
+    (a) => ({ stages: a.stages.map(({ index, name, kinds, merged, abc }) => ({ index, name, kinds, merged, abc })) }),
     null,
   ),
   phrases: perTune((a) => a.phraseMap, null),

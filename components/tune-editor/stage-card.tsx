@@ -17,6 +17,10 @@ export interface StageCardProps {
   index: number;
   name: string;
   adds: readonly Kind[];
+  /** Stages of the default plan taken into this one (the tune has none of their kinds). */
+  merged: readonly string[];
+  /** In a teacher's own plan: the earlier stage whose music this one repeats. */
+  repeats: number | null;
   /** The engine's version of this stage for the text in the editor. */
   liveAbc: string;
   saved: StageView | null;
@@ -28,7 +32,19 @@ export interface StageCardProps {
   sourceDirty: boolean;
 }
 
-export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, dirty, sourceDirty }: StageCardProps) {
+export function StageCard({
+  index,
+  name,
+  adds,
+  merged,
+  repeats,
+  liveAbc,
+  saved,
+  isLast,
+  tuneId,
+  dirty,
+  sourceDirty,
+}: StageCardProps) {
   const client = useQueryClient();
   const [draft, setDraft] = useState<string | null>(null);
   const hand = saved?.handEdited === true && !isLast;
@@ -70,6 +86,20 @@ export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, d
             ? `Adds back: ${adds.map((k) => KIND_SHORT[k]).join(", ")}.`
             : "Adds nothing new."}
       </p>
+      {merged.length ? (
+        <p className="text-caption text-bark" data-testid={`stage-${index}-merged`}>
+          {mergedWords(index, merged)}
+        </p>
+      ) : null}
+      {repeats !== null ? (
+        <p
+          className="rounded-knot bg-rosin-tint px-2 py-1 text-caption text-cedar"
+          data-testid={`stage-${index}-repeats`}
+        >
+          The same music as stage {repeats}: this tune has none of the kinds this stage adds, so a student would check
+          in the same music twice. Your plan is kept as you made it.
+        </p>
+      ) : null}
       {flagged ? (
         <p
           className="rounded-knot bg-rosin-tint px-2 py-1 text-caption font-semibold text-cedar"
@@ -141,4 +171,14 @@ export function StageCard({ index, name, adds, liveAbc, saved, isLast, tuneId, d
       ) : null}
     </article>
   );
+}
+
+const quoted = (names: readonly string[]): string => names.map((n) => `“${n}”`).join(" and ");
+
+/** Why the default plan has fewer stages for this tune. */
+function mergedWords(index: number, merged: readonly string[]): string {
+  const stages = `The default plan's ${quoted(merged)} stage${merged.length === 1 ? " is" : "s are"}`;
+  return index === 1
+    ? `${stages} taken into this one: this tune has no embellishments, so its skeleton is its full setting.`
+    : `${stages} taken into this one: this tune has none of ${merged.length === 1 ? "its" : "their"} kinds, so ${merged.length === 1 ? "it" : "they"} would repeat the music before.`;
 }

@@ -13,6 +13,7 @@ import { learningLoadWith } from "@/lib/tunes/learning-load";
 import { AbcSource } from "./abc-source";
 import { PhrasePanel } from "./phrase-panel";
 import { PlanEditor } from "./plan-editor";
+import { PlanFit } from "./plan-fit";
 import { SaveBar } from "./save-bar";
 import { StagePreviews } from "./stage-previews";
 import { SwapPanel } from "./swap-panel";
@@ -135,6 +136,7 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
           reasons={planReasons}
           isDefault={planOrNull === null}
         />
+        {tune ? <PlanFit stages={tune.stages} isDefault={planOrNull === null} /> : null}
       </Section>
       {tune ? (
         <>
@@ -145,7 +147,6 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
           >
             <StagePreviews
               stages={tune.stages}
-              plan={planReasons.length ? DEFAULT_PLAN : plan}
               saved={saved?.stages ?? []}
               tuneId={saved?.id ?? null}
               dirty={dirty}

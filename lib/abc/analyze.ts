@@ -4,7 +4,7 @@ import { classify } from "./classify";
 import type { DoubleStop } from "./emit";
 import { phraseMapWithParts, type PhraseMap } from "./phrase-map";
 import { shapeOf, skeletonFrom, type TuneShape } from "./skeleton";
-import { buildStages, DEFAULT_PLAN, validatePlan } from "./stages";
+import { buildStages, DEFAULT_PLAN, validatePlan, withoutRepeats } from "./stages";
 import { Locator } from "./locate";
 import { guard, prepareTune } from "./tune";
 import { twinSwap } from "./twin-swap";
@@ -24,6 +24,7 @@ export interface Analysis {
 }
 
 export interface AnalyzeOptions {
+  /** A teacher's plan, kept as made; without one, the default plan fitted to the tune (withoutRepeats). */
   plan?: StagePlan;
   doubleStop?: DoubleStop;
   lineOffset?: number;
@@ -46,6 +47,7 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
     const skeleton = skeletonFrom(p, { doubleStop: opts.doubleStop });
     const { map, partOf } = phraseMapWithParts(skeleton.bars, skeleton.meter, skeleton.unit);
     const source = shapeOf(p, null, opts.doubleStop ?? "highest");
+    const stages = buildStages(p, plan, opts.doubleStop, skeleton.abc);
     const value: Analysis = {
       title: skeleton.title,
       key: skeleton.key,
@@ -55,7 +57,7 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
         return b === undefined ? undefined : partOf.get(b);
       }),
       skeleton,
-      stages: buildStages(p, plan, opts.doubleStop, skeleton.abc),
+      stages: opts.plan ? stages : withoutRepeats(stages),
       phraseMap: map,
       learning: twinSwap(source.abc, source.bars, map),
       learningSkeleton: twinSwap(skeleton.abc, skeleton.bars, map),

@@ -46,7 +46,8 @@ export function validatePlan(plan: unknown): PlanCheck {
  * Every stage's ABC (the plan must be valid). The last stage is the source itself. Emit reads the
  * removed kinds only where the tune holds them, so stages that take out the same kinds of this
  * tune are the same text, written once (a tune without slurs has stage 2 = the skeleton, one
- * without double stops or dynamics has stage 3 = the source).
+ * without double stops or dynamics has stage 3 = the source). Such a stage says which earlier
+ * stage it repeats.
  */
 export function buildStages(
   p: Prepared,
@@ -58,7 +59,8 @@ export function buildStages(
   const inTune = kindsIn(p.model, p.groupOf);
   const texts = new Map<number, string>();
   if (skeletonAbc !== undefined) texts.set(inTune, skeletonAbc);
-  return plan.stages.map((s, i) => {
+  const out: Stage[] = [];
+  plan.stages.forEach((s, i) => {
     s.adds.forEach((k) => present.add(k));
     const removed = new Set(KINDS.filter((k) => !present.has(k)));
     const key = kindMask(removed) & inTune;
@@ -67,6 +69,47 @@ export function buildStages(
       abc = key === 0 && emitsSource(p.model) ? p.model.abc : emit(p.model, removed, p.groupOf, pick).abc;
       texts.set(key, abc);
     }
-    return { index: i + 1, name: s.name, kinds: KINDS.filter((k) => present.has(k)), abc };
+    const before = out[i - 1];
+    const repeats = before && before.abc === abc ? (before.repeats ?? before.index) : null;
+    const kinds = KINDS.filter((k) => present.has(k));
+    out.push({ index: i + 1, name: s.name, kinds, adds: [...s.adds], abc, merged: [], repeats });
   });
+  return out;
+}
+
+/**
+ * The default plan fitted to one tune: a stage that would repeat the music before it (the tune
+ * has none of its kinds) is taken into the next stage, so a student never checks in the same music
+ * twice. When the full setting repeats the stage before it, that stage is taken into the full
+ * setting; a tune with no embellishment at all has one stage, its skeleton and full setting.
+ */
+export function withoutRepeats(stages: readonly Stage[]): Stage[] {
+  const out: Stage[] = [];
+  let carried: { adds: Kind[]; names: string[] } = { adds: [], names: [] };
+  stages.forEach((s, i) => {
+    const prev = out[out.length - 1];
+    const last = i === stages.length - 1;
+    if (prev === undefined || s.repeats === null) {
+      out.push({ ...s, adds: [...carried.adds, ...s.adds], merged: [...carried.names, ...s.merged], repeats: null });
+      carried = { adds: [], names: [] };
+    } else if (!last) {
+      carried = { adds: [...carried.adds, ...s.adds], names: [...carried.names, s.name] };
+    } else if (out.length === 1) {
+      // nothing to add back at all: the skeleton is the full setting
+      out[0] = {
+        ...prev,
+        kinds: s.kinds,
+        adds: [...prev.adds, ...carried.adds, ...s.adds],
+        merged: [...prev.merged, ...carried.names, s.name],
+      };
+    } else {
+      out[out.length - 1] = {
+        ...s,
+        adds: [...prev.adds, ...carried.adds, ...s.adds],
+        merged: [...prev.merged, prev.name, ...carried.names],
+        repeats: null,
+      };
+    }
+  });
+  return out.map((s, i) => ({ ...s, index: i + 1 }));
 }

@@ -53,7 +53,13 @@ export interface Stage {
   index: number; // 1-based
   name: string;
   kinds: Kind[]; // every kind present in this stage (cumulative)
+  /** The kinds this stage brings back (with those of any stage merged into it). */
+  adds: Kind[];
   abc: string;
+  /** Stages of the default plan taken into this one: this tune has none of their kinds. */
+  merged: string[];
+  /** A teacher's plan kept as made: the earlier stage whose music this one repeats. */
+  repeats: number | null;
 }
 
 /**

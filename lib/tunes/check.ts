@@ -55,7 +55,8 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
 
   // A problem means abcjs ignored or guessed at something the teacher wrote: a tune is stored only
   // when its music reads as written, so every stage and the phrase map come from what was meant.
-  const analysed = analyze(abc, { plan, lineOffset });
+  // no plan of the teacher's: the default plan fitted to the tune (a stage that would repeat the one before is merged)
+  const analysed = analyze(abc, { plan: opts.stagePlan ?? undefined, lineOffset });
   const result = analysed.ok
     ? { ...analysed, notes: listed(analysed.notes, "note") }
     : { ...analysed, problems: listed(analysed.problems, "problem"), notes: listed(analysed.notes, "note") };

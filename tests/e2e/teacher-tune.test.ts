@@ -103,6 +103,16 @@ describe("a teacher writes a tune and puts it on a course", () => {
     await page.getByText("1 note on the ABC: the tune can be saved as it is.").waitFor();
   });
 
+  it("merges a stage of the default plan the tune would repeat, and says so", async () => {
+    // without its slurs the tune has no bowing: the "Bowing" stage would be the skeleton again
+    await source().fill(TUNE.replace(/\(GA\)/g, "GA"));
+    const fit = page.getByTestId("plan-fit");
+    await fit.waitFor({ timeout: 30_000 });
+    expect(await fit.textContent()).toMatch(/the default plan makes 3 stages .*“Bowing” would repeat the music before/);
+    expect(await page.locator("article[data-stage]").count()).toBe(3);
+    expect(await page.getByTestId("stage-2-merged").textContent()).toMatch(/“Bowing” stage is taken into this one/);
+  });
+
   it("clears the problem once fixed and reads the facts from the ABC", async () => {
     await source().fill(TUNE);
     await page.getByText("No problems found in the ABC.").waitFor({ timeout: 30_000 });
@@ -110,6 +120,8 @@ describe("a teacher writes a tune and puts it on a course", () => {
     expect(await page.locator('[data-fact="key"]').textContent()).toBe("G");
     expect(await page.locator('[data-fact="meter"]').textContent()).toBe("4/4");
     expect(await page.getByRole("heading", { level: 1 }).textContent()).toBe(TITLE);
+    expect(await page.locator("article[data-stage]").count()).toBe(4);
+    expect(await page.getByTestId("plan-fit").count()).toBe(0);
   });
 
   it("adjusts the stage plan: slides come back at stage 2, with the plan's reasons shown on the way", async () => {

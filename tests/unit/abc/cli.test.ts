@@ -25,10 +25,16 @@ describe("abc CLI", () => {
     expect(sk.status).toBe(0);
     expect(sk.stdout).toContain("|:G2 BG dGBG|A2 AB cBAG|");
     const stages = JSON.parse(run("stages", reel).stdout) as {
-      stages: { index: number; name: string; kinds: string[]; abc: string }[];
+      stages: { index: number; name: string; kinds: string[]; merged: string[]; abc: string }[];
     };
-    expect(stages.stages.map((s) => s.index)).toEqual([1, 2, 3, 4]);
-    expect(stages.stages[3].abc).toContain("~G2");
+    // no double stops, dynamics or other marks: the default plan's stage 3 is the full setting
+    expect(stages.stages.map((s) => [s.index, s.name])).toEqual([
+      [1, "Skeleton"],
+      [2, "Bowing"],
+      [3, "Full setting"],
+    ]);
+    expect(stages.stages[2].abc).toContain("~G2");
+    expect(stages.stages[2].merged).toEqual(["Ornaments, slides and fills"]);
     const phrases = JSON.parse(run("phrases", reel).stdout) as {
       parts: { label: string; phrases: { id: string }[] }[];
       learningLoad: { distinct: number };
