@@ -1,5 +1,5 @@
 // Command line for teachers' bulk work and for checking the tune engine:
-//   npm run -s abc -- <skeleton|stages|phrases|swap|embellishments> <file> [--highest|--lowest] [--skeleton]
+//   npm run -s abc -- <skeleton|stages|phrases|swap|embellishments|doublestops> <file> [--highest|--lowest] [--skeleton]
 //   npm run -s abc -- compare <file> <file2>
 //   npm run -s abc -- listen <tune.abc> <recording> [--stage N] [--tempo BPM]   (./abc-cli-listen.ts)
 // One tune in the file prints its result; several print one result per tune. A tune the engine
@@ -85,6 +85,18 @@ const COMMANDS: Record<string, Command> = {
   ),
   phrases: perTune((a) => a.phraseMap, null),
   embellishments: perTune((a) => ({ embellishments: a.embellishments }), null),
+  doublestops: perTune(
+    (a) => ({
+      doubleStops: a.doubleStops.map(({ bar, part, keptName, otherName, reason }) => ({
+        bar,
+        part,
+        keeps: keptName,
+        leaves: otherName,
+        reason,
+      })),
+    }),
+    null,
+  ),
   swap: perTune(null, (a, flags) => (flags.has("--skeleton") ? a.learningSkeleton : a.learning)),
   compare: {
     usage: "<file> <file2>",
@@ -103,7 +115,8 @@ const COMMANDS: Record<string, Command> = {
 const usage = (): string =>
   Object.entries(COMMANDS)
     .map(([name, c], i) => `${i === 0 ? "usage:" : "      "} npm run -s abc -- ${name} ${c.usage}`)
-    .join("\n") + "\n       options: --highest | --lowest (melody note of every double stop), --skeleton (swap)";
+    .join("\n") +
+  "\n       options: --highest | --lowest (the upper or lower note of every double stop, instead of reading each), --skeleton (swap)";
 
 function main(argv: string[]): void {
   const flags = new Set(argv.filter((a) => a.startsWith("--")));

@@ -5,6 +5,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import { performance } from "node:perf_hooks";
 import abcjs from "abcjs";
 import { analyze, classify, buildStages, phraseMap, prepareTune, splitTunes, twinSwap } from "../lib/abc/index";
+import { pickStops } from "../lib/abc/double-stops";
 import { shapeOf, skeletonFrom } from "../lib/abc/skeleton";
 import { benchScaling } from "./bench-abc-scaling";
 
@@ -38,6 +39,7 @@ const steps: Record<string, number[]> = {
   parse: [],
   model: [],
   classify: [],
+  doubleStops: [],
   stages: [],
   skeleton: [],
   phrases: [],
@@ -87,15 +89,17 @@ for (const abc of tunes) {
     failed++;
     continue;
   }
-  const sk = skeletonFrom(p.value);
+  const picks = pickStops(p.value.model);
+  const sk = skeletonFrom(p.value, picks);
   const map = phraseMap(sk.bars, sk.meter, sk.unit);
   steps.parse.push(parse);
   steps.model.push(best(() => prepareTune(abc)));
   steps.classify.push(best(() => classify(p.value)));
-  steps.stages.push(best(() => buildStages(p.value)));
-  steps.skeleton.push(best(() => skeletonFrom(p.value)));
+  steps.doubleStops.push(best(() => pickStops(p.value.model)));
+  steps.stages.push(best(() => buildStages(p.value, undefined, picks)));
+  steps.skeleton.push(best(() => skeletonFrom(p.value, picks)));
   steps.phrases.push(best(() => phraseMap(sk.bars, sk.meter, sk.unit)));
-  const source = shapeOf(p.value, null, "highest");
+  const source = shapeOf(p.value, null, picks);
   steps.swap.push(
     best(() => {
       // the analysis swaps both the setting and its skeleton
@@ -113,7 +117,7 @@ const corpusMs = performance.now() - corpus0;
 console.log(`tunes: ${tunes.length} (${failed} rejected with problems)`);
 for (const [step, xs] of Object.entries(steps)) {
   const total = xs.reduce((a, b) => a + b, 0);
-  console.log(`${step.padEnd(9)} median ${median(xs).toFixed(3)} ms   corpus total ${total.toFixed(0)} ms`);
+  console.log(`${step.padEnd(11)} median ${median(xs).toFixed(3)} ms   corpus total ${total.toFixed(0)} ms`);
 }
 console.log(`corpus wall time (all measurements): ${(corpusMs / 1000).toFixed(1)} s`);
 console.log(`(for comparison, timed back to back instead of alternating: ${median(backToBack).toFixed(2)})`);

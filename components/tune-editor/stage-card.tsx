@@ -3,7 +3,7 @@
 // written by hand is kept as written; when the source changes afterwards it carries a flag and
 // can be rebuilt from the source.
 import { useMutation, useQueryClient } from "@tanstack/react-query";
-import { useState } from "react";
+import { useState, type ReactNode } from "react";
 import { Notation } from "@/components/notation";
 import { Button } from "@/components/ui/button";
 import { controlClasses } from "@/components/ui/input";
@@ -21,6 +21,8 @@ export interface StageCardProps {
   merged: readonly string[];
   /** In a teacher's own plan: the earlier stage whose music this one repeats. */
   repeats: number | null;
+  /** The list of double stops and the note each keeps, on the first stage without them; a pointer to it on the rest. */
+  doubleStops: ReactNode;
   /** The engine's version of this stage for the text in the editor. */
   liveAbc: string;
   saved: StageView | null;
@@ -38,6 +40,7 @@ export function StageCard({
   adds,
   merged,
   repeats,
+  doubleStops,
   liveAbc,
   saved,
   isLast,
@@ -100,6 +103,7 @@ export function StageCard({
           in the same music twice. Your plan is kept as you made it.
         </p>
       ) : null}
+      {doubleStops}
       {flagged ? (
         <p
           className="rounded-knot bg-rosin-tint px-2 py-1 text-caption font-semibold text-cedar"

@@ -6,6 +6,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState, type ReactNode } from "react";
 import { Notation } from "@/components/notation";
 import { DEFAULT_PLAN } from "@/lib/abc/stages";
+import type { Voice } from "@/lib/abc/double-stops";
 import type { StagePlan } from "@/lib/abc/types";
 import type { SavedBody, TuneView } from "@/lib/tunes/api-types";
 import { teachFetch } from "@/lib/tunes/client-fetch";
@@ -23,6 +24,10 @@ import { useLiveCheck } from "./use-live-check";
 export const NEW_TUNE_TEMPLATE = "X:1\nT:\nR:reel\nM:4/4\nL:1/8\nK:D\n";
 
 const samePlan = (a: StagePlan, b: StagePlan): boolean => JSON.stringify(a) === JSON.stringify(b);
+const sameTurns = (a: Readonly<Record<string, Voice>>, b: Readonly<Record<string, Voice>>): boolean => {
+  const keys = Object.keys(a);
+  return keys.length === Object.keys(b).length && keys.every((k) => a[k] === b[k]);
+};
 
 function Section({ id, title, hint, children }: { id: string; title: string; hint?: string; children: ReactNode }) {
   return (
@@ -44,9 +49,10 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
   const [abc, setAbc] = useState(saved?.abc ?? NEW_TUNE_TEMPLATE);
   const [plan, setPlan] = useState<StagePlan>(saved?.stagePlan ?? DEFAULT_PLAN);
   const [accepted, setAccepted] = useState<string[]>(saved?.acceptedSwaps ?? []);
+  const [turned, setTurned] = useState<Record<string, Voice>>(saved?.turnedBars ?? {});
   const [savedNote, setSavedNote] = useState<string | null>(null);
   const planOrNull = useMemo(() => (samePlan(plan, DEFAULT_PLAN) ? null : plan), [plan]);
-  const live = useLiveCheck(abc, planOrNull, accepted);
+  const live = useLiveCheck(abc, planOrNull, accepted, turned);
 
   const tune = live.check?.ok ? live.check.value : live.fallback?.ok ? live.fallback.value : null;
   const problems =
@@ -63,13 +69,14 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
     sourceDirty ||
     !saved ||
     !samePlan(plan, saved.stagePlan ?? DEFAULT_PLAN) ||
-    accepted.join() !== saved.acceptedSwaps.join();
+    accepted.join() !== saved.acceptedSwaps.join() ||
+    !sameTurns(turned, saved.turnedBars);
 
   const save = useMutation({
     mutationFn: () =>
       teachFetch<SavedBody>(saved ? `/api/teach/tunes/${saved.id}` : "/api/teach/tunes", {
         method: saved ? "PUT" : "POST",
-        body: { abc, stagePlan: planOrNull, acceptedSwaps: accepted },
+        body: { abc, stagePlan: planOrNull, acceptedSwaps: accepted, turnedBars: turned },
       }),
     onSuccess: async (body) => {
       const notes = [`“${body.title}” is saved.`];
@@ -147,6 +154,16 @@ export function TuneEditor({ saved }: { saved: TuneView | null }) {
           >
             <StagePreviews
               stages={tune.stages}
+              doubleStops={tune.analysis.doubleStops}
+              turned={turned}
+              onTurn={(bar, voice) =>
+                setTurned((t) => {
+                  const next = { ...t };
+                  if (voice) next[String(bar)] = voice;
+                  else delete next[String(bar)];
+                  return next;
+                })
+              }
               saved={saved?.stages ?? []}
               tuneId={saved?.id ?? null}
               dirty={dirty}

@@ -15,7 +15,12 @@ export interface LiveCheck {
 
 const DELAY_MS = 350;
 
-export function useLiveCheck(abc: string, plan: StagePlan | null, acceptedSwaps: readonly string[]): LiveCheck {
+export function useLiveCheck(
+  abc: string,
+  plan: StagePlan | null,
+  acceptedSwaps: readonly string[],
+  turnedBars: Readonly<Record<string, "upper" | "lower">>,
+): LiveCheck {
   const [state, setState] = useState<LiveCheck>({ check: null, fallback: null, checking: true });
   useEffect(() => {
     let live = true;
@@ -24,8 +29,8 @@ export function useLiveCheck(abc: string, plan: StagePlan | null, acceptedSwaps:
       // The engine parses with abcjs: loaded here so pages without an editor never download it.
       void import("@/lib/tunes/check").then(({ checkTune }) => {
         if (!live) return;
-        const check = checkTune(abc, { stagePlan: plan, acceptedSwaps });
-        const fallback = !check.ok && check.planReasons.length ? checkTune(abc, { acceptedSwaps }) : null;
+        const check = checkTune(abc, { stagePlan: plan, acceptedSwaps, turnedBars });
+        const fallback = !check.ok && check.planReasons.length ? checkTune(abc, { acceptedSwaps, turnedBars }) : null;
         setState({ check, fallback, checking: false });
       });
     }, DELAY_MS);
@@ -33,6 +38,6 @@ export function useLiveCheck(abc: string, plan: StagePlan | null, acceptedSwaps:
       live = false;
       clearTimeout(timer);
     };
-  }, [abc, plan, acceptedSwaps]);
+  }, [abc, plan, acceptedSwaps, turnedBars]);
   return state;
 }

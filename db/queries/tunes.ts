@@ -14,6 +14,7 @@ export interface TuneFields {
   abc: string;
   stagePlan: StagePlanJson | null;
   acceptedSwaps: string[];
+  turnedBars: Record<string, "upper" | "lower">;
 }
 
 export type TuneRow = typeof tunes.$inferSelect;

@@ -68,6 +68,8 @@ export const tunes = pgTable(
     stagePlan: jsonb("stage_plan").$type<StagePlanJson>(),
     // Phrase ids whose twin swap the teacher accepted for the learning version.
     acceptedSwaps: jsonb("accepted_swaps").$type<string[]>().notNull().default([]),
+    // Bars (melody bar index → "upper" | "lower") whose double stops the teacher turned to the other voice.
+    turnedBars: jsonb("turned_bars").$type<Record<string, "upper" | "lower">>().notNull().default({}),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -1,9 +1,9 @@
 // The whole analysis of one tune from one parse (issue 3): embellishments, stages, skeleton,
 // phrase map and the twin-swapped learning version.
 import { classify } from "./classify";
-import type { DoubleStop } from "./emit";
+import type { BarVoices, DoubleStop, StopChoice } from "./double-stops";
 import { phraseMapWithParts, type PhraseMap } from "./phrase-map";
-import { shapeOf, skeletonFrom, type TuneShape } from "./skeleton";
+import { picksOf, shapeOf, skeletonFrom, type TuneShape } from "./skeleton";
 import { buildStages, DEFAULT_PLAN, validatePlan, withoutRepeats } from "./stages";
 import { Locator } from "./locate";
 import { guard, prepareTune } from "./tune";
@@ -21,12 +21,16 @@ export interface Analysis {
   learning: string;
   /** The same for the skeleton. */
   learningSkeleton: string;
+  /** The melody's double stops: the note each stage before double stops come back keeps, and why. */
+  doubleStops: StopChoice[];
 }
 
 export interface AnalyzeOptions {
   /** A teacher's plan, kept as made; without one, the default plan fitted to the tune (withoutRepeats). */
   plan?: StagePlan;
   doubleStop?: DoubleStop;
+  /** Bars (melody bar index) a teacher turned to their other voice. */
+  turnedBars?: BarVoices;
   lineOffset?: number;
 }
 
@@ -44,10 +48,11 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
   if (!prepared.ok) return prepared;
   const p = prepared.value;
   return guard(new Locator(abc, lineOffset), () => {
-    const skeleton = skeletonFrom(p, { doubleStop: opts.doubleStop });
+    const picks = picksOf(p, opts);
+    const skeleton = skeletonFrom(p, picks);
     const { map, partOf } = phraseMapWithParts(skeleton.bars, skeleton.meter, skeleton.unit);
-    const source = shapeOf(p, null, opts.doubleStop ?? "highest");
-    const stages = buildStages(p, plan, opts.doubleStop, skeleton.abc);
+    const source = shapeOf(p, null, picks);
+    const stages = buildStages(p, plan, picks, skeleton.abc);
     const value: Analysis = {
       title: skeleton.title,
       key: skeleton.key,
@@ -61,6 +66,7 @@ export function analyze(abc: string, opts: AnalyzeOptions = {}): Result<Analysis
       phraseMap: map,
       learning: twinSwap(source.abc, source.bars, map),
       learningSkeleton: twinSwap(skeleton.abc, skeleton.bars, map),
+      doubleStops: picks.choices,
     };
     return { ok: true, value, notes: p.notes };
   });

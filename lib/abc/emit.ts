@@ -7,9 +7,8 @@ import type { Tok } from "./lex";
 import type { BarEl, NoteEl, TuneModel } from "./model";
 import { BarAccidentals } from "./pitch";
 import { Offsets } from "./offsets";
+import { melodyIndex, type StopPicks } from "./double-stops";
 import type { Fraction, Kind, MelodyNote } from "./types";
-
-export type DoubleStop = "highest" | "lowest";
 
 export interface Emitted {
   abc: string;
@@ -20,18 +19,6 @@ export interface Emitted {
 }
 
 export { tokKind };
-
-/** Index of the melody note of a body: highest (or lowest) sounding pitch, first on a tie. */
-export function melodyIndex(el: NoteEl, pick: DoubleStop): number {
-  const midi = el.midi;
-  let best = 0;
-  for (let i = 1; i < midi.length; i++) {
-    const m = midi[i];
-    const b = midi[best];
-    if (m !== null && b !== null && (pick === "highest" ? m > b : m < b)) best = i;
-  }
-  return best;
-}
 
 /** The output text; a class rather than a closure so that nothing is made per call but itself. */
 class Writer {
@@ -45,7 +32,7 @@ class Writer {
 interface Removal {
   mask: number;
   reduce: boolean; // chords become their melody note
-  pick: DoubleStop;
+  picks: StopPicks;
 }
 
 const keeps = (t: Tok, mask: number): boolean => (kindBit(tokKind(t)) & mask) === 0;
@@ -55,7 +42,7 @@ export function emit(
   model: TuneModel,
   removed: ReadonlySet<Kind>,
   groupOf: Map<NoteEl, FillGroup>,
-  pick: DoubleStop,
+  picks: StopPicks,
   track = false,
 ): Emitted {
   const { abc } = model;
@@ -64,7 +51,7 @@ export function emit(
   const offsets = new Offsets();
   const notes: (MelodyNote | undefined)[] = track ? new Array<MelodyNote | undefined>(model.edits.length) : [];
   const states = new Map<string, BarAccidentals>();
-  const r: Removal = { mask: kindMask(removed), reduce: removed.has("doubleStops"), pick };
+  const r: Removal = { mask: kindMask(removed), reduce: removed.has("doubleStops"), picks };
   const collapse = removed.has("fills") && groupOf.size > 0;
   for (const el of model.edits) {
     if (el.start < pos) continue;
@@ -172,7 +159,7 @@ function writeNote(
 ): number | null {
   const body = el.body;
   const reduce = body.chord && r.reduce;
-  const m = melodyIndex(el, r.pick);
+  const m = melodyIndex(el, r.picks);
   if (!g && !reduce && (el.kinds & r.mask) === 0) {
     // Nothing to take out: the element as written, unless an accidental must be re-spelt.
     const spelt = body.rest ? null : respelt(el, state);
@@ -232,7 +219,7 @@ function respelt(el: NoteEl, state: BarAccidentals): string[] | null {
 /** Pitches a note element sounds once the removed kinds are gone. */
 function tiedPitches(el: NoteEl | null, r: Removal): (number | null)[] {
   if (!el) return [];
-  return el.body.chord && r.reduce ? [el.midi[melodyIndex(el, r.pick)]] : el.midi;
+  return el.body.chord && r.reduce ? [el.midi[melodyIndex(el, r.picks)]] : el.midi;
 }
 
 /** The body as written, with `spelt` accidentals in place of the written ones. */

@@ -8,6 +8,14 @@ export { skeletonOf, buildModel, type SkeletonOptions, type TuneShape } from "./
 export { DEFAULT_PLAN, validatePlan, buildStages, type PlanCheck } from "./stages";
 export { analyze, type Analysis, type AnalyzeOptions } from "./analyze";
 export { prepareTune, type Prepared } from "./tune";
+export {
+  pickStops,
+  type BarVoices,
+  type DoubleStop,
+  type StopChoice,
+  type StopReason,
+  type Voice,
+} from "./double-stops";
 export { defaultUnit, parseMeter } from "./header";
 export { kindOfDecoration, DEFAULT_SHORTHANDS } from "./decorations";
 export { phraseMap, type PhraseMap } from "./phrase-map";

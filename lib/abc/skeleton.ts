@@ -1,13 +1,17 @@
 // The skeleton (issue 3 §3): every embellishment kind removed, computed from the one parse.
 import { lineKind } from "./bars";
 import type { NoteEl } from "./model";
-import { emit, melodyIndex, type DoubleStop, type Emitted } from "./emit";
+import { melodyIndex, pickStops, type BarVoices, type DoubleStop, type StopPicks } from "./double-stops";
+import { emit, type Emitted } from "./emit";
 import { Locator } from "./locate";
 import { prepareTune, guard, type Prepared } from "./tune";
 import { KINDS, type Bar, type Fraction, type MelodyNote, type Result } from "./types";
 
 export interface SkeletonOptions {
+  /** How the melody note of each double stop is chosen (the fiddler's cues unless told). */
   doubleStop?: DoubleStop;
+  /** Bars (melody bar index) a teacher turned to their other voice. */
+  turnedBars?: BarVoices;
 }
 
 export interface TuneShape {
@@ -27,15 +31,17 @@ export function skeletonOf(abc: string, opts: SkeletonOptions = {}): Result<Tune
   if (!prepared.ok) return prepared;
   return guard(new Locator(abc), () => ({
     ok: true,
-    value: skeletonFrom(prepared.value, opts),
+    value: skeletonFrom(prepared.value, picksOf(prepared.value, opts)),
     notes: prepared.notes,
   }));
 }
 
-export function skeletonFrom(p: Prepared, opts: SkeletonOptions = {}): TuneShape {
-  const pick = opts.doubleStop ?? "highest";
-  const out = emit(p.model, ALL, p.groupOf, pick, true);
-  return shapeOf(p, out, pick);
+export const picksOf = (p: Prepared, opts: SkeletonOptions = {}): StopPicks =>
+  pickStops(p.model, opts.doubleStop ?? "cues", opts.turnedBars ?? {});
+
+export function skeletonFrom(p: Prepared, picks: StopPicks): TuneShape {
+  const out = emit(p.model, ALL, p.groupOf, picks, true);
+  return shapeOf(p, out, picks);
 }
 
 /** The unmodified source as a model (used to compare two settings). */
@@ -44,29 +50,29 @@ export function buildModel(abc: string, opts: SkeletonOptions = {}): Result<Tune
   if (!prepared.ok) return prepared;
   return guard(new Locator(abc), () => ({
     ok: true,
-    value: shapeOf(prepared.value, null, opts.doubleStop ?? "highest"),
+    value: shapeOf(prepared.value, null, picksOf(prepared.value, opts)),
     notes: prepared.notes,
   }));
 }
 
-function sourceNote(el: NoteEl, pick: DoubleStop): MelodyNote {
+function sourceNote(el: NoteEl, picks: StopPicks): MelodyNote {
   return {
     onset: el.onset,
     duration: el.duration,
-    pitch: el.midi[melodyIndex(el, pick)],
+    pitch: el.midi[melodyIndex(el, picks)],
     tiedFromPrevious: el.tiedFromPrevious,
     startChar: el.start,
     endChar: el.end,
   };
 }
 
-export function shapeOf(p: Prepared, out: Emitted | null, pick: DoubleStop): TuneShape {
+export function shapeOf(p: Prepared, out: Emitted | null, picks: StopPicks): TuneShape {
   const { model } = p;
   const bars: Bar[] = [];
   for (const vb of model.bars.get(model.melody) ?? []) {
     const notes: MelodyNote[] = [];
     for (const el of vb.notes) {
-      const n = out ? out.notes[el.index] : sourceNote(el, pick);
+      const n = out ? out.notes[el.index] : sourceNote(el, picks);
       if (n) notes.push(n);
     }
     bars.push({

@@ -1,6 +1,7 @@
 // Stage plans are data (issue 3 §4): stage 1 is the skeleton, each later stage adds kinds back.
 import { kindMask } from "./decorations";
-import { emit, emitsSource, kindsIn, type DoubleStop } from "./emit";
+import { pickStops, type StopPicks } from "./double-stops";
+import { emit, emitsSource, kindsIn } from "./emit";
 import { KINDS, type Kind, type Stage, type StagePlan } from "./types";
 import type { Prepared } from "./tune";
 
@@ -52,7 +53,7 @@ export function validatePlan(plan: unknown): PlanCheck {
 export function buildStages(
   p: Prepared,
   plan: StagePlan = DEFAULT_PLAN,
-  pick: DoubleStop = "highest",
+  picks: StopPicks = pickStops(p.model),
   skeletonAbc?: string,
 ): Stage[] {
   const present = new Set<Kind>();
@@ -66,7 +67,7 @@ export function buildStages(
     const key = kindMask(removed) & inTune;
     let abc = removed.size === 0 ? p.model.abc : texts.get(key);
     if (abc === undefined) {
-      abc = key === 0 && emitsSource(p.model) ? p.model.abc : emit(p.model, removed, p.groupOf, pick).abc;
+      abc = key === 0 && emitsSource(p.model) ? p.model.abc : emit(p.model, removed, p.groupOf, picks).abc;
       texts.set(key, abc);
     }
     const before = out[i - 1];

@@ -23,6 +23,7 @@ import { appLink } from "@/lib/auth/links";
 import type { Role } from "@/lib/auth/permissions";
 import { enqueueEmail } from "@/lib/mail/outbox";
 import { checkTune } from "@/lib/tunes/check";
+import { storedTurns } from "@/lib/tunes/schemas";
 import type { AssignmentCreateInput, AssignmentEditInput } from "./teach-schemas";
 import { assignmentStages } from "./teach-stages";
 import { dueForMail, isTimeZone, zonedLocalToInstant } from "./teach-time";
@@ -57,6 +58,7 @@ function checkPlan(tune: TuneRow, plan: AssignmentCreateInput["stagePlan"], erro
   const check = checkTune(tune.abc, {
     stagePlan: plan,
     acceptedSwaps: tune.acceptedSwaps,
+    turnedBars: storedTurns(tune.turnedBars),
   });
   if (!check.ok)
     errors.stagePlan = check.planReasons.join(" ") || "This stage plan doesn't make clean stages of this tune.";

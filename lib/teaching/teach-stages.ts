@@ -4,15 +4,22 @@ import { asc, eq } from "drizzle-orm";
 import type { Tx } from "@/db/queries/auth";
 import { tunes, tuneStages, type StagePlanJson } from "@/db/schema";
 import { checkTune } from "@/lib/tunes/check";
-import { storedPlan } from "@/lib/tunes/schemas";
+import { storedPlan, storedTurns } from "@/lib/tunes/schemas";
 
 export type AssignmentStage = { index: number; name: string; abc: string };
 
 /** Stages from a changed plan; null when the tune does not read cleanly with it (the plan is then refused). */
-export function stagesForPlan(abc: string, acceptedSwaps: string[], plan: StagePlanJson): AssignmentStage[] | null {
+export function stagesForPlan(
+  tune: { abc: string; acceptedSwaps: string[]; turnedBars: unknown },
+  plan: StagePlanJson,
+): AssignmentStage[] | null {
   const parsedPlan = storedPlan(plan);
   if (!parsedPlan) return null;
-  const check = checkTune(abc, { stagePlan: parsedPlan, acceptedSwaps });
+  const check = checkTune(tune.abc, {
+    stagePlan: parsedPlan,
+    acceptedSwaps: tune.acceptedSwaps,
+    turnedBars: storedTurns(tune.turnedBars),
+  });
   if (!check.ok) return null;
   return check.value.stages.map((s) => ({
     index: s.index,
@@ -24,10 +31,10 @@ export function stagesForPlan(abc: string, acceptedSwaps: string[], plan: StageP
 export async function assignmentStages(db: Tx, tuneId: string, plan: StagePlanJson | null): Promise<AssignmentStage[]> {
   if (plan) {
     const [tune] = await db
-      .select({ abc: tunes.abc, acceptedSwaps: tunes.acceptedSwaps })
+      .select({ abc: tunes.abc, acceptedSwaps: tunes.acceptedSwaps, turnedBars: tunes.turnedBars })
       .from(tunes)
       .where(eq(tunes.id, tuneId));
-    const stages = tune ? stagesForPlan(tune.abc, tune.acceptedSwaps, plan) : null;
+    const stages = tune ? stagesForPlan(tune, plan) : null;
     // The plan was checked against this tune when saved; if the tune changed since, fall back to its own stages.
     if (stages) return stages;
   }

@@ -31,6 +31,8 @@ export interface TuneView {
   abc: string;
   stagePlan: StagePlan | null;
   acceptedSwaps: string[];
+  /** Bars (melody bar index) whose double stops keep the other voice than the engine read. */
+  turnedBars: Record<string, "upper" | "lower">;
   updatedAt: string;
   stages: StageView[];
   /** Courses whose ladders hold the tune. */

@@ -18,6 +18,8 @@ export interface CheckedTune {
   stagePlan: StagePlan | null;
   stages: Stage[];
   acceptedSwaps: string[];
+  /** Bars whose double stops the teacher turned, kept only where the bar still has double stops. */
+  turnedBars: Record<string, "upper" | "lower">;
   /** Accepted swaps the phrase map no longer offers (the music changed); they are not kept. */
   droppedSwaps: string[];
   analysis: Analysis;
@@ -34,6 +36,8 @@ export type TuneCheck =
 export interface CheckOptions {
   stagePlan?: StagePlan | null;
   acceptedSwaps?: readonly string[];
+  /** Bars (melody bar index) whose double stops keep the other voice. */
+  turnedBars?: Readonly<Record<string, "upper" | "lower">>;
   /** Lines before this tune in a file of many (bulk import), so problems point into the file. */
   lineOffset?: number;
 }
@@ -56,7 +60,7 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
   // A problem means abcjs ignored or guessed at something the teacher wrote: a tune is stored only
   // when its music reads as written, so every stage and the phrase map come from what was meant.
   // no plan of the teacher's: the default plan fitted to the tune (a stage that would repeat the one before is merged)
-  const analysed = analyze(abc, { plan: opts.stagePlan ?? undefined, lineOffset });
+  const analysed = analyze(abc, { plan: opts.stagePlan ?? undefined, turnedBars: opts.turnedBars, lineOffset });
   const result = analysed.ok
     ? { ...analysed, notes: listed(analysed.notes, "note") }
     : { ...analysed, problems: listed(analysed.problems, "problem"), notes: listed(analysed.notes, "note") };
@@ -83,6 +87,7 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
       stagePlan: opts.stagePlan ?? null,
       stages: a.stages,
       acceptedSwaps: swaps.kept,
+      turnedBars: turnsKept(a, opts.turnedBars ?? {}),
       droppedSwaps: swaps.dropped,
       analysis: a,
     },
@@ -91,6 +96,17 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
 }
 
 export { sortProblems };
+
+/** A turn outlives a change of the music only where its bar still holds a double stop. */
+function turnsKept(
+  a: Analysis,
+  turned: Readonly<Record<string, "upper" | "lower">>,
+): Record<string, "upper" | "lower"> {
+  const bars = new Set(a.doubleStops.map((c) => String(c.barIndex)));
+  const kept: Record<string, "upper" | "lower"> = {};
+  for (const [bar, voice] of Object.entries(turned)) if (bars.has(bar)) kept[bar] = voice;
+  return kept;
+}
 
 /** Past this many of one kind, one more line says how many were left out (a pasted file of noise). */
 const MAX_LISTED = 50;

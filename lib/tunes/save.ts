@@ -32,6 +32,7 @@ function fieldsOf(t: CheckedTune): TuneFields {
     abc: t.abc,
     stagePlan: t.stagePlan,
     acceptedSwaps: t.acceptedSwaps,
+    turnedBars: t.turnedBars,
   };
 }
 
@@ -64,7 +65,11 @@ async function writeStages(tx: Tx, tuneId: string, stages: Stage[], sourceChange
 }
 
 function parsed(input: TuneInput) {
-  return { stagePlan: input.stagePlan ?? null, acceptedSwaps: input.acceptedSwaps ?? [] };
+  return {
+    stagePlan: input.stagePlan ?? null,
+    acceptedSwaps: input.acceptedSwaps ?? [],
+    turnedBars: input.turnedBars ?? {},
+  };
 }
 
 export async function createTune(db: Db, teacherId: string, input: TuneInput): Promise<SaveOutcome> {

@@ -2,7 +2,7 @@
 // handlers (ENGINEERING.md: zod on both sides). Shape only: what the engine thinks of the music
 // (problems with line and column, plan reasons) is lib/tunes/check.ts.
 import { z } from "zod";
-import { MAX_ABC_BYTES } from "@/lib/abc/limits";
+import { MAX_ABC_BYTES, MAX_BARS } from "@/lib/abc/limits";
 import { KINDS } from "@/lib/abc/types";
 
 /**
@@ -24,6 +24,17 @@ export const stagePlanInput = z.object({
     .max(MAX_STAGES, `A plan has at most ${MAX_STAGES} stages.`),
 });
 
+/** The tune engine's bar limit (lib/abc/limits.ts) bounds the keys; a tune has at most that many turns. */
+export const turnedBarsInput = z
+  .record(z.string().regex(/^\d{1,4}$/, "A bar is named by its number."), z.enum(["upper", "lower"]))
+  .refine((r) => Object.keys(r).length <= MAX_BARS, `A tune has at most ${MAX_BARS} bars.`);
+
+/** The turned bars stored in the tunes row (jsonb); nothing when they do not read. */
+export function storedTurns(json: unknown): Record<string, "upper" | "lower"> {
+  const parsed = turnedBarsInput.safeParse(json);
+  return parsed.success ? parsed.data : {};
+}
+
 export const abcText = z
   .string()
   .min(1, "Write the tune in ABC first.")
@@ -38,6 +49,8 @@ export const tuneInput = z.object({
   stagePlan: stagePlanInput.nullable().default(null),
   /** Phrase ids of near twins played like their model in the learning version. */
   acceptedSwaps: z.array(z.string().min(1).max(16)).max(64).default([]),
+  /** Bars (melody bar index) whose double stops keep the other voice than the engine read. */
+  turnedBars: turnedBarsInput.default({}),
 });
 export type TuneInput = z.input<typeof tuneInput>;
 

@@ -5,7 +5,7 @@ import { analyze } from "@/lib/abc/analyze";
 import type { Problem } from "@/lib/abc/types";
 import { notFound, unprocessable } from "@/lib/auth/errors";
 import { checkTune, sortProblems } from "./check";
-import { storedPlan } from "./schemas";
+import { storedPlan, storedTurns } from "./schemas";
 
 export type StageOutcome = { ok: true } | { ok: false; problems: Problem[] };
 
@@ -29,7 +29,10 @@ export async function editStage(db: Db, tune: TuneRow, index: number, rawAbc: st
 /** Drops the hand edit: the stage is made again from the tune's source and plan. */
 export async function rebuildStage(db: Db, tune: TuneRow, index: number): Promise<void> {
   await stageCount(db, tune.id, index);
-  const check = checkTune(tune.abc, { stagePlan: storedPlan(tune.stagePlan) });
+  const check = checkTune(tune.abc, {
+    stagePlan: storedPlan(tune.stagePlan),
+    turnedBars: storedTurns(tune.turnedBars),
+  });
   // A stored tune passed this check when it was saved; the engine changing under it is our fault.
   if (!check.ok) throw new Error(`stored tune ${tune.id} no longer reads cleanly`);
   const stage = check.value.stages[index - 1];

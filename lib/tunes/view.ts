@@ -2,7 +2,7 @@
 import type { Db } from "@/db/client";
 import { coursesUsingTune, stagesOf, type TuneRow } from "@/db/queries/tunes";
 import type { TuneView } from "./api-types";
-import { storedPlan } from "./schemas";
+import { storedPlan, storedTurns } from "./schemas";
 
 export async function tuneView(db: Db, tune: TuneRow): Promise<TuneView> {
   const [stages, courses] = await Promise.all([stagesOf(db, tune.id), coursesUsingTune(db, tune.id)]);
@@ -15,6 +15,7 @@ export async function tuneView(db: Db, tune: TuneRow): Promise<TuneView> {
     abc: tune.abc,
     stagePlan: storedPlan(tune.stagePlan),
     acceptedSwaps: tune.acceptedSwaps,
+    turnedBars: storedTurns(tune.turnedBars),
     updatedAt: tune.updatedAt.toISOString(),
     stages: stages.map((s) => ({
       index: s.index,

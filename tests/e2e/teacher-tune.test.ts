@@ -243,6 +243,32 @@ describe("a teacher writes a tune and puts it on a course", () => {
     await screenshot(page, "teacher-import");
   });
 
+  it("lists the note each double stop keeps until double stops come back; a bar turned to its other note is saved", async () => {
+    await open("/teach/tunes/new", "#abc-source");
+    // an invented reel: the open A rings above the tune's F♯ in both bars
+    await source().fill(`X:1\nT:Drone Field ${run}\nR:reel\nM:4/4\nL:1/8\nK:D\n|:d2 [FA]2 E2 D2|A2 [FA]2 E2 D2:|\n`);
+    const list = page.getByTestId("double-stops");
+    await list.waitFor({ timeout: 30_000 });
+    await list.locator("summary").click();
+    expect(await list.locator('li[data-bar="0"]').textContent()).toContain(
+      "Bar 1: keeps F♯4, not A4 — the open A string rings beside it",
+    );
+    await list.getByRole("button", { name: "Keep the upper note in bar 2" }).click();
+    await list
+      .locator('li[data-bar="1"]')
+      .filter({ hasText: "Bar 2: keeps A4, not F♯4 — turned by you" })
+      .waitFor({ timeout: 30_000 });
+    await page.getByRole("button", { name: "Save the new tune" }).click();
+    await page.waitForURL(/\/teach\/tunes\/[0-9a-f-]{36}$/, { timeout: 30_000 });
+    await page.getByText("All changes saved.").waitFor({ timeout: 30_000 });
+    const stored = await page.evaluate(
+      async (id) => (await fetch(`/api/teach/tunes/${id}`)).json(),
+      page.url().split("/").pop(),
+    );
+    expect(stored.turnedBars).toEqual({ "1": "upper" });
+    expect(stored.stages[0].abc).toContain("|:d2 F2 E2 D2|A2 A2 E2 D2:|");
+  });
+
   it("asked nothing of any other address, and raised no page errors", () => {
     expect(offsite).toEqual([]);
     expect(errors).toEqual([]);

@@ -119,6 +119,22 @@ describe("saving a tune", () => {
     expect(((await res.json()) as SavedBody).droppedSwaps).toEqual(["A3"]);
     expect((await load(id)).acceptedSwaps).toEqual([]);
   });
+
+  it("stores the bars whose double stops a teacher turned, and lets a turn go when its bar has none left", async () => {
+    // an invented tune: the open A above the tune's F♯ (the engine keeps F♯ until double stops come back)
+    const drone = "X:1\nT:Drone Field\nR:reel\nM:4/4\nL:1/8\nK:D\n|:d2 [FA]2 E2 D2|A2 [FA]2 E2 D2:|\n";
+    const id = await create(drone);
+    expect((await load(id)).stages[0].abc).toContain("|:d2 F2 E2 D2|A2 F2 E2 D2:|");
+    expect((await put(id, { abc: drone, turnedBars: { "1": "upper" } })).status).toBe(200);
+    let t = await load(id);
+    expect(t.turnedBars).toEqual({ "1": "upper" });
+    expect(t.stages[0].abc).toContain("|:d2 F2 E2 D2|A2 A2 E2 D2:|");
+    expect((await put(id, { abc: drone, turnedBars: { bar: "upper" } })).status).toBe(400);
+    // bar 2 loses its double stop: the turn has nothing left to turn
+    expect((await put(id, { abc: drone.replace("A2 [FA]2", "A2 F2"), turnedBars: { "1": "upper" } })).status).toBe(200);
+    t = await load(id);
+    expect(t.turnedBars).toEqual({});
+  });
 });
 
 describe("hand-edited stages", () => {

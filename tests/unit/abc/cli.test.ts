@@ -44,6 +44,15 @@ describe("abc CLI", () => {
     expect(typeof phrases.learningLoad.distinct).toBe("number");
   }, 180_000);
 
+  it("doublestops lists the note each double stop keeps and why; --highest overrides", () => {
+    const drone = file("drone.abc", "X:1\nT:Drone\nM:4/4\nL:1/8\nK:D\nd2 [FA]2 E2 D2|\n");
+    const read = JSON.parse(run("doublestops", drone).stdout) as { doubleStops: unknown[] };
+    expect(read.doubleStops).toEqual([{ bar: 1, part: "A", keeps: "F♯4", leaves: "A4", reason: "open" }]);
+    const top = JSON.parse(run("doublestops", drone, "--highest").stdout) as { doubleStops: { keeps: string }[] };
+    expect(top.doubleStops.map((d) => d.keeps)).toEqual(["A4"]);
+    expect(run("skeleton", drone).stdout).toContain("d2 F2 E2 D2|");
+  }, 180_000);
+
   it("exits with code 2 and the problems on stderr for bad input", () => {
     const bad = file("bad.abc", "X:1\nT:Nothing\nK:G\n");
     const r = run("skeleton", bad);

@@ -1,0 +1,1 @@
+ALTER TABLE "tunes" ADD COLUMN "turned_bars" jsonb DEFAULT '{}'::jsonb NOT NULL;
