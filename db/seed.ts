@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import type { Db } from "./client";
 import { rosterEntries, users } from "./schema";
 import { ADMIN, DEMO_PASSWORD, STUDENTS, TEACHERS } from "./seed-data/people";
+import type { TeachingSeeded } from "./seed-teaching";
 import { hashPassword } from "@/lib/auth/password";
 
 /** True when the database holds no people yet (start.sh seeds only then). */
@@ -27,7 +28,7 @@ async function upsertPerson(
 }
 
 /** Idempotent: running it twice leaves one copy of everything. */
-export async function seed(db: Db): Promise<{ people: number }> {
+export async function seed(db: Db): Promise<{ people: number; teaching: TeachingSeeded }> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await upsertPerson(db, { ...ADMIN, role: "admin" }, passwordHash);
   const teacherIds: string[] = [];
@@ -46,6 +47,8 @@ export async function seed(db: Db): Promise<{ people: number }> {
   await (await import("./seed-catalogue")).seedCatalogue(db); // demo courses and tunes (issue 5, item 8)
   await (await import("./seed-progress")).seedProgress(db); // demo ladder progress (issue 5)
   await (await import("./seed-data/billing")).seedBilling(db); // plans and a year of billing, also in the Stripe stand-in (issue 7)
+  // assignments, check-ins with recordings, feedback, practice and margin notes: the school in mid-term
+  const teaching = await (await import("./seed-teaching")).seedTeaching(db);
   const rows = await db.select({ n: sql<number>`count(*)::int` }).from(users);
-  return { people: rows[0].n };
+  return { people: rows[0].n, teaching };
 }

@@ -6,6 +6,7 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { LinkButton } from "@/components/ui/link-button";
 import { db } from "@/db/client";
 import { listRoster } from "@/db/queries/people";
+import { countWaiting } from "@/db/queries/teaching-review";
 import { requireArea } from "@/lib/auth/next-context";
 
 export const metadata: Metadata = { title: "Roster" };
@@ -13,7 +14,12 @@ export const metadata: Metadata = { title: "Roster" };
 export default async function RosterPage() {
   const user = await requireArea("area:teach");
   // Only this teacher's own students (the table's route is keyed by the signed-in person too); an admin sees everyone.
-  const empty = user.role !== "admin" && (await listRoster(db(), user.id)).length === 0;
+  const teacherId = user.role === "admin" ? null : user.id;
+  const [roster, waiting] = await Promise.all([
+    teacherId ? listRoster(db(), teacherId) : null,
+    countWaiting(db(), teacherId), // the first thing to do on a teaching day: say so on the way in
+  ]);
+  const empty = roster !== null && roster.length === 0;
   return (
     <PageContainer className="flex flex-col gap-6">
       <header className="flex flex-wrap items-end justify-between gap-4">
@@ -23,7 +29,7 @@ export default async function RosterPage() {
         </div>
         <div className="flex flex-wrap gap-2">
           <LinkButton href="/teach/review" variant="secondary">
-            Review queue
+            {waiting ? `Review queue · ${waiting} waiting` : "Review queue"}
           </LinkButton>
           <LinkButton href="/teach/assign" variant="secondary">
             Assign a tune

@@ -48,7 +48,7 @@ type Story = {
 };
 
 // Every student with an active enrolment in the demo catalogue (db/seed-data/catalogue.ts: 0–9, 11,
-// 13, 15) stays in good standing; 10, 12 and 14 (enrolment ended or paused) are the lapsed examples.
+// 13, 15–17, 20, 23, 24, 27, 28, 30, 31) stays in good standing; 10, 12 and 14 (enrolment ended or paused) are the lapsed examples.
 export const STORIES: Record<number, Story> = {
   0: { plan: "monthly", monthsAgo: 11 },
   1: { plan: "monthly", monthsAgo: 10, recovered: [4] },

@@ -92,6 +92,11 @@ export const DEMO_COURSES: readonly DemoCourse[] = [
       { student: 9, status: "active" },
       { student: 12, status: "paused" },
       { student: 15, status: "active" },
+      { student: 24, status: "active" },
+      { student: 27, status: "active" },
+      { student: 30, status: "active" },
+      { student: 4, status: "active" },
+      { student: 5, status: "active" },
     ],
   },
   {
@@ -131,6 +136,10 @@ export const DEMO_COURSES: readonly DemoCourse[] = [
       { student: 7, status: "active" },
       { student: 10, status: "ended" },
       { student: 13, status: "active" },
+      { student: 16, status: "active" },
+      { student: 28, status: "active" },
+      { student: 31, status: "active" },
+      { student: 2, status: "active" },
     ],
   },
   {
@@ -171,6 +180,10 @@ export const DEMO_COURSES: readonly DemoCourse[] = [
       { student: 11, status: "active" },
       { student: 14, status: "paused" },
       { student: 3, status: "active" },
+      { student: 17, status: "active" },
+      { student: 20, status: "active" },
+      { student: 23, status: "active" },
+      { student: 1, status: "active" },
     ],
   },
 ];

@@ -34,10 +34,20 @@ const CODECS = {
 } as const;
 export type Compressed = keyof typeof CODECS;
 
-/** Compresses mono float samples with ffmpeg (mp3 plays in every browser; ogg/webm are what browsers record). */
-export function encodeCompressed(samples: Float32Array, sampleRate: number, format: Compressed): Promise<Buffer> {
+/**
+ * Compresses mono float samples with ffmpeg (mp3 plays in every browser; ogg/webm are what browsers record).
+ * `bitrate` (ffmpeg's form, e.g. "24k") replaces the codec's default: the demo's shipped takes are small.
+ */
+export function encodeCompressed(
+  samples: Float32Array,
+  sampleRate: number,
+  format: Compressed,
+  bitrate?: string,
+): Promise<Buffer> {
   const args = ["-hide_banner", "-loglevel", "error", "-f", "f32le", "-ar", String(sampleRate), "-ac", "1"];
-  args.push("-i", "pipe:0", ...CODECS[format], "pipe:1");
+  const codec: string[] = [...CODECS[format]];
+  if (bitrate) codec[codec.indexOf("-b:a") + 1] = bitrate;
+  args.push("-i", "pipe:0", ...codec, "pipe:1");
   return new Promise((resolve, reject) => {
     const child = spawn(ffmpegPath(), args, { stdio: ["pipe", "pipe", "pipe"] });
     const out: Buffer[] = [];

@@ -39,13 +39,13 @@ export const CONTENT_TYPES: Record<Compressed | "wav", string> = {
 /** The rendering as a file's bytes and content type (mp3 by default: small, and every browser plays it). */
 export async function renderRecording(
   stageAbc: string,
-  opts: RecordingOptions & { format?: Compressed | "wav" },
+  opts: RecordingOptions & { format?: Compressed | "wav"; bitrate?: string },
 ): Promise<Rendered & { bytes: Buffer; contentType: string }> {
   const rendered = await renderPerformance(stageAbc, { sampleRate: 22_050, ...opts });
   const format = opts.format ?? "mp3";
   const bytes =
     format === "wav"
       ? encodeWav(rendered.samples, rendered.sampleRate)
-      : await encodeCompressed(rendered.samples, rendered.sampleRate, format);
+      : await encodeCompressed(rendered.samples, rendered.sampleRate, format, opts.bitrate);
   return { ...rendered, bytes, contentType: CONTENT_TYPES[format] };
 }
