@@ -1,7 +1,7 @@
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
-import { DEMO_TAKES, takeFile, type TakeName } from "@/db/seed-data/takes";
+import { DEMO_TAKES, takeFile, type DemoTake, type TakeName } from "@/db/seed-data/takes";
 import { listenTo } from "@/lib/listen";
 import { perform } from "@/lib/listen/perform";
 import { stageOf } from "./truth";
@@ -12,7 +12,7 @@ import { stageOf } from "./truth";
 // scripts/render-demo-takes.ts. Each take's own faults, known from its performance, are what the
 // teacher's review queue is meant to point at.
 function faultBars(name: TakeName): number[] {
-  const take = DEMO_TAKES[name];
+  const take: DemoTake = DEMO_TAKES[name];
   const p = perform(stageOf(take.tune, take.stage), { ...take, repeats: "skip" });
   const bars = p.truth.filter((t) => t.played !== "right").map((t) => t.bar);
   for (const e of p.extras) bars.push(p.truth.find((t) => t.note === e.afterNote)!.bar);
@@ -22,7 +22,7 @@ function faultBars(name: TakeName): number[] {
 describe("the demo school's recordings, heard against today's stages", () => {
   for (const name of Object.keys(DEMO_TAKES) as TakeName[])
     it(`${name}: the bars to check are the take's own faults`, async () => {
-      const take = DEMO_TAKES[name];
+      const take: DemoTake = DEMO_TAKES[name];
       const faults = faultBars(name);
       expect(readFileSync(takeFile(name)).length).toBeGreaterThan(0);
       const result = await listenTo(stageOf(take.tune, take.stage), fileURLToPath(takeFile(name)));
