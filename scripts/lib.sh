@@ -122,7 +122,7 @@ cleanup() {
 build_is_stale() {
   local stamp="$ROOT/.next/BUILD_ID"
   [ -f "$stamp" ] || return 0
-  [ -n "$(cd "$ROOT" && find app components lib db emails public middleware.ts next.config.mjs \
+  [ -n "$(cd "$ROOT" && find app components lib db emails public proxy.ts next.config.mjs \
       tailwind.config.ts postcss.config.mjs package-lock.json -newer "$stamp" -type f 2>/dev/null | head -n 1)" ]
 }
 

@@ -25,7 +25,7 @@ export async function runAction(guarded: GuardedAction, formData: FormData): Pro
 export async function requireArea(action: Action): Promise<CurrentUser> {
   const user = await getCurrentUser();
   if (!user) {
-    // middleware.ts passes the address asked for, so signing in can lead back to it.
+    // proxy.ts passes the address asked for, so signing in can lead back to it.
     const asked = (await headers()).get("x-rosinwood-path");
     redirect(asked ? `/sign-in?next=${encodeURIComponent(asked)}` : "/sign-in");
   }

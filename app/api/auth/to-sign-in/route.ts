@@ -5,9 +5,9 @@ import { safeNext } from "@/lib/auth/links";
 export const dynamic = "force-dynamic";
 
 /**
- * Where middleware.ts sends a signed-out visitor: a redirect to sign-in with the return address.
+ * Where proxy.ts sends a signed-out visitor: a redirect to sign-in with the return address.
  * It answers with a relative Location, which Next passes on untouched; a redirect made in the
- * middleware itself gets its host rewritten to "localhost" when the app runs on 127.0.0.1.
+ * proxy itself gets its host rewritten to "localhost" when the app runs on 127.0.0.1.
  */
 export const GET = guardRoute(
   { action: "account:sign-in", input: z.object({ next: z.string().max(2000).optional() }) },
