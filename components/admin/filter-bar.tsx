@@ -2,7 +2,7 @@
 // The filters above an admin table: choices (status, plan, course), a date range and a name or
 // e-mail search. Applied together on submit, written to the URL by the table.
 import { useId } from "react";
-import { Button } from "@/components/ui/button";
+import { Button, buttonClasses } from "@/components/ui/button";
 import { Input, Select } from "@/components/ui/input";
 import { words } from "./format";
 
@@ -11,10 +11,13 @@ export type FilterDef = { name: string; label: string; options: { value: string;
 type Props = {
   filters: FilterDef[];
   values: URLSearchParams;
+  /** The page's own address: before the page hydrates, the form is sent there as a plain GET. */
+  action: string;
   onApply: (change: Record<string, string | null>) => void;
 };
 
 const FIXED = ["from", "to", "q"];
+const KEPT = ["sort", "dir", "pageSize"];
 
 /** A status menu (values shown in words) and a plan menu: the filters every money table starts with. */
 export function statusAndPlanFilters(
@@ -28,11 +31,13 @@ export function statusAndPlanFilters(
   ];
 }
 
-export function FilterBar({ filters, values, onApply }: Props) {
+export function FilterBar({ filters, values, action, onApply }: Props) {
   const id = useId();
   const names = [...filters.map((f) => f.name), ...FIXED];
   return (
     <form
+      method="get"
+      action={action}
       role="search"
       aria-label="Filter the table"
       className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-4"
@@ -45,6 +50,8 @@ export function FilterBar({ filters, values, onApply }: Props) {
         onApply(Object.fromEntries(names.map((n) => [n, String(form.get(n) ?? "").trim() || null])));
       }}
     >
+      {/* The order shown is kept when the form is sent before the page has hydrated. */}
+      {KEPT.map((k) => (values.get(k) ? <input key={k} type="hidden" name={k} value={values.get(k) ?? ""} /> : null))}
       {filters.map((f) => (
         <label key={f.name} className="flex flex-col gap-1 text-small font-semibold" htmlFor={`${id}-${f.name}`}>
           {f.label}
@@ -72,9 +79,16 @@ export function FilterBar({ filters, values, onApply }: Props) {
       </label>
       <div className="flex items-end gap-2">
         <Button type="submit">Apply filters</Button>
-        <Button type="button" variant="quiet" onClick={() => onApply(Object.fromEntries(names.map((n) => [n, null])))}>
+        <a
+          className={buttonClasses("quiet")}
+          href={`${action}?${new URLSearchParams(KEPT.flatMap((k) => (values.get(k) ? [[k, values.get(k) ?? ""]] : [])))}`}
+          onClick={(e) => {
+            e.preventDefault();
+            onApply(Object.fromEntries(names.map((n) => [n, null])));
+          }}
+        >
           Clear
-        </Button>
+        </a>
       </div>
     </form>
   );

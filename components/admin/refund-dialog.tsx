@@ -104,7 +104,7 @@ export function RefundDialog({ payment, onClose }: { payment: PaymentJson; onClo
           <Button variant="quiet" onClick={onClose}>
             Cancel
           </Button>
-          <Button type="submit" variant="danger" disabled={refund.isPending}>
+          <Button type="submit" needsScript variant="danger" disabled={refund.isPending}>
             {refund.isPending ? "Refunding…" : "Refund"}
           </Button>
         </div>

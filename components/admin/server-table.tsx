@@ -7,12 +7,36 @@
 import { useQuery } from "@tanstack/react-query";
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
 import { usePathname, useSearchParams } from "next/navigation";
-import { useMemo } from "react";
+import { useMemo, type ComponentProps, type MouseEvent } from "react";
 import { Alert } from "@/components/ui/alert";
-import { Button } from "@/components/ui/button";
+import { buttonClasses } from "@/components/ui/button";
+import { cx } from "@/components/ui/cx";
 import { TableShell, TBody, Td, Th, THead } from "@/components/ui/table";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import { FilterBar, type FilterDef } from "./filter-bar";
+
+/** The query without its empty values. */
+function withoutEmpty(params: URLSearchParams): URLSearchParams {
+  const kept = new URLSearchParams();
+  params.forEach((v, k) => {
+    if (v.trim() !== "") kept.append(k, v);
+  });
+  return kept;
+}
+
+/** A pager link, or the same words shown as unavailable where there is no such page. */
+function PagerLink({ enabled, children, ...link }: ComponentProps<"a"> & { enabled: boolean }) {
+  const classes = buttonClasses("secondary", "sm");
+  return enabled ? (
+    <a className={classes} {...link}>
+      {children}
+    </a>
+  ) : (
+    <span className={cx(classes, "cursor-not-allowed opacity-60")} aria-disabled="true">
+      {children}
+    </span>
+  );
+}
 
 export type Page<R> = { rows: R[]; hasMore: boolean; page: number; pageSize: number };
 
@@ -36,7 +60,8 @@ export type ServerTableProps<R> = {
 
 export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSort, getRowId }: ServerTableProps<R>) {
   const pathname = usePathname();
-  const params = useSearchParams();
+  // The filter form, sent before the page hydrates, writes its empty fields too: those mean "any".
+  const params = withoutEmpty(useSearchParams());
   const query = params.toString();
   const sort = params.get("sort") ?? defaultSort;
   const dir = params.get("dir") === "asc" ? "asc" : "desc";
@@ -54,21 +79,37 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
     queryFn: () => fetchJson<{ total: number }>(`${endpoint}/count?${filterKey}`),
   });
 
-  /** Changes the URL (and so the query); any change but the page itself starts again at page 1. */
-  function go(change: Record<string, string | null>) {
+  /** The address with a change; any change but the page itself starts again at page 1. */
+  function hrefWith(change: Record<string, string | null>): string {
     const next = new URLSearchParams(params);
     for (const [k, v] of Object.entries(change)) {
       if (v === null || v === "") next.delete(k);
       else next.set(k, v);
     }
     if (!("page" in change)) next.delete("page");
+    return `${pathname}?${next.toString()}`;
+  }
+
+  /**
+   * Sort headers and pager are links (and the filters a GET form), so they work before the page hydrates;
+   * once it has, a click changes the address in place instead.
+   */
+  function go(change: Record<string, string | null>) {
     // The browser's own history, not router.replace: the server part of the page does not read the
     // query (the rows come from the route handlers), so a router navigation only cost a server round
     // trip per sort, page or filter, with useSearchParams holding the old query until it landed.
     // Next.js keeps useSearchParams in step with replaceState (Next.js docs, "Linking and
     // Navigating": using the native History API, 14.1+).
-    window.history.replaceState(null, "", `${pathname}?${next.toString()}`);
+    window.history.replaceState(null, "", hrefWith(change));
   }
+  const linkTo = (change: Record<string, string | null>) => ({
+    href: hrefWith(change),
+    onClick: (e: MouseEvent<HTMLAnchorElement>) => {
+      if (e.metaKey || e.ctrlKey || e.shiftKey || e.button !== 0) return; // a new tab or window: the browser's
+      e.preventDefault();
+      go(change);
+    },
+  });
 
   const total = count.data?.total;
   const hasMore = data.data?.hasMore ?? false;
@@ -86,11 +127,6 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
     enableSortingRemoval: false,
     pageCount,
     state: { sorting, pagination: { pageIndex: page - 1, pageSize } },
-    onSortingChange: (updater) => {
-      const next = typeof updater === "function" ? updater(sorting) : updater;
-      const s = next[0];
-      if (s) go({ sort: s.id, dir: s.desc ? "desc" : "asc" });
-    },
   });
 
   const exportQuery = new URLSearchParams(params);
@@ -99,7 +135,7 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
 
   return (
     <div className="flex flex-col gap-4">
-      <FilterBar filters={filters} values={params} onApply={go} />
+      <FilterBar filters={filters} values={params} action={pathname} onApply={go} />
       <div className="flex flex-wrap items-center justify-between gap-3">
         <p className="text-small text-bark" aria-live="polite" data-testid="table-total">
           {total === undefined ? (count.error ? "" : "Counting…") : `${total} ${total === 1 ? "row" : "rows"} match`}
@@ -126,14 +162,13 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
                     aria-sort={sorted === "asc" ? "ascending" : sorted === "desc" ? "descending" : undefined}
                   >
                     {h.column.getCanSort() ? (
-                      <button
-                        type="button"
-                        className="inline-flex items-center gap-1 font-semibold underline-offset-2 hover:underline"
-                        onClick={h.column.getToggleSortingHandler()}
+                      <a
+                        className="inline-flex items-center gap-1 font-semibold text-ink no-underline underline-offset-2 hover:underline"
+                        {...linkTo({ sort: h.column.id, dir: h.column.getNextSortingOrder() || "desc" })}
                       >
                         {label}
                         <span aria-hidden="true">{sorted === "asc" ? "▲" : sorted === "desc" ? "▼" : "↕"}</span>
-                      </button>
+                      </a>
                     ) : (
                       label
                     )}
@@ -161,13 +196,13 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
         </TBody>
       </TableShell>
       <nav aria-label="Pages" className="flex flex-wrap items-center gap-3 text-small">
-        <Button variant="secondary" size="sm" disabled={page <= 1} onClick={() => go({ page: String(page - 1) })}>
+        <PagerLink enabled={page > 1} {...linkTo({ page: String(page - 1) })}>
           Previous
-        </Button>
+        </PagerLink>
         <span>{total === undefined ? `Page ${page}` : `Page ${page} of ${pageCount}`}</span>
-        <Button variant="secondary" size="sm" disabled={!hasMore} onClick={() => go({ page: String(page + 1) })}>
+        <PagerLink enabled={hasMore} {...linkTo({ page: String(page + 1) })}>
           Next
-        </Button>
+        </PagerLink>
       </nav>
     </div>
   );

@@ -92,7 +92,7 @@ export function PlanForm({
           </p>
         ) : null}
         <div>
-          <Button type="submit" disabled={busy}>
+          <Button type="submit" needsScript disabled={busy}>
             {busy ? "Saving…" : submitLabel}
           </Button>
         </div>

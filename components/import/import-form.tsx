@@ -93,7 +93,7 @@ export function ImportForm() {
           onChange={(e) => setFile(e.target.files?.[0] ?? null)}
         />
         <div>
-          <Button type="submit" disabled={busy}>
+          <Button type="submit" needsScript disabled={busy}>
             {busy ? "Importing…" : "Import the tunes"}
           </Button>
         </div>

@@ -108,7 +108,7 @@ export function AddRungForm({ courseId, gradeId, gradeTitle, usedTunes, busy, on
         />
         Taster
       </label>
-      <Button type="submit" size="sm" disabled={busy}>
+      <Button type="submit" needsScript size="sm" disabled={busy}>
         Add to {gradeTitle}
       </Button>
       {error ? (

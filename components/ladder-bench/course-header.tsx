@@ -57,7 +57,7 @@ export function CourseHeader({ course, busy, onSave, onPublish }: CourseHeaderPr
           onChange={(e) => setSummary(e.target.value)}
           error={errors.summary}
         />
-        <Button type="submit" variant="secondary" disabled={!changed || busy}>
+        <Button type="submit" needsScript variant="secondary" disabled={!changed || busy}>
           Save title and summary
         </Button>
       </form>

@@ -41,7 +41,7 @@ export function CourseList({ showTeacher }: { showTeacher: boolean }) {
           onChange={(e) => setTitle(e.target.value)}
           error={fieldError}
         />
-        <Button type="submit" disabled={create.isPending}>
+        <Button type="submit" needsScript disabled={create.isPending}>
           {create.isPending ? "Starting…" : "Start a course"}
         </Button>
       </form>

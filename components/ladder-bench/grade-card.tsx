@@ -64,28 +64,16 @@ export function GradeCard(p: GradeCardProps) {
             className={cx(inlineControl, "min-w-48 flex-1 font-serif text-h4 font-semibold")}
           />
           {title.trim() !== grade.title ? (
-            <Button type="submit" size="sm" variant="secondary" disabled={p.busy}>
+            <Button type="submit" needsScript size="sm" variant="secondary" disabled={p.busy}>
               Rename
             </Button>
           ) : null}
         </form>
-        <Button
-          size="sm"
-          variant="quiet"
-          disabled={p.isFirst || p.busy}
-          onClick={() => p.onMoveGrade(-1)}
-          aria-label={`Move ${grade.title} up`}
-        >
-          Move up
+        <Button size="sm" variant="quiet" disabled={p.isFirst || p.busy} onClick={() => p.onMoveGrade(-1)}>
+          Move<span className="sr-only"> {grade.title}</span> up
         </Button>
-        <Button
-          size="sm"
-          variant="quiet"
-          disabled={p.isLast || p.busy}
-          onClick={() => p.onMoveGrade(1)}
-          aria-label={`Move ${grade.title} down`}
-        >
-          Move down
+        <Button size="sm" variant="quiet" disabled={p.isLast || p.busy} onClick={() => p.onMoveGrade(1)}>
+          Move<span className="sr-only"> {grade.title}</span> down
         </Button>
         <Button
           size="sm"

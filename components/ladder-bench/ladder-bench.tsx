@@ -110,7 +110,7 @@ export function LadderBench({ courseId }: { courseId: string }) {
             value={gradeTitle}
             onChange={(e) => setGradeTitle(e.target.value)}
           />
-          <Button type="submit" variant="secondary" disabled={busy}>
+          <Button type="submit" needsScript variant="secondary" disabled={busy}>
             Add a grade
           </Button>
         </form>

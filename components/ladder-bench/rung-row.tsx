@@ -65,23 +65,11 @@ export function RungRow({ rung, position, canMoveUp, canMoveDown, busy, onMove, 
         Taster (open to everyone)
       </label>
       <div className="flex gap-1">
-        <Button
-          size="sm"
-          variant="quiet"
-          disabled={!canMoveUp || busy}
-          onClick={() => onMove(-1)}
-          aria-label={`Move ${rung.tuneTitle} up`}
-        >
-          Move up
+        <Button size="sm" variant="quiet" disabled={!canMoveUp || busy} onClick={() => onMove(-1)}>
+          Move<span className="sr-only"> {rung.tuneTitle}</span> up
         </Button>
-        <Button
-          size="sm"
-          variant="quiet"
-          disabled={!canMoveDown || busy}
-          onClick={() => onMove(1)}
-          aria-label={`Move ${rung.tuneTitle} down`}
-        >
-          Move down
+        <Button size="sm" variant="quiet" disabled={!canMoveDown || busy} onClick={() => onMove(1)}>
+          Move<span className="sr-only"> {rung.tuneTitle}</span> down
         </Button>
         <Button
           size="sm"

@@ -65,12 +65,10 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
         )}
       </div>
       {!locked ? (
-        <Link
-          href={`/learn/tunes/${rung.tuneId}`}
-          className="shrink-0 self-start font-semibold"
-          aria-label={`Practise ${rung.tuneTitle}`}
-        >
-          {rung.state === "done" ? "Practise again" : "Practise"}
+        <Link href={`/learn/tunes/${rung.tuneId}`} className="shrink-0 self-start font-semibold">
+          {/* The name read out says which tune; the words shown stay short (and part of that name). */}
+          Practise<span className="sr-only"> {rung.tuneTitle}</span>
+          {rung.state === "done" ? " again" : ""}
         </Link>
       ) : null}
     </li>

@@ -101,7 +101,7 @@ export function CheckInForm({ assignmentStudentId, stageIndex, stageName, onDone
         </Alert>
       ) : null}
       <div>
-        <Button type="submit" disabled={sending || !uploadId}>
+        <Button type="submit" needsScript disabled={sending || !uploadId}>
           {sending ? "Checking in…" : "Check in"}
         </Button>
       </div>

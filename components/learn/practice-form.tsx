@@ -110,7 +110,7 @@ export function PracticeForm({ today, tunes, editing, onSaved, onCancel }: Pract
         </Alert>
       ) : null}
       <div className="flex flex-wrap gap-3">
-        <Button type="submit" disabled={busy}>
+        <Button type="submit" needsScript disabled={busy}>
           {editing ? "Save changes" : "Log practice"}
         </Button>
         {editing ? (

@@ -196,7 +196,7 @@ export function AssignForm({
         {(c) => <Textarea {...c} rows={4} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
       </Field>
       <div>
-        <Button type="submit" disabled={busy || reasons.length > 0}>
+        <Button type="submit" needsScript disabled={busy || reasons.length > 0}>
           {busy ? "Assigning…" : "Assign"}
         </Button>
       </div>

@@ -93,7 +93,7 @@ export function AssignmentEdit({ a, onDone }: { a: AssignmentView; onDone: () =>
         {(c) => <Textarea {...c} rows={3} value={note} onChange={(e) => setNote(e.target.value)} maxLength={2000} />}
       </Field>
       <div className="flex gap-2">
-        <Button type="submit" disabled={save.isPending || planReasons(changed, plan).length > 0}>
+        <Button type="submit" needsScript disabled={save.isPending || planReasons(changed, plan).length > 0}>
           {save.isPending ? "Saving…" : "Save changes"}
         </Button>
         <Button variant="quiet" onClick={onDone}>

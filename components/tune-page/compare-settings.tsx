@@ -68,7 +68,7 @@ export function CompareSettings({ abc, stageName }: { abc: string; stageName: st
           Compare the core melodies only (leave out ornaments and other embellishments)
         </label>
         <div>
-          <Button type="submit" size="sm" disabled={busy}>
+          <Button type="submit" needsScript size="sm" disabled={busy}>
             {busy ? "Comparing…" : `Compare with ${stageName}`}
           </Button>
         </div>

@@ -83,7 +83,7 @@ export function NoteForm({ bar, body = "", submitLabel, busy, onSubmit, onCancel
       {err("body")}
       {err("form")}
       <div className="flex gap-2">
-        <Button type="submit" size="sm" disabled={busy}>
+        <Button type="submit" needsScript size="sm" disabled={busy}>
           {busy ? "Saving…" : submitLabel}
         </Button>
         {onCancel ? (

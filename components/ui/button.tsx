@@ -1,5 +1,6 @@
 import type { ButtonHTMLAttributes } from "react";
 import { cx } from "./cx";
+import { ScriptButton } from "./script-button";
 
 export type ButtonVariant = "primary" | "secondary" | "quiet" | "danger";
 export type ButtonSize = "sm" | "md" | "lg";
@@ -29,8 +30,13 @@ export function buttonClasses(variant: ButtonVariant = "primary", size: ButtonSi
 export type ButtonProps = ButtonHTMLAttributes<HTMLButtonElement> & {
   variant?: ButtonVariant;
   size?: ButtonSize;
+  /**
+   * Does nothing without the page's script (a click handler, or the submit button of a form whose submit
+   * handler does the work): shown disabled until the page has hydrated. Defaults to having an onClick.
+   */
+  needsScript?: boolean;
 };
 
 export function Button({ variant, size, className, type = "button", ...rest }: ButtonProps) {
-  return <button type={type} className={cx(buttonClasses(variant, size), className)} {...rest} />;
+  return <ScriptButton type={type} className={cx(buttonClasses(variant, size), className)} {...rest} />;
 }
