@@ -59,9 +59,9 @@ export type ServerTableProps<R> = {
 };
 
 export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSort, getRowId }: ServerTableProps<R>) {
-  const pathname = usePathname();
+  const pathname = usePathname() ?? "";
   // The filter form, sent before the page hydrates, writes its empty fields too: those mean "any".
-  const params = withoutEmpty(useSearchParams());
+  const params = withoutEmpty(useSearchParams() ?? new URLSearchParams());
   const query = params.toString();
   const sort = params.get("sort") ?? defaultSort;
   const dir = params.get("dir") === "asc" ? "asc" : "desc";

@@ -106,8 +106,9 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
     >
       <div className="flex flex-wrap items-center gap-3">
         <Button
-          onClick={() => void onPlay()}
-          disabled={status === "loading"}
+          // Not disabled while the sound loads: a disabled button drops the keyboard's focus.
+          onClick={() => (status === "loading" ? undefined : void onPlay())}
+          aria-disabled={status === "loading"}
           aria-label={status === "playing" ? "Pause" : "Play"}
         >
           <span aria-hidden="true">{status === "playing" ? "❚❚" : "▶"}</span>
