@@ -27,10 +27,13 @@ function Mark({ verdict }: { verdict: Verdict }) {
   );
 }
 
+const barName = (b: BarReport): string => (b.bar === 0 ? "pickup" : `bar ${b.bar}`);
+
+/** The button's name begins with the words it shows, as they read (WCAG 2.2 §2.5.3, label in name). */
 export function barWords(b: BarReport): string {
   const why = b.verdict === "clean" ? "" : `: ${b.reasons.join("; ")}`;
   const play = b.at === null ? "" : `. Plays from ${clock(b.at)}`;
-  return `Bar ${b.bar}, ${WORDS[b.verdict]}${why}${play}`;
+  return `${barName(b)} ${WORDS[b.verdict]}${why}${play}`;
 }
 
 export function BarStrip({
@@ -66,7 +69,7 @@ export function BarStrip({
               selected === b.bar ? "ring-3 ring-slate" : "",
             )}
           >
-            <span className="font-semibold text-ink">{b.bar === 0 ? "pickup" : `bar ${b.bar}`}</span>
+            <span className="font-semibold text-ink">{barName(b)}</span>
             <Mark verdict={b.verdict} />
             <span>{WORDS[b.verdict]}</span>
           </button>

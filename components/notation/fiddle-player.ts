@@ -155,7 +155,11 @@ export class FiddlePlayer {
 
   async play(): Promise<void> {
     const synth = this.synth;
-    if (!synth || !this.ready) return;
+    if (!synth || !this.ready) {
+      // A press of Play while the audio is being (re)built plays it when it is ready, never lost.
+      if (this.status === "loading") this.resume = { ...this.resume, status: "playing" };
+      return;
+    }
     const ctx = await this.context();
     if (ctx.state !== "running") await ctx.resume();
     synth.seek(this.pausedAt, "seconds");

@@ -106,9 +106,8 @@ export function TunePlayer({ abc, phraseMap, onLoopChange, className }: TunePlay
     >
       <div className="flex flex-wrap items-center gap-3">
         <Button
-          // Not disabled while the sound loads: a disabled button drops the keyboard's focus.
-          onClick={() => (status === "loading" ? undefined : void onPlay())}
-          aria-disabled={status === "loading"}
+          // Never disabled: a press while the sound loads plays it when ready (FiddlePlayer.play).
+          onClick={() => void onPlay()}
           aria-label={status === "playing" ? "Pause" : "Play"}
         >
           <span aria-hidden="true">{status === "playing" ? "❚❚" : "▶"}</span>

@@ -150,7 +150,7 @@ describe("the listening aid's bar strip", () => {
     // Screen readers hear each bar's verdict and why.
     const first = panel.locator(`button[data-bar="${missedBars[0]}"]`);
     await expect(first.getAttribute("aria-label")).resolves.toMatch(
-      new RegExp(`^Bar ${missedBars[0]}, listen: .*not heard`),
+      new RegExp(`^bar ${missedBars[0]} listen: .*not heard`), // begins with the words shown (label in name)
     );
     await pressBar(student, panel, "listening-01-student-self-check");
   });
