@@ -29,12 +29,16 @@ function Mark({ verdict }: { verdict: Verdict }) {
 
 const barName = (b: BarReport): string => (b.bar === 0 ? "pickup" : `bar ${b.bar}`);
 
-/** The button's name begins with the words it shows, as they read (WCAG 2.2 §2.5.3, label in name). */
+const why = (b: BarReport): string => (b.verdict === "clean" ? "" : `: ${b.reasons.join("; ")}`);
+const playsFrom = (b: BarReport): string => (b.at === null ? "" : `. Plays from ${clock(b.at)}`);
+
+/** The bar's verdict as a sentence, e.g. "Bar 6, listen: A4 not heard. Plays from 0:07". */
 export function barWords(b: BarReport): string {
-  const why = b.verdict === "clean" ? "" : `: ${b.reasons.join("; ")}`;
-  const play = b.at === null ? "" : `. Plays from ${clock(b.at)}`;
-  return `${barName(b)} ${WORDS[b.verdict]}${why}${play}`;
+  return `Bar ${b.bar}, ${WORDS[b.verdict]}${why(b)}${playsFrom(b)}`;
 }
+
+/** The button's name begins with the words it shows, as they read (WCAG 2.2 §2.5.3, label in name). */
+const buttonName = (b: BarReport): string => `${barName(b)} ${WORDS[b.verdict]}${why(b)}${playsFrom(b)}`;
 
 export function BarStrip({
   bars,
@@ -57,7 +61,7 @@ export function BarStrip({
             data-verdict={b.verdict}
             data-at={b.at ?? undefined}
             aria-pressed={selected === b.bar}
-            aria-label={barWords(b)}
+            aria-label={buttonName(b)}
             title={b.verdict === "clean" ? undefined : b.reasons.join("; ")}
             disabled={b.at === null}
             onClick={() => onSelect(b)}
