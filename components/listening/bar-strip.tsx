@@ -73,8 +73,8 @@ export function BarStrip({
               selected === b.bar ? "ring-3 ring-slate" : "",
             )}
           >
-            <span className="font-semibold text-ink">{barName(b)}</span>
-            <Mark verdict={b.verdict} />
+            {/* The spaces keep the shown words apart for assistive technology; the flex layout ignores them. */}
+            <span className="font-semibold text-ink">{barName(b)}</span> <Mark verdict={b.verdict} />{" "}
             <span>{WORDS[b.verdict]}</span>
           </button>
         </li>
