@@ -24,12 +24,18 @@ export function RefundDialog({ payment, onClose }: { payment: PaymentJson; onClo
     if (d && !d.open) d.showModal();
   }, []);
 
+  // 202: Stripe refunded but the payment here is brought up to date a little later; say so, stay open.
+  const [pending, setPending] = useState<string | null>(null);
   const refund = useMutation({
     mutationFn: (body: { amount: number; reason: string }) =>
-      fetchJson(`/api/admin/payments/${payment.id}/refunds`, { method: "POST", body }),
-    onSuccess: async () => {
+      fetchJson<{ pending?: boolean; message?: string }>(`/api/admin/payments/${payment.id}/refunds`, {
+        method: "POST",
+        body,
+      }),
+    onSuccess: async (answer) => {
       await queries.invalidateQueries({ queryKey: ["admin-table"] });
-      onClose();
+      if (answer?.pending) setPending(answer.message ?? "Stripe has refunded it; it will show here shortly.");
+      else onClose();
     },
   });
   const server = refund.error instanceof ApiError ? refund.error.fieldErrors : {};
@@ -100,11 +106,12 @@ export function RefundDialog({ payment, onClose }: { payment: PaymentJson; onClo
           </p>
         ) : null}
         {refund.error && !errors.amount && !errors.reason ? <Alert tone="error">{refund.error.message}</Alert> : null}
+        {pending ? <Alert tone="success">{pending}</Alert> : null}
         <div className="flex flex-wrap justify-end gap-2">
           <Button variant="quiet" onClick={onClose}>
             Cancel
           </Button>
-          <Button type="submit" needsScript variant="danger" disabled={refund.isPending}>
+          <Button type="submit" needsScript variant="danger" disabled={refund.isPending || pending !== null}>
             {refund.isPending ? "Refunding…" : "Refund"}
           </Button>
         </div>

@@ -10,6 +10,7 @@ import {
   pgTable,
   text,
   timestamp,
+  uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
 import { users } from "./people";
@@ -128,11 +129,47 @@ export const refunds = pgTable(
   (t) => [index("refunds_payment_idx").on(t.paymentId), check("refunds_amount_pos", sql`${t.amount} > 0`)],
 );
 
+export const refundAttemptStatusEnum = pgEnum("refund_attempt_status", ["pending", "done", "failed"]);
+
+/**
+ * A refund asked of Stripe, written before the call. At most one is pending per payment (a second
+ * refund at the same time is told another is in progress), and a refund Stripe made while the local
+ * write failed is found again from here by the charge.refunded webhook or the worker's repair pass.
+ */
+export const refundAttempts = pgTable(
+  "refund_attempts",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    paymentId: uuid("payment_id")
+      .notNull()
+      .references(() => payments.id, { onDelete: "restrict" }),
+    amount: integer("amount").notNull(),
+    reason: text("reason").notNull(),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    idempotencyKey: text("idempotency_key").notNull(),
+    stripeRefundId: text("stripe_refund_id").unique(),
+    status: refundAttemptStatusEnum("status").notNull().default("pending"),
+    // Why Stripe refused it (status failed).
+    error: text("error"),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    finishedAt: timestamp("finished_at", { withTimezone: true }),
+  },
+  (t) => [
+    uniqueIndex("refund_attempts_one_pending_idx")
+      .on(t.paymentId)
+      .where(sql`${t.status} = 'pending'`),
+    check("refund_attempts_amount_pos", sql`${t.amount} > 0`),
+  ],
+);
+
 /** Each Stripe event id is stored once: a redelivered event is recognised and changes nothing. */
 export const webhookEvents = pgTable("webhook_events", {
   id: text("id").primaryKey(),
   type: text("type").notNull(),
+  // The event as received, with NUL characters (which jsonb cannot hold) replaced by U+FFFD.
   payload: jsonb("payload").notNull(),
   receivedAt: timestamp("received_at", { withTimezone: true }).notNull().defaultNow(),
   processedAt: timestamp("processed_at", { withTimezone: true }),
+  // Why it was not applied (a malformed object, or the handler's failure): kept for inspection.
+  error: text("error"),
 });

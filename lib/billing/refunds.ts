@@ -1,14 +1,10 @@
-// Refunds (issue 7 item 6): one place that records a refund against a payment, used by the admin's
-// refund action (after Stripe accepted it) and by the charge.refunded webhook (lib/billing/webhooks/).
-// Both paths may see the same Stripe refund: the refund id is unique, so it is recorded once.
+// Refunds: one place that records a refund against a payment, used by the admin's refund
+// (./refund-payment.ts, after Stripe accepted it), by the charge.refunded webhook (./webhooks/) and by
+// the worker's repair pass (./refund-repair.ts). All may see the same Stripe refund: the refund id is
+// unique, so it is recorded once, and the refund attempt it answers is marked done with it.
 import { and, eq, sql } from "drizzle-orm";
-import type Stripe from "stripe";
 import type { Tx as Db } from "@/db/queries/auth";
-import { payments, refunds } from "@/db/schema";
-import { enqueueEmail } from "@/lib/mail/outbox";
-import { users } from "@/db/schema";
-import { formatMoney } from "./money";
-import { stripe as appStripe } from "./stripe";
+import { payments, refundAttempts, refunds } from "@/db/schema";
 
 export type RefundPaymentRef = { paymentId: string } | { stripePaymentIntentId: string } | { stripeInvoiceId: string };
 
@@ -20,6 +16,8 @@ export type RecordRefundInput = RefundPaymentRef & {
   reason: string;
   createdBy?: string | null;
   createdAt?: Date;
+  /** The refund attempt (refund_attempts) this Stripe refund answers, when known (its metadata says). */
+  attemptId?: string | null;
 };
 
 export type RefundedPayment = {
@@ -34,14 +32,20 @@ type PaymentStatus = (typeof payments.$inferSelect)["status"];
 export type RecordRefundResult = { recorded: boolean; refundId: string; payment: RefundedPayment };
 
 export type RefundErrorCode =
-  "payment_not_found" | "not_refundable" | "over_refund" | "currency_mismatch" | "bad_amount";
+  | "payment_not_found"
+  | "not_refundable"
+  | "over_refund"
+  | "currency_mismatch"
+  | "bad_amount"
+  | "bad_reason"
+  | "in_progress";
 
 /** A refund the payment cannot take; `field` names the input at fault for a 422. */
 export class RefundError extends Error {
   constructor(
     readonly code: RefundErrorCode,
     message: string,
-    readonly field: "amount" | "paymentId" | "currency" = "amount",
+    readonly field: "amount" | "paymentId" | "currency" | "reason" = "amount",
   ) {
     super(message);
   }
@@ -51,6 +55,18 @@ function whereRef(ref: RefundPaymentRef) {
   if ("paymentId" in ref) return eq(payments.id, ref.paymentId);
   if ("stripePaymentIntentId" in ref) return eq(payments.stripePaymentIntentId, ref.stripePaymentIntentId);
   return eq(payments.stripeInvoiceId, ref.stripeInvoiceId);
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+/** An id from Stripe's metadata, only when it has the shape of one of ours (metadata is free text). */
+export const uuidOrNull = (v: string | null | undefined) => (v && UUID.test(v) ? v : null);
+
+/**
+ * Text from outside (Stripe's metadata, a refund's reason) as PostgreSQL text can store it: NUL, which
+ * text cannot hold, and other C0 controls but tab and line breaks become U+FFFD, visibly replaced.
+ */
+export function storableText(s: string): string {
+  return s.replace(/[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]/g, "\ufffd");
 }
 
 /** Pure: the status a payment has after `refunded` of `amount` went back. */
@@ -85,14 +101,14 @@ export async function recordRefund(db: Db, input: RecordRefundInput): Promise<Re
       .select({ id: refunds.id, createdBy: refunds.createdBy })
       .from(refunds)
       .where(eq(refunds.stripeRefundId, input.stripeRefundId));
+    const reason = storableText(input.reason);
+    const createdBy = input.createdBy ?? (await attemptBy(tx, input.attemptId));
     if (seen) {
       // The webhook may have recorded it first: keep who asked for it when the admin path arrives second.
-      if (!seen.createdBy && input.createdBy) {
-        await tx
-          .update(refunds)
-          .set({ createdBy: input.createdBy, reason: input.reason })
-          .where(eq(refunds.id, seen.id));
+      if (!seen.createdBy && createdBy) {
+        await tx.update(refunds).set({ createdBy, reason }).where(eq(refunds.id, seen.id));
       }
+      await attemptDone(tx, input);
       return { recorded: false, refundId: seen.id, payment: p };
     }
     if (p.status === "failed")
@@ -122,8 +138,8 @@ export async function recordRefund(db: Db, input: RecordRefundInput): Promise<Re
         stripeRefundId: input.stripeRefundId,
         amount: input.amount,
         currency: p.currency,
-        reason: input.reason,
-        createdBy: input.createdBy ?? null,
+        reason,
+        createdBy,
         createdAt: input.createdAt ?? new Date(),
       })
       .returning({ id: refunds.id });
@@ -133,114 +149,26 @@ export async function recordRefund(db: Db, input: RecordRefundInput): Promise<Re
       .update(payments)
       .set({ refundedAmount: sql`${payments.refundedAmount} + ${input.amount}`, status })
       .where(and(eq(payments.id, p.id)));
+    await attemptDone(tx, input);
     return { recorded: true, refundId: row.id, payment: { ...p, refundedAmount, status } };
   });
 }
 
-export type RefundRequest = { paymentId: string; amount?: number; reason: string };
-
-/** The part of the Stripe SDK a refund needs (the app's client, or a test's). */
-export type RefundsApi = { refunds: { create: Stripe["refunds"]["create"] } };
-
-/**
- * The admin's refund: checks what remains, asks Stripe (through the SDK) to refund, then records it.
- * The charge.refunded webhook Stripe sends for the same refund finds it already recorded.
- */
-export async function refundPayment(
-  db: Db,
-  admin: { id: string },
-  req: RefundRequest,
-  stripe?: RefundsApi,
-): Promise<RecordRefundResult> {
-  const reason = req.reason.trim();
-  if (!reason) throw new RefundError("bad_amount", "Say why the payment is refunded.", "amount");
-  const [p] = await db
-    .select({
-      id: payments.id,
-      amount: payments.amount,
-      refundedAmount: payments.refundedAmount,
-      currency: payments.currency,
-      status: payments.status,
-      pi: payments.stripePaymentIntentId,
-    })
-    .from(payments)
-    .where(eq(payments.id, req.paymentId));
-  if (!p) throw new RefundError("payment_not_found", "We couldn't find that payment.", "paymentId");
-  if (p.status === "failed" || !p.pi)
-    throw new RefundError(
-      "not_refundable",
-      "A failed payment took no money, so there is nothing to refund.",
-      "paymentId",
-    );
-  const remaining = p.amount - p.refundedAmount;
-  const amount = req.amount ?? remaining;
-  if (!Number.isInteger(amount) || amount <= 0) {
-    throw new RefundError(
-      remaining === 0 ? "over_refund" : "bad_amount",
-      remaining === 0
-        ? "This payment has been refunded in full already."
-        : "A refund amount must be a whole number of minor units above zero.",
-    );
-  }
-  if (amount > remaining)
-    throw new RefundError(
-      "over_refund",
-      `At most ${remaining} (minor units of ${p.currency}) of this payment is left to refund; ${amount} was asked.`,
-    );
-  // The key ties the request to the payment's refund state, so a double click makes one refund
-  // (Stripe docs: "Idempotent requests").
-  // The client only now: a refusal above needs no Stripe (nor its settings).
-  const refund = await (stripe ?? appStripe()).refunds.create(
-    {
-      payment_intent: p.pi,
-      amount,
-      reason: "requested_by_customer",
-      metadata: { reason, created_by: admin.id, payment_id: p.id },
-    },
-    { idempotencyKey: `refund:${p.id}:${p.refundedAmount}:${amount}` },
-  );
-  const result = await recordRefund(db, {
-    paymentId: p.id,
-    stripeRefundId: refund.id,
-    amount: refund.amount,
-    currency: refund.currency,
-    reason,
-    createdBy: admin.id,
-  });
-  await mailRefund(db, p.id, refund.id, refund.amount, p.currency, reason);
-  return result;
+/** Who asked for the attempt (the webhook and the repair pass know only its id). */
+async function attemptBy(tx: Db, attemptId: string | null | undefined): Promise<string | null> {
+  const id = uuidOrNull(attemptId);
+  if (!id) return null;
+  const [a] = await tx.select({ by: refundAttempts.createdBy }).from(refundAttempts).where(eq(refundAttempts.id, id));
+  return a?.by ?? null;
 }
 
-/** "refund-issued" to the member; the same key as the charge.refunded webhook's, so one mail whichever path comes first. */
-async function mailRefund(
-  db: Db,
-  paymentId: string,
-  stripeRefundId: string,
-  amount: number,
-  currency: string,
-  reason: string,
-): Promise<void> {
-  const [p] = await db
-    .select({
-      email: users.email,
-      name: users.name,
-      receipt: payments.receiptNumber,
-      invoice: payments.stripeInvoiceId,
-    })
-    .from(payments)
-    .innerJoin(users, eq(users.id, payments.userId))
-    .where(eq(payments.id, paymentId));
-  if (!p) return;
-  await enqueueEmail(db, {
-    to: p.email,
-    template: "refund-issued",
-    data: {
-      name: p.name,
-      amount: formatMoney(amount, currency),
-      receiptNumber: p.receipt ?? p.invoice,
-      reason,
-      receiptUrl: `/learn/billing/receipts/${paymentId}`,
-    },
-    dedupeKey: `refund-issued:${stripeRefundId}`,
-  });
+/** The attempt this refund answers is over (found by its id, or by the Stripe refund id saved on it). */
+async function attemptDone(tx: Db, input: RecordRefundInput): Promise<void> {
+  const which = uuidOrNull(input.attemptId)
+    ? eq(refundAttempts.id, input.attemptId as string)
+    : eq(refundAttempts.stripeRefundId, input.stripeRefundId);
+  await tx
+    .update(refundAttempts)
+    .set({ status: "done", stripeRefundId: input.stripeRefundId, finishedAt: new Date() })
+    .where(and(which, eq(refundAttempts.status, "pending")));
 }

@@ -8,6 +8,8 @@ import { sendDueReminders } from "./reminders";
 import { cleanAbandonedUploads } from "@/lib/storage/cleanup";
 import { storageConfigured } from "@/lib/storage/s3";
 import { hearCheckIn, LISTEN_QUEUE, sweepUnheard, type ListenJob } from "./listen";
+import { repairRefunds } from "@/lib/billing/refund-repair";
+import { stripe } from "@/lib/billing/stripe";
 
 export interface RetryPolicy {
   /** Retries after the first attempt. */
@@ -32,6 +34,8 @@ export interface WorkerOptions {
   uploads?: { intervalSeconds: number };
   /** The listening aid (lib/jobs/listen.ts): how often check-ins never heard are queued again, and how old they must be. */
   listening?: { intervalSeconds: number; minAgeSeconds: number };
+  /** Refunds Stripe made but the app did not record (lib/billing/refund-repair.ts): how often to look. */
+  refunds?: { intervalSeconds: number };
   /** The time reminders are judged at; tests pass a clock they can move. */
   clock?: () => Date;
 }
@@ -44,6 +48,8 @@ export interface RunningWorker {
   cleanUploadsNow: () => Promise<number>;
   /** One sweep of check-ins never heard now, whatever their age; returns how many were queued. */
   sweepUnheardNow: () => Promise<number>;
+  /** One refund repair pass now, at the worker's clock. */
+  repairRefundsNow: () => Promise<{ recorded: number; failed: number }>;
   /** One reminder pass now, at the worker's clock; returns the dedupe keys it queued. */
   remindNow: () => Promise<string[]>;
 }
@@ -164,18 +170,35 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
   tidyTimer.unref();
   await tidy().catch((error: unknown) => log(`upload clean-up failed: ${String(error)}`));
 
+  // Refunds left pending (a local write failed after Stripe refunded): every five minutes, where Stripe is set up.
+  const repair = async () => {
+    if (!(process.env.STRIPE_SECRET_KEY ?? env().STRIPE_SECRET_KEY)) return { recorded: 0, failed: 0 };
+    const r = await repairRefunds(db, stripe(), clock());
+    if (r.recorded || r.failed) log(`refund repair: ${r.recorded} recorded from Stripe, ${r.failed} closed`);
+    return r;
+  };
+  const repairTimer = setInterval(
+    () => {
+      repair().catch((error: unknown) => log(`refund repair failed: ${String(error)}`));
+    },
+    (options.refunds?.intervalSeconds ?? 300) * 1000,
+  );
+  repairTimer.unref();
+
   let stopping: Promise<void> | undefined;
   const running: RunningWorker = {
     sweepNow: () => sweepWith(0),
     sweepUnheardNow: () => sweepListening(0),
     remindNow: remind,
     cleanUploadsNow: tidy,
+    repairRefundsNow: repair,
     stop: () => {
       stopping ??= (async () => {
         clearInterval(timer);
         clearInterval(reminderTimer);
         clearInterval(tidyTimer);
         clearInterval(listenTimer);
+        clearInterval(repairTimer);
         // Graceful: jobs in hand finish (or time out and are retried later), no new ones are fetched.
         await boss.stop({ graceful: true, wait: true, timeout: 20_000 });
         await close();

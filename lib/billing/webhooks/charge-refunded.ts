@@ -5,7 +5,7 @@ import { formatMoney } from "../money";
 import { chargeObject } from "../objects";
 import type { Stripe } from "../stripe";
 import { invoicePaid } from "./invoice-paid";
-import { recordRefund, RefundError } from "../refunds";
+import { recordRefund, RefundError, storableText, uuidOrNull } from "../refunds";
 import type { Handler } from "./types";
 
 // A refund made in Stripe (the admin's refund action, or Stripe's dashboard): recorded once by its
@@ -24,7 +24,7 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
   if (!known && pi && charge.customer) await recordPaidInvoice(db, stripe, event.created, charge.customer, pi);
   for (const r of list) {
     if (r.status && r.status !== "succeeded" && r.status !== "pending") continue;
-    const reason = r.metadata?.reason ?? (r.reason ? r.reason.replaceAll("_", " ") : "Refunded");
+    const reason = storableText(r.metadata?.reason ?? (r.reason ? r.reason.replaceAll("_", " ") : "Refunded"));
     try {
       await recordRefund(db, {
         ...ref,
@@ -33,6 +33,8 @@ export const chargeRefunded: Handler = async (db, event, stripe) => {
         currency: r.currency.toUpperCase(),
         reason,
         createdAt: new Date(r.created * 1000),
+        // The admin's refund wrote an attempt before asking Stripe; this closes it (lib/billing/refund-payment.ts).
+        attemptId: uuidOrNull(r.metadata?.attempt_id),
       });
     } catch (e) {
       // Not one of our payments, or more than it took: nothing to record; the event stays stored for a look.
