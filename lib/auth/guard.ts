@@ -1,9 +1,10 @@
 import { z } from "zod";
 import type { Cookie } from "lucia";
 import { env } from "@/lib/env";
+import { CONTROL_MESSAGE, findControlCharacter, withoutControlCharacters } from "@/lib/validation/text";
 import type { ActionState } from "./action-state";
 import { loadContext, type RequestContext } from "./context";
-import { HttpError, raceConflict, RateLimitedError, UNEXPECTED_FAILURE } from "./errors";
+import { HttpError, raceConflict, RateLimitedError, UNEXPECTED_FAILURE, unprocessable } from "./errors";
 import { can, type Action } from "./permissions";
 
 // The one server-side check (ENGINEERING.md): every server action and route handler is wrapped
@@ -37,8 +38,17 @@ function fieldErrorsOf(error: z.ZodError): Record<string, string> {
 /** Text fields to keep in the form after a failed submit; secrets are never sent back. */
 function echo(raw: Record<string, unknown>): Record<string, string> {
   const out: Record<string, string> = {};
-  for (const [k, v] of Object.entries(raw)) if (typeof v === "string" && !/password|token/i.test(k)) out[k] = v;
+  for (const [k, v] of Object.entries(raw))
+    if (typeof v === "string" && !/password|token/i.test(k)) out[k] = withoutControlCharacters(v);
   return out;
+}
+
+/** The one rule for text input (lib/validation/text.ts): a control character is refused, naming its field. */
+function refuseControlCharacters(input: unknown): void {
+  const found = findControlCharacter(input);
+  if (!found) return;
+  const problem = `${CONTROL_MESSAGE} (${found.char} found)`;
+  throw unprocessable(`“${found.field}” ${problem}.`, { [found.field]: problem });
 }
 
 function permissionFailure(ctx: RequestContext): HttpError {
@@ -61,6 +71,7 @@ export function guardAction<S extends z.ZodType>(
     const raw = formToObject(input);
     try {
       if (!can(ctx.user?.role ?? "visitor", action)) throw permissionFailure(ctx);
+      refuseControlCharacters(raw);
       const parsed = schema.safeParse(raw);
       if (!parsed.success) {
         return {
@@ -114,7 +125,9 @@ export function guardRoute<S extends z.ZodType>(
       const ctx = await loadContext(req.headers, (c) => cookies.push(c));
       if (!can(ctx.user?.role ?? "visitor", opts.action)) throw permissionFailure(ctx);
       const params = (await args?.params) ?? {};
-      const parsed = opts.input.safeParse({ ...(await readInput(req, from)), ...params });
+      const input = { ...(await readInput(req, from)), ...params };
+      refuseControlCharacters(input);
+      const parsed = opts.input.safeParse(input);
       if (!parsed.success) throw new HttpError(400, "The request is not valid.", fieldErrorsOf(parsed.error));
       return withCookies(await run(ctx, parsed.data, req), cookies);
     } catch (e) {

@@ -2,7 +2,9 @@
 // current price. Prices cannot be changed in Stripe (Stripe docs: "Change prices" — create a new
 // price and archive the old one), so a new amount or interval is a new price for new members, while
 // existing subscriptions keep theirs. A plan that any subscription or payment used is retired, never
-// deleted. Stripe is asked first: when it refuses, nothing is written here.
+// deleted. Stripe is asked first: when it refuses, nothing is written here; when the write here fails
+// after Stripe said yes, what Stripe made is taken off sale again.
+import { createHash, randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
 import { z } from "zod";
 import type { Tx as Db } from "@/db/queries/auth";
@@ -60,29 +62,60 @@ async function newPrice(
   stripe: Stripe,
   productId: string,
   p: { amount: number; currency: string; interval: "month" | "year" },
+  idempotencyKey: string,
 ) {
-  return stripe.prices.create({
-    product: productId,
-    unit_amount: p.amount,
-    currency: p.currency.toLowerCase(),
-    recurring: { interval: p.interval },
-  });
+  return stripe.prices.create(
+    {
+      product: productId,
+      unit_amount: p.amount,
+      currency: p.currency.toLowerCase(),
+      recurring: { interval: p.interval },
+    },
+    { idempotencyKey },
+  );
 }
 
+/** Takes what Stripe made for a plan off sale again, when the plan itself could not be saved here. */
+async function undoInStripe(stripe: Stripe, productId: string, priceId?: string): Promise<void> {
+  try {
+    if (priceId) await stripe.prices.update(priceId, { active: false });
+    await stripe.products.update(productId, { active: false });
+  } catch (e) {
+    // Left for the admin to see in Stripe: an inactive plan's product, named in the log.
+    console.error(`[billing] product ${productId} (price ${priceId ?? "none"}) could not be taken off sale`, e);
+  }
+}
+
+/**
+ * A Stripe product and price, then the row. The input is validated before any Stripe call (the
+ * route's schema and the guard's text rule); when the row cannot be written after Stripe made them,
+ * they are taken off sale again, so no product is left on sale without its plan. The keys come from
+ * the new plan's own id (Stripe docs: "Idempotent requests"), so the SDK's retries make one of each.
+ */
 export async function createPlan(db: Db, stripe: Stripe, input: PlanInput): Promise<PlanRow> {
-  let product: Stripe.Product;
+  const id = randomUUID();
+  let product: Stripe.Product | undefined;
   let price: Stripe.Price;
   try {
-    product = await stripe.products.create({ name: input.name, description: input.opens });
-    price = await newPrice(stripe, product.id, input);
+    product = await stripe.products.create(
+      { name: input.name, description: input.opens, metadata: { plan_id: id } },
+      { idempotencyKey: `plan:${id}:product` },
+    );
+    price = await newPrice(stripe, product.id, input, `plan:${id}:price`);
   } catch (e) {
+    if (product) await undoInStripe(stripe, product.id);
     stripeRefusal(e);
   }
-  const [row] = await db
-    .insert(plans)
-    .values({ ...input, stripeProductId: product.id, stripePriceId: price.id })
-    .returning();
-  return row;
+  try {
+    const [row] = await db
+      .insert(plans)
+      .values({ id, ...input, stripeProductId: product.id, stripePriceId: price.id })
+      .returning();
+    return row;
+  } catch (e) {
+    await undoInStripe(stripe, product.id, price.id);
+    throw e;
+  }
 }
 
 export async function updatePlan(db: Db, stripe: Stripe, id: string, patch: PlanPatch): Promise<PlanRow> {
@@ -104,18 +137,32 @@ export async function updatePlan(db: Db, stripe: Stripe, id: string, patch: Plan
       await stripe.products.update(plan.stripeProductId, { name: next.name, description: next.opens });
     }
     if (priceChanged && plan.stripeProductId) {
-      stripePriceId = (await newPrice(stripe, plan.stripeProductId, next)).id;
+      const key = createHash("sha256")
+        .update(JSON.stringify([id, plan.stripePriceId, next]))
+        .digest("hex");
+      stripePriceId = (await newPrice(stripe, plan.stripeProductId, next, `plan-price:${key}`)).id;
       if (plan.stripePriceId) await stripe.prices.update(plan.stripePriceId, { active: false });
     }
   } catch (e) {
     stripeRefusal(e);
   }
-  const [row] = await db
-    .update(plans)
-    .set({ ...next, stripePriceId })
-    .where(eq(plans.id, id))
-    .returning();
-  return row;
+  try {
+    const [row] = await db
+      .update(plans)
+      .set({ ...next, stripePriceId })
+      .where(eq(plans.id, id))
+      .returning();
+    return row;
+  } catch (e) {
+    // Stripe goes back to what the row still says: the old name, the old price on sale, the new one off.
+    if (plan.stripeProductId && (next.name !== plan.name || next.opens !== plan.opens))
+      await stripe.products.update(plan.stripeProductId, { name: plan.name, description: plan.opens }).catch(() => {});
+    if (stripePriceId && stripePriceId !== plan.stripePriceId) {
+      await stripe.prices.update(stripePriceId, { active: false }).catch(() => {});
+      if (plan.stripePriceId) await stripe.prices.update(plan.stripePriceId, { active: true }).catch(() => {});
+    }
+    throw e;
+  }
 }
 
 /** New members can no longer choose it; existing members keep it. */

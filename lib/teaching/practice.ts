@@ -17,15 +17,13 @@ import {
 } from "@/db/queries/learning";
 import { notFound, unprocessable } from "@/lib/auth/errors";
 import { buildLadder } from "@/lib/catalogue/access";
+import { isSaneDay, MAX_YEAR, MIN_YEAR } from "@/lib/validation/text";
 import { dayIn } from "./learn-dates";
 
 export const MAX_MINUTES = 600;
 export const MAX_NOTE = 1000;
 
 type Person = { id: string; role: "student" | "teacher" | "admin" };
-
-const DAY = /^\d{4}-\d{2}-\d{2}$/;
-const isRealDay = (s: string) => DAY.test(s) && new Date(`${s}T00:00:00Z`).toISOString().slice(0, 10) === s;
 
 const fields = {
   minutes: z
@@ -35,7 +33,7 @@ const fields = {
     .max(MAX_MINUTES, `Minutes can be at most ${MAX_MINUTES} (10 hours) for one entry.`),
   practisedOn: z
     .string({ error: "Give the day you practised." })
-    .refine(isRealDay, "The date must be a real day written as YYYY-MM-DD."),
+    .refine(isSaneDay, `The date must be a real day written as YYYY-MM-DD, in the years ${MIN_YEAR}–${MAX_YEAR}.`),
   tuneId: z.uuid("Choose a tune from the list, or none.").nullable(),
   note: z.string().max(MAX_NOTE, `The note can be at most ${MAX_NOTE} characters.`),
 };

@@ -3,6 +3,7 @@
 // past date in the chosen zone) is checked in assignments.ts.
 import { z } from "zod";
 import { stagePlanInput } from "@/lib/tunes/schemas";
+import { isSaneDay, MAX_YEAR, MIN_YEAR } from "@/lib/validation/text";
 
 export const MAX_STUDENTS_PER_ASSIGNMENT = 60;
 export const MAX_NOTE_CHARS = 2000;
@@ -10,7 +11,13 @@ export const MAX_FEEDBACK_CHARS = 4000;
 /** Ten hours: a week of long days' practice is already far past what a stage needs (common practice). */
 export const MAX_UNLOCK_MINUTES = 600;
 
-const dueLocal = z.string().regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, "Give the due date and time.");
+const dueLocal = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}$/, "Give the due date and time.")
+  .refine(
+    (s) => isSaneDay(s.slice(0, 10)) && Number(s.slice(11, 13)) < 24 && Number(s.slice(14, 16)) < 60,
+    `Give a real date and time, in the years ${MIN_YEAR}–${MAX_YEAR}.`,
+  );
 const unlockRule = z.enum(["teacher_sign_off", "self_check_in"], "Choose how the next stage unlocks.");
 const unlockMinutes = z.coerce
   .number("Give the practice minutes as a number.")

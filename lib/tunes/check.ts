@@ -5,6 +5,7 @@ import { analyze, type Analysis } from "@/lib/abc/analyze";
 import { sortProblems } from "@/lib/abc/tune";
 import { DEFAULT_PLAN, validatePlan } from "@/lib/abc/stages";
 import type { Problem, Stage, StagePlan } from "@/lib/abc/types";
+import { codePoint, firstControlCharacter } from "@/lib/validation/text";
 import { headerField, tuneTypeOf, type TuneType } from "./header";
 import { offeredSwaps } from "./learning";
 
@@ -42,6 +43,21 @@ export interface CheckOptions {
   lineOffset?: number;
 }
 
+/** A title is a name, not a text: long enough for any tune's, short enough to index and show in a list. */
+export const MAX_TITLE_CHARS = 200;
+
+/** A control character (lib/validation/text.ts's rule) where the tune has one, by line and column. */
+function controlProblem(abc: string, lineOffset: number): Problem | null {
+  const at = firstControlCharacter(abc);
+  if (at < 0) return null;
+  const before = abc.slice(0, at).split("\n");
+  return {
+    line: before.length + lineOffset,
+    column: before[before.length - 1].length + 1,
+    message: `This line holds a control character (${codePoint(abc[at])}), which a tune cannot: delete it.`,
+  };
+}
+
 /** The line of a header field (1-based, in the tune's own text), for a problem about it. */
 function fieldLine(abc: string, letter: string): number {
   const lines = abc.split("\n");
@@ -57,6 +73,8 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
   const planCheck = validatePlan(plan);
   if (!planCheck.ok) return { ok: false, problems: [], planReasons: planCheck.reasons, notes: [] };
 
+  const control = controlProblem(abc, lineOffset);
+  if (control) return { ok: false, problems: [control], planReasons: [], notes: [] };
   // A problem means abcjs ignored or guessed at something the teacher wrote: a tune is stored only
   // when its music reads as written, so every stage and the phrase map come from what was meant.
   // no plan of the teacher's: the default plan fitted to the tune (a stage that would repeat the one before is merged)
@@ -71,6 +89,14 @@ export function checkTune(rawAbc: string, opts: CheckOptions = {}): TuneCheck {
       line: fieldLine(abc, "X") + lineOffset,
       column: 1,
       message: "The tune needs a title: add a T: line under X:.",
+    };
+    return { ok: false, problems: [problem], planReasons: [], notes: result.notes };
+  }
+  if (a.title.trim().length > MAX_TITLE_CHARS) {
+    const problem = {
+      line: fieldLine(abc, "T") + lineOffset,
+      column: 1,
+      message: `Keep the title under ${MAX_TITLE_CHARS} characters; put more about the tune in a note or an N: line.`,
     };
     return { ok: false, problems: [problem], planReasons: [], notes: result.notes };
   }

@@ -2,7 +2,7 @@
 // array) and go out through csv-stringify as they arrive. RFC 4180: CRLF line ends, a header
 // line, fields with commas, quotes or line breaks quoted with inner quotes doubled (csv-stringify
 // does the quoting; record_delimiter "windows" gives the CRLF).
-import { Readable } from "node:stream";
+import { pipeline, Readable } from "node:stream";
 import { stringify } from "csv-stringify";
 import type { Cursor } from "@/db/queries/admin-sql";
 
@@ -41,20 +41,33 @@ export function decimalOf(minor: number, currency: string): string {
   return `${sign}${Math.floor(abs / unit)}.${String(abs % unit).padStart(digits, "0")}`;
 }
 
-/** A streamed CSV answer: the header line, then one line per row as the batches arrive. */
-export function csvResponse<R>(filename: string, rows: AsyncIterable<R>, columns: CsvColumn<R>[]): Response {
+/**
+ * A streamed CSV answer: the header line, then one line per row as the batches arrive. The first row
+ * is read before answering, so a failure there is an ordinary error answer; a failure after the first
+ * bytes went out ends the body with an error (stream.pipeline destroys it), which the client sees as a
+ * broken download instead of a request that never ends.
+ */
+export async function csvResponse<R>(
+  filename: string,
+  rows: AsyncIterable<R>,
+  columns: CsvColumn<R>[],
+): Promise<Response> {
+  const it = rows[Symbol.asyncIterator]();
+  const first = await it.next();
   async function* records() {
-    for await (const row of rows) yield columns.map((c) => c.value(row) ?? "");
+    for (let r = first; !r.done; r = await it.next()) yield columns.map((c) => c.value(r.value) ?? "");
   }
-  const csv = Readable.from(records()).pipe(
-    stringify({ header: true, columns: columns.map((c) => c.header), record_delimiter: "windows" }),
-  );
+  const csv = stringify({ header: true, columns: columns.map((c) => c.header), record_delimiter: "windows" });
+  pipeline(Readable.from(records()), csv, (error) => {
+    if (error) console.error(`[export] ${filename} stopped part way:`, error);
+  });
   return new Response(Readable.toWeb(csv) as ReadableStream<Uint8Array>, {
     headers: {
       // RFC 4180 §3 (text/csv, with its "header" parameter); RFC 6266 (Content-Disposition).
       "content-type": "text/csv; charset=utf-8; header=present",
       "content-disposition": `attachment; filename="${filename}"`,
       "cache-control": "no-store",
+      "x-content-type-options": "nosniff",
     },
   });
 }

@@ -4,6 +4,7 @@
 // filter must not silently widen what an admin exports.
 import { z } from "zod";
 import { unprocessable } from "@/lib/auth/errors";
+import { day as sharedDay } from "@/lib/validation/text";
 import { enrolmentStatusEnum, paymentStatusEnum, subscriptionStatusEnum } from "@/db/schema";
 import { PAYMENT_SORTS, type PaymentsQuery } from "@/db/queries/admin-payments";
 import {
@@ -16,7 +17,8 @@ import {
 export const PAGE_SIZE_MAX = 100;
 export const PAGE_SIZE_DEFAULT = 25;
 
-const day = z.iso.date({ error: "must be a date written YYYY-MM-DD" });
+// Years 1900–2999 (lib/validation/text.ts): a year 0000 reaches PostgreSQL as an error, not an empty table.
+const day = sharedDay();
 const common = {
   plan: z.uuid({ error: "must be a plan id" }).optional(),
   from: day.optional(),
