@@ -12,9 +12,10 @@ function create() {
   return new Lucia(new DrizzlePostgreSQLAdapter(db(), sessions, users), {
     // Sliding expiry: lucia extends a session used in the second half of its 30-day life.
     sessionExpiresIn: new TimeSpan(30, "d"),
+    // The cookie lives as long as the session (lucia sets Max-Age to sessionExpiresIn and re-sends it
+    // when it slides), never longer: an ended session leaves no cookie for the browser to keep sending.
     sessionCookie: {
       name: "rosinwood_session",
-      expires: false,
       attributes: { secure: env().INSECURE_COOKIES !== "true", sameSite: "lax" },
     },
     getUserAttributes: (a) => ({ name: a.name, email: a.email, role: a.role, disabled: a.disabled }),

@@ -46,6 +46,9 @@ describe("sessions", () => {
     expect(set[0]?.name).toBe("rosinwood_session");
     const [row] = await w.db.select().from(sessions).where(eq(sessions.userId, p.id));
     expect(row.expiresAt.getTime()).toBeGreaterThan(Date.now() + 29 * DAY);
+    // The cookie lives exactly as long as the session it names (a browser keeps it no longer).
+    const cookieEnds = Date.now() + (set[0]?.attributes.maxAge ?? 0) * 1000;
+    expect(Math.abs(cookieEnds - row.expiresAt.getTime())).toBeLessThan(60_000);
   });
 
   it("end at sign-out (the header's form POST), which answers with a redirect home", async () => {
