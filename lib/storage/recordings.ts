@@ -1,6 +1,7 @@
 // Check-in recordings: who may upload to which assignment, and who may listen. The browser sends the
 // bytes straight to storage through a presigned PUT; the app only sees them again at "complete",
-// where the first bytes decide whether it is audio at all (never the file name or declared type).
+// where they are copied out of the upload's reach and the copy's first bytes decide whether it is
+// audio at all (never the file name or declared type).
 import { randomUUID } from "node:crypto";
 import { and, eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
@@ -8,13 +9,18 @@ import { assignments, assignmentStudents, stageStates, uploads } from "@/db/sche
 import { notFound, unprocessable } from "@/lib/auth/errors";
 import type { CurrentUser } from "@/lib/auth/current-user";
 import { judgeAudio, MAX_RECORDING_BYTES, megabytes, SNIFF_BYTES } from "./audio";
-import { deleteObject, GET_URL_SECONDS, headObject, presignGet, presignPut, readStart } from "./s3";
+import { copyObject, deleteObject, GET_URL_SECONDS, headObject, presignGet, presignPut, readStart } from "./s3";
 
 export { MAX_RECORDING_BYTES };
 
 export type UploadTicket = { uploadId: string; url: string; method: "PUT"; headers: Record<string, string> };
 
 const NOT_YOURS = "We couldn't find that assignment.";
+
+/** Where the browser's PUT goes: a key of its own, never the one played back. */
+const incomingKey = (ownerId: string, uploadId: string) => `incoming/${ownerId}/${uploadId}`;
+/** Where the checked recording lives: no presigned PUT is ever made for it, so nobody can replace it. */
+const storedKey = (ownerId: string, uploadId: string) => `recordings/${ownerId}/${uploadId}`;
 
 /** A presigned upload address for the caller's own active assignment, at a stage that is open. */
 export async function startUpload(
@@ -54,7 +60,7 @@ export async function startUpload(
   }
 
   const uploadId = randomUUID();
-  const storageKey = `recordings/${me.id}/${uploadId}`;
+  const storageKey = incomingKey(me.id, uploadId);
   const contentType = input.contentType.toLowerCase();
   await db.insert(uploads).values({
     id: uploadId,
@@ -70,38 +76,53 @@ export async function startUpload(
   return { uploadId, url: signed.url, method: "PUT", headers: signed.headers };
 }
 
-/** After the browser's PUT: keep the object if it is audio within the limit, otherwise delete it. */
-export async function completeUpload(
-  db: Db,
-  me: CurrentUser,
-  uploadId: string,
-): Promise<{ uploadId: string; contentType: string; sizeBytes: number }> {
-  const [upload] = await db
-    .select()
-    .from(uploads)
-    .where(and(eq(uploads.id, uploadId), eq(uploads.ownerId, me.id)));
-  if (!upload) throw notFound("We couldn't find that upload.");
-  if (upload.status === "stored") return { uploadId, contentType: upload.contentType, sizeBytes: upload.sizeBytes };
-  if (upload.status === "rejected")
-    throw unprocessable("This upload was refused; please choose the recording again.", { uploadId: "was refused" });
+type StoredUpload = { uploadId: string; contentType: string; sizeBytes: number };
 
-  const head = await headObject(upload.storageKey);
-  if (!head)
-    throw unprocessable("The recording has not arrived yet; please upload it again.", { file: "was not received" });
-  const verdict =
-    head.sizeBytes > MAX_RECORDING_BYTES
-      ? ({ ok: false, reason: "larger than 25 MB" } as const)
-      : await judgeAudio(await readStart(upload.storageKey, SNIFF_BYTES), upload.contentType);
-  if (!verdict.ok) {
-    await deleteObject(upload.storageKey);
-    await db.update(uploads).set({ status: "rejected", sizeBytes: head.sizeBytes }).where(eq(uploads.id, uploadId));
-    throw unprocessable(`The file was refused: ${verdict.reason}.`, { file: verdict.reason });
-  }
-  await db
-    .update(uploads)
-    .set({ status: "stored", contentType: verdict.contentType, sizeBytes: head.sizeBytes })
-    .where(eq(uploads.id, uploadId));
-  return { uploadId, contentType: verdict.contentType, sizeBytes: head.sizeBytes };
+/**
+ * After the browser's PUT: the bytes are copied to a key no upload address names, and that copy is
+ * checked (audio within the limit) — so what is checked is what is played, and the upload address,
+ * still valid for a few minutes, can only write to a key nobody reads. A refused copy is deleted.
+ */
+export async function completeUpload(db: Db, me: CurrentUser, uploadId: string): Promise<StoredUpload> {
+  // One completion at a time per upload (the row locked): a second one waits and finds it decided.
+  const outcome = await db.transaction(async (tx): Promise<StoredUpload | { refused: string }> => {
+    const [upload] = await tx
+      .select()
+      .from(uploads)
+      .where(and(eq(uploads.id, uploadId), eq(uploads.ownerId, me.id)))
+      .for("update");
+    if (!upload) throw notFound("We couldn't find that upload.");
+    if (upload.status === "stored") return { uploadId, contentType: upload.contentType, sizeBytes: upload.sizeBytes };
+    if (upload.status === "rejected")
+      throw unprocessable("This upload was refused; please choose the recording again.", { uploadId: "was refused" });
+
+    const stored = storedKey(upload.ownerId, upload.id);
+    // Copied unless an earlier completion copied it and stopped before saying so.
+    if (await headObject(upload.storageKey)) {
+      await copyObject(upload.storageKey, stored, upload.contentType);
+      await deleteObject(upload.storageKey);
+    }
+    const head = await headObject(stored);
+    if (!head)
+      throw unprocessable("The recording has not arrived yet; please upload it again.", { file: "was not received" });
+    const verdict =
+      head.sizeBytes > MAX_RECORDING_BYTES
+        ? ({ ok: false, reason: "larger than 25 MB" } as const)
+        : await judgeAudio(await readStart(stored, SNIFF_BYTES), upload.contentType);
+    if (!verdict.ok) {
+      await deleteObject(stored);
+      await tx.update(uploads).set({ status: "rejected", sizeBytes: head.sizeBytes }).where(eq(uploads.id, uploadId));
+      // Said after the transaction commits the refusal.
+      return { refused: verdict.reason };
+    }
+    await tx
+      .update(uploads)
+      .set({ status: "stored", storageKey: stored, contentType: verdict.contentType, sizeBytes: head.sizeBytes })
+      .where(eq(uploads.id, uploadId));
+    return { uploadId, contentType: verdict.contentType, sizeBytes: head.sizeBytes };
+  });
+  if ("refused" in outcome) throw unprocessable(`The file was refused: ${outcome.refused}.`, { file: outcome.refused });
+  return outcome;
 }
 
 /** A presigned playback address: the recording's student, the assignment's teacher or an admin. */

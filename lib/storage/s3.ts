@@ -2,6 +2,7 @@
 // S3-compatible service S3_* names; nothing here knows which one. Objects are private: a browser
 // reaches one only through a short-lived presigned address issued by lib/storage/recordings.ts.
 import {
+  CopyObjectCommand,
   DeleteObjectCommand,
   GetObjectCommand,
   HeadObjectCommand,
@@ -84,12 +85,39 @@ export async function presignPut(
   return { url, headers: { "Content-Type": contentType } };
 }
 
-/** A presigned GET; the answer is served inline with the stored type. */
-export async function presignGet(key: string, contentType?: string): Promise<string> {
+/**
+ * A presigned GET answered with the checked type, and as an attachment: opened as a page it downloads
+ * rather than renders, while an <audio> element plays it all the same (S3 API reference, GetObject:
+ * response-content-type, response-content-disposition).
+ */
+export async function presignGet(key: string, contentType: string): Promise<string> {
   const { client, bucket } = storage();
-  const command = new GetObjectCommand({ Bucket: bucket, Key: key, ResponseContentType: contentType });
+  const command = new GetObjectCommand({
+    Bucket: bucket,
+    Key: key,
+    ResponseContentType: contentType,
+    ResponseContentDisposition: 'attachment; filename="recording"',
+  });
   return getSignedUrl(client, command, { expiresIn: GET_URL_SECONDS });
 }
+
+/** A server-side copy with the type given here (S3 API reference, CopyObject: MetadataDirective REPLACE). */
+export async function copyObject(from: string, to: string, contentType: string): Promise<void> {
+  const { client, bucket } = storage();
+  await client.send(
+    new CopyObjectCommand({
+      Bucket: bucket,
+      // The source is "bucket/key", URL-encoded (S3 API reference, CopyObject: x-amz-copy-source).
+      CopySource: `${bucket}/${key(from)}`,
+      Key: to,
+      MetadataDirective: "REPLACE",
+      ContentType: contentType,
+      ContentDisposition: 'attachment; filename="recording"',
+    }),
+  );
+}
+
+const key = (k: string) => k.split("/").map(encodeURIComponent).join("/");
 
 /** Size and type as stored, or null when there is no such object. */
 export async function headObject(key: string): Promise<{ sizeBytes: number; contentType: string | undefined } | null> {

@@ -124,7 +124,8 @@ describe("asking for an upload address", () => {
     expect(url.searchParams.get("X-Amz-SignedHeaders")?.split(";")).toEqual(
       expect.arrayContaining(["content-type", "content-length"]),
     );
-    expect(url.pathname).toBe(`/rosinwood-recordings/recordings/${student.id}/${ticket.uploadId}`);
+    // The upload's own key: the recording that is played back is a checked copy under another one.
+    expect(url.pathname).toBe(`/rosinwood-recordings/incoming/${student.id}/${ticket.uploadId}`);
     expect(ticket).toMatchObject({ method: "PUT", headers: { "Content-Type": "audio/wav" } });
     expect((await rowOf(ticket.uploadId)).status).toBe("pending");
   });
@@ -197,6 +198,24 @@ describe("playback", () => {
     expect(
       (await callRoute("recordings/[uploadId]/playback", "GET", { params: { uploadId: ticket.uploadId } })).status,
     ).toBe(401);
+  });
+
+  it("serves only what was checked: the upload address, still valid after check-in, cannot replace it", async () => {
+    const bytes = wavBytes(3000);
+    const { ticket, done } = await upload(bytes);
+    expect(done.status).toBe(200);
+    expect((await rowOf(ticket.uploadId)).storageKey).toBe(`recordings/${student.id}/${ticket.uploadId}`);
+    // The same presigned PUT, within its five minutes, with a page of the same signed length and type.
+    const page = new TextEncoder().encode("<html><script>alert(1)</script></html>".padEnd(bytes.length, " "));
+    expect((await putTicket(ticket, new Uint8Array(page))).status).toBe(200);
+    expect((await complete(student, ticket.uploadId)).status).toBe(200);
+    const { url } = (await (await playback(teacher, ticket.uploadId)).json()) as { url: string };
+    const got = await fetch(url);
+    expect(got.status).toBe(200);
+    expect(Buffer.from(await got.arrayBuffer()).equals(Buffer.from(bytes))).toBe(true);
+    expect(got.headers.get("content-type")).toBe("audio/wav");
+    // Opened as a page it downloads; an <audio> element plays it regardless (HTML Standard: media elements).
+    expect(got.headers.get("content-disposition")).toMatch(/^attachment/);
   });
 
   it("has no address for an upload that was not stored", async () => {
