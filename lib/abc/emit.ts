@@ -48,7 +48,7 @@ export function emit(
   const { abc } = model;
   const out = new Writer();
   let pos = 0;
-  const offsets = new Offsets();
+  const offsets = new Offsets(track ? 2 * model.edits.length : 0);
   const notes: (MelodyNote | undefined)[] = track ? new Array<MelodyNote | undefined>(model.edits.length) : [];
   const states = new Map<string, BarAccidentals>();
   const r: Removal = { mask: kindMask(removed), reduce: removed.has("doubleStops"), picks };

@@ -106,11 +106,15 @@ export function parseAbcLength(s: string): Fraction | null {
   return f;
 }
 
+// A shift, not 2 ** k: ** yields a number V8 keeps as a float even when whole, and one such value
+// stored in a fraction makes V8 box both fields of every fraction made after it.
+const pow2 = (k: number): number => (k < 30 ? 1 << k : 2 ** k);
+
 function readAbcLength(s: string): Fraction | null {
   const m = /^(\d*)(\/*)(\d*)$/.exec(s);
   if (!m) return frac(1);
   const num = m[1] ? Number(m[1]) : 1;
   const slashes = m[2].length;
-  const den = slashes === 0 ? 1 : m[3] ? Number(m[3]) * 2 ** (slashes - 1) : 2 ** slashes;
+  const den = slashes === 0 ? 1 : m[3] ? Number(m[3]) * pow2(slashes - 1) : pow2(slashes);
   return num > 0 && den > 0 && Number.isFinite(num) && Number.isFinite(den) ? frac(num, den) : null;
 }

@@ -155,8 +155,13 @@ const isNoteStart = (c: string): boolean =>
   (c >= "A" && c <= "G") || (c >= "a" && c <= "g") || c === "^" || c === "_" || c === "=";
 
 /** Lex the span [start, end) of `t`. `shorthands` maps single-character decorations to names. */
+// Tokens are gathered here and copied out at their exact count: an array grown by push from empty
+// reserves room for 16, and a long tune keeps thousands of these alive through its analysis.
+const scratch: Tok[] = [];
+
 export function lexSpan(t: string, start: number, end: number, shorthands: Record<string, string>): Lexed {
-  const toks: Tok[] = [];
+  const toks = scratch;
+  toks.length = 0;
   let body: Body | null = null;
   let odd: Tok | null = null;
   let i = start;
@@ -235,7 +240,7 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
     toks.push(tok);
     i = j;
   }
-  return { toks, body, odd };
+  return { toks: toks.slice(), body, odd };
 }
 
 const ONE: Fraction = parseAbcLength("") ?? { num: 1, den: 1 };

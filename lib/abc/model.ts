@@ -1,7 +1,7 @@
 // One abcjs parse → the engine's model: every note and bar element with its lexed parts, exact
 // sounding time, sounding pitches and place in its bar. Everything else derives from this.
 import type { TuneObject } from "abcjs";
-import { fromNumber, mul, frac } from "./fraction";
+import { fromNumber, mul, frac, ZERO } from "./fraction";
 import { readHeader, valueAt, type HeaderInfo } from "./header";
 import { lexSpan, type Body, type Lexed, type Tok } from "./lex";
 import { BarAccidentals, keyAccOf, staffPos, type KeyAcc } from "./pitch";
@@ -331,7 +331,7 @@ function noteEl(
     tuplet: null,
     key: state.key,
     bar: null,
-    onset: frac(0),
-    grid: frac(0),
+    onset: ZERO, // both set when the bars are assembled
+    grid: ZERO,
   };
 }
