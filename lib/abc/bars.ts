@@ -47,11 +47,15 @@ export function assembleBars(els: El[], header: HeaderInfo): VBar[] {
   let part = "A";
   let ending: string | null = null;
   let left: BarEl | null = null;
-  let notes: NoteEl[] = [];
+  // The bar's notes as they come, copied out at their count when it closes (as in lex.ts).
+  const pending: NoteEl[] = [];
+  let count = 0;
   let partAtStart = part;
   let partChanged = false;
   const close = (right: BarEl | null): void => {
-    if (notes.length === 0) return;
+    if (count === 0) return;
+    const notes = pending.slice(0, count);
+    count = 0;
     let length = ZERO;
     for (const n of notes) length = add(length, n.duration);
     bars.push({
@@ -69,7 +73,6 @@ export function assembleBars(els: El[], header: HeaderInfo): VBar[] {
       shift: ZERO,
       opensPart: partChanged || PART_BOUNDARY.has(lineKind(left)),
     });
-    notes = [];
     partChanged = false;
   };
   for (const el of els) {
@@ -77,14 +80,14 @@ export function assembleBars(els: El[], header: HeaderInfo): VBar[] {
       part = el.title || part;
       partChanged = true;
     } else if (el.type === "note") {
-      if (notes.length === 0) partAtStart = part;
-      notes.push(el);
+      if (count === 0) partAtStart = part;
+      pending[count++] = el;
     } else {
       close(el);
       if (el.endEnding) ending = null;
       if (el.startEnding !== null) ending = el.startEnding;
       // Several bar elements in a row (":|" then "[2") open the next bar with the last of them.
-      if (notes.length === 0) left = el.barType === "bar_invisible" && left && left.end === el.start ? left : el;
+      if (count === 0) left = el.barType === "bar_invisible" && left && left.end === el.start ? left : el;
     }
   }
   close(null);

@@ -217,7 +217,7 @@ function respelt(el: NoteEl, state: BarAccidentals): string[] | null {
 }
 
 /** Pitches a note element sounds once the removed kinds are gone. */
-function tiedPitches(el: NoteEl | null, r: Removal): (number | null)[] {
+function tiedPitches(el: NoteEl | null, r: Removal): readonly (number | null)[] {
   if (!el) return [];
   return el.body.chord && r.reduce ? [el.midi[melodyIndex(el, r.picks)]] : el.midi;
 }

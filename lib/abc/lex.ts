@@ -154,14 +154,13 @@ const isSpace = (c: string): boolean => c === " " || c === "\t" || c === "\n" ||
 const isNoteStart = (c: string): boolean =>
   (c >= "A" && c <= "G") || (c >= "a" && c <= "g") || c === "^" || c === "_" || c === "=";
 
-/** Lex the span [start, end) of `t`. `shorthands` maps single-character decorations to names. */
 // Tokens are gathered here and copied out at their exact count: an array grown by push from empty
 // reserves room for 16, and a long tune keeps thousands of these alive through its analysis.
 const scratch: Tok[] = [];
 
+/** Lex the span [start, end) of `t`. `shorthands` maps single-character decorations to names. */
 export function lexSpan(t: string, start: number, end: number, shorthands: Record<string, string>): Lexed {
-  const toks = scratch;
-  toks.length = 0;
+  let n = 0; // tokens written to scratch (its length is left alone, so its room is kept)
   let body: Body | null = null;
   let odd: Tok | null = null;
   let i = start;
@@ -237,10 +236,10 @@ export function lexSpan(t: string, start: number, end: number, shorthands: Recor
     }
     const tok: Tok = { kind, start: i, end: j, name };
     if (kind === "other" && c !== "\\" && odd === null) odd = tok;
-    toks.push(tok);
+    scratch[n++] = tok;
     i = j;
   }
-  return { toks: toks.slice(), body, odd };
+  return { toks: scratch.slice(0, n), body, odd };
 }
 
 const ONE: Fraction = parseAbcLength("") ?? { num: 1, den: 1 };

@@ -33,8 +33,8 @@ export interface NoteEl {
   body: Body;
   duration: Fraction; // sounding time, tuplets and broken rhythm applied
   unit: Fraction; // unit note length in force
-  midi: (number | null)[]; // sounding pitch of each written note of the body (null: rest)
-  pos: number[]; // staff position of each written note
+  midi: readonly (number | null)[]; // sounding pitch of each written note of the body (null: rest)
+  pos: readonly number[]; // staff position of each written note
   tieOut: boolean;
   kinds: number; // embellishment kinds among its tokens, as bits (decorations.ts)
   tiedFromPrevious: boolean;
@@ -299,13 +299,13 @@ function noteEl(
       ? unitOf(duration, written)
       : valueAt(header.units, start);
   const notes = body.notes;
-  let pos: number[];
-  let midi: (number | null)[];
+  let pos: readonly number[];
+  let midi: readonly (number | null)[];
   if (notes.length === 1) {
-    // Most bodies are one note: arrays of exact size, with no callback per note.
+    // Most bodies are one note: one shared array per value, with no callback per note.
     const p = body.rest ? 0 : staffPos(notes[0].name);
-    pos = [p];
-    midi = [body.rest ? null : state.sound(p, notes[0].acc)];
+    pos = single(p);
+    midi = single(body.rest ? null : state.sound(p, notes[0].acc));
   } else {
     pos = notes.map((n) => (body.rest ? 0 : staffPos(n.name)));
     midi = notes.map((n, i) => (body.rest ? null : state.sound(pos[i], n.acc)));
@@ -334,4 +334,17 @@ function noteEl(
     onset: ZERO, // both set when the bars are assembled
     grid: ZERO,
   };
+}
+
+// One-element arrays by value, shared by every note of that value (the model never writes to
+// them): a long tune has thousands of single notes, and each array is an object the garbage
+// collector must copy while the tune is analysed.
+const SINGLES = new Map<number | null, readonly (number | null)[]>();
+function single<T extends number | null>(v: T): readonly T[] {
+  let a = SINGLES.get(v);
+  if (!a) {
+    a = [v];
+    if (SINGLES.size < 1000) SINGLES.set(v, a);
+  }
+  return a as readonly T[];
 }

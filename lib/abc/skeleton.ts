@@ -69,12 +69,14 @@ function sourceNote(el: NoteEl, picks: StopPicks): MelodyNote {
 export function shapeOf(p: Prepared, out: Emitted | null, picks: StopPicks): TuneShape {
   const { model } = p;
   const bars: Bar[] = [];
+  const pending: MelodyNote[] = []; // each bar's notes, copied out at their count (as in lex.ts)
   for (const vb of model.bars.get(model.melody) ?? []) {
-    const notes: MelodyNote[] = [];
+    let count = 0;
     for (const el of vb.notes) {
       const n = out ? out.notes[el.index] : sourceNote(el, picks);
-      if (n) notes.push(n);
+      if (n) pending[count++] = n;
     }
+    const notes = pending.slice(0, count);
     bars.push({
       number: vb.number,
       part: vb.part,

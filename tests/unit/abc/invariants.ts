@@ -15,7 +15,7 @@ export function melodyBars(p: Prepared): VBar[] {
 }
 
 /** Pitches sounding at time `t` on the beat grid of a bar (all notes of a chord). */
-function soundingAt(bar: VBar, t: Fraction): (number | null)[] | undefined {
+function soundingAt(bar: VBar, t: Fraction): readonly (number | null)[] | undefined {
   for (const n of bar.notes) {
     if (cmp(n.grid, t) <= 0 && cmp(t, add(n.grid, n.duration)) < 0) return n.midi;
   }
