@@ -1,5 +1,5 @@
 import { cookies, headers } from "next/headers";
-import { notFound, redirect } from "next/navigation";
+import { forbidden, redirect } from "next/navigation";
 import type { ActionState } from "./action-state";
 import { loadContext, type RequestContext } from "./context";
 import { getCurrentUser, type CurrentUser } from "./current-user";
@@ -21,7 +21,7 @@ export async function runAction(guarded: GuardedAction, formData: FormData): Pro
   return state;
 }
 
-/** For layouts and pages of an area: sign-in first, and a role without the area sees "not found". */
+/** For layouts and pages of an area: sign-in first; a role without the area gets the 403 page (app/forbidden.tsx). */
 export async function requireArea(action: Action): Promise<CurrentUser> {
   const user = await getCurrentUser();
   if (!user) {
@@ -29,6 +29,6 @@ export async function requireArea(action: Action): Promise<CurrentUser> {
     const asked = (await headers()).get("x-rosinwood-path");
     redirect(asked ? `/sign-in?next=${encodeURIComponent(asked)}` : "/sign-in");
   }
-  if (!can(user.role, action)) notFound();
+  if (!can(user.role, action)) forbidden();
   return user;
 }

@@ -18,6 +18,7 @@ import { lucia } from "./lucia";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { addressKey, hitAll, ipKey, LIMITS } from "./rate-limit";
+import { liftSignInBackoff } from "./sign-in-backoff";
 import { hashToken, MINUTE, newToken, RESET_TTL_MINUTES } from "./tokens";
 
 export const resetSentMessage = (email: string) =>
@@ -72,6 +73,8 @@ export async function resetPassword(
     // The link reached the address, so the address is proven too.
     await updateUser(tx, id, { passwordHash, emailVerifiedAt: user.emailVerifiedAt ?? new Date() });
     await enqueueEmail(tx, { to: user.email, template: "password-changed", data: { name: user.name } });
+    // Opening the link proved who they are: the sign-in back-off on that account is lifted.
+    await liftSignInBackoff(tx, user.email);
     return id;
   });
   // Whoever knew the old password is signed out everywhere (issue 4 §1).

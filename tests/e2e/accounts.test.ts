@@ -130,20 +130,34 @@ describe("accounts in a real browser", () => {
     await Promise.all([teacher.context().close(), studentContext.close(), again.context().close()]);
   });
 
-  it("each role sees only its own area", async () => {
+  it("each role sees only its own area; another role's area says whose it is and links back", async () => {
     const page = await signedIn(STUDENTS[0].email, DEMO_PASSWORD, "/learn");
-    // Another role's area answers with the not-found page and none of its content.
-    for (const [area, content] of [
-      ["/teach", "Your students"],
-      ["/admin/people", "Invite a teacher"],
+    // Another role's area answers 403 with a page naming the signed-in account, and none of its content.
+    for (const [area, content, whose] of [
+      ["/teach", "Your students", "teachers' area"],
+      ["/admin/people", "Invite a teacher", "administration"],
     ]) {
-      await page.goto(`${BASE_URL}${area}`);
-      await page.locator("main", { hasText: /could not find that page/ }).waitFor();
+      const answer = await page.goto(`${BASE_URL}${area}`);
+      await page.locator("main", { hasText: /belongs to another area/ }).waitFor();
+      expect(answer?.status()).toBe(403);
       const main = await page.locator("main").textContent();
-      expect(main).toMatch(/could not find that page/);
+      expect(main).toContain(`You are signed in as ${STUDENTS[0].name} (${STUDENTS[0].email}), a student.`);
+      expect(main).toContain(whose);
       expect(main).not.toContain(content);
     }
+    await screenshot(page, "accounts-wrong-area");
+    await follow(page, page.getByRole("link", { name: "Go to Today, your own area" }), /\/learn$/);
     await page.context().close();
+
+    const teacher = await signedIn(TEACHERS[0].email, DEMO_PASSWORD, "/teach");
+    const answer = await teacher.goto(`${BASE_URL}/admin/people`);
+    await teacher.locator("main", { hasText: /belongs to another area/ }).waitFor();
+    expect(answer?.status()).toBe(403);
+    expect(await teacher.getByTestId("signed-in-as").textContent()).toBe(
+      `You are signed in as ${TEACHERS[0].name} (${TEACHERS[0].email}), a teacher.`,
+    );
+    expect(await teacher.getByRole("link", { name: "Go to your roster" }).getAttribute("href")).toBe("/teach");
+    await teacher.context().close();
 
     const admin = await (await browser.newContext()).newPage();
     await admin.goto(`${BASE_URL}/admin`);

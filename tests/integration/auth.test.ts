@@ -164,6 +164,29 @@ describe("password reset", () => {
     expect((await w.mailsTo(rowan.email)).map((m) => m.template)).toContain("password-changed");
   });
 
+  it("lifts the sign-in back-off of that account only, once the reset link is used", async () => {
+    await w.person("student", { email: "locked@people.example", password: "locked-old-password" });
+    await w.person("student", { email: "neighbour@people.example", password: "neighbour-password" });
+    const ip = "198.51.100.7";
+    const { reserveSignInAttempt } = await import("@/lib/auth/sign-in-backoff");
+    // Ten failures from this address on each account, 40 s apart and the last just now: past
+    // LIMITS.signInAddress.max the address waits 1 s, 2 s … 32 s after the latest (lib/auth/sign-in-backoff.ts).
+    const now = Date.now();
+    for (const email of ["locked@people.example", "neighbour@people.example"])
+      for (let i = 9; i >= 0; i--) await reserveSignInAttempt(w.db, email, ip, new Date(now - i * 40_000));
+    const tryIn = async (email: string, password: string) =>
+      (await A.signInAction((await visitor(ip)).ctx, { email, password })).status;
+    expect(await tryIn("locked@people.example", "locked-old-password")).toBe(429);
+    expect(await tryIn("neighbour@people.example", "neighbour-password")).toBe(429);
+
+    await A.requestResetAction((await visitor()).ctx, { email: "locked@people.example" });
+    const token = await w.tokenMailed("locked@people.example", "password-reset");
+    const done = await A.resetPasswordAction((await visitor()).ctx, { token, password: "locked-new-password" });
+    expect(done.status).toBe(200);
+    expect(await tryIn("LOCKED@people.example", "locked-new-password")).toBe(200);
+    expect(await tryIn("neighbour@people.example", "neighbour-password")).toBe(429);
+  });
+
   it("refuses an expired link, and an older link once a newer one was sent", async () => {
     // At most one link per few minutes: the links so far are moved back in time past that gap.
     const pastTheGap = () => w.db.update(emailTokens).set({ createdAt: new Date(Date.now() - 10 * 60_000) });
