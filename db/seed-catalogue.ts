@@ -3,7 +3,8 @@
 import { readFileSync } from "node:fs";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import type { Db } from "./client";
-import { courses, enrolments, grades, rungs, tunes, tuneStages, tuneTypeEnum, users } from "./schema";
+import { insertEnrolment } from "./queries/enrolments";
+import { courses, grades, rungs, tunes, tuneStages, tuneTypeEnum, users } from "./schema";
 import { DEMO_COURSES, DEMO_TUNES, type DemoCourse } from "./seed-data/catalogue";
 import { STUDENTS, TEACHERS } from "./seed-data/people";
 import { analyze } from "@/lib/abc/index";
@@ -91,7 +92,15 @@ async function seedCourse(
 ): Promise<void> {
   const made = await tx
     .insert(courses)
-    .values({ teacherId, slug: c.slug, title: c.title, summary: c.summary, publishedAt: new Date() })
+    .values({
+      teacherId,
+      leadTeacherId: teacherId,
+      pace: c.pace,
+      slug: c.slug,
+      title: c.title,
+      summary: c.summary,
+      publishedAt: new Date(),
+    })
     .onConflictDoNothing({ target: courses.slug })
     .returning({ id: courses.id });
   let courseId = made[0]?.id;
@@ -117,15 +126,11 @@ async function seedCourse(
   for (const e of c.enrolments) {
     const student = STUDENTS[e.student];
     if (!student) throw new Error(`course ${c.slug}: no demo student ${e.student}`);
-    await tx
-      .insert(enrolments)
-      .values({
-        userId: need(studentIds, student.email.toLowerCase(), "student"),
-        courseId,
-        status: e.status,
-        endedAt: e.status === "ended" ? new Date() : null,
-      })
-      .onConflictDoNothing();
+    await insertEnrolment(tx, {
+      userId: need(studentIds, student.email.toLowerCase(), "student"),
+      courseId,
+      status: e.status,
+    });
   }
 }
 

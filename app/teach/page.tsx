@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { PageContainer } from "@/components/layout/page-container";
 import { QueryProvider } from "@/components/providers/query-provider";
+import { NewMembers } from "@/components/teaching/new-members";
 import { RosterTable } from "@/components/teaching/roster-table";
 import { Card, CardTitle } from "@/components/ui/card";
 import { LinkButton } from "@/components/ui/link-button";
@@ -31,12 +32,18 @@ export default async function RosterPage() {
           <LinkButton href="/teach/review" variant="secondary">
             {waiting ? `Review queue · ${waiting} waiting` : "Review queue"}
           </LinkButton>
+          <LinkButton href="/teach/check-ins" variant="secondary">
+            Self-paced check-ins
+          </LinkButton>
           <LinkButton href="/teach/assign" variant="secondary">
             Assign a tune
           </LinkButton>
           <LinkButton href="/teach/invite">Invite students</LinkButton>
         </div>
       </header>
+      <QueryProvider>
+        <NewMembers />
+      </QueryProvider>
       {empty ? (
         <Card tone="warm" className="max-w-prose">
           <CardTitle level={2}>No students yet</CardTitle>

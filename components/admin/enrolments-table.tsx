@@ -1,7 +1,9 @@
 "use client";
 import type { ColumnDef } from "@tanstack/react-table";
+import { useMemo, useState } from "react";
 import { day, words } from "./format";
 import { statusAndPlanFilters } from "./filter-bar";
+import { ReassignBar } from "./reassign-bar";
 import { ServerTable } from "./server-table";
 import type { Choice, EnrolmentJson } from "./types";
 
@@ -19,6 +21,12 @@ const columns: ColumnDef<EnrolmentJson, unknown>[] = [
     ),
   },
   { id: "course", accessorFn: (r) => r.course, header: "Course", cell: ({ row }) => row.original.course },
+  {
+    id: "teacher",
+    header: "Teacher",
+    enableSorting: false,
+    cell: ({ row }) => <span data-testid="enrolment-teacher">{row.original.teacher}</span>,
+  },
   { id: "status", accessorFn: (r) => r.status, header: "Enrolment", cell: ({ row }) => words(row.original.status) },
   {
     id: "membership",
@@ -31,18 +39,56 @@ const columns: ColumnDef<EnrolmentJson, unknown>[] = [
   },
 ];
 
-export function EnrolmentsTable({ plans, courses }: { plans: Choice[]; courses: Choice[] }) {
+export function EnrolmentsTable({
+  plans,
+  courses,
+  teachers,
+}: {
+  plans: Choice[];
+  courses: Choice[];
+  teachers: Choice[];
+}) {
+  // The enrolments ticked for "hand to another teacher", across pages and sorts until reassigned.
+  const [chosen, setChosen] = useState<Set<string>>(new Set());
+  const withChoice = useMemo<ColumnDef<EnrolmentJson, unknown>[]>(
+    () => [
+      {
+        id: "choose",
+        header: "Choose",
+        enableSorting: false,
+        cell: ({ row }) => (
+          <input
+            type="checkbox"
+            className="size-5"
+            aria-label={`Choose ${row.original.name} on ${row.original.course}`}
+            checked={chosen.has(row.original.id)}
+            onChange={(e) => {
+              const next = new Set(chosen);
+              if (e.target.checked) next.add(row.original.id);
+              else next.delete(row.original.id);
+              setChosen(next);
+            }}
+          />
+        ),
+      },
+      ...columns,
+    ],
+    [chosen],
+  );
   return (
-    <ServerTable<EnrolmentJson>
-      caption="Enrolments"
-      endpoint="/api/admin/enrolments"
-      columns={columns}
-      defaultSort="date"
-      getRowId={(r) => r.id}
-      filters={[
-        ...statusAndPlanFilters(["active", "paused", "ended"], plans, { status: "Enrolment", plan: "Member's plan" }),
-        { name: "course", label: "Course", options: courses.map((c) => ({ value: c.id, label: c.name })) },
-      ]}
-    />
+    <div className="flex flex-col gap-4">
+      <ReassignBar chosen={[...chosen]} teachers={teachers} onDone={() => setChosen(new Set())} />
+      <ServerTable<EnrolmentJson>
+        caption="Enrolments"
+        endpoint="/api/admin/enrolments"
+        columns={withChoice}
+        defaultSort="date"
+        getRowId={(r) => r.id}
+        filters={[
+          ...statusAndPlanFilters(["active", "paused", "ended"], plans, { status: "Enrolment", plan: "Member's plan" }),
+          { name: "course", label: "Course", options: courses.map((c) => ({ value: c.id, label: c.name })) },
+        ]}
+      />
+    </div>
   );
 }

@@ -31,7 +31,7 @@ export function WelcomeWait({ course }: { course: string | null }) {
   });
   const good = member && (course === null || (ladder.data !== undefined && ladder.data.standing.pathway !== "taster"));
   useEffect(() => {
-    if (good) router.replace(course ? `/learn/courses/${encodeURIComponent(course)}` : "/learn/billing?welcome=1");
+    if (good) router.replace(course ? `/learn/courses/${encodeURIComponent(course)}` : "/learn/courses?welcome=1");
   }, [good, course, router]);
   if (good) return <p role="status">Your membership is active. Taking you to your course…</p>;
   if (Date.now() - started > PATIENCE_MS && !summary.isFetching) {

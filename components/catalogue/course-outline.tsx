@@ -11,7 +11,7 @@ export function CourseOutline({ course }: { course: CatalogueCourse }) {
     <Card as="article" aria-labelledby={`course-${course.slug}`} className="flex flex-col gap-4">
       <header className="flex flex-col gap-1">
         <h2 id={`course-${course.slug}`} className="font-serif text-h3 font-semibold">
-          {course.title}
+          <Link href={`/catalogue/courses/${encodeURIComponent(course.slug)}`}>{course.title}</Link>
         </h2>
         <p className="text-small text-bark">{`Taught by ${course.teacherName} · ${course.grades.length} grades · ${tunes} tunes`}</p>
       </header>

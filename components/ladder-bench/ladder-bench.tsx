@@ -8,6 +8,7 @@ import { TextField } from "@/components/ui/field";
 import { moved, moveGrade, moveRung, orderOf, type LadderOrder } from "@/lib/courses/rules";
 import { errorWords } from "@/lib/tunes/client-fetch";
 import { CourseHeader } from "./course-header";
+import { CourseSettings } from "./course-settings";
 import { GradeCard } from "./grade-card";
 import { SortableList } from "./sortable-list";
 import { useCourse, useCourseAction, useReorder } from "./use-course";
@@ -46,6 +47,12 @@ export function LadderBench({ courseId }: { courseId: string }) {
         busy={busy}
         onSave={(v) => action.mutate({ path: "", method: "PATCH", body: v })}
         onPublish={(published) => action.mutate({ path: "", method: "PATCH", body: { published } })}
+      />
+      <CourseSettings
+        key={`${course.leadTeacherId}|${course.pace}`}
+        course={course}
+        busy={busy}
+        onSave={(v) => action.mutate({ path: "", method: "PATCH", body: v })}
       />
       {error ? (
         <Alert tone="error" live title="Not changed">

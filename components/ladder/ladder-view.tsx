@@ -5,6 +5,7 @@ import { useQuery } from "@tanstack/react-query";
 import { Alert } from "@/components/ui/alert";
 import type { LadderJson } from "@/lib/catalogue/api-types";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
+import { PACE_NAME, paceWords } from "@/lib/teaching/climb-words";
 import { RungItem } from "./rung-item";
 
 export function LadderView({ courseId }: { courseId: string }) {
@@ -38,6 +39,10 @@ export function LadderView({ courseId }: { courseId: string }) {
         <h1 className="text-h2 font-semibold">{course.title}</h1>
         <p className="text-bark">{`Taught by ${course.teacherName} · ${done} of ${all.length} rungs done`}</p>
         <p className="max-w-prose text-bark">{course.summary}</p>
+        <p className="max-w-prose" data-testid="ladder-pace">
+          <span className="font-semibold">{`${PACE_NAME[course.pace]} course. `}</span>
+          {paceWords(course.pace, course.teacherName)}
+        </p>
       </header>
       {standing.pathway === "taster" ? <Alert tone="warning">{standing.why}</Alert> : null}
       {grades.map((g) => (
@@ -48,7 +53,12 @@ export function LadderView({ courseId }: { courseId: string }) {
           {g.rungs.length === 0 ? <p className="text-bark">No tunes in this grade yet.</p> : null}
           <ol className="flex flex-col gap-3">
             {g.rungs.map((r) => (
-              <RungItem key={r.rungId} rung={r} last={r.rungId === all[all.length - 1]?.rungId} />
+              <RungItem
+                key={r.rungId}
+                rung={r}
+                last={r.rungId === all[all.length - 1]?.rungId}
+                climbing={standing.pathway === "ladder"}
+              />
             ))}
           </ol>
         </section>

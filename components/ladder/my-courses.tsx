@@ -5,7 +5,7 @@ import { useQuery } from "@tanstack/react-query";
 import { Alert } from "@/components/ui/alert";
 import { Card, CardTitle } from "@/components/ui/card";
 import { LinkButton } from "@/components/ui/link-button";
-import type { MyCourse } from "@/lib/catalogue/api-types";
+import type { MyCourse, SuggestedCourse } from "@/lib/catalogue/api-types";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 
 const RELATION: Record<MyCourse["relation"], string> = {
@@ -18,7 +18,7 @@ const RELATION: Record<MyCourse["relation"], string> = {
 export function MyCourses() {
   const mine = useQuery({
     queryKey: ["courses", "mine"],
-    queryFn: async () => (await fetchJson<{ courses: MyCourse[] }>("/api/courses/mine")).courses,
+    queryFn: () => fetchJson<{ courses: MyCourse[]; suggestions: SuggestedCourse[] }>("/api/courses/mine"),
   });
   if (mine.isPending)
     return (
@@ -32,22 +32,57 @@ export function MyCourses() {
         {errorWords(mine.error)}
       </Alert>
     );
-  if (mine.data.length === 0) {
-    return (
-      <Card tone="warm" className="flex max-w-prose flex-col gap-3">
-        <CardTitle level={2}>You are not enrolled in a course yet</CardTitle>
-        <p className="text-bark">Browse the catalogue and try a taster tune; your teacher can enrol you in a course.</p>
-        <div>
-          <LinkButton href="/catalogue" variant="secondary">
-            Browse the catalogue
-          </LinkButton>
-        </div>
-      </Card>
-    );
-  }
+  const { courses, suggestions } = mine.data;
+  return (
+    <div className="flex flex-col gap-8">
+      {courses.length === 0 ? (
+        <Card tone="warm" className="flex max-w-prose flex-col gap-3">
+          <CardTitle level={2}>You are not enrolled in a course yet</CardTitle>
+          <p className="text-bark">
+            Choose a course below (or in the catalogue), open its page and start it: its teacher follows you from then
+            on.
+          </p>
+          <div>
+            <LinkButton href="/catalogue" variant="secondary">
+              Browse the catalogue
+            </LinkButton>
+          </div>
+        </Card>
+      ) : (
+        <Enrolled courses={courses} />
+      )}
+      {suggestions.length ? <Suggestions list={suggestions} /> : null}
+    </div>
+  );
+}
+
+function Suggestions({ list }: { list: SuggestedCourse[] }) {
+  return (
+    <section aria-labelledby="next-courses" className="flex flex-col gap-3">
+      <h2 id="next-courses" className="font-serif text-h3 font-semibold">
+        Courses to start next
+      </h2>
+      <ul className="grid gap-4 md:grid-cols-2">
+        {list.map((c) => (
+          <Card as="li" key={c.id} className="flex min-w-0 flex-col gap-2">
+            <CardTitle level={3}>
+              <Link href={`/catalogue/courses/${encodeURIComponent(c.slug)}`} className="break-words">
+                {c.title}
+              </Link>
+            </CardTitle>
+            <p className="text-small text-bark">{`Led by ${c.teacherName} · ${c.grades} grades · ${c.tunes} tunes`}</p>
+            <p className="text-bark">{c.summary}</p>
+          </Card>
+        ))}
+      </ul>
+    </section>
+  );
+}
+
+function Enrolled({ courses }: { courses: MyCourse[] }) {
   return (
     <ul className="grid gap-4 md:grid-cols-2">
-      {mine.data.map((c) => (
+      {courses.map((c) => (
         <Card as="li" key={c.id} className="flex flex-col gap-3">
           <CardTitle level={2}>
             <Link href={`/learn/courses/${c.id}`}>{c.title}</Link>

@@ -22,7 +22,7 @@ function LockIcon() {
   );
 }
 
-export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }) {
+export function RungItem({ rung, last, climbing }: { rung: LadderRungJson; last: boolean; climbing: boolean }) {
   const s = STATE[rung.state];
   const locked = rung.state === "locked";
   const need = `stage ${rung.requiredStage}${rung.requiredStageName ? ` (${rung.requiredStageName})` : ""}`;
@@ -53,6 +53,11 @@ export function RungItem({ rung, last }: { rung: LadderRungJson; last: boolean }
           {tuneWords(rung)}
           {!locked && rung.stageCount > 0 ? ` · reached stage ${rung.reached} of ${rung.stageCount}` : ""}
         </p>
+        {!locked && climbing && rung.nextStageName !== null ? (
+          <p className="text-small" data-next-stage>
+            {`Next: check in stage ${rung.reached + 1}${rung.nextStageName ? ` (${rung.nextStageName})` : ""} on the tune page.`}
+          </p>
+        ) : null}
         {locked ? (
           <p
             className="text-small font-semibold text-ink"

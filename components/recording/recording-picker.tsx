@@ -9,7 +9,9 @@ import { MAX_RECORDING_BYTES, refusalWords, uploadRecording } from "./upload";
 import { useRecorder } from "./use-recorder";
 
 export type RecordingPickerProps = {
-  assignmentStudentId: string;
+  /** The assignment the recording is for, or (on a course's tune page) the tune. */
+  assignmentStudentId?: string;
+  tuneId?: string;
   stageIndex: number;
   onStored: (uploadId: string) => void;
 };
@@ -22,7 +24,7 @@ type Upload =
 
 const clock = (s: number) => `${Math.floor(s / 60)}:${String(s % 60).padStart(2, "0")}`;
 
-export function RecordingPicker({ assignmentStudentId, stageIndex, onStored }: RecordingPickerProps) {
+export function RecordingPicker({ assignmentStudentId, tuneId, stageIndex, onStored }: RecordingPickerProps) {
   const fileId = useId();
   const { state: rec, start, stop, reset } = useRecorder();
   const [upload, setUpload] = useState<Upload>({ phase: "idle" });
@@ -40,7 +42,7 @@ export function RecordingPicker({ assignmentStudentId, stageIndex, onStored }: R
     }
     setUpload({ phase: "sending", percent: 0 });
     try {
-      const uploadId = await uploadRecording(body, { assignmentStudentId, stageIndex }, (percent) =>
+      const uploadId = await uploadRecording(body, { assignmentStudentId, tuneId, stageIndex }, (percent) =>
         setUpload({ phase: "sending", percent }),
       );
       setUpload({ phase: "stored", name });

@@ -34,7 +34,7 @@ function put(ticket: Ticket, body: Blob, onProgress: (percent: number) => void):
 
 export async function uploadRecording(
   body: Blob,
-  target: { assignmentStudentId: string; stageIndex: number },
+  target: { assignmentStudentId?: string; tuneId?: string; stageIndex: number },
   onProgress: (percent: number) => void,
 ): Promise<string> {
   const contentType = baseType(body.type) || "application/octet-stream";

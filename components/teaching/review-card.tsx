@@ -10,6 +10,7 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { Field } from "@/components/ui/field";
 import { Textarea } from "@/components/ui/input";
 import { ApiError, errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
+import { UNDO_MINUTES } from "@/lib/teaching/state-machine";
 import type { ReviewItem } from "@/lib/teaching/teach-api-types";
 import { REVIEW_KEY, ROSTER_KEY } from "./query-keys";
 import { ListeningPanel } from "@/components/listening/listening-panel";
@@ -17,7 +18,10 @@ import { ListeningPanel } from "@/components/listening/listening-panel";
 type Outcome = "signed_off" | "needs_more_time";
 type Result = { openedStage: number | null };
 
-export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed: (words: string) => void }) {
+/** What the queue shows after a review; a "needs more time" can be taken back for a while. */
+export type Reviewed = { words: string; undo?: { checkInId: string; student: string; until: number } };
+
+export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed: (r: Reviewed) => void }) {
   const qc = useQueryClient();
   const id = useId();
   const [feedback, setFeedback] = useState("");
@@ -31,8 +35,13 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
       const who = item.student.name;
       onReviewed(
         outcome === "signed_off"
-          ? `Signed off ${item.stage.name} for ${who}.${r.openedStage ? ` Stage ${r.openedStage} is open for ${who}.` : ""}`
-          : `Sent back to ${who} with more time on ${item.stage.name}.`,
+          ? {
+              words: `Signed off ${item.stage.name} for ${who}.${r.openedStage ? ` Stage ${r.openedStage} is open for ${who}.` : ""}`,
+            }
+          : {
+              words: `Sent back to ${who} with more time on ${item.stage.name}. Your note goes to ${who} in ${UNDO_MINUTES} minutes.`,
+              undo: { checkInId: item.checkInId, student: who, until: Date.now() + UNDO_MINUTES * 60_000 },
+            },
       );
       await qc.invalidateQueries({ queryKey: REVIEW_KEY });
       await qc.invalidateQueries({ queryKey: ROSTER_KEY });
@@ -47,6 +56,7 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
     timeStyle: "short",
   });
   const title = `${item.student.name}: ${item.tune.title}, stage ${item.stage.index} of ${item.stage.count}`;
+  const where = item.courseTitle ? ` · on the course “${item.courseTitle}”` : "";
   return (
     <Card as="li" aria-label={title} className="flex flex-col gap-4">
       <div>
@@ -54,6 +64,7 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
         <p className="text-small text-bark">
           {item.stage.name} · checked in {when} · self-rating {item.selfRating} of 5 ·{" "}
           {item.fromMemory ? "played from memory" : "played from the music"}
+          {where}
         </p>
       </div>
       {item.uploadId ? (
@@ -80,7 +91,7 @@ export function ReviewCard({ item, onReviewed }: { item: ReviewItem; onReviewed:
       <Field
         id={`${id}-feedback`}
         label="Feedback"
-        hint="The student reads this in their e-mail and on the assignment page."
+        hint="The student reads this in their e-mail and on their page. “Needs more time” asks for a sentence on what to work on."
         error={review.error instanceof ApiError ? review.error.fieldErrors.feedback : undefined}
       >
         {(c) => (

@@ -7,10 +7,11 @@ import { Card } from "@/components/ui/card";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import type { ReviewItem } from "@/lib/teaching/teach-api-types";
 import { REVIEW_KEY } from "./query-keys";
-import { ReviewCard } from "./review-card";
+import { ReviewCard, type Reviewed } from "./review-card";
+import { UndoReview } from "./undo-review";
 
 export function ReviewQueue() {
-  const [last, setLast] = useState<string | null>(null);
+  const [last, setLast] = useState<Reviewed | null>(null);
   const q = useQuery({
     queryKey: REVIEW_KEY,
     queryFn: () => fetchJson<{ checkIns: ReviewItem[]; waiting: number }>("/api/teach/review"),
@@ -23,7 +24,8 @@ export function ReviewQueue() {
     <div className="flex flex-col gap-4">
       {last ? (
         <Alert tone="success" live>
-          {last}
+          {last.words}
+          {last.undo ? <UndoReview undo={last.undo} onUndone={(words) => setLast({ words })} /> : null}
         </Alert>
       ) : null}
       {q.isPending ? <p className="text-bark">Loading the check-ins…</p> : null}

@@ -18,6 +18,7 @@ const StageSelector = lazy(() =>
 );
 const MarginNotes = lazy(() => import("./margin-notes").then((m) => ({ default: m.MarginNotes })));
 const CompareSettings = lazy(() => import("./compare-settings").then((m) => ({ default: m.CompareSettings })));
+const ClimbPanel = lazy(() => import("./climb-panel").then((m) => ({ default: m.ClimbPanel })));
 const waiting = (what: string) => <p role="status" className="text-bark">{`Getting ${what} ready…`}</p>;
 
 export interface TunePageProps {
@@ -108,6 +109,11 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
             printHref={`${printBase}?stage=${music.data.index}`}
             onBarClick={notes ? setBar : undefined}
           />
+        </Suspense>
+      ) : null}
+      {area === "learn" ? (
+        <Suspense fallback={waiting("your check-ins")}>
+          <ClimbPanel tuneId={tuneId} onOpened={setStage} />
         </Suspense>
       ) : null}
       <div className="grid gap-6 lg:grid-cols-2">

@@ -137,6 +137,9 @@ const enrolmentCols = {
   endedAt: enrolments.endedAt,
   membership: latestSub(sql.raw("s.status::text")).as("membership"),
   plan: latestSub(sql.raw("pl.name")).as("membership_plan"),
+  // The teacher who follows this member on this course (the admin can hand it to another).
+  teacherId: enrolments.teacherId,
+  teacher: sql<string>`(select t.name from ${users} t where t.id = ${enrolments.teacherId})`.as("teacher_name"),
 };
 
 function enrolmentsWhere(q: EnrolmentsQuery): SQL | undefined {

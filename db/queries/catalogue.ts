@@ -16,6 +16,10 @@ export interface CourseRow {
   teacherId: string;
   teacherName: string;
   published: boolean;
+  /** Who follows new members; "taught by" on the catalogue and the ladder. */
+  leadTeacherId: string;
+  leadTeacherName: string;
+  pace: "self_paced" | "teacher_sign_off";
 }
 
 export interface RungRow {
@@ -40,6 +44,9 @@ const courseColumns = {
   teacherId: courses.teacherId,
   teacherName: users.name,
   published: sql<boolean>`${courses.publishedAt} is not null`,
+  leadTeacherId: courses.leadTeacherId,
+  leadTeacherName: sql<string>`(select l.name from ${users} l where l.id = ${courses.leadTeacherId})`,
+  pace: courses.pace,
 };
 
 export async function publishedCourses(db: Db): Promise<CourseRow[]> {

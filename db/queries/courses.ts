@@ -42,7 +42,7 @@ export async function insertCourse(
   return (
     await db
       .insert(courses)
-      .values({ teacherId, ...v })
+      .values({ teacherId, leadTeacherId: teacherId, ...v })
       .returning({ id: courses.id })
   )[0].id;
 }
@@ -50,7 +50,7 @@ export async function insertCourse(
 export async function updateCourse(
   db: Db,
   id: string,
-  set: Partial<Pick<CourseRow, "title" | "summary" | "publishedAt">>,
+  set: Partial<Pick<CourseRow, "title" | "summary" | "publishedAt" | "leadTeacherId" | "pace">>,
 ): Promise<void> {
   await db
     .update(courses)

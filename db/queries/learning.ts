@@ -72,7 +72,8 @@ export async function stageStatesOf(db: Db, assignmentStudentIds: string[]) {
   return db
     .select({
       id: stageStates.id,
-      assignmentStudentId: stageStates.assignmentStudentId,
+      // Never null here: the rows are picked by it.
+      assignmentStudentId: sql<string>`${stageStates.assignmentStudentId}`,
       index: stageStates.stageIndex,
       state: stageStates.state,
       openedAt: stageStates.openedAt,
@@ -148,7 +149,7 @@ export async function recentFeedback(db: Db, studentId: string, limit: number) {
     feedback: checkIns.feedback,
     reviewedAt: checkIns.reviewedAt,
     stageIndex: stageStates.stageIndex,
-    assignmentStudentId: stageStates.assignmentStudentId,
+    assignmentStudentId: assignmentStudents.id,
     tuneTitle: tunes.title,
     reviewerName: users.name,
   };

@@ -2,15 +2,15 @@
 // `teacherId` argument (null: an admin, everyone's), always the signed-in person's id.
 import { and, asc, eq, sql } from "drizzle-orm";
 import type { Tx } from "./auth";
-import { assignments, assignmentStudents, checkIns, rosterEntries, stageStates, tunes, users } from "../schema";
-import { toAssignment } from "./check-in-place";
+import { assignments, checkIns, courses, rosterEntries, stageStates, tunes, users } from "../schema";
+import { placeOf, toPlace } from "./check-in-place";
 
-/** Check-ins waiting for review on active assignments, oldest first. */
+/** Check-ins waiting for review on active assignments and enrolments (a teacher sign-off course's), oldest first. */
 const waitingOn = (teacherId: string | null) =>
   and(
     eq(checkIns.status, "waiting"),
-    eq(assignments.status, "active"),
-    teacherId === null ? undefined : eq(assignments.teacherId, teacherId),
+    placeOf.active,
+    teacherId === null ? undefined : sql`${placeOf.teacherId} = ${teacherId}`,
   );
 
 /** The `limit` oldest check-ins waiting on a teacher's assignments (every teacher's: null). */
@@ -26,11 +26,12 @@ export async function waitingForReview(db: Tx, teacherId: string | null, limit: 
     studentName: users.name,
     assignmentId: assignments.id,
     stagePlan: assignments.stagePlan,
+    courseTitle: courses.title,
     tuneId: tunes.id,
     tuneTitle: tunes.title,
   };
-  return toAssignment(db.select(fields).from(checkIns).$dynamic())
-    .innerJoin(tunes, eq(tunes.id, assignments.tuneId))
+  return toPlace(db.select(fields).from(checkIns).$dynamic())
+    .innerJoin(tunes, sql`${tunes.id} = ${placeOf.tuneId}`)
     .innerJoin(users, eq(users.id, checkIns.studentId))
     .where(waitingOn(teacherId))
     .orderBy(asc(checkIns.createdAt), asc(checkIns.id))
@@ -39,7 +40,7 @@ export async function waitingForReview(db: Tx, teacherId: string | null, limit: 
 
 /** How many check-ins wait on a teacher's assignments (every teacher's: null). */
 export async function countWaiting(db: Tx, teacherId: string | null): Promise<number> {
-  const [row] = await toAssignment(
+  const [row] = await toPlace(
     db
       .select({ n: sql<number>`count(*)::int` })
       .from(checkIns)

@@ -1,11 +1,15 @@
 // SQL for the teacher's side of issue 6 and the stage transitions. Who may do what is decided in
 // lib/teaching/*; these only read and write rows.
-import { and, eq, gte, max, sql } from "drizzle-orm";
+import { and, desc, eq, gte, max, sql, type SQL } from "drizzle-orm";
 import type { Tx } from "./auth";
 import {
   assignments,
   assignmentStudents,
   checkIns,
+  courses,
+  emailOutbox,
+  enrolments,
+  enrolmentTunes,
   practiceLogs,
   stageStates,
   tuneProgress,
@@ -29,7 +33,11 @@ export async function shareAssignmentOfStage(tx: Tx, stageStateId: string): Prom
     .for("share", { of: assignments });
 }
 
-/** The stage row locked for the rest of the transaction, with what the state machine needs to decide. */
+/**
+ * The stage row locked for the rest of the transaction, with what the state machine needs to decide.
+ * A stage belongs to an assignment (its teacher, plan, rule and status) or to a tune a member climbs
+ * on a course (the enrolment's teacher, the tune's own stages, the course's pace, the enrolment's status).
+ */
 export async function lockStage(tx: Tx, stageStateId: string) {
   const rows = await tx
     .select({
@@ -37,30 +45,48 @@ export async function lockStage(tx: Tx, stageStateId: string) {
       stageIndex: stageStates.stageIndex,
       state: stageStates.state,
       openedAt: stageStates.openedAt,
-      assignmentStudentId: assignmentStudents.id,
-      studentId: assignmentStudents.studentId,
+      assignmentStudentId: stageStates.assignmentStudentId,
+      enrolmentTuneId: stageStates.enrolmentTuneId,
+      studentId: sql<string>`coalesce(${assignmentStudents.studentId}, ${enrolments.userId})`,
       assignmentId: assignments.id,
-      teacherId: assignments.teacherId,
-      tuneId: assignments.tuneId,
+      teacherId: sql<string>`coalesce(${assignments.teacherId}, ${enrolments.teacherId})`,
+      tuneId: sql<string>`coalesce(${assignments.tuneId}, ${enrolmentTunes.tuneId})`,
       stagePlan: assignments.stagePlan,
-      status: assignments.status,
-      unlockRule: assignments.unlockRule,
+      status: sql<"active" | "withdrawn">`case
+        when ${assignments.id} is not null then ${assignments.status}::text
+        when ${enrolments.status} = 'active' then 'active' else 'withdrawn' end`,
+      unlockRule: sql<
+        "teacher_sign_off" | "self_check_in" | "self_paced"
+      >`coalesce(${assignments.unlockRule}::text, ${courses.pace}::text)`,
       unlockMinutes: assignments.unlockMinutes,
     })
     .from(stageStates)
-    .innerJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
-    .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
+    .leftJoin(assignmentStudents, eq(assignmentStudents.id, stageStates.assignmentStudentId))
+    .leftJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
+    .leftJoin(enrolmentTunes, eq(enrolmentTunes.id, stageStates.enrolmentTuneId))
+    .leftJoin(enrolments, eq(enrolments.id, enrolmentTunes.enrolmentId))
+    .leftJoin(courses, eq(courses.id, enrolments.courseId))
     .where(eq(stageStates.id, stageStateId))
     .for("update", { of: stageStates });
   return rows[0] ?? null;
 }
 export type LockedStage = NonNullable<Awaited<ReturnType<typeof lockStage>>>;
 
-export async function lastStageIndex(tx: Tx, assignmentStudentId: string): Promise<number> {
+/** The stage rows that belong with this one: the same student's assignment, or the same climbed tune. */
+export function sameHolder(stage: Pick<LockedStage, "assignmentStudentId" | "enrolmentTuneId">): SQL {
+  return stage.assignmentStudentId
+    ? eq(stageStates.assignmentStudentId, stage.assignmentStudentId)
+    : eq(stageStates.enrolmentTuneId, stage.enrolmentTuneId ?? "");
+}
+
+export async function lastStageIndex(
+  tx: Tx,
+  stage: Pick<LockedStage, "assignmentStudentId" | "enrolmentTuneId">,
+): Promise<number> {
   const [row] = await tx
     .select({ n: max(stageStates.stageIndex) })
     .from(stageStates)
-    .where(eq(stageStates.assignmentStudentId, assignmentStudentId));
+    .where(sameHolder(stage));
   return row?.n ?? 0;
 }
 
@@ -87,6 +113,26 @@ export async function findUpload(tx: Tx, id: string) {
   return row ?? null;
 }
 
+/** The newest check-in of a stage, whatever its status. */
+export async function latestCheckIn(tx: Tx, stageStateId: string) {
+  const [row] = await tx
+    .select()
+    .from(checkIns)
+    .where(eq(checkIns.stageStateId, stageStateId))
+    .orderBy(desc(checkIns.createdAt), desc(checkIns.id))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Takes back a message not sent yet; false when it has gone (or is being sent right now). */
+export async function unsendQueued(tx: Tx, dedupeKey: string): Promise<boolean> {
+  const rows = await tx
+    .delete(emailOutbox)
+    .where(and(eq(emailOutbox.dedupeKey, dedupeKey), eq(emailOutbox.status, "queued")))
+    .returning({ id: emailOutbox.id });
+  return rows.length > 0;
+}
+
 export async function waitingCheckIn(tx: Tx, stageStateId: string) {
   const [row] = await tx
     .select()
@@ -108,17 +154,16 @@ export async function setStageState(
 }
 
 /** Opens stage `index` when it is still locked; returns whether it did. */
-export async function openStage(tx: Tx, assignmentStudentId: string, index: number, now: Date): Promise<boolean> {
+export async function openStage(
+  tx: Tx,
+  stage: Pick<LockedStage, "assignmentStudentId" | "enrolmentTuneId">,
+  index: number,
+  now: Date,
+): Promise<boolean> {
   const rows = await tx
     .update(stageStates)
     .set({ state: "open", openedAt: now })
-    .where(
-      and(
-        eq(stageStates.assignmentStudentId, assignmentStudentId),
-        eq(stageStates.stageIndex, index),
-        eq(stageStates.state, "locked"),
-      ),
-    )
+    .where(and(sameHolder(stage), eq(stageStates.stageIndex, index), eq(stageStates.state, "locked")))
     .returning({ id: stageStates.id });
   return rows.length > 0;
 }

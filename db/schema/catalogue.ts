@@ -19,13 +19,22 @@ import { TUNE_TYPES } from "../../lib/tunes/header";
 /** A stage plan as the tune engine takes it (lib/abc/types.ts StagePlan): kinds added per stage. */
 export type StagePlanJson = { stages: { name: string; adds: string[] }[] };
 
+/** How a course's stages open: the student's own check-in, or the teacher's sign-off. */
+export const coursePaceEnum = pgEnum("course_pace", ["self_paced", "teacher_sign_off"]);
+
 export const courses = pgTable(
   "courses",
   {
     id: uuid("id").primaryKey().defaultRandom(),
+    // Who wrote the course and may edit it.
     teacherId: uuid("teacher_id")
       .notNull()
       .references(() => users.id, { onDelete: "restrict" }),
+    // Who follows its new members: each enrolment starts with this teacher.
+    leadTeacherId: uuid("lead_teacher_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    pace: coursePaceEnum("pace").notNull().default("teacher_sign_off"),
     slug: text("slug").notNull().unique(),
     title: text("title").notNull(),
     summary: text("summary").notNull().default(""),
@@ -135,8 +144,20 @@ export const enrolments = pgTable(
     status: enrolmentStatusEnum("status").notNull().default("active"),
     enrolledAt: timestamp("enrolled_at", { withTimezone: true }).notNull().defaultNow(),
     endedAt: timestamp("ended_at", { withTimezone: true }),
+    // The teacher who follows this member on this course (the course's lead teacher at first).
+    teacherId: uuid("teacher_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "restrict" }),
+    // Since when that teacher follows them: "new this week" on the roster and the daily new-members e-mail.
+    teacherSince: timestamp("teacher_since", { withTimezone: true }).notNull().defaultNow(),
+    // When that teacher sent a welcome note (null: not yet).
+    welcomedAt: timestamp("welcomed_at", { withTimezone: true }),
   },
-  (t) => [unique("enrolments_user_course_uq").on(t.userId, t.courseId), index("enrolments_course_idx").on(t.courseId)],
+  (t) => [
+    unique("enrolments_user_course_uq").on(t.userId, t.courseId),
+    index("enrolments_course_idx").on(t.courseId),
+    index("enrolments_teacher_since_idx").on(t.teacherId, t.teacherSince),
+  ],
 );
 
 /** Private pencil notes pinned to a bar of a tune; only their writer reads them. */

@@ -1,6 +1,6 @@
 import { bigint, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./people";
-import { assignmentStudents } from "./teaching";
+import { assignmentStudents, enrolmentTunes } from "./teaching";
 
 export const uploadStatusEnum = pgEnum("upload_status", ["pending", "stored", "rejected"]);
 
@@ -17,6 +17,8 @@ export const uploads = pgTable(
     sizeBytes: bigint("size_bytes", { mode: "number" }).notNull(),
     // The student's assignment the recording belongs to; a presigned upload is only issued for one's own.
     assignmentStudentId: uuid("assignment_student_id").references(() => assignmentStudents.id, { onDelete: "cascade" }),
+    // Or the tune the student climbs on a course (lib/teaching/course-check-in.ts).
+    enrolmentTuneId: uuid("enrolment_tune_id").references(() => enrolmentTunes.id, { onDelete: "cascade" }),
     stageIndex: integer("stage_index"),
     status: uploadStatusEnum("status").notNull().default("pending"),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
@@ -37,6 +39,8 @@ export const emailOutbox = pgTable(
     payload: jsonb("payload").$type<Record<string, unknown>>().notNull(),
     // Makes "at most once" rules (a reminder per assignment and student) a unique constraint.
     dedupeKey: text("dedupe_key").unique(),
+    // Not sent before this (a review's note that its teacher can still undo); null: at once.
+    sendAfter: timestamp("send_after", { withTimezone: true }),
     status: outboxStatusEnum("status").notNull().default("queued"),
     attempts: integer("attempts").notNull().default(0),
     providerId: text("provider_id"),

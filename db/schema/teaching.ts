@@ -15,7 +15,7 @@ import {
 } from "drizzle-orm/pg-core";
 import { sql } from "drizzle-orm";
 import { users } from "./people";
-import { tunes, type StagePlanJson } from "./catalogue";
+import { enrolments, tunes, type StagePlanJson } from "./catalogue";
 import { uploads } from "./system";
 
 export const unlockRuleEnum = pgEnum("unlock_rule", ["teacher_sign_off", "self_check_in"]);
@@ -62,21 +62,46 @@ export const assignmentStudents = pgTable(
   ],
 );
 
+/**
+ * One tune a member climbs on an enrolled course: the holder of that tune's stage rows there, as an
+ * assignment_students row is for an assignment. Made at the member's first step on the tune.
+ */
+export const enrolmentTunes = pgTable(
+  "enrolment_tunes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    enrolmentId: uuid("enrolment_id")
+      .notNull()
+      .references(() => enrolments.id, { onDelete: "cascade" }),
+    tuneId: uuid("tune_id")
+      .notNull()
+      .references(() => tunes.id, { onDelete: "cascade" }),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [unique("enrolment_tunes_uq").on(t.enrolmentId, t.tuneId), index("enrolment_tunes_tune_idx").on(t.tuneId)],
+);
+
 export const stageStateEnum = pgEnum("stage_state", ["locked", "open", "checked_in", "signed_off"]);
 
+/** A stage of a tune for one student: on an assignment, or on a course they climb (exactly one of the two). */
 export const stageStates = pgTable(
   "stage_states",
   {
     id: uuid("id").primaryKey().defaultRandom(),
-    assignmentStudentId: uuid("assignment_student_id")
-      .notNull()
-      .references(() => assignmentStudents.id, { onDelete: "cascade" }),
+    assignmentStudentId: uuid("assignment_student_id").references(() => assignmentStudents.id, {
+      onDelete: "cascade",
+    }),
+    enrolmentTuneId: uuid("enrolment_tune_id").references(() => enrolmentTunes.id, { onDelete: "cascade" }),
     stageIndex: integer("stage_index").notNull(),
     state: stageStateEnum("state").notNull().default("locked"),
     openedAt: timestamp("opened_at", { withTimezone: true }),
     signedOffAt: timestamp("signed_off_at", { withTimezone: true }),
   },
-  (t) => [unique("stage_states_uq").on(t.assignmentStudentId, t.stageIndex)],
+  (t) => [
+    unique("stage_states_uq").on(t.assignmentStudentId, t.stageIndex),
+    unique("stage_states_enrolment_tune_uq").on(t.enrolmentTuneId, t.stageIndex),
+    check("stage_states_one_holder", sql`num_nonnulls(${t.assignmentStudentId}, ${t.enrolmentTuneId}) = 1`),
+  ],
 );
 
 export const checkInStatusEnum = pgEnum("check_in_status", ["waiting", "signed_off", "needs_more_time", "withdrawn"]);
@@ -95,6 +120,9 @@ export const checkIns = pgTable(
     selfRating: integer("self_rating").notNull(),
     fromMemory: boolean("from_memory").notNull().default(false),
     status: checkInStatusEnum("status").notNull().default("waiting"),
+    // Signed off by the check-in itself (a self-paced course, an assignment's self check-in rule): no
+    // review stands behind it, and its teacher may still leave a word (feedback, reviewed_by).
+    selfSignedOff: boolean("self_signed_off").notNull().default(false),
     feedback: text("feedback"),
     reviewedBy: uuid("reviewed_by").references(() => users.id, { onDelete: "set null" }),
     reviewedAt: timestamp("reviewed_at", { withTimezone: true }),

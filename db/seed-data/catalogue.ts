@@ -26,7 +26,9 @@ export interface DemoCourse {
   slug: string;
   title: string;
   summary: string;
-  teacher: number; // index into TEACHERS
+  teacher: number; // index into TEACHERS; also the lead teacher who follows new members
+  /** How its stages open: the student's own check-in, or the teacher's sign-off. */
+  pace: "self_paced" | "teacher_sign_off";
   grades: DemoGrade[];
   enrolments: { student: number; status: EnrolmentStatus }[]; // student: index into STUDENTS
 }
@@ -67,6 +69,7 @@ export const DEMO_COURSES: readonly DemoCourse[] = [
       "Your first tunes, taken slowly. Two short polkas and a waltz settle the bow arm; then a second waltz, " +
       "a jig and a reel. Each tune starts as a bare melody and gains its slurs and ornaments one stage at a time.",
     teacher: 0,
+    pace: "self_paced",
     grades: [
       {
         title: "Grade 1",
@@ -106,6 +109,7 @@ export const DEMO_COURSES: readonly DemoCourse[] = [
       "Polkas, jigs, reels and hornpipes with the steady beat that dancers need. Learn to keep the pulse " +
       "first, then to lift it with rolls, triplets and double stops.",
     teacher: 1,
+    pace: "teacher_sign_off",
     grades: [
       {
         title: "Grade 1",
@@ -149,6 +153,7 @@ export const DEMO_COURSES: readonly DemoCourse[] = [
       "For players who can manage a reel and want to hold their own in a session: tunes in F and in minor " +
       "keys, hornpipes and a slip jig, and the ornaments you will hear around the table.",
     teacher: 2,
+    pace: "teacher_sign_off",
     grades: [
       {
         title: "Grade 1",

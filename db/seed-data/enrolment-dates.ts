@@ -52,6 +52,7 @@ export async function dateDemoEnrolments(tx: Tx, history: DemoMembership[], anch
       .update(enrolments)
       .set({
         enrolledAt: new Date(d.enrolledAt * 1000),
+        teacherSince: new Date(d.enrolledAt * 1000), // their teacher has followed them since they enrolled
         endedAt: sql`case when ${enrolments.status} = 'ended' then ${iso(d.endedAt)}::timestamptz else ${enrolments.endedAt} end`,
       })
       .where(

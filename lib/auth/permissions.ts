@@ -48,6 +48,9 @@ export const ACTIONS = [
   "billing:manage", // one's own membership: cancel at period end, resume, change plan, invoices
   "money:view", // admin tables: payments, memberships, enrolments, revenue, CSV export
   "payments:refund",
+  // Every member has a teacher: the teacher welcomes their new members; the admin hands enrolments to another teacher.
+  "members:welcome",
+  "enrolments:reassign",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -98,6 +101,7 @@ const TABLE: Record<Actor, readonly Action[]> = {
     "checkin:review",
     "recording:listen",
     "calendar:manage",
+    "members:welcome",
   ],
   // "admin: everything" (PRODUCT.md §2).
   admin: ACTIONS,

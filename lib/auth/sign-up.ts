@@ -10,10 +10,11 @@ import { mailedRecently } from "./mail-throttle";
 import { hashPassword } from "./password";
 import { passwordProblem } from "./password-policy";
 import { addressKey, hitAll, ipKey, LIMITS } from "./rate-limit";
+import { chosenPlan, chosenQuery, type ChosenPlan } from "./chosen-plan";
 import { sendResetLink } from "./password-reset";
 import { MINUTE, newToken, VERIFY_TTL_MINUTES } from "./tokens";
 
-export type SignUpInput = { name: string; email: string; password: string };
+export type SignUpInput = { name: string; email: string; password: string; plan?: string; course?: string };
 
 // The answer is the same whether or not the address already has an account (issue 4 §3), so an
 // account only becomes usable once its owner opens the link sent to the address.
@@ -22,13 +23,14 @@ export const signUpSentMessage = (email: string) =>
   "(If that address already has an account, the message explains how to get back into it.)";
 
 /**
- * Sends the confirmation link that makes a new account usable; older links stop working. Nothing is
- * sent when one went out within the last few minutes (./mail-throttle.ts).
+ * Sends the confirmation link that makes a new account usable (carrying the plan chosen, if any);
+ * older links stop working. Nothing is sent when one went out within the last few minutes (./mail-throttle.ts).
  */
 export async function sendVerifyLink(
   tx: Tx,
   user: { id: string; name: string; email: string },
   template: "welcome" | "verify-email",
+  chosen: ChosenPlan | null = null,
 ) {
   if (await mailedRecently(tx, user.id, "verify_email")) return;
   const { token, hash } = newToken();
@@ -42,7 +44,7 @@ export async function sendVerifyLink(
   await enqueueEmail(tx, {
     to: user.email,
     template,
-    data: { name: user.name, verifyUrl: appLink("/verify-email", { token }) },
+    data: { name: user.name, verifyUrl: appLink("/verify-email", { token, ...chosenQuery(chosen) }) },
   });
 }
 
@@ -56,18 +58,19 @@ export async function signUp(ctx: RequestContext, input: SignUpInput): Promise<A
   ]);
   // Hashed whatever happens next, so a taken address answers as slowly as a new one.
   const passwordHash = await hashPassword(input.password);
+  const chosen = chosenPlan(input);
   try {
     await db().transaction(async (tx) => {
       const existing = await findUserByEmail(tx, email);
       if (!existing) {
         const user = await createUser(tx, { email, name: input.name.trim(), role: "student", passwordHash });
-        await sendVerifyLink(tx, user, "welcome");
+        await sendVerifyLink(tx, user, "welcome", chosen);
       } else if (existing.disabled) {
         // A closed account gets nothing; the visitor still sees the same answer.
       } else if (!existing.emailVerifiedAt) {
         // The first sign-up may well be the address's owner: nothing of the account changes, and
         // whoever reads that mailbox gets a fresh link to confirm it (with the first password).
-        await sendVerifyLink(tx, existing, "verify-email");
+        await sendVerifyLink(tx, existing, "verify-email", chosen);
       } else {
         await sendResetLink(tx, existing);
       }

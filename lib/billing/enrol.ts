@@ -2,6 +2,7 @@
 import { and, eq } from "drizzle-orm";
 import type { Tx as Db } from "@/db/queries/auth";
 import { findCourse } from "@/db/queries/catalogue";
+import { insertEnrolment } from "@/db/queries/enrolments";
 import { membershipsOf } from "@/db/queries/membership";
 import { enrolments } from "@/db/schema";
 import { conflict, forbidden, notFound } from "@/lib/auth/errors";
@@ -44,11 +45,8 @@ export async function startCourse(
   if (!course || !course.published) throw notFound("We couldn't find that course.");
   const standing = await memberStanding(db, person);
   if (!standing.good) throw forbidden(standing.why);
-  const [made] = await db
-    .insert(enrolments)
-    .values({ userId: person.id, courseId: course.id, status: "active" })
-    .onConflictDoNothing()
-    .returning({ id: enrolments.id });
+  // The course's lead teacher follows the new member (and has them on their roster) from now on.
+  const made = await db.transaction((tx) => insertEnrolment(tx, { userId: person.id, courseId: course.id }));
   if (made) return { created: true, slug: course.slug };
   const [row] = await db
     .select({ status: enrolments.status })

@@ -12,12 +12,16 @@ export interface CatalogueRung {
   isTaster: boolean;
 }
 
+export type CoursePace = "self_paced" | "teacher_sign_off";
+
 export interface CatalogueCourse {
   id: string;
   slug: string;
   title: string;
   summary: string;
+  /** The lead teacher, who follows new members. */
   teacherName: string;
+  pace: CoursePace;
   grades: { title: string; rungs: CatalogueRung[] }[];
 }
 
@@ -27,6 +31,7 @@ export interface MyCourse {
   title: string;
   summary: string;
   teacherName: string;
+  pace: CoursePace;
   /** "teaching" for a teacher's own course. */
   relation: "active" | "paused" | "ended" | "teaching";
   rungs: number;
@@ -35,19 +40,33 @@ export interface MyCourse {
   next: { tuneId: string; tuneTitle: string } | null;
 }
 
+/** A course a student could start next (My courses): its page is /catalogue/courses/<slug>. */
+export interface SuggestedCourse {
+  id: string;
+  slug: string;
+  title: string;
+  summary: string;
+  teacherName: string;
+  pace: CoursePace;
+  grades: number;
+  tunes: number;
+}
+
 export interface LadderRungJson extends CatalogueRung {
   rungId: string;
   position: number;
   requiredStage: number;
   requiredStageName: string;
   stageCount: number;
+  /** The stage to check in next on this tune (reached + 1); null when every stage is reached. */
+  nextStageName: string | null;
   state: RungState;
   reached: number;
   reason?: string;
 }
 
 export interface LadderJson {
-  course: { id: string; slug: string; title: string; summary: string; teacherName: string };
+  course: { id: string; slug: string; title: string; summary: string; teacherName: string; pace: CoursePace };
   standing: { pathway: "staff" | "ladder" | "taster"; why?: string };
   grades: { id: string; title: string; rungs: LadderRungJson[] }[];
 }

@@ -11,7 +11,7 @@ import {
   type RungRow,
 } from "@/db/queries/catalogue";
 import { buildLadder, canSeeCourse, ladderFor, type Ladder, type Viewer } from "./access";
-import type { CatalogueCourse, LadderJson, MyCourse } from "./api-types";
+import type { CatalogueCourse, LadderJson, MyCourse, SuggestedCourse } from "./api-types";
 
 function gradesOfRows(rows: RungRow[]): CatalogueCourse["grades"] {
   const grades: CatalogueCourse["grades"] = [];
@@ -30,12 +30,14 @@ function gradesOfRows(rows: RungRow[]): CatalogueCourse["grades"] {
   return grades;
 }
 
+// "Taught by": the lead teacher, who follows the course's new members.
 const courseHead = (c: CourseRow) => ({
   id: c.id,
   slug: c.slug,
   title: c.title,
   summary: c.summary,
-  teacherName: c.teacherName,
+  teacherName: c.leadTeacherName,
+  pace: c.pace,
 });
 
 /** The public catalogue: every published course with its grades and tune titles. */
@@ -78,6 +80,23 @@ export async function myCourses(db: Db, viewer: NonNullable<Viewer>): Promise<My
   return ladders.map((l) => summaryOf(l, relation.get(l.course.id) ?? "active"));
 }
 
+/** Published courses a student is not enrolled in, easiest first (fewest grades), to start next. */
+export async function suggestedCourses(db: Db, viewer: NonNullable<Viewer>): Promise<SuggestedCourse[]> {
+  if (viewer.role !== "student") return [];
+  const enrolled = new Set((await enrolmentsOf(db, viewer.id)).map((e) => e.courseId));
+  const list = (await publishedCourses(db)).filter((c) => !enrolled.has(c.id));
+  const rows = await rungsOf(
+    db,
+    list.map((c) => c.id),
+  );
+  return list
+    .map((c) => {
+      const mine = rows.filter((r) => r.courseId === c.id);
+      return { ...courseHead(c), grades: new Set(mine.map((r) => r.gradeId)).size, tunes: mine.length };
+    })
+    .sort((a, b) => a.grades - b.grades || a.tunes - b.tunes || a.title.localeCompare(b.title));
+}
+
 /** The ladder as JSON; null when the course does not exist for this viewer. */
 export async function ladderJson(db: Db, viewer: Viewer, idOrSlug: string): Promise<LadderJson | null> {
   const ladder = await ladderFor(db, viewer, idOrSlug);
@@ -100,6 +119,7 @@ export async function ladderJson(db: Db, viewer: Viewer, idOrSlug: string): Prom
         requiredStage: r.requiredStage,
         requiredStageName: r.stageNames[r.requiredStage] ?? "",
         stageCount: r.stageCount,
+        nextStageName: r.reached < r.stageCount ? (r.stageNames[r.reached + 1] ?? "") : null,
         state: r.state,
         reached: r.reached,
         ...(r.reason ? { reason: r.reason } : {}),

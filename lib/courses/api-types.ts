@@ -34,6 +34,11 @@ export interface CourseView {
   slug: string;
   summary: string;
   published: boolean;
+  /** Who follows new members; every enrolment starts with them. */
+  leadTeacherId: string;
+  pace: "self_paced" | "teacher_sign_off";
+  /** Who may lead it: the school's teachers (and admins). */
+  staff: { id: string; name: string }[];
   grades: GradeView[];
   /** What would stop it being published now (empty when it could be). */
   problems: RuleProblem[];

@@ -3,6 +3,7 @@
 // problem — or leave a published course empty — is rolled back with the rule's words.
 import type { Db } from "@/db/client";
 import * as q from "@/db/queries/courses";
+import { teachingStaff } from "@/db/queries/enrolments";
 import { findTune } from "@/db/queries/tunes";
 import type { CurrentUser } from "@/lib/auth/current-user";
 import { conflict, notFound, unprocessable } from "@/lib/auth/errors";
@@ -19,13 +20,16 @@ export async function editableCourse(db: Db, user: Editor, courseId: string): Pr
 }
 
 export async function courseView(db: Db, course: q.CourseRow): Promise<CourseView> {
-  const grades = await q.courseLadder(db, course.id);
+  const [grades, staff] = await Promise.all([q.courseLadder(db, course.id), teachingStaff(db)]);
   return {
     id: course.id,
     title: course.title,
     slug: course.slug,
     summary: course.summary,
     published: course.publishedAt !== null,
+    leadTeacherId: course.leadTeacherId,
+    pace: course.pace,
+    staff: staff.map((s) => ({ id: s.id, name: s.name })),
     grades: grades.map((g) => ({ id: g.id, title: g.title, rungs: g.rungs })),
     problems: courseProblems(grades, { published: true }),
     hints: courseHints(grades),
@@ -71,8 +75,18 @@ export async function createCourse(
 export async function patchCourse(
   db: Db,
   course: q.CourseRow,
-  v: { title?: string; summary?: string; published?: boolean },
+  v: {
+    title?: string;
+    summary?: string;
+    published?: boolean;
+    leadTeacherId?: string;
+    pace?: "self_paced" | "teacher_sign_off";
+  },
 ): Promise<void> {
+  if (v.leadTeacherId !== undefined && !(await teachingStaff(db)).some((s) => s.id === v.leadTeacherId))
+    throw unprocessable("The lead teacher must be one of the school's teachers.", {
+      leadTeacherId: "Choose one of the school's teachers.",
+    });
   if (v.published === true && course.publishedAt === null) {
     const problems = courseProblems(await q.courseLadder(db, course.id), { published: true });
     if (problems.length)
@@ -81,7 +95,13 @@ export async function patchCourse(
       });
   }
   const publishedAt = v.published === undefined ? undefined : v.published ? (course.publishedAt ?? new Date()) : null;
-  await q.updateCourse(db, course.id, { title: v.title, summary: v.summary, publishedAt });
+  await q.updateCourse(db, course.id, {
+    title: v.title,
+    summary: v.summary,
+    publishedAt,
+    leadTeacherId: v.leadTeacherId,
+    pace: v.pace,
+  });
 }
 
 export async function removeCourse(db: Db, course: q.CourseRow): Promise<void> {

@@ -17,6 +17,9 @@ export const coursePatch = courseId.extend({
   title: title("course").optional(),
   summary: z.string().trim().max(600, "Keep the summary under 600 characters.").optional(),
   published: z.boolean().optional(),
+  // Course settings: who follows new members, and how stages open.
+  leadTeacherId: z.uuid("Choose the lead teacher.").optional(),
+  pace: z.enum(["self_paced", "teacher_sign_off"], "Choose how the stages open.").optional(),
 });
 
 export const gradeInput = courseId.extend({ title: title("grade") });

@@ -24,7 +24,10 @@ const producer = new PgBoss({
  * Returns the job id, or null when the queue does not exist yet (no worker has started): the
  * worker's sweeper then picks the row up.
  */
-export async function scheduleEmail(outboxId: string, db: DbOrTx = appDb()): Promise<string | null> {
+export async function scheduleEmail(outboxId: string, db: DbOrTx = appDb(), sendAfter?: Date): Promise<string | null> {
   const data: SendEmailJob = { outboxId };
-  return producer.send(SEND_EMAIL_QUEUE, data, { db: pgBossExecutor(db) });
+  return producer.send(SEND_EMAIL_QUEUE, data, {
+    db: pgBossExecutor(db),
+    ...(sendAfter ? { startAfter: sendAfter } : {}),
+  });
 }

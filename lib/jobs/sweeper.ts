@@ -1,4 +1,4 @@
-import { and, asc, eq, lte, sql } from "drizzle-orm";
+import { and, asc, eq, isNull, lte, or, sql } from "drizzle-orm";
 import type PgBoss from "pg-boss";
 import { emailOutbox } from "@/db/schema";
 import { SEND_EMAIL_QUEUE, type SendEmailJob } from "./queue";
@@ -25,6 +25,8 @@ export async function sweepOutbox(db: DbOrTx, boss: PgBoss, options: SweepOption
       and(
         eq(emailOutbox.status, "queued"),
         lte(emailOutbox.createdAt, sql`now() - make_interval(secs => ${options.minAgeSeconds})`),
+        // A message held back until later has its own delayed job; the sweep takes it once the hold is over.
+        or(isNull(emailOutbox.sendAfter), lte(emailOutbox.sendAfter, sql`now()`)),
       ),
     )
     .orderBy(asc(emailOutbox.createdAt))

@@ -5,6 +5,7 @@ import { mailerFromEnv, sendOutboxEmail, type Mailer } from "@/lib/mail/send";
 import { SEND_EMAIL_QUEUE, type SendEmailJob } from "./queue";
 import { sweepOutbox } from "./sweeper";
 import { sendDueReminders } from "./reminders";
+import { sendNewMemberDigests } from "./new-members";
 import { cleanAbandonedUploads } from "@/lib/storage/cleanup";
 import { storageConfigured } from "@/lib/storage/s3";
 import { hearCheckIn, LISTEN_QUEUE, sweepUnheard, type ListenJob } from "./listen";
@@ -30,6 +31,8 @@ export interface WorkerOptions {
   log?: (line: string) => void;
   /** Due-date reminders (lib/jobs/reminders.ts): how often to look; they are checked once at start too. */
   reminders?: { intervalSeconds: number };
+  /** Teachers' daily new-members e-mail (lib/jobs/new-members.ts): how often to look; once at start too. */
+  digests?: { intervalSeconds: number };
   /** Abandoned uploads (lib/storage/cleanup.ts): how often to look; once at start too. */
   uploads?: { intervalSeconds: number };
   /** The listening aid (lib/jobs/listen.ts): how often check-ins never heard are queued again, and how old they must be. */
@@ -52,6 +55,8 @@ export interface RunningWorker {
   repairRefundsNow: () => Promise<{ recorded: number; failed: number }>;
   /** One reminder pass now, at the worker's clock; returns the dedupe keys it queued. */
   remindNow: () => Promise<string[]>;
+  /** One pass of the teachers' daily new-members e-mail now, at the worker's clock; returns the keys queued. */
+  digestNow: () => Promise<string[]>;
 }
 
 // 5 s doubling ten times: the last retry comes one to three hours after the first try, long enough
@@ -154,6 +159,17 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
   });
   if (reminded.length) log(`${reminded.length} due-date reminder(s) queued`);
 
+  // Each teacher's new members of yesterday, once their day is over; at most one e-mail a day each.
+  const digest = () => sendNewMemberDigests(db, clock());
+  const digestTimer = setInterval(
+    () => {
+      digest().catch((error: unknown) => log(`new-members e-mail failed: ${String(error)}`));
+    },
+    (options.digests?.intervalSeconds ?? 900) * 1000,
+  );
+  digestTimer.unref();
+  await digest().catch((error: unknown) => log(`new-members e-mail failed: ${String(error)}`));
+
   // Abandoned uploads (lib/storage/cleanup.ts): hourly, and once at start; only where storage is set up.
   const tidy = async () => {
     if (!storageConfigured()) return 0;
@@ -190,12 +206,14 @@ export async function startWorker(options: WorkerOptions = {}): Promise<RunningW
     sweepNow: () => sweepWith(0),
     sweepUnheardNow: () => sweepListening(0),
     remindNow: remind,
+    digestNow: digest,
     cleanUploadsNow: tidy,
     repairRefundsNow: repair,
     stop: () => {
       stopping ??= (async () => {
         clearInterval(timer);
         clearInterval(reminderTimer);
+        clearInterval(digestTimer);
         clearInterval(tidyTimer);
         clearInterval(listenTimer);
         clearInterval(repairTimer);

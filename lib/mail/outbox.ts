@@ -28,13 +28,14 @@ export async function enqueueEmail<T extends TemplateName>(
         subject: renderSubject(mail.template, mail.data),
         payload: { ...mail.data },
         dedupeKey: mail.dedupeKey ?? null,
+        sendAfter: mail.sendAfter ?? null,
       })
       .onConflictDoNothing({ target: emailOutbox.dedupeKey })
       .returning({ id: emailOutbox.id });
     if (!row) return null;
     try {
       // Its own savepoint: a failure here (no worker has created the queue yet) must not undo the row.
-      const jobId = await tx.transaction((sp) => scheduleEmail(row.id, sp));
+      const jobId = await tx.transaction((sp) => scheduleEmail(row.id, sp, mail.sendAfter));
       if (!jobId) console.warn(`[mail] outbox row ${row.id} saved; no send-email queue yet, the sweeper will queue it`);
     } catch (error) {
       console.warn(`[mail] outbox row ${row.id} saved; the sweeper will queue it (${errorText(error)})`);

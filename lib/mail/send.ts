@@ -1,4 +1,4 @@
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, isNull, lte, or, sql } from "drizzle-orm";
 import { Resend } from "resend";
 import { emailOutbox } from "@/db/schema";
 import type { DbOrTx } from "@/lib/jobs/sql-executor";
@@ -60,7 +60,14 @@ export async function sendOutboxEmail(db: DbOrTx, outboxId: string, mailer: Mail
     const [row] = await tx
       .select()
       .from(emailOutbox)
-      .where(and(eq(emailOutbox.id, outboxId), eq(emailOutbox.status, "queued")))
+      // A message held back (sendAfter) is not sent early by a spare job; its own job or a later sweep sends it.
+      .where(
+        and(
+          eq(emailOutbox.id, outboxId),
+          eq(emailOutbox.status, "queued"),
+          or(isNull(emailOutbox.sendAfter), lte(emailOutbox.sendAfter, sql`now()`)),
+        ),
+      )
       .for("update", { skipLocked: true });
     if (!row) return { outcome: "skipped" as const };
 

@@ -20,4 +20,6 @@ export interface OutgoingMail<T extends TemplateName = TemplateName> {
   data: MailTemplates[T];
   /** Makes "send at most once" rules hold: a second enqueue with the same key is ignored. */
   dedupeKey?: string;
+  /** Not sent before this time (a note its writer can still take back); unset: as soon as the worker can. */
+  sendAfter?: Date;
 }

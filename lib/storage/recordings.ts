@@ -3,12 +3,13 @@
 // where they are copied out of the upload's reach and the copy's first bytes decide whether it is
 // audio at all (never the file name or declared type).
 import { randomUUID } from "node:crypto";
-import { and, eq } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { assignments, assignmentStudents, stageStates, uploads } from "@/db/schema";
+import { assignments, assignmentStudents, enrolments, enrolmentTunes, stageStates, uploads } from "@/db/schema";
 import { notFound, unprocessable } from "@/lib/auth/errors";
 import type { CurrentUser } from "@/lib/auth/current-user";
 import { judgeAudio, MAX_RECORDING_BYTES, megabytes, SNIFF_BYTES } from "./audio";
+import { climbStageRow } from "@/lib/teaching/course-check-in";
 import { copyObject, deleteObject, GET_URL_SECONDS, headObject, presignGet, presignPut, readStart } from "./s3";
 
 export { MAX_RECORDING_BYTES };
@@ -22,32 +23,51 @@ const incomingKey = (ownerId: string, uploadId: string) => `incoming/${ownerId}/
 /** Where the checked recording lives: no presigned PUT is ever made for it, so nobody can replace it. */
 const storedKey = (ownerId: string, uploadId: string) => `recordings/${ownerId}/${uploadId}`;
 
-/** A presigned upload address for the caller's own active assignment, at a stage that is open. */
-export async function startUpload(
+type Holder = { assignmentStudentId: string | null; enrolmentTuneId: string | null };
+
+/** The assignment's stage the upload is for: the caller's own, active, and the stage open. */
+async function assignmentHolder(
   db: Db,
   me: CurrentUser,
-  input: { assignmentStudentId: string; stageIndex: number; contentType: string; sizeBytes: number },
-): Promise<UploadTicket> {
+  assignmentStudentId: string,
+  stageIndex: number,
+): Promise<Holder> {
   const [row] = await db
     .select({ status: assignments.status, state: stageStates.state })
     .from(assignmentStudents)
     .innerJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
     .leftJoin(
       stageStates,
-      and(eq(stageStates.assignmentStudentId, assignmentStudents.id), eq(stageStates.stageIndex, input.stageIndex)),
+      and(eq(stageStates.assignmentStudentId, assignmentStudents.id), eq(stageStates.stageIndex, stageIndex)),
     )
-    .where(and(eq(assignmentStudents.id, input.assignmentStudentId), eq(assignmentStudents.studentId, me.id)));
+    .where(and(eq(assignmentStudents.id, assignmentStudentId), eq(assignmentStudents.studentId, me.id)));
   // Someone else's assignment is "not found", not "forbidden": its existence is not the caller's business.
   if (!row) throw notFound(NOT_YOURS);
   if (row.status !== "active")
     throw unprocessable("This assignment was withdrawn by your teacher.", { assignmentStudentId: "is withdrawn" });
-  if (!row.state)
-    throw unprocessable(`This assignment has no stage ${input.stageIndex}.`, { stageIndex: "does not exist" });
-  if (row.state !== "open")
-    throw unprocessable(
-      `Stage ${input.stageIndex} is not open for a check-in (it is ${row.state.replace("_", " ")}).`,
-      { stageIndex: "is not open" },
-    );
+  if (!row.state) throw unprocessable(`This assignment has no stage ${stageIndex}.`, { stageIndex: "does not exist" });
+  if (row.state !== "open") throw notOpen(stageIndex, row.state);
+  return { assignmentStudentId, enrolmentTuneId: null };
+}
+
+const notOpen = (stageIndex: number, state: string) =>
+  unprocessable(`Stage ${stageIndex} is not open for a check-in (it is ${state.replace("_", " ")}).`, {
+    stageIndex: "is not open",
+  });
+
+/** A presigned upload address for the caller's own assignment or course tune, at a stage that is open. */
+export async function startUpload(
+  db: Db,
+  me: CurrentUser,
+  input: { assignmentStudentId?: string; tuneId?: string; stageIndex: number; contentType: string; sizeBytes: number },
+): Promise<UploadTicket> {
+  let holder: Holder;
+  if (input.assignmentStudentId) holder = await assignmentHolder(db, me, input.assignmentStudentId, input.stageIndex);
+  else {
+    const row = await climbStageRow(db, me, input.tuneId ?? "", input.stageIndex, new Date());
+    if (row.state !== "open") throw notOpen(input.stageIndex, row.state);
+    holder = { assignmentStudentId: null, enrolmentTuneId: row.placeId };
+  }
   if (input.sizeBytes > MAX_RECORDING_BYTES) {
     throw unprocessable(`The recording is ${megabytes(input.sizeBytes)}; the limit is 25 MB.`, {
       sizeBytes: "is larger than 25 MB",
@@ -68,7 +88,7 @@ export async function startUpload(
     storageKey,
     contentType,
     sizeBytes: input.sizeBytes,
-    assignmentStudentId: input.assignmentStudentId,
+    ...holder,
     stageIndex: input.stageIndex,
     status: "pending",
   });
@@ -125,7 +145,7 @@ export async function completeUpload(db: Db, me: CurrentUser, uploadId: string):
   return outcome;
 }
 
-/** A presigned playback address: the recording's student, the assignment's teacher or an admin. */
+/** A presigned playback address: the recording's student, their teacher (assignment or enrolment) or an admin. */
 export async function playbackUrl(
   db: Db,
   me: CurrentUser,
@@ -137,11 +157,13 @@ export async function playbackUrl(
       key: uploads.storageKey,
       contentType: uploads.contentType,
       status: uploads.status,
-      teacherId: assignments.teacherId,
+      teacherId: sql<string | null>`coalesce(${assignments.teacherId}, ${enrolments.teacherId})`,
     })
     .from(uploads)
     .leftJoin(assignmentStudents, eq(assignmentStudents.id, uploads.assignmentStudentId))
     .leftJoin(assignments, eq(assignments.id, assignmentStudents.assignmentId))
+    .leftJoin(enrolmentTunes, eq(enrolmentTunes.id, uploads.enrolmentTuneId))
+    .leftJoin(enrolments, eq(enrolments.id, enrolmentTunes.enrolmentId))
     .where(eq(uploads.id, uploadId));
   const allowed =
     row && (me.role === "admin" || row.ownerId === me.id || (row.teacherId !== null && row.teacherId === me.id));

@@ -23,9 +23,10 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: Revi
   ]);
   // Stages are worked out once per assignment: several students' check-ins often share one.
   const stagesOf = new Map<string, Promise<AssignmentStage[]>>();
-  const stages = (assignmentId: string, tuneId: string, plan: StagePlanJson | null) => {
-    if (!stagesOf.has(assignmentId)) stagesOf.set(assignmentId, assignmentStages(db, tuneId, plan));
-    return stagesOf.get(assignmentId) as Promise<AssignmentStage[]>;
+  const stages = (assignmentId: string | null, tuneId: string, plan: StagePlanJson | null) => {
+    const key = assignmentId ?? `tune:${tuneId}`; // a course's stage: the tune's own stages
+    if (!stagesOf.has(key)) stagesOf.set(key, assignmentStages(db, tuneId, plan));
+    return stagesOf.get(key) as Promise<AssignmentStage[]>;
   };
   const heard = new Map(
     (
@@ -45,6 +46,7 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: Revi
       student: { id: r.studentId, name: r.studentName },
       tune: { id: r.tuneId, title: r.tuneTitle },
       assignmentId: r.assignmentId,
+      courseTitle: r.courseTitle,
       stage: {
         index: r.stageIndex,
         name: stage?.name ?? `Stage ${r.stageIndex}`,
@@ -58,6 +60,19 @@ export async function reviewQueue(db: Tx, me: Manager): Promise<{ checkIns: Revi
     });
   }
   return { checkIns: out, waiting };
+}
+
+/** Takes back a "needs more time" within its minutes: the check-in waits in the queue again, its note unsent. */
+export async function undoReview(db: Tx, me: Manager, checkInId: string, now: Date): Promise<ApplyResult> {
+  const checkIn = await findCheckIn(db, checkInId);
+  if (!checkIn) throw notFound("We couldn't find that check-in.");
+  return applyTransition(db, {
+    stageStateId: checkIn.stageStateId,
+    transition: "undoNeedsMoreTime",
+    actor: me,
+    checkInId: checkIn.id,
+    now,
+  });
 }
 
 export async function reviewCheckIn(

@@ -38,7 +38,9 @@ export type ReviewItem = {
   createdAt: string;
   student: { id: string; name: string };
   tune: { id: string; title: string };
-  assignmentId: string;
+  /** The assignment the check-in belongs to; null for a course's stage (then `courseTitle` names the course). */
+  assignmentId: string | null;
+  courseTitle?: string | null;
   stage: { index: number; name: string; abc: string; count: number };
   selfRating: number;
   fromMemory: boolean;

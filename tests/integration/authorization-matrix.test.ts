@@ -8,6 +8,7 @@ import { teachingRows } from "./helpers/teaching-matrix-rows";
 import { learningRows } from "./helpers/learning-matrix-rows";
 import { recordingsRows } from "./helpers/recordings-matrix-rows";
 import { billingRows } from "./helpers/billing-matrix-rows";
+import { enrolRows } from "./helpers/enrol-matrix-rows";
 import { routeModule } from "./helpers/route-module";
 import type { RequestContext } from "@/lib/auth/context";
 import type { GuardedAction } from "@/lib/auth/guard";
@@ -189,6 +190,8 @@ const ROWS: Row[] = [
   ...recordingsRows(),
   // Issue 7: plans, checkout, billing, webhook, the admin's money tables.
   ...billingRows(),
+  // Starting and climbing a course, the teacher's new members and self-paced check-ins, reassignment.
+  ...enrolRows(),
 ];
 
 let w: AuthWorld;

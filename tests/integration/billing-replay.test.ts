@@ -82,13 +82,11 @@ beforeAll(async () => {
         await w.stripe().invoices.list({ customer: (await customerOf(w.db, refunded.id)) ?? "", limit: 100 })
       ).data.at(-1);
       const pi = first?.payments?.data[0]?.payment.payment_intent;
-      await w
-        .stripe()
-        .refunds.create({
-          payment_intent: typeof pi === "string" ? pi : "",
-          amount: 500,
-          metadata: { reason: "Missed two lessons" },
-        });
+      await w.stripe().refunds.create({
+        payment_intent: typeof pi === "string" ? pi : "",
+        amount: 500,
+        metadata: { reason: "Missed two lessons" },
+      });
     }
     if (month === 6) {
       expect((await w.call("billing/cancel", "POST", { cookie: undecided.cookie })).status).toBe(200);

@@ -1,9 +1,10 @@
 // Today's data against a real database at fixed instants: the streak and the minutes per day are
 // counted in the student's own time zone; open assignments come by due date with overdue marked;
 // the next rung of a course; the teacher's latest words.
+import { insertEnrolment } from "@/db/queries/enrolments";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { courses, enrolments, grades, rungs, stageStates } from "@/db/schema";
+import { courses, grades, rungs, stageStates } from "@/db/schema";
 import { streakOf } from "@/lib/teaching/learn-dates";
 import { ASSIGNMENTS_PAGE_SIZE } from "@/lib/teaching/teach-schemas";
 import { CHART_DAYS, assignmentPage, todayFor } from "@/lib/teaching/today";
@@ -124,7 +125,7 @@ describe("assignments, next rung and feedback", () => {
     const [rung] = await w.db.select().from(rungs).where(eq(rungs.tuneId, tune.tuneId));
     const [grade] = await w.db.select().from(grades).where(eq(grades.id, rung.gradeId));
     const [course] = await w.db.select().from(courses).where(eq(courses.id, grade.courseId));
-    await w.db.insert(enrolments).values({ userId: p.id, courseId: course.id, status: "active" });
+    await insertEnrolment(w.db, { userId: p.id, courseId: course.id });
     const f = await makeAssignment(w.db, { teacherId, studentIds: [p.id], tuneId: tune.tuneId });
     const id = f.students[p.id];
     const { checkIn } = await import("@/lib/teaching/check-in");

@@ -161,6 +161,7 @@ describe("the listening aid's job", () => {
         .innerJoin(stageStates, eq(stageStates.id, checkIns.stageStateId))
         .where(eq(checkIns.id, good.checkInId))
     )[0].id;
+    if (!assignmentStudentId) throw new Error("this check-in belongs to an assignment");
     const res = await w.call("learn/assignments/[id]", "GET", {
       cookie: student.cookie,
       params: { id: assignmentStudentId },

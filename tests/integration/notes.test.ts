@@ -1,7 +1,8 @@
 // Margin notes through the real route handlers (issue 5 item 6): add, edit, delete; private to their
 // writer (another person's note id answers 404); validated with the same zod schema as the form.
+import { insertEnrolment } from "@/db/queries/enrolments";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { enrolments, tuneProgress } from "@/db/schema";
+import { tuneProgress } from "@/db/schema";
 import type { NoteJson } from "@/lib/catalogue/api-types";
 import { authWorld, type AuthWorld } from "./helpers/auth-world";
 import { makeCatalogueFixture, type CatalogueFixture } from "./helpers/catalogue-fixture";
@@ -20,7 +21,7 @@ beforeAll(async () => {
   const student = await w.person("student");
   const other = await w.person("student");
   f = await makeCatalogueFixture(w.db, { teacher, student });
-  await w.db.insert(enrolments).values({ userId: other.id, courseId: f.courseId, status: "active" });
+  await insertEnrolment(w.db, { userId: other.id, courseId: f.courseId });
   await giveMembership(w.db, other.id);
   await w.db.insert(tuneProgress).values({ userId: other.id, tuneId: f.tunes.A, reachedStage: 1 });
   me = await w.cookieFor(student.id);

@@ -1,10 +1,11 @@
 // The ladder bench's routes against a real database: grades and rungs, the rules (no empty
 // published course, a tune once per ladder, a required stage the tune has), reordering through
 // the unique positions, publish and unpublish, and whose course is whose.
+import { insertEnrolment } from "@/db/queries/enrolments";
 import { readFileSync } from "node:fs";
 import { asc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { enrolments, grades, rungs } from "@/db/schema";
+import { grades, rungs } from "@/db/schema";
 import type { CourseView } from "@/lib/courses/api-types";
 import { teachWorld } from "./helpers/teach-world";
 
@@ -220,7 +221,7 @@ describe("whose course", () => {
   it("keeps a course with enrolled students from being deleted, and deletes an unused draft", async () => {
     const id = await course();
     const student = await w.person("student");
-    await w.db.insert(enrolments).values({ userId: student.id, courseId: id });
+    await insertEnrolment(w.db, { userId: student.id, courseId: id });
     const res = await w.call(ONE, "DELETE", { cookie: me, params: { courseId: id } });
     expect(res.status).toBe(409);
     expect(await errorOf(res)).toMatch(/1 student is enrolled/);

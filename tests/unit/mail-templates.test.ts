@@ -45,6 +45,38 @@ const cases: { mail: AnyOutgoingMail; link: string; subject: RegExp }[] = [
     link: `${appUrl}/invite/i1`,
     subject: /Morag Reid invited you/,
   },
+  {
+    mail: {
+      to: "a@example.com",
+      template: "welcome-note",
+      data: {
+        studentName: "Ann",
+        teacherName: "Morag Reid",
+        courseTitle: "Slow Airs",
+        note: "Glad to have you: start with the first rung.",
+        courseUrl: "/learn/courses/slow-airs",
+      },
+    },
+    link: `${appUrl}/learn/courses/slow-airs`,
+    subject: /Morag Reid welcomes you to Slow Airs/,
+  },
+  {
+    mail: {
+      to: "t@example.com",
+      template: "new-members",
+      data: {
+        teacherName: "Morag Reid",
+        day: "Friday 4 December",
+        members: [
+          { name: "Ann", courseTitle: "Slow Airs" },
+          { name: "Bea", courseTitle: "Reels" },
+        ],
+        rosterUrl: "/teach",
+      },
+    },
+    link: `${appUrl}/teach`,
+    subject: /2 new members since Friday 4 December/,
+  },
 ];
 
 describe("e-mail templates", () => {
@@ -73,6 +105,43 @@ describe("e-mail templates", () => {
     );
     expect(invite.text).toMatch(/to teach/);
     expect(invite.text).toMatch(/1 day\b/);
+  });
+
+  it("lists every new member with their course, and words a comment on a self-paced check-in", async () => {
+    const digest = await renderMail(
+      "new-members",
+      {
+        teacherName: "Morag",
+        day: "Friday 4 December",
+        members: [
+          { name: "Ann Lea", courseTitle: "Slow Airs" },
+          { name: "Bea Orr", courseTitle: "Reels" },
+        ],
+        rosterUrl: "/teach",
+      },
+      { appUrl, schoolName },
+    );
+    expect(digest.text).toContain("Ann Lea, on “Slow Airs”");
+    expect(digest.text).toContain("Bea Orr, on “Reels”");
+    const comment = await renderMail(
+      "checkin-feedback",
+      {
+        studentName: "Ann",
+        teacherName: "Morag",
+        tuneTitle: "Hill Road",
+        stageName: "Skeleton",
+        outcome: "comment",
+        feedback: "Lovely even bowing.",
+        nextStageName: null,
+        assignmentUrl: "/learn/tunes/t1",
+        courseTitle: "Slow Airs",
+        recorded: false,
+      },
+      { appUrl, schoolName },
+    );
+    expect(comment.subject).toBe("Hill Road: a word from Morag on Skeleton");
+    expect(comment.text).toContain("Morag has a word on your check-in of Hill Road (Skeleton).");
+    expect(comment.html).toContain(`href="${appUrl}/learn/tunes/t1"`);
   });
 
   it("names the school from the frame, not the demo school", async () => {

@@ -53,6 +53,8 @@ describe("the permission table (PRODUCT.md §2)", () => {
       ["plans:manage", ["admin"]],
       ["money:view", ["admin"]],
       ["payments:refund", ["admin"]],
+      ["members:welcome", ["teacher", "admin"]],
+      ["enrolments:reassign", ["admin"]],
     ];
     for (const [action, who] of rules) expect(ACTORS.filter((a) => can(a, action))).toEqual(who);
   });

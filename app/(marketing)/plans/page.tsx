@@ -39,7 +39,9 @@ export default async function PlansPage({ searchParams }: { searchParams: Promis
             <p className="text-bark">Opens: {p.opens}</p>
             {!user ? (
               <div className="flex flex-col gap-2">
-                <LinkButton href="/sign-up">{`Choose ${p.name}`}</LinkButton>
+                <LinkButton
+                  href={`/sign-up?${new URLSearchParams({ plan: p.id, ...(course?.published ? { course: course.slug } : {}) })}`}
+                >{`Choose ${p.name}`}</LinkButton>
                 <p className="text-small text-bark">
                   Create an account first, or <Link href="/sign-in?next=/plans">sign in</Link> if you have one.
                 </p>

@@ -7,6 +7,7 @@ import { changeRole } from "../people";
 import { signIn } from "../sign-in";
 import { signUp } from "../sign-up";
 import { verifyEmail } from "../verify-email";
+import { chosenPlanFields } from "../chosen-plan";
 
 // Every server action of the accounts area, each wrapped by the one guard. The `"use server"`
 // files next to the forms only pass the real request's context to these; tests pass their own.
@@ -25,6 +26,8 @@ export const signUpAction = guardAction(
     name: z.string().trim().min(1, "Please tell us your name.").max(120, "Please shorten your name to 120 characters."),
     email,
     password: z.string().min(1, "Please choose a password."),
+    // The plan (and course) chosen before signing up: carried to its checkout, or quietly dropped when malformed.
+    ...chosenPlanFields,
   }),
   signUp,
 );
@@ -43,7 +46,11 @@ export const resetPasswordAction = guardAction(
   resetPassword,
 );
 
-export const verifyEmailAction = guardAction("account:verify-email", z.object({ token }), verifyEmail);
+export const verifyEmailAction = guardAction(
+  "account:verify-email",
+  z.object({ token, ...chosenPlanFields }),
+  verifyEmail,
+);
 
 export const acceptInvitationAction = guardAction(
   "invitation:accept",

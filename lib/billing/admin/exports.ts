@@ -52,6 +52,7 @@ export const ENROLMENT_CSV: CsvColumn<EnrolmentCsvRow>[] = [
   { header: "Membership", value: (r) => r.membership ?? "none" },
   { header: "Plan", value: (r) => safeText(r.plan) },
   { header: "Ended", value: (r) => iso(r.endedAt) },
+  { header: "Teacher", value: (r) => safeText(r.teacher) },
   { header: "Enrolment id", value: (r) => r.id },
 ];
 

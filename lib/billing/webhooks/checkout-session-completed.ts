@@ -1,6 +1,7 @@
 import { customerOf, setCustomer, userByCustomer } from "@/db/queries/billing";
 import { eq } from "drizzle-orm";
-import { courses, enrolments } from "@/db/schema";
+import { insertEnrolment } from "@/db/queries/enrolments";
+import { courses } from "@/db/schema";
 import { checkoutSessionObject } from "../objects";
 import { ensureSubscription } from "../sync";
 import type { Handler } from "./types";
@@ -18,7 +19,6 @@ export const checkoutSessionCompleted: Handler = async (db, event, stripe) => {
   if (s.subscription) await ensureSubscription(db, stripe, s.subscription, event.created);
   if (meta.courseId && /^[0-9a-f-]{36}$/i.test(meta.courseId)) {
     const [course] = await db.select({ id: courses.id }).from(courses).where(eq(courses.id, meta.courseId)).limit(1);
-    if (course)
-      await db.insert(enrolments).values({ userId, courseId: meta.courseId, status: "active" }).onConflictDoNothing();
+    if (course) await db.transaction((tx) => insertEnrolment(tx, { userId, courseId: course.id }));
   }
 };

@@ -1,9 +1,10 @@
 // A small catalogue for route tests: one published course of the teacher with three rungs (a taster,
 // then two more across two grades), one unpublished course, and the student enrolled with some
 // progress. Tunes are invented for these tests.
+import { insertEnrolment } from "@/db/queries/enrolments";
 import { analyze } from "@/lib/abc";
 import type { Db } from "@/db/client";
-import { courses, enrolments, grades, marginNotes, rungs, tuneProgress, tunes, tuneStages } from "@/db/schema";
+import { courses, grades, marginNotes, rungs, tuneProgress, tunes, tuneStages } from "@/db/schema";
 import { giveMembership } from "./membership";
 
 /** An invented polka with every kind of embellishment, so its four stages differ. */
@@ -63,11 +64,11 @@ export async function makeCatalogueFixture(
   const slug = `fixture-${Math.random().toString(36).slice(2, 10)}`;
   const [course] = await db
     .insert(courses)
-    .values({ teacherId: t, slug, title: `Fixture Course${tag}`, publishedAt: new Date() })
+    .values({ teacherId: t, leadTeacherId: t, slug, title: `Fixture Course${tag}`, publishedAt: new Date() })
     .returning({ id: courses.id });
   const [draft] = await db
     .insert(courses)
-    .values({ teacherId: t, slug: `${slug}-draft`, title: `Fixture Draft Course${tag}` })
+    .values({ teacherId: t, leadTeacherId: t, slug: `${slug}-draft`, title: `Fixture Draft Course${tag}` })
     .returning({ id: courses.id });
   const [g1] = await db
     .insert(grades)
@@ -91,7 +92,7 @@ export async function makeCatalogueFixture(
     ])
     .returning({ id: rungs.id, tuneId: rungs.tuneId });
   const rungOf = (tune: string) => made.find((r) => r.tuneId === tune)?.id ?? "";
-  await db.insert(enrolments).values({ userId: people.student.id, courseId: course.id, status: "active" });
+  await insertEnrolment(db, { userId: people.student.id, courseId: course.id });
   // Member-only rungs open to members in good standing (lib/billing/gate.ts).
   await giveMembership(db, people.student.id);
   // The taster is reached at stage 1 (its required stage), so rung B is open; B is started at 0, so C stays locked.

@@ -57,7 +57,13 @@ export async function makeTune(
   if (o.taster !== false) {
     const [course] = await db
       .insert(courses)
-      .values({ teacherId, slug: `learn-${randomUUID()}`, title: `Course of ${title}`, publishedAt: new Date() })
+      .values({
+        teacherId,
+        leadTeacherId: teacherId,
+        slug: `learn-${randomUUID()}`,
+        title: `Course of ${title}`,
+        publishedAt: new Date(),
+      })
       .returning({ id: courses.id });
     const [grade] = await db
       .insert(grades)

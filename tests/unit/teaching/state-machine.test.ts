@@ -51,6 +51,7 @@ const ctx = (state: StageState, who: Who, o: Partial<DecideContext> = {}): Decid
   unlockRule: "teacher_sign_off",
   unlockMinutes: null,
   isLastStage: false,
+  feedback: "Keep the bow straighter in the B part.",
   ...o,
 });
 
@@ -77,6 +78,7 @@ describe("decide: the whole table", () => {
             const stranger = who === "otherStudent" || who === "otherTeacher";
             const rightPerson =
               t === "checkIn" || t === "withdraw" ? who === "owner" : who === "teacher" || who === "admin";
+            // (Undoing a "needs more time" needs one to undo: without it the reviewer is answered 409.)
             if (!d.ok) expect(d.status).toBe(stranger ? 404 : rightPerson ? 409 : 403);
             if (!d.ok) expect(d.message.length).toBeGreaterThan(10);
           }
@@ -184,6 +186,95 @@ describe("decide: what opens", () => {
     expect(decide("checkIn", ctx("open", "owner", { unlockMinutes: 10, minutesSinceOpened: 500 }))).toMatchObject({
       ok: true,
       next: "checked_in",
+    });
+  });
+});
+
+describe("decide: a course's pace", () => {
+  it("self-paced: a check-in signs the stage off at once and opens the next, whatever the minutes", () => {
+    expect(decide("checkIn", ctx("open", "owner", { unlockRule: "self_paced", holder: "course" }))).toEqual({
+      ok: true,
+      next: "signed_off",
+      checkInStatus: "signed_off",
+      opensNext: true,
+    });
+    expect(
+      decide("checkIn", ctx("open", "owner", { unlockRule: "self_paced", holder: "course", isLastStage: true })),
+    ).toMatchObject({ ok: true, next: "signed_off", opensNext: false });
+  });
+  it("teacher sign-off on a course: the check-in waits, and the enrolment's teacher signs it off", () => {
+    const course = { holder: "course" as const };
+    expect(decide("checkIn", ctx("open", "owner", course))).toMatchObject({ ok: true, next: "checked_in" });
+    expect(decide("signOff", ctx("checked_in", "teacher", course))).toMatchObject({ ok: true, opensNext: true });
+  });
+  it("a course stage of an enrolment that is not active changes for nobody, in the course's words", () => {
+    expect(
+      decide(
+        "checkIn",
+        ctx("open", "owner", { holder: "course", unlockRule: "self_paced", assignmentStatus: "withdrawn" }),
+      ),
+    ).toEqual({ ok: false, status: 409, message: "This enrolment is not active; its stages can't change." });
+    expect(decide("checkIn", ctx("open", "otherStudent", { holder: "course" }))).toMatchObject({
+      ok: false,
+      status: 404,
+      message: "Stage not found.",
+    });
+  });
+});
+
+describe("decide: needs more time asks for a sentence and can be undone for 10 minutes", () => {
+  it("refuses needs more time without a sentence (fewer than three words), naming the field", () => {
+    for (const feedback of [undefined, "", "   ", "Slower.", "More practice"]) {
+      expect(decide("needsMoreTime", ctx("checked_in", "teacher", { feedback }))).toMatchObject({
+        ok: false,
+        status: 422,
+        field: "feedback",
+      });
+    }
+    expect(decide("needsMoreTime", ctx("checked_in", "teacher", { feedback: "Slower, and steadier." }))).toMatchObject({
+      ok: true,
+      next: "open",
+    });
+  });
+  it("a sign-off needs no words", () => {
+    expect(decide("signOff", ctx("checked_in", "teacher", { feedback: "" }))).toMatchObject({ ok: true });
+  });
+
+  const reviewedAt = new Date("2026-12-05T10:00:00Z");
+  const last = { status: "needs_more_time" as const, reviewedAt, reviewedBy: "t1" };
+  const at = (minutes: number) => new Date(reviewedAt.getTime() + minutes * 60_000);
+  it("undoes within 10 minutes, by whoever gave it: the check-in waits again", () => {
+    expect(decide("undoNeedsMoreTime", ctx("open", "teacher", { lastReview: last, now: at(9.9) }))).toEqual({
+      ok: true,
+      next: "checked_in",
+      checkInStatus: "waiting",
+      opensNext: false,
+    });
+  });
+  it("refuses at 10 minutes and after, to another reviewer, and once the student moved on", () => {
+    expect(decide("undoNeedsMoreTime", ctx("open", "teacher", { lastReview: last, now: at(10) }))).toMatchObject({
+      ok: false,
+      status: 409,
+      message: expect.stringMatching(/10 minutes/),
+    });
+    expect(decide("undoNeedsMoreTime", ctx("open", "admin", { lastReview: last, now: at(1) }))).toMatchObject({
+      ok: false,
+      status: 403,
+    });
+    expect(decide("undoNeedsMoreTime", ctx("checked_in", "teacher", { lastReview: last, now: at(1) }))).toMatchObject({
+      ok: false,
+      status: 409,
+      message: expect.stringMatching(/moved on/),
+    });
+    expect(
+      decide(
+        "undoNeedsMoreTime",
+        ctx("open", "teacher", { lastReview: { ...last, status: "signed_off" }, now: at(1) }),
+      ),
+    ).toMatchObject({ ok: false, status: 409 });
+    expect(decide("undoNeedsMoreTime", ctx("open", "owner", { lastReview: last, now: at(1) }))).toMatchObject({
+      ok: false,
+      status: 403,
     });
   });
 });
