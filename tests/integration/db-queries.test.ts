@@ -32,13 +32,24 @@ describe("db/queries against a migrated throwaway database", () => {
   });
 
   it("seeds an admin, three teachers and 32 students, and a second seed changes nothing", async () => {
+    const rosterRows = async () => (await t.db.select({ n: sql<number>`count(*)::int` }).from(rosterEntries))[0].n;
     const first = await seed(t.db);
+    const roster = await rosterRows();
     const second = await seed(t.db);
     // 1 admin + 3 teachers + 32 students + the person made above
     expect(first.people).toBe(1 + TEACHERS.length + STUDENTS.length + 1);
     expect(second.people).toBe(first.people);
-    const roster = await t.db.select({ n: sql<number>`count(*)::int` }).from(rosterEntries);
-    expect(roster[0].n).toBe(STUDENTS.length);
+    expect(await rosterRows()).toBe(roster);
+    // Every demo student has a teacher, and each enrolment's teacher has the student on their roster.
+    const students = await t.db.execute<{ n: number }>(
+      sql`select count(distinct student_id)::int as n from roster_entries`,
+    );
+    expect(students[0].n).toBe(STUDENTS.length);
+    const missing = await t.db.execute<{ n: number }>(
+      sql`select count(*)::int as n from enrolments e where not exists
+            (select 1 from roster_entries r where r.teacher_id = e.teacher_id and r.student_id = e.user_id)`,
+    );
+    expect(missing[0].n).toBe(0);
   });
 
   it("lists a teacher's roster and answers whether a student is on it", async () => {

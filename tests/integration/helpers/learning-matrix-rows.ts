@@ -160,15 +160,13 @@ export async function giveMembership(db: Db, userId: string): Promise<void> {
     .insert(plans)
     .values({ name: "Test monthly", amount: 1200, currency: "GBP", interval: "month" })
     .returning({ id: plans.id });
-  await db
-    .insert(subscriptions)
-    .values({
-      userId,
-      planId: plan.id,
-      stripeSubscriptionId: `sub_test_${randomUUID()}`,
-      status: "active",
-      currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000),
-    });
+  await db.insert(subscriptions).values({
+    userId,
+    planId: plan.id,
+    stripeSubscriptionId: `sub_test_${randomUUID()}`,
+    status: "active",
+    currentPeriodEnd: new Date(Date.now() + 30 * 86_400_000),
+  });
 }
 
 export async function makePractice(
