@@ -6,37 +6,13 @@
 // leaves out page, size and order), so paging and re-sorting never wait for a recount.
 import { useQuery } from "@tanstack/react-query";
 import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
-import { usePathname, useSearchParams } from "next/navigation";
-import { useMemo, type ComponentProps, type MouseEvent } from "react";
+import { useMemo } from "react";
 import { Alert } from "@/components/ui/alert";
-import { buttonClasses } from "@/components/ui/button";
-import { cx } from "@/components/ui/cx";
+import { PagerLink } from "@/components/ui/pager-link";
+import { useQueryLinks } from "@/components/ui/query-links";
 import { TableShell, TBody, Td, Th, THead } from "@/components/ui/table";
 import { errorWords, fetchJson } from "@/lib/catalogue/fetch-json";
 import { FilterBar, type FilterDef } from "./filter-bar";
-
-/** The query without its empty values. */
-function withoutEmpty(params: URLSearchParams): URLSearchParams {
-  const kept = new URLSearchParams();
-  params.forEach((v, k) => {
-    if (v.trim() !== "") kept.append(k, v);
-  });
-  return kept;
-}
-
-/** A pager link, or the same words shown as unavailable where there is no such page. */
-function PagerLink({ enabled, children, ...link }: ComponentProps<"a"> & { enabled: boolean }) {
-  const classes = buttonClasses("secondary", "sm");
-  return enabled ? (
-    <a className={classes} {...link}>
-      {children}
-    </a>
-  ) : (
-    <span className={cx(classes, "cursor-not-allowed opacity-60")} aria-disabled="true">
-      {children}
-    </span>
-  );
-}
 
 export type Page<R> = { rows: R[]; hasMore: boolean; page: number; pageSize: number };
 
@@ -59,13 +35,11 @@ export type ServerTableProps<R> = {
 };
 
 export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSort, getRowId }: ServerTableProps<R>) {
-  const pathname = usePathname() ?? "";
-  // The filter form, sent before the page hydrates, writes its empty fields too: those mean "any".
-  const params = withoutEmpty(useSearchParams() ?? new URLSearchParams());
+  const { pathname, params, go, linkTo, pageOf } = useQueryLinks();
   const query = params.toString();
   const sort = params.get("sort") ?? defaultSort;
   const dir = params.get("dir") === "asc" ? "asc" : "desc";
-  const page = Math.max(1, Number(params.get("page") ?? "1") || 1);
+  const page = pageOf();
   const pageSize = Math.min(100, Math.max(1, Number(params.get("pageSize") ?? "25") || 25));
 
   const data = useQuery({
@@ -77,38 +51,6 @@ export function ServerTable<R>({ caption, endpoint, columns, filters, defaultSor
   const count = useQuery({
     queryKey: ["admin-table", endpoint, "count", filterKey],
     queryFn: () => fetchJson<{ total: number }>(`${endpoint}/count?${filterKey}`),
-  });
-
-  /** The address with a change; any change but the page itself starts again at page 1. */
-  function hrefWith(change: Record<string, string | null>): string {
-    const next = new URLSearchParams(params);
-    for (const [k, v] of Object.entries(change)) {
-      if (v === null || v === "") next.delete(k);
-      else next.set(k, v);
-    }
-    if (!("page" in change)) next.delete("page");
-    return `${pathname}?${next.toString()}`;
-  }
-
-  /**
-   * Sort headers and pager are links (and the filters a GET form), so they work before the page hydrates;
-   * once it has, a click changes the address in place instead.
-   */
-  function go(change: Record<string, string | null>) {
-    // The browser's own history, not router.replace: the server part of the page does not read the
-    // query (the rows come from the route handlers), so a router navigation only cost a server round
-    // trip per sort, page or filter, with useSearchParams holding the old query until it landed.
-    // Next.js keeps useSearchParams in step with replaceState (Next.js docs, "Linking and
-    // Navigating": using the native History API, 14.1+).
-    window.history.replaceState(null, "", hrefWith(change));
-  }
-  const linkTo = (change: Record<string, string | null>) => ({
-    href: hrefWith(change),
-    onClick: (e: MouseEvent<HTMLAnchorElement>) => {
-      if (e.metaKey || e.ctrlKey || e.shiftKey || e.button !== 0) return; // a new tab or window: the browser's
-      e.preventDefault();
-      go(change);
-    },
   });
 
   const total = count.data?.total;

@@ -4,6 +4,7 @@
 // a print view. Used for students (/learn/tunes) and for the public taster (/catalogue/tunes).
 import Link from "next/link";
 import { lazy, Suspense, useEffect, useState } from "react";
+import { useQueryLinks } from "@/components/ui/query-links";
 import { ApiError, errorWords } from "@/lib/catalogue/fetch-json";
 import type { TuneJson } from "@/lib/catalogue/api-types";
 import { useStage, useTune } from "./use-tune";
@@ -28,16 +29,19 @@ export interface TunePageProps {
   notes: boolean;
 }
 
-/** The stage to show first: the furthest open one, where the student is working. */
-const firstStage = (t: TuneJson): number => Math.max(1, ...t.stages.filter((s) => s.allowed).map((s) => s.index));
+/** The stage asked for in the address (?stage=3) if it is open, else the furthest open one, where the student is working. */
+function shownStage(t: TuneJson, asked: string | null): number {
+  const open = t.stages.filter((s) => s.allowed).map((s) => s.index);
+  const wanted = Number(asked);
+  return open.includes(wanted) ? wanted : Math.max(1, ...open);
+}
 
 export function TunePage({ tuneId, area, notes }: TunePageProps) {
   const tune = useTune(tuneId);
-  const [stage, setStage] = useState<number | null>(null);
+  // The stage shown is in the address, so a reload, a shared link and Back show the same music.
+  const { params, go } = useQueryLinks();
+  const stage = tune.data ? shownStage(tune.data, params.get("stage")) : null;
   const [bar, setBar] = useState<number | null>(null);
-  useEffect(() => {
-    if (tune.data && stage === null) setStage(firstStage(tune.data));
-  }, [tune.data, stage]);
   const music = useStage(tuneId, stage);
   useEffect(() => void loadMusic(), []); // fetch the music's code while the tune's data is on its way
 
@@ -87,7 +91,8 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
         <StageSelector
           stages={t.stages.map((s) => ({ index: s.index, name: s.name, locked: !s.allowed, reason: s.reason }))}
           value={stage ?? 1}
-          onChange={setStage}
+          // In place: arrowing through the stages is one step, not one history entry per stage.
+          onChange={(index) => go({ stage: String(index) }, { replace: true })}
         />
       </Suspense>
       {music.isPending || music.isPlaceholderData ? (
@@ -113,7 +118,7 @@ export function TunePage({ tuneId, area, notes }: TunePageProps) {
       ) : null}
       {area === "learn" ? (
         <Suspense fallback={waiting("your check-ins")}>
-          <ClimbPanel tuneId={tuneId} onOpened={setStage} />
+          <ClimbPanel tuneId={tuneId} onOpened={(index) => go({ stage: String(index) })} />
         </Suspense>
       ) : null}
       <div className="grid gap-6 lg:grid-cols-2">

@@ -2,7 +2,7 @@
 // CSV, refunds part of a payment with a reason, and the student's billing page shows that refund.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type { Browser, Locator, Page } from "playwright-core";
-import { BASE_URL, hydrated, launch, screenshot } from "./helpers/browser";
+import { BASE_URL, follow, hydrated, launch, screenshot } from "./helpers/browser";
 import { ADMIN, DEMO_PASSWORD, STUDENTS } from "@/db/seed-data/people";
 
 let browser: Browser;
@@ -199,9 +199,28 @@ describe("admin payments in a real browser", () => {
     const pages = Math.ceil(students / 25);
     await page.getByText(`Page 1 of ${pages}`).waitFor();
     expect(await page.locator("tbody tr").count()).toBe(25);
-    await page.getByRole("navigation", { name: "Roster pages" }).getByRole("button", { name: "Next" }).click();
+    await follow(
+      page,
+      page.getByRole("navigation", { name: "Roster pages" }).getByRole("link", { name: "Next" }),
+      /\/teach\?page=2$/,
+    );
     await page.getByText(`Page 2 of ${pages}`).waitFor();
     expect(await page.locator("tbody tr").count()).toBe(Math.min(25, students - 25));
+    // Sorting is a link too: a new order starts again at page 1, and the header says how it is sorted.
+    await follow(page, page.getByRole("link", { name: "Last practice" }), /\/teach\?sort=lastPractice&dir=asc$/);
+    await page.locator("th[aria-sort=ascending]", { hasText: "Last practice" }).waitFor();
+    await page.getByText(`Page 1 of ${pages}`).waitFor();
+    // The name filter narrows the list as it is typed and is kept in the address, so a reload keeps it.
+    await page.getByLabel("Filter by name").fill("Alder");
+    await page.waitForURL(/\/teach\?sort=lastPractice&dir=asc&q=Alder$/);
+    const names = await page.locator("tbody tr td:first-child").allInnerTexts();
+    expect(names.length).toBeGreaterThan(0);
+    expect(names.every((n) => n.includes("Alder"))).toBe(true);
+    await page.reload();
+    await page.locator("tbody tr td:first-child").first().waitFor();
+    expect(await page.locator("tbody tr td:first-child").allInnerTexts()).toEqual(names);
+    expect(await page.getByLabel("Filter by name").inputValue()).toBe("Alder");
+    expect(await page.locator("th[aria-sort=ascending]").innerText()).toContain("Last practice");
     await page.goto(`${BASE_URL}/admin/revenue`);
     await page.getByRole("table", { name: "Revenue by month in GBP" }).waitFor();
     expect(await page.locator("table[aria-label], table").last().locator("tbody tr").count()).toBe(12);

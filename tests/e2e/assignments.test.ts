@@ -258,16 +258,24 @@ describe("assignments, check-in and sign-off in the browser", () => {
       }
       return list.total + 21;
     }, junoId);
-    await open(teacher, "/teach/assignments", "nav[aria-label='Assignment pages'] button");
+    await open(teacher, "/teach/assignments", "nav[aria-label='Assignment pages'] a");
     const pages = Math.ceil(made / 20);
     await teacher.getByText(`Page 1 of ${pages} · ${made} assignments`).waitFor();
     expect(await teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count()).toBe(20);
-    await teacher.getByRole("button", { name: "Next" }).click();
+    // The pager is a link: the page is in the address, and Back returns to the first page.
+    await follow(
+      teacher,
+      teacher.getByRole("navigation", { name: "Assignment pages" }).getByRole("link", { name: "Next" }),
+      /\/teach\/assignments\?page=2$/,
+    );
     await teacher.getByText(`Page 2 of ${pages} · ${made} assignments`).waitFor();
     await expect
       .poll(() => teacher.getByRole("list", { name: "Assignments" }).locator(":scope > li").count())
       .toBe(pages === 2 ? made - 20 : 20);
     await screenshot(teacher, "assignments-10-list-page-2");
+    await teacher.goBack();
+    await teacher.getByText(`Page 1 of ${pages} · ${made} assignments`).waitFor();
+    expect(teacher.url()).toMatch(/\/teach\/assignments$/);
   });
 
   it("the student's list pages too: this week's work first, the rest after Next", async () => {

@@ -81,7 +81,11 @@ describe("with the keyboard alone", () => {
     await tabTo(page, bowing); // a radio group is one stop in the tab order: the chosen stage
     await page.keyboard.press("ArrowLeft");
     await expect.poll(() => core.isChecked()).toBe(true);
+    // The stage shown is in the address: a reload shows the same stage.
+    expect(page.url()).toMatch(/\/learn\/tunes\/[0-9a-f-]{36}\?stage=1$/);
+    await page.reload();
     await page.waitForSelector('[data-notation-state="ready"] svg', { timeout: 60_000 });
+    expect(await core.isChecked()).toBe(true);
 
     const play = page.getByRole("button", { name: "Play" });
     await tabTo(page, play);
