@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Suspense } from "react";
 import { PageContainer } from "@/components/layout/page-container";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { NewMembers } from "@/components/teaching/new-members";
@@ -51,7 +52,10 @@ export default async function RosterPage() {
         </Card>
       ) : (
         <QueryProvider>
-          <RosterTable />
+          {/* The table reads the address's query (useSearchParams): its own boundary, as every such client part has. */}
+          <Suspense fallback={<p className="text-bark">Loading your students…</p>}>
+            <RosterTable />
+          </Suspense>
         </QueryProvider>
       )}
     </PageContainer>

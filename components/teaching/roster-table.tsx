@@ -11,6 +11,7 @@ import {
   type ColumnFiltersState,
   type SortingState,
 } from "@tanstack/react-table";
+import { useMemo } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
@@ -40,11 +41,16 @@ export function RosterTable() {
   const desc = params.get("dir") === "desc";
   const nameFilter = params.get("q") ?? "";
   const onlyOverdue = params.get("overdue") === "1";
-  const sorting: SortingState = [{ id: sortId, desc }];
-  const filters: ColumnFiltersState = [
-    ...(nameFilter ? [{ id: "name", value: nameFilter }] : []),
-    ...(onlyOverdue ? [{ id: "overdueAssignments", value: true }] : []),
-  ];
+  // Kept the same object while the query is the same: a new one each render is a new state to TanStack Table,
+  // which re-sorts and re-renders without end.
+  const sorting: SortingState = useMemo(() => [{ id: sortId, desc }], [sortId, desc]);
+  const filters: ColumnFiltersState = useMemo(
+    () => [
+      ...(nameFilter ? [{ id: "name", value: nameFilter }] : []),
+      ...(onlyOverdue ? [{ id: "overdueAssignments", value: true }] : []),
+    ],
+    [nameFilter, onlyOverdue],
+  );
   const table = useReactTable({
     data: q.data?.students ?? [],
     columns: rosterColumns,
@@ -52,6 +58,7 @@ export function RosterTable() {
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),
     getFilteredRowModel: getFilteredRowModel(),
+    autoResetPageIndex: false, // paged below, from the address
   });
   if (q.isPending) return <p className="text-bark">Loading your students…</p>;
   if (q.isError) return <Alert tone="error">{errorWords(q.error)}</Alert>;

@@ -1,10 +1,10 @@
 "use client";
 // A list's sort, filters and page kept in the address's query: its controls are real links (and GET
 // forms), so they work before the page hydrates, a reload or a shared address shows the same view, and
-// Back steps through the views. Once hydrated, a click changes the address in place (pushState) instead
-// of asking the server again: these lists read the query on the client, and Next.js keeps
-// useSearchParams in step with the History API (Next.js docs, "Linking and Navigating": native History API).
-import { usePathname, useSearchParams } from "next/navigation";
+// Back steps through the views. Once hydrated, a click goes through the router without scrolling. Not the
+// bare History API: Next.js 16 let a second pushState/replaceState on a page change the address while
+// useSearchParams kept the first one's query (seen with a browser probe on the roster).
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
 import type { MouseEvent } from "react";
 
 export type QueryChange = Record<string, string | null>;
@@ -20,6 +20,7 @@ function withoutEmpty(params: URLSearchParams): URLSearchParams {
 
 export function useQueryLinks() {
   const pathname = usePathname() ?? "";
+  const router = useRouter();
   const params = withoutEmpty(useSearchParams() ?? new URLSearchParams());
 
   /** The address with a change; any change but the page itself starts again at page 1. */
@@ -34,10 +35,10 @@ export function useQueryLinks() {
     return query ? `${pathname}?${query}` : pathname;
   }
 
-  /** Changes the address in place; `replace` for a change made while typing, so Back skips each letter. */
+  /** Goes to the changed address; `replace` for a change made while typing, so Back skips each letter. */
   function go(change: QueryChange, { replace = false } = {}) {
-    if (replace) window.history.replaceState(null, "", hrefWith(change));
-    else window.history.pushState(null, "", hrefWith(change));
+    if (replace) router.replace(hrefWith(change), { scroll: false });
+    else router.push(hrefWith(change), { scroll: false });
   }
 
   /** A link's href and a click handler that leaves new tabs and windows to the browser. */

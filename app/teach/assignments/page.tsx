@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import { Suspense } from "react";
 import { PageContainer } from "@/components/layout/page-container";
 import { QueryProvider } from "@/components/providers/query-provider";
 import { AssignmentList } from "@/components/teaching/assignment-list";
@@ -29,7 +30,9 @@ export default async function AssignmentsPage() {
         </div>
       </header>
       <QueryProvider>
-        <AssignmentList />
+        <Suspense fallback={<p className="text-bark">Loading your assignments…</p>}>
+          <AssignmentList />
+        </Suspense>
       </QueryProvider>
     </PageContainer>
   );
